@@ -1,0 +1,25 @@
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import type { AppAbility, Role } from '@heatfleet/domain';
+import type { Env } from './config/env.ts';
+import type { Clock } from './lib/clock.ts';
+import type { MailQueue } from './modules/mail/mail-queue.ts';
+import type { SignInLimiter } from './modules/auth/sign-in-limiter.ts';
+
+/** What the app is built from: created once in server.ts, or per test. */
+export interface AppDeps {
+  env: Env;
+  db: Knex;
+  clock: Clock;
+  logger: Logger;
+  mailQueue: MailQueue;
+  signInLimiter: SignInLimiter;
+}
+
+/** The signed-in member acting in their active firm. */
+export interface Actor {
+  userId: number;
+  firmId: number;
+  role: Role;
+  ability: AppAbility;
+}

@@ -1,0 +1,71 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { AppDeps } from './app-deps.ts';
+import { csrfProtection, originCheck } from './middleware/csrf.ts';
+import { errorHandler, notFoundHandler } from './middleware/error-handler.ts';
+import { requestId } from './middleware/request-id.ts';
+import { createSessionMiddleware } from './middleware/session.ts';
+import { apiRoutes } from './routes/api-routes.ts';
+import { mountRoutes } from './routes/mount-routes.ts';
+
+/** Builds the app from its dependencies; it never listens (server.ts does). */
+export function createApp(deps: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', deps.env.TRUST_PROXY);
+  app.set('query parser', 'simple');
+
+  app.use(requestId);
+  app.use(pinoHttp({ logger: deps.logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          baseUri: ["'none'"],
+          formAction: ["'self'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: '100kb' }));
+  api.use(createSessionMiddleware(deps.env, deps.db, deps.logger));
+  api.use(originCheck(deps.env.APP_ORIGIN));
+  api.use(csrfProtection);
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(mountRoutes(apiRoutes, deps));
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  // The built client, with the SPA's routes falling back to index.html.
+  const dist = deps.env.WEB_DIST_DIR;
+  if (dist && existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(dist, 'index.html'));
+    });
+  }
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,44 @@
+import { z } from 'zod';
+
+// The one place that reads process.env: parsed once, and the process fails fast on a bad value.
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  PORT: z.coerce.number().int().min(1).max(65535).default(5173),
+  APP_ORIGIN: z.url().default('http://localhost:5173'),
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
+  DATABASE_HOST: z.string().default('127.0.0.1'),
+  DATABASE_PORT: z.coerce.number().int().default(3406),
+  DATABASE_USER: z.string().default('heatfleet'),
+  DATABASE_PASSWORD: z.string().default('heatfleet-local'),
+  DATABASE_NAME: z.string().default('heatfleet'),
+  REDIS_URL: z.string().default('redis://127.0.0.1:6479'),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().default(2525),
+  SMTP_SECURE: z.stringbool().default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Heatfleet <no-reply@heatfleet.example>'),
+  SESSION_SECRET: z.string().min(32, { error: 'SESSION_SECRET must be at least 32 characters.' }),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(120),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  OUTBOX_DIR: z.string().optional(),
+  WEB_DIST_DIR: z.string().optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export function parseEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = envSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Heatfleet cannot start: the environment is not valid.\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}
+
+let cached: Env | undefined;
+export function env(): Env {
+  cached ??= parseEnv();
+  return cached;
+}

@@ -1,0 +1,24 @@
+import type { AppDeps } from './app-deps.ts';
+import type { Env } from './config/env.ts';
+import { createKnex } from './db/knex.ts';
+import { systemClock, type Clock } from './lib/clock.ts';
+import { createLogger } from './lib/logger.ts';
+import { createSignInLimiter, type SignInLimits } from './modules/auth/sign-in-limiter.ts';
+import { createMailQueue } from './modules/mail/mail-queue.ts';
+
+export function createDeps(env: Env, overrides: { clock?: Clock; limits?: SignInLimits } = {}): AppDeps {
+  const logger = createLogger(env.LOG_LEVEL);
+  return {
+    env,
+    logger,
+    db: createKnex(env),
+    clock: overrides.clock ?? systemClock,
+    mailQueue: createMailQueue(env.REDIS_URL, logger),
+    signInLimiter: createSignInLimiter(overrides.limits),
+  };
+}
+
+export async function closeDeps(deps: AppDeps): Promise<void> {
+  await deps.mailQueue.close();
+  await deps.db.destroy();
+}

@@ -1,0 +1,77 @@
+import session, { type SessionOptions } from 'express-session';
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import type { Env } from '../config/env.ts';
+
+declare module 'express-session' {
+  interface SessionData {
+    userId: number;
+    firmId: number;
+    /** Epoch milliseconds: the absolute lifetime counts from here. */
+    signedInAt: number;
+    /** Epoch milliseconds: the idle timeout counts from here. */
+    lastSeenAt: number;
+  }
+}
+
+export const SESSION_COOKIE = 'heatfleet.sid';
+const SESSION_CLEANUP_MS = 15 * 60 * 1000;
+
+/**
+ * connect-session-knex, hardened for a database that comes and goes: the table comes from a
+ * migration (its own "create table" check would reject forever if the database was down at
+ * boot), and touch() reports errors to express-session instead of rejecting unhandled.
+ */
+class SessionStore extends ConnectSessionKnexStore {
+  constructor(knex: Knex, logger: Logger) {
+    super({
+      knex,
+      tableName: 'sessions',
+      createTable: false,
+      cleanupInterval: 0,
+      onDbCleanupError: (err) => logger.warn({ err }, 'session cleanup failed'),
+    });
+    this.ready.catch(() => undefined);
+    this.ready = Promise.resolve();
+    this.options.cleanupInterval = SESSION_CLEANUP_MS;
+    // dbCleanup is private in the typings but is the store's own timer loop; it catches its errors.
+    void (this as unknown as { dbCleanup(): Promise<void> }).dbCleanup();
+  }
+
+  override async touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    try {
+      await super.touch(sid, sess);
+      callback?.();
+    } catch (err) {
+      callback?.(err);
+    }
+  }
+}
+
+export function createSessionMiddleware(env: Env, knex: Knex, logger: Logger) {
+  const options: SessionOptions = {
+    name: SESSION_COOKIE,
+    secret: env.SESSION_SECRET,
+    store: new SessionStore(knex, logger),
+    resave: false,
+    saveUninitialized: false,
+    rolling: false,
+    proxy: env.TRUST_PROXY > 0,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      // Secure whenever the request arrived over HTTPS (directly or through a trusted proxy).
+      secure: 'auto',
+      maxAge: env.SESSION_ABSOLUTE_HOURS * 60 * 60 * 1000,
+    },
+  };
+  return session(options);
+}
+
+/** Ends every session of a person, except the one given (the one making the change). */
+export async function endSessionsOfUser(db: Knex, userId: number, exceptSid?: string): Promise<number> {
+  const query = db('sessions').whereRaw("JSON_VALUE(sess, '$.userId') = ?", [userId]);
+  if (exceptSid) query.whereNot('sid', exceptSid);
+  return query.del();
+}

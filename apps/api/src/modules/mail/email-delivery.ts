@@ -1,0 +1,41 @@
+import type { Knex } from 'knex';
+import nodemailer, { type Transporter } from 'nodemailer';
+import type { Env } from '../../config/env.ts';
+import type { Clock } from '../../lib/clock.ts';
+import { findUnsentEmail, markEmailSent, recordEmailFailure } from './mail-dal.ts';
+
+export function createTransport(env: Env): Transporter {
+  return nodemailer.createTransport({
+    host: env.SMTP_HOST,
+    port: env.SMTP_PORT,
+    secure: env.SMTP_SECURE,
+    auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASSWORD ?? '' } : undefined,
+    // The local catcher speaks plain SMTP; a real relay negotiates TLS itself.
+    ignoreTLS: !env.SMTP_SECURE && !env.SMTP_USER,
+    connectionTimeout: 10_000,
+  });
+}
+
+/**
+ * Sends one stored e-mail. A row already marked sent is skipped, so a duplicated or retried
+ * job does not send it twice; a failure is recorded and rethrown for the queue's backoff.
+ */
+export async function deliverEmail(db: Knex, transport: Transporter, from: string, clock: Clock, emailId: number): Promise<'sent' | 'already-sent'> {
+  const email = await findUnsentEmail(db, emailId);
+  if (!email) return 'already-sent';
+  try {
+    await transport.sendMail({
+      from,
+      to: email.to_address,
+      subject: email.subject,
+      text: email.text_body,
+      html: email.html_body ?? undefined,
+      headers: { 'X-Heatfleet-Email-Id': String(email.id) },
+    });
+  } catch (err) {
+    await recordEmailFailure(db, emailId, err instanceof Error ? err.message : String(err));
+    throw err;
+  }
+  await markEmailSent(db, emailId, clock.now());
+  return 'sent';
+}

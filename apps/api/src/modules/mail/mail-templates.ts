@@ -1,0 +1,45 @@
+import { roleLabels, type Role } from '@heatfleet/domain';
+
+export interface RenderedEmail {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
+function layout(paragraphs: string[], link: { href: string; label: string }): string {
+  const body = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('\n');
+  return `<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">
+${body}
+<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p>
+<p style="color:#555">Heatfleet</p></body></html>`;
+}
+
+export function invitationEmail(p: { firmName: string; inviterName: string; role: Role; link: string; expiresAt: Date }): RenderedEmail {
+  const lines = [
+    `${p.inviterName} has invited you to join ${p.firmName} on Heatfleet as ${roleLabels[p.role]}.`,
+    `The link works once and expires on ${p.expiresAt.toUTCString()}.`,
+    'If you were not expecting this, you can ignore this e-mail.',
+  ];
+  return {
+    subject: `You are invited to join ${p.firmName} on Heatfleet`,
+    text: `${lines.join('\n\n')}\n\nAccept the invitation: ${p.link}\n`,
+    html: layout(lines, { href: p.link, label: 'Accept the invitation' }),
+  };
+}
+
+export function passwordResetEmail(p: { name: string; link: string }): RenderedEmail {
+  const lines = [
+    `Hello ${p.name},`,
+    'Someone asked to reset your Heatfleet password. The link below works once and expires in one hour.',
+    'If it was not you, ignore this e-mail: your password stays as it is.',
+  ];
+  return {
+    subject: 'Reset your Heatfleet password',
+    text: `${lines.join('\n\n')}\n\nChoose a new password: ${p.link}\n`,
+    html: layout(lines, { href: p.link, label: 'Choose a new password' }),
+  };
+}

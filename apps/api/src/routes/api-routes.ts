@@ -1,0 +1,20 @@
+import { authRoutes } from '../modules/auth/auth-router.ts';
+import { healthRoutes } from '../modules/health/health-router.ts';
+import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
+import { memberRoutes } from '../modules/members/member-router.ts';
+import { openApiRoute } from '../modules/openapi/openapi-router.ts';
+import { outboxRoutes } from '../modules/outbox/outbox-router.ts';
+import type { RouteDefinition } from './route-registry.ts';
+
+/**
+ * Every API route, in one list: the app mounts these, the OpenAPI document describes them, and
+ * the tenant-isolation and role-matrix tests call each one. A new module adds its list here.
+ */
+export const apiRoutes: RouteDefinition[] = [
+  ...healthRoutes,
+  ...authRoutes,
+  ...memberRoutes,
+  ...invitationRoutes,
+  ...outboxRoutes,
+  openApiRoute(() => apiRoutes),
+];
