@@ -1,0 +1,66 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { roles, type Role } from '@heatfleet/domain';
+import { apiRoutes } from '@heatfleet/api/routes/api-routes.ts';
+import { Client, createTestApp, signIn, type TestApp } from './support/test-app.ts';
+import { seedFirm } from './support/seed-firm.ts';
+import { probeBody, probePath, routeKey } from './support/route-probes.ts';
+
+const everyone: Role[] = [...roles];
+const managers: Role[] = ['owner', 'admin'];
+
+/**
+ * Who may call each member route, written out by hand from PRODUCT.md's role table (not derived
+ * from the rules under test). A route missing here fails the test.
+ */
+const allowed: Record<string, Role[]> = {
+  'GET /me': everyone,
+  'PUT /me/active-firm': everyone,
+  'PUT /me/password': everyone,
+  'GET /members': everyone,
+  'PATCH /members/:id': managers,
+  'GET /invitations': managers,
+  'POST /invitations': managers,
+  'DELETE /invitations/:id': managers,
+};
+
+let t: TestApp;
+beforeAll(() => {
+  t = createTestApp();
+});
+afterAll(() => t.close());
+
+describe('role matrix', () => {
+  const memberRoutes = apiRoutes.filter((r) => r.access === 'member');
+
+  it('lists every member route', () => {
+    expect(memberRoutes.map(routeKey).filter((k) => !allowed[k])).toEqual([]);
+  });
+
+  for (const role of roles) {
+    it(`a ${role} is allowed exactly the routes the role table gives, in their own firm`, async () => {
+      const outcomes: string[] = [];
+      for (const route of memberRoutes) {
+        // A fresh firm per call, so one call's change (a withdrawn invitation) cannot decide the next.
+        const firm = await seedFirm(t.deps.db, `matrix-${role}`);
+        const client = await signIn(t.app, firm.people[role].email);
+        const url = probePath(route, firm);
+        const res = route.method === 'get' ? await client.get(url) : await client[route.method](url, probeBody(route, firm));
+        const expectAllowed = allowed[routeKey(route)]!.includes(role);
+        const ok = expectAllowed ? res.status !== 403 && res.status !== 401 && res.status < 500 : res.status === 403;
+        if (!ok) outcomes.push(`${routeKey(route)}: expected ${expectAllowed ? 'allowed' : '403'}, got ${res.status} ${res.body?.message ?? ''}`);
+      }
+      expect(outcomes).toEqual([]);
+    });
+  }
+
+  it('signed out, every member route answers 401 with the error body', async () => {
+    const firm = await seedFirm(t.deps.db, 'matrix-anon');
+    for (const route of memberRoutes) {
+      const client = new Client(t.app);
+      const url = probePath(route, firm);
+      const res = route.method === 'get' ? await client.get(url) : await client[route.method](url, probeBody(route, firm));
+      expect(res.status, routeKey(route)).toBe(401);
+      expect(res.body.error).toBe('SignedOut');
+    }
+  });
+});

@@ -1,0 +1,107 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiRoutes } from '@heatfleet/api/routes/api-routes.ts';
+import type { RouteDefinition } from '@heatfleet/api/routes/route-registry.ts';
+import { createTestApp, signIn, type Client, type TestApp } from './support/test-app.ts';
+import { allTables, seedFirm, snapshotFirm, tenantTables, type SeededFirm } from './support/seed-firm.ts';
+import { probeBody, probePath, routeKey } from './support/route-probes.ts';
+
+/**
+ * Routes that touch no firm's records, each with the reason. Every other route is called by a
+ * member of firm B with firm A's ids and must answer 404 or with B's data only.
+ */
+const notTenantData: Record<string, string> = {
+  'GET /health': 'liveness only',
+  'GET /openapi.json': 'the API description',
+  'GET /auth/csrf': 'the caller\u2019s own session token',
+  'POST /auth/sign-up': 'creates a new firm',
+  'POST /auth/sign-in': 'the caller\u2019s own account',
+  'POST /auth/sign-out': 'the caller\u2019s own session',
+  'POST /auth/password-reset': 'answers the same for any e-mail',
+  'POST /auth/password-reset/confirm': 'addressed by a secret token, not an id',
+  'GET /me': 'the caller\u2019s own account and memberships',
+  'PUT /me/password': 'the caller\u2019s own account',
+  'GET /invitations/by-token/:token': 'the token is the invitee\u2019s capability; it names only the inviting firm',
+  'POST /invitations/by-token/:token/accept': 'the token is the invitee\u2019s capability',
+  'GET /outbox': 'the local mail catcher (development and tests only; not mounted in production)',
+  'GET /outbox/:id': 'the local mail catcher (development and tests only; not mounted in production)',
+};
+
+/** Tables that are not a firm's: people (who may belong to several firms) and plumbing. */
+const nonTenantTables = ['firms', 'users', 'password_resets', 'sessions', 'knex_migrations', 'knex_migrations_lock'];
+
+let t: TestApp;
+let a: SeededFirm;
+let b: SeededFirm;
+beforeAll(async () => {
+  t = createTestApp();
+  [a, b] = await Promise.all([seedFirm(t.deps.db, 'iso-a'), seedFirm(t.deps.db, 'iso-b')]);
+});
+afterAll(() => t.close());
+
+async function call(client: Client, route: RouteDefinition, firm: SeededFirm) {
+  const url = probePath(route, firm);
+  const body = probeBody(route, firm);
+  return route.method === 'get' ? client.get(url) : client[route.method](url, body);
+}
+
+describe('tenant isolation', () => {
+  it('every table except people and plumbing carries firm_id', async () => {
+    const tables = await allTables(t.deps.db);
+    const withFirm = await tenantTables(t.deps.db);
+    const missing = tables.filter((x) => !nonTenantTables.includes(x) && !withFirm.includes(x));
+    expect(missing).toEqual([]);
+  });
+
+  it('every route is either tenant data or listed here with a reason', () => {
+    for (const route of apiRoutes) {
+      if (route.tenantData) expect(notTenantData[routeKey(route)], `${routeKey(route)} is tenant data`).toBeUndefined();
+      else expect(notTenantData[routeKey(route)], `${routeKey(route)} says it is not tenant data: list it with a reason`).toBeTruthy();
+    }
+  });
+
+  for (const role of ['owner', 'admin'] as const) {
+    it(`a ${role} of firm B gets 404 or only B's data from every tenant route called with firm A's ids, and A is unchanged`, async () => {
+      const before = await snapshotFirm(t.deps.db, a.firmId);
+      const routes = apiRoutes.filter((r) => r.tenantData);
+      expect(routes.length).toBeGreaterThan(0);
+      for (const route of routes) {
+        const client = await signIn(t.app, b.people[role].email);
+        const res = await call(client, route, a);
+        const label = `${routeKey(route)} -> ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`;
+        expect(res.status === 404 || (res.status >= 200 && res.status < 300), label).toBe(true);
+        const text = JSON.stringify(res.body ?? '');
+        for (const s of a.sentinels) expect(text.includes(s), `${label} leaks "${s}"`).toBe(false);
+      }
+      expect(await snapshotFirm(t.deps.db, a.firmId)).toEqual(before);
+    });
+  }
+
+  it('the same calls with firm B\u2019s own ids do reach B\u2019s records (so the 404s above mean something)', async () => {
+    const client = await signIn(t.app, b.people.owner.email);
+    const members = await client.get('/api/members').expect(200);
+    expect(JSON.stringify(members.body)).toContain(b.target.email);
+    const patched = await client.patch(`/api/members/${b.target.memberId}`, { role: 'stores' });
+    expect(patched.status).toBe(200);
+    const withdrawn = await client.delete(`/api/invitations/${b.invitation.id}`);
+    expect(withdrawn.status).toBe(204);
+  });
+
+  it('the routes Express serves are exactly the registry\u2019s, so none escapes these tests', () => {
+    type Layer = { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: Layer[] } };
+    const seen = new Set<string>();
+    const walk = (stack: Layer[]) => {
+      for (const layer of stack) {
+        if (layer.route) {
+          for (const method of Object.keys(layer.route.methods)) {
+            if (method !== '_all') seen.add(`${method.toUpperCase()} ${layer.route.path}`);
+          }
+        } else if (layer.handle?.stack) walk(layer.handle.stack);
+      }
+    };
+    walk((t.app as unknown as { router: { stack: Layer[] } }).router.stack);
+    const registered = new Set(apiRoutes.map(routeKey));
+    const unregistered = [...seen].filter((k) => !registered.has(k) && k !== 'GET /{*splat}');
+    expect(unregistered).toEqual([]);
+    expect([...registered].filter((k) => !seen.has(k))).toEqual([]);
+  });
+});
