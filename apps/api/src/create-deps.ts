@@ -11,7 +11,7 @@ export function createDeps(env: Env, overrides: { clock?: Clock; limits?: SignIn
   return {
     env,
     logger,
-    db: createKnex(env),
+    db: createKnex(env, logger),
     clock: overrides.clock ?? systemClock,
     mailQueue: createMailQueue(env.REDIS_URL, logger),
     signInLimiter: createSignInLimiter(overrides.limits),

@@ -6,7 +6,7 @@ import { createLogger } from './lib/logger.ts';
 
 const config = env();
 const logger = createLogger(config.LOG_LEVEL);
-const db = createKnex(config);
+const db = createKnex(config, logger);
 const email = startEmailWorker({ env: config, db, logger, clock: systemClock });
 logger.info('Heatfleet worker started');
 

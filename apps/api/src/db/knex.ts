@@ -1,8 +1,18 @@
 import knexFactory, { type Knex } from 'knex';
+import type { Logger } from 'pino';
 import type { Env } from '../config/env.ts';
 
-export function createKnex(env: Pick<Env, 'DATABASE_HOST' | 'DATABASE_PORT' | 'DATABASE_USER' | 'DATABASE_PASSWORD' | 'DATABASE_NAME'>): Knex {
+export function createKnex(
+  env: Pick<Env, 'DATABASE_HOST' | 'DATABASE_PORT' | 'DATABASE_USER' | 'DATABASE_PASSWORD' | 'DATABASE_NAME'>,
+  logger?: Logger,
+): Knex {
   return knexFactory({
+    log: logger && {
+      warn: (m: unknown) => logger.warn({ knex: String(m) }, 'knex warning'),
+      error: (m: unknown) => logger.warn({ knex: String(m) }, 'knex error'),
+      deprecate: (m: unknown) => logger.debug({ knex: String(m) }, 'knex deprecation'),
+      debug: (m: unknown) => logger.debug({ knex: String(m) }, 'knex debug'),
+    },
     client: 'mysql2',
     // charset is left unset on purpose: setting it overrides the database's collation.
     connection: {

@@ -1,14 +1,22 @@
+import { readdir } from 'node:fs/promises';
 import path from 'node:path';
+import { pathToFileURL } from 'node:url';
 import type { Knex } from 'knex';
 
 export const repoRoot = path.resolve(import.meta.dirname, '../../../..');
 export const migrationsDir = path.join(repoRoot, 'migrations');
 
-export const migrationConfig: Knex.MigratorConfig = {
-  directory: migrationsDir,
-  loadExtensions: ['.ts'],
-  tableName: 'knex_migrations',
+// Our own source rather than knex's directory loader: knex's plain import() cannot load .ts files
+// under Vitest, while an import() from this file goes through whichever loader runs the app.
+const migrationSource: Knex.MigrationSource<string> = {
+  async getMigrations() {
+    return (await readdir(migrationsDir)).filter((f) => /^\d{14}_[a-z0-9-]+\.ts$/.test(f)).sort();
+  },
+  getMigrationName: (file) => file,
+  getMigration: (file) => import(pathToFileURL(path.join(migrationsDir, file)).href) as Promise<Knex.Migration>,
 };
+
+export const migrationConfig: Knex.MigratorConfig = { migrationSource, tableName: 'knex_migrations' };
 
 export async function migrateLatest(db: Knex): Promise<string[]> {
   const [, applied] = (await db.migrate.latest(migrationConfig)) as [number, string[]];

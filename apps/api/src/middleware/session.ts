@@ -21,7 +21,7 @@ const SESSION_CLEANUP_MS = 15 * 60 * 1000;
 /**
  * connect-session-knex, hardened for a database that comes and goes: the table comes from a
  * migration (its own "create table" check would reject forever if the database was down at
- * boot), and touch() reports errors to express-session instead of rejecting unhandled.
+ * boot), and its methods report errors to express-session without leaving rejections unhandled.
  */
 class SessionStore extends ConnectSessionKnexStore {
   constructor(knex: Knex, logger: Logger) {
@@ -37,6 +37,20 @@ class SessionStore extends ConnectSessionKnexStore {
     this.options.cleanupInterval = SESSION_CLEANUP_MS;
     // dbCleanup is private in the typings but is the store's own timer loop; it catches its errors.
     void (this as unknown as { dbCleanup(): Promise<void> }).dbCleanup();
+  }
+
+  // The base class both calls back with an error and rethrows it; express-session ignores the
+  // returned promise, so each rejection would go unhandled (and crash Node) during an outage.
+  override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void) {
+    return super.get(sid, callback).catch(() => null);
+  }
+
+  override set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void) {
+    return super.set(sid, sess, callback).catch(() => undefined);
+  }
+
+  override destroy(sid: string, callback?: (err?: unknown) => void) {
+    return super.destroy(sid, callback).catch(() => 0);
   }
 
   override async touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {

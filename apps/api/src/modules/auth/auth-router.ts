@@ -20,7 +20,7 @@ import {
   signIn,
   signUp,
 } from './auth-service.ts';
-import { endSession, startSession } from './session-helpers.ts';
+import { endSession, saveSession, startSession } from './session-helpers.ts';
 
 const signedInSchema = z.object({ me: meResponseSchema, csrfToken: z.string() });
 const meSchema = z.object({ me: meResponseSchema });
@@ -34,7 +34,10 @@ export const authRoutes: RouteDefinition[] = [
     request: {},
     responses: { 200: { description: 'Token', schema: csrfResponseSchema } },
     handle: async ({ req, res }) => {
-      res.json({ csrfToken: generateCsrfToken(req) });
+      const csrfToken = generateCsrfToken(req);
+      // Saved before answering: a token the store never kept would only fail the next request.
+      await saveSession(req);
+      res.json({ csrfToken });
     },
   }),
   defineRoute({

@@ -5,7 +5,7 @@ function regenerate(req: Request): Promise<void> {
   return new Promise((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
 }
 
-function save(req: Request): Promise<void> {
+export function saveSession(req: Request): Promise<void> {
   return new Promise((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
 }
 
@@ -17,7 +17,7 @@ export async function startSession(req: Request, userId: number, firmId: number,
   req.session.signedInAt = now.getTime();
   req.session.lastSeenAt = now.getTime();
   const csrfToken = generateCsrfToken(req, true);
-  await save(req);
+  await saveSession(req);
   return csrfToken;
 }
 

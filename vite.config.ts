@@ -1,0 +1,44 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const repoRoot = fileURLToPath(new URL('.', import.meta.url));
+
+export default defineConfig({
+  root: repoRoot,
+  publicDir: 'apps/web/public',
+  plugins: [react(), tailwindcss()],
+  resolve: {
+    alias: { '@': fileURLToPath(new URL('./apps/web/src', import.meta.url)) },
+  },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    // The API serves dist/ under a strict CSP; an inlined asset would become a data: URL the CSP refuses.
+    assetsInlineLimit: 0,
+  },
+  server: {
+    port: Number(process.env.PORT ?? 5173),
+    strictPort: true,
+    proxy: {
+      '/api': { target: process.env.API_PROXY_TARGET ?? 'http://127.0.0.1:5174', changeOrigin: false },
+    },
+  },
+  // Vitest, run by `npm test` with the test stack's environment (packages/devstack/src/test.ts).
+  test: {
+    projects: [
+      { extends: true, test: { name: 'domain', include: ['packages/domain/**/*.test.ts'], environment: 'node' } },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['apps/api/**/*.test.ts', 'tests/api/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 30_000,
+          hookTimeout: 90_000,
+        },
+      },
+    ],
+  },
+});
