@@ -41,3 +41,16 @@ describe('the error body', () => {
     expect(apiErrorBodySchema.parse(res.body).details?.[0]?.message).toBeTruthy();
   });
 });
+
+describe('the Outbox', () => {
+  it('exists outside production only', async () => {
+    await request(t.app).get('/api/outbox').expect(200);
+    const production = createTestApp({ env: { NODE_ENV: 'production' } });
+    try {
+      const res = await request(production.app).get('/api/outbox').expect(404);
+      expect(apiErrorBodySchema.parse(res.body).error).toBe('NotFound');
+    } finally {
+      await production.close();
+    }
+  });
+});
