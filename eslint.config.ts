@@ -5,7 +5,7 @@ import globals from 'globals';
 // Layer boundaries: the domain imports no framework; the apps never import each other.
 const frameworks = ['express', 'express-*', 'knex', 'mysql2', 'react', 'react-*', 'react-dom', '@tanstack/*', 'bullmq', 'ioredis', 'nodemailer', 'argon2', 'node:*', 'vite'];
 const restrict = (patterns: { group: string[]; message: string }[]) => ({
-  'no-restricted-imports': ['error', { patterns }],
+  'no-restricted-imports': ['error', { patterns }] as ['error', { patterns: typeof patterns }],
 });
 
 export default tseslint.config(

@@ -13,6 +13,8 @@ export async function up(knex: Knex): Promise<void> {
     t.string('purpose', 40).notNullable();
     t.integer('attempts').unsigned().notNullable().defaultTo(0);
     t.string('last_error', 500).nullable();
+    // A delivery holds the row until then, so two workers never send the same e-mail at once.
+    t.timestamp('claimed_until', { precision: 3 }).nullable();
     t.timestamp('sent_at', { precision: 3 }).nullable();
     t.timestamp('created_at', { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));
     t.index(['sent_at', 'created_at']);

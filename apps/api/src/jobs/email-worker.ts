@@ -6,14 +6,15 @@ import type { Env } from '../config/env.ts';
 import type { Clock } from '../lib/clock.ts';
 import { createTransport, deliverEmail } from '../modules/mail/email-delivery.ts';
 import { listUnsentEmailIds } from '../modules/mail/mail-dal.ts';
-import { EMAIL_QUEUE, emailJobId } from '../modules/mail/mail-queue.ts';
+import { deliverJobOptions, EMAIL_QUEUE } from '../modules/mail/mail-queue.ts';
 
 const SWEEP_EVERY_MS = 60_000;
 const SWEEP_GRACE_MS = 30_000;
 
 /**
  * Delivers stored e-mails. Besides the "deliver" jobs the API queues, a repeating sweep re-queues
- * any e-mail still unsent (Redis was down when it was written, or its retries ran out).
+ * any e-mail still unsent (Redis was down when it was written, or the SMTP server was down for
+ * longer than the job's own retries): so an e-mail is retried every sweep until it goes.
  */
 export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clock: Clock }) {
   const connection = new Redis(deps.env.REDIS_URL, { maxRetriesPerRequest: null });
@@ -28,13 +29,7 @@ export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clo
       if (job.name === 'sweep') {
         const olderThan = new Date(deps.clock.now().getTime() - SWEEP_GRACE_MS);
         const ids = await listUnsentEmailIds(deps.db, olderThan);
-        for (const emailId of ids) {
-          // A job id still present means a delivery is already queued or retrying for it.
-          const existing = await queue.getJob(emailJobId(emailId));
-          if (existing && !(await existing.isFailed()) && !(await existing.isCompleted())) continue;
-          if (existing) await existing.remove();
-          await queue.add('deliver', { emailId }, { jobId: emailJobId(emailId), attempts: 10, backoff: { type: 'exponential', delay: 5000 }, removeOnComplete: 1000 });
-        }
+        await queue.addBulk(ids.map((emailId) => ({ name: 'deliver', data: { emailId }, opts: deliverJobOptions })));
         return { requeued: ids.length };
       }
       const { emailId } = job.data as { emailId: number };

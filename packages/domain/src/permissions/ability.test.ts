@@ -26,10 +26,10 @@ describe('defineAbilityFor', () => {
   it('an Admin can neither change an Owner nor make one; an Owner can do both', () => {
     expect(ability('admin').can('update', member('owner'))).toBe(false);
     expect(ability('admin').can('update', member('engineer'))).toBe(true);
-    expect(ability('admin').can('create', subject('Invitation', { firmId, role: 'owner' }))).toBe(false);
-    expect(ability('admin').can('create', subject('Invitation', { firmId, role: 'stores' }))).toBe(true);
+    expect(ability('admin').can('create', subject('Invitation', { firmId, role: 'owner' as const }))).toBe(false);
+    expect(ability('admin').can('create', subject('Invitation', { firmId, role: 'stores' as const }))).toBe(true);
     expect(ability('owner').can('update', member('owner'))).toBe(true);
-    expect(ability('owner').can('create', subject('Invitation', { firmId, role: 'owner' }))).toBe(true);
+    expect(ability('owner').can('create', subject('Invitation', { firmId, role: 'owner' as const }))).toBe(true);
   });
 
   it('only the Owner may delete the firm', () => {

@@ -2,7 +2,10 @@ import type { Knex } from 'knex';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Env } from '../../config/env.ts';
 import type { Clock } from '../../lib/clock.ts';
-import { findUnsentEmail, markEmailSent, recordEmailFailure } from './mail-dal.ts';
+import { claimUnsentEmail, markEmailSent, recordEmailFailure } from './mail-dal.ts';
+
+// Longer than any SMTP exchange (the transport gives up after 10 s), so a lease never expires mid-send.
+const DELIVERY_LEASE_MS = 60_000;
 
 export function createTransport(env: Env): Transporter {
   return nodemailer.createTransport({
@@ -17,12 +20,13 @@ export function createTransport(env: Env): Transporter {
 }
 
 /**
- * Sends one stored e-mail. A row already marked sent is skipped, so a duplicated or retried
- * job does not send it twice; a failure is recorded and rethrown for the queue's backoff.
+ * Sends one stored e-mail. A row already sent, or held by another delivery, is skipped, so a
+ * duplicated or retried job does not send it twice; a failure is recorded and rethrown for the
+ * queue's backoff.
  */
-export async function deliverEmail(db: Knex, transport: Transporter, from: string, clock: Clock, emailId: number): Promise<'sent' | 'already-sent'> {
-  const email = await findUnsentEmail(db, emailId);
-  if (!email) return 'already-sent';
+export async function deliverEmail(db: Knex, transport: Transporter, from: string, clock: Clock, emailId: number): Promise<'sent' | 'skipped'> {
+  const email = await claimUnsentEmail(db, emailId, clock.now(), DELIVERY_LEASE_MS);
+  if (!email) return 'skipped';
   try {
     await transport.sendMail({
       from,

@@ -33,20 +33,32 @@ export async function insertEmail(trx: Knex.Transaction, email: NewEmail): Promi
   return id as number;
 }
 
-export function findUnsentEmail(db: Knex, id: number): Promise<EmailRow | undefined> {
-  return db<EmailRow>('emails').where({ id }).whereNull('sent_at').first();
+/** Takes an unsent e-mail for one delivery attempt; undefined if it is sent or another worker holds it. */
+export async function claimUnsentEmail(db: Knex, id: number, now: Date, leaseMs: number): Promise<EmailRow | undefined> {
+  const claimed = await db('emails')
+    .where({ id })
+    .whereNull('sent_at')
+    .andWhere((q) => q.whereNull('claimed_until').orWhere('claimed_until', '<', now))
+    .update({ claimed_until: new Date(now.getTime() + leaseMs) });
+  if (claimed !== 1) return undefined;
+  return db<EmailRow>('emails').where({ id }).first();
 }
 
-export async function markEmailSent(db: Knex, id: number, at: Date): Promise<boolean> {
-  const changed = await db('emails').where({ id }).whereNull('sent_at').update({ sent_at: at, last_error: null });
-  return changed === 1;
+export async function markEmailSent(db: Knex, id: number, at: Date): Promise<void> {
+  await db('emails').where({ id }).update({ sent_at: at, last_error: null, claimed_until: null });
 }
 
 export async function recordEmailFailure(db: Knex, id: number, error: string): Promise<void> {
-  await db('emails').where({ id }).increment('attempts', 1).update({ last_error: error.slice(0, 500) });
+  await db('emails').where({ id }).increment('attempts', 1).update({ last_error: error.slice(0, 500), claimed_until: null });
 }
 
 export async function listUnsentEmailIds(db: Knex, olderThan: Date, limit = 200): Promise<number[]> {
-  const rows: { id: number }[] = await db('emails').whereNull('sent_at').where('created_at', '<', olderThan).orderBy('id').limit(limit).select('id');
+  const rows: { id: number }[] = await db('emails')
+    .whereNull('sent_at')
+    .where('created_at', '<', olderThan)
+    .andWhere((q) => q.whereNull('claimed_until').orWhere('claimed_until', '<', new Date()))
+    .orderBy('id')
+    .limit(limit)
+    .select('id');
   return rows.map((r) => r.id);
 }

@@ -10,9 +10,14 @@ export interface MailQueue {
   close(): Promise<void>;
 }
 
-export function emailJobId(emailId: number): string {
-  return `email-${emailId}`;
-}
+// No job ids derived from e-mail ids: they would collide with jobs kept in Redis from before a
+// database reset. A duplicate job is harmless, since a delivery claims its row first.
+export const deliverJobOptions = {
+  attempts: 3,
+  backoff: { type: 'exponential' as const, delay: 2000 },
+  removeOnComplete: true,
+  removeOnFail: 1000,
+};
 
 export function createMailQueue(redisUrl: string, logger: Logger): MailQueue {
   // enableOfflineQueue false: with Redis down, add() fails at once instead of holding the request.
@@ -27,13 +32,7 @@ export function createMailQueue(redisUrl: string, logger: Logger): MailQueue {
           emailIds.map((emailId) => ({
             name: 'deliver',
             data: { emailId },
-            opts: {
-              jobId: emailJobId(emailId),
-              attempts: 10,
-              backoff: { type: 'exponential', delay: 5000 },
-              removeOnComplete: 1000,
-              removeOnFail: 5000,
-            },
+            opts: deliverJobOptions,
           })),
         );
       } catch (err) {
