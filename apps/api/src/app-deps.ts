@@ -20,6 +20,7 @@ export interface AppDeps {
 export interface Actor {
   userId: number;
   firmId: number;
+  memberId: number;
   role: Role;
   ability: AppAbility;
 }

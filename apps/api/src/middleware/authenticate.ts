@@ -34,7 +34,8 @@ export async function authenticate(req: Request, deps: AppDeps): Promise<Actor> 
   return {
     userId: s.userId,
     firmId: s.firmId,
+    memberId: membership.id,
     role: membership.role,
-    ability: defineAbilityFor({ userId: s.userId, firmId: s.firmId, role: membership.role }),
+    ability: defineAbilityFor({ userId: s.userId, firmId: s.firmId, role: membership.role, memberId: membership.id }),
   };
 }

@@ -8,19 +8,38 @@ export interface FirmRecord { firmId: number }
 export interface MemberRecord { firmId: number; role: Role }
 export interface InvitationRecord { firmId: number; role: Role }
 
-export type SubjectName = 'Firm' | 'Member' | 'Invitation';
+/** A van or depot; engineerMemberId is the van's engineer. */
+export interface LocationRecord { firmId: number; kind: 'depot' | 'van'; engineerMemberId: number | null }
+
+export type SubjectName =
+  | 'Firm'
+  | 'Member'
+  | 'Invitation'
+  | 'Location'
+  | 'ItemKind'
+  | 'Kit'
+  | 'KitItem'
+  | 'Custody'
+  | 'Inspection'
+  | 'Photo'
+  | 'Reminder'
+  | 'ReminderSettings';
 export type AppSubjects =
   | SubjectName
   | 'all'
   | (FirmRecord & ForcedSubject<'Firm'>)
   | (MemberRecord & ForcedSubject<'Member'>)
-  | (InvitationRecord & ForcedSubject<'Invitation'>);
+  | (InvitationRecord & ForcedSubject<'Invitation'>)
+  | (LocationRecord & ForcedSubject<'Location'>)
+  | (LocationRecord & ForcedSubject<'Custody'>);
 export type AppAbility = MongoAbility<[Action, AppSubjects]>;
 
 export interface AbilityInput {
   userId: number;
   firmId: number;
   role: Role;
+  /** The member's own membership id, for "their own van" rules. */
+  memberId?: number;
 }
 
 /**
@@ -34,12 +53,12 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
   can('read', 'Firm', inFirm);
   // Every member may see who else is in the firm (names and roles), e.g. to hand a kit over.
   can('read', 'Member', inFirm);
+  // Everyone may look up where any kit is, and see the firm's vans and depots.
+  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo'], inFirm);
 
   switch (member.role) {
     case 'owner':
-      can('manage', 'Firm', inFirm);
-      can('manage', 'Member', inFirm);
-      can('manage', 'Invitation', inFirm);
+      can('manage', 'all', inFirm);
       break;
     case 'admin':
       can('update', 'Firm', inFirm);
@@ -48,9 +67,18 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
       // An Admin neither makes, changes nor removes an Owner.
       cannot('update', 'Member', { role: 'owner' });
       cannot('create', 'Invitation', { role: 'owner' });
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings'], inFirm);
       break;
     case 'stores':
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo'], inFirm);
+      can('read', 'Reminder', inFirm);
+      break;
     case 'engineer':
+      // Their own van only: check kit out to it, back in from it, or on to another van from it.
+      if (member.memberId !== undefined) {
+        can('create', 'Custody', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
+      }
+      can('create', ['Inspection', 'Photo'], inFirm);
       break;
   }
   return build();

@@ -48,8 +48,8 @@ export async function findMemberByUser(db: Knex | Knex.Transaction, firmId: numb
   return row ? toMember(row) : undefined;
 }
 
-export async function findActiveMembership(db: Knex, userId: number, firmId: number): Promise<{ role: Role } | undefined> {
-  return db('memberships').where({ user_id: userId, firm_id: firmId, active: true }).first('role');
+export async function findActiveMembership(db: Knex, userId: number, firmId: number): Promise<{ id: number; role: Role } | undefined> {
+  return db('memberships').where({ user_id: userId, firm_id: firmId, active: true }).first('id', 'role');
 }
 
 /** The person's active memberships with firm names, oldest first. */

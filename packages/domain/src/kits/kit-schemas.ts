@@ -1,0 +1,213 @@
+import { z } from 'zod';
+import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { locationRefSchema } from '../locations/location-schemas.ts';
+
+export const itemConditions = ['in_service', 'needs_attention', 'out_of_service'] as const;
+export const itemConditionSchema = z.enum(itemConditions, { error: () => ({ message: 'Condition must be in service, needs attention or out of service.' }) });
+export type ItemCondition = z.infer<typeof itemConditionSchema>;
+export const itemConditionLabels: Record<ItemCondition, string> = {
+  in_service: 'In service',
+  needs_attention: 'Needs attention',
+  out_of_service: 'Out of service',
+};
+
+export const overduePolicies = ['allow_with_reason', 'block'] as const;
+export const overduePolicyLabels: Record<(typeof overduePolicies)[number], string> = {
+  allow_with_reason: 'May go out with a reason',
+  block: 'Stays in until inspected',
+};
+
+const text = (label: string, max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `${label} must be at most ${max} characters.` })
+    .transform((s) => (s === '' ? null : s))
+    .nullable()
+    .optional();
+const name = (label: string, max = 80) =>
+  z.string({ error: `${label} is required.` }).trim().min(1, { error: `${label} is required.` }).max(max, { error: `${label} must be at most ${max} characters.` });
+const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
+const interval = (label: string, max: number) =>
+  z.number().int({ error: `${label} must be a whole number.` }).min(1, { error: `${label} must be at least 1.` }).max(max, { error: `${label} must be at most ${max}.` }).nullable();
+
+export const itemKindInputSchema = z
+  .strictObject({
+    name: name('Kind name'),
+    intervalDays: interval('Days between inspections', 3650),
+    intervalUses: interval('Uses between inspections', 1000),
+    dueSoonDays: z.number().int().min(0, { error: 'Due-soon window cannot be negative.' }).max(365, { error: 'Due-soon window must be at most 365 days.' }),
+    overduePolicy: z.enum(overduePolicies),
+    electrical: z.boolean().default(false),
+  });
+export type ItemKindInput = z.infer<typeof itemKindInputSchema>;
+
+export const itemKindSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  intervalDays: z.number().nullable(),
+  intervalUses: z.number().nullable(),
+  dueSoonDays: z.number(),
+  overduePolicy: z.enum(overduePolicies),
+  electrical: z.boolean(),
+});
+export type ItemKind = z.infer<typeof itemKindSchema>;
+
+export const assetTagSchema = z
+  .string({ error: 'Asset tag is required.' })
+  .trim()
+  .toUpperCase()
+  .pipe(z.string().regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, { error: (iss) => `Asset tag "${String(iss.input)}" may use letters, digits and dashes, up to 32.` }));
+
+export const createKitInputSchema = z.strictObject({ name: name('Kit name'), notes: text('Notes', 1000) });
+export type CreateKitInput = z.infer<typeof createKitInputSchema>;
+export const updateKitInputSchema = createKitInputSchema.partial();
+
+export const createKitItemInputSchema = z.strictObject({
+  assetTag: assetTagSchema,
+  kindId: id('Kind'),
+  kitId: id('Kit').nullable().optional(),
+  serialNumber: text('Serial number', 80),
+  notes: text('Notes', 1000),
+  locationId: id('Location').optional(),
+  inServiceSince: calendarDateSchema.optional(),
+});
+export type CreateKitItemInput = z.infer<typeof createKitItemInputSchema>;
+export const updateKitItemInputSchema = z.strictObject({
+  kindId: id('Kind').optional(),
+  kitId: id('Kit').nullable().optional(),
+  serialNumber: text('Serial number', 80),
+  notes: text('Notes', 1000),
+  condition: itemConditionSchema.optional(),
+});
+export type UpdateKitItemInput = z.infer<typeof updateKitItemInputSchema>;
+
+export const inspectionStates = ['no_rule', 'ok', 'due_soon', 'overdue'] as const;
+export const inspectionStateLabels: Record<(typeof inspectionStates)[number], string> = {
+  no_rule: 'No rule',
+  ok: 'In date',
+  due_soon: 'Due soon',
+  overdue: 'Overdue',
+};
+
+export const inspectionDueSchema = z.object({
+  state: z.enum(inspectionStates),
+  dueOn: z.string().nullable(),
+  usesLeft: z.number().nullable(),
+  reason: z.enum(['days', 'uses']).nullable(),
+  lastInspectedOn: z.string().nullable(),
+  usesSinceInspection: z.number(),
+});
+
+export const kitItemSchema = z.object({
+  id: z.number(),
+  assetTag: z.string(),
+  kind: z.object({ id: z.number(), name: z.string(), overduePolicy: z.enum(overduePolicies) }),
+  kit: z.object({ id: z.number(), name: z.string() }).nullable(),
+  serialNumber: z.string().nullable(),
+  condition: itemConditionSchema,
+  notes: z.string().nullable(),
+  location: locationRefSchema.nullable(),
+  inspection: inspectionDueSchema,
+});
+export type KitItem = z.infer<typeof kitItemSchema>;
+
+export const kitSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  notes: z.string().nullable(),
+  location: locationRefSchema.nullable(),
+  itemCount: z.number(),
+  /** The worst inspection state among its items. */
+  inspectionState: z.enum(inspectionStates),
+  needsAttention: z.number(),
+});
+export type Kit = z.infer<typeof kitSchema>;
+
+export const custodyActions = ['check_out', 'check_in', 'move'] as const;
+export const custodyActionLabels: Record<(typeof custodyActions)[number], string> = {
+  check_out: 'Checked out',
+  check_in: 'Checked in',
+  move: 'Moved',
+};
+
+export const custodyEventSchema = z.object({
+  id: z.number(),
+  action: z.enum(custodyActions),
+  item: z.object({ id: z.number(), assetTag: z.string() }),
+  kitId: z.number().nullable(),
+  from: locationRefSchema.nullable(),
+  to: locationRefSchema.nullable(),
+  byName: z.string(),
+  condition: itemConditionSchema.nullable(),
+  missingParts: z.string().nullable(),
+  note: z.string().nullable(),
+  overdueReason: z.string().nullable(),
+  photoId: z.number().nullable(),
+  createdAt: z.string(),
+});
+export type CustodyEvent = z.infer<typeof custodyEventSchema>;
+
+export const checkOutInputSchema = z.strictObject({
+  toLocationId: id('Van'),
+  overdueReason: z.string().trim().min(3, { error: 'Say why it goes out before inspection (at least 3 characters).' }).max(500).optional(),
+  note: text('Note', 1000),
+});
+export type CheckOutInput = z.infer<typeof checkOutInputSchema>;
+
+export const checkInInputSchema = z.strictObject({
+  /** The depot it comes back to; the firm's first depot when left out. */
+  toLocationId: id('Depot').optional(),
+  condition: itemConditionSchema,
+  missingParts: text('Missing parts', 500),
+  note: text('Note', 1000),
+  photoId: id('Photo').optional(),
+});
+export type CheckInInput = z.infer<typeof checkInInputSchema>;
+
+export const moveInputSchema = z.strictObject({ toLocationId: id('Van'), note: text('Note', 1000) });
+export type MoveInput = z.infer<typeof moveInputSchema>;
+
+export const inspectionResultSchema = z.enum(['passed', 'failed'], { error: () => ({ message: 'Result must be passed or failed.' }) });
+export const recordInspectionInputSchema = z.strictObject({
+  result: inspectionResultSchema,
+  notes: text('Notes', 1000),
+  photoId: id('Photo').optional(),
+  inspectedOn: calendarDateSchema.optional(),
+});
+export type RecordInspectionInput = z.infer<typeof recordInspectionInputSchema>;
+
+export const inspectionSchema = z.object({
+  id: z.number(),
+  itemId: z.number(),
+  result: inspectionResultSchema,
+  notes: z.string().nullable(),
+  photoId: z.number().nullable(),
+  byName: z.string(),
+  inspectedOn: z.string(),
+  createdAt: z.string(),
+});
+export type Inspection = z.infer<typeof inspectionSchema>;
+
+export const kitItemListQuerySchema = z.strictObject({
+  kindId: z.coerce.number().int().positive().optional(),
+  locationId: z.coerce.number().int().positive().optional(),
+  kitId: z.coerce.number().int().positive().optional(),
+  inspectionState: z.enum(inspectionStates).optional(),
+  q: z.string().trim().max(80).optional(),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+export type KitItemListQuery = z.infer<typeof kitItemListQuerySchema>;
+
+export const labelsQuerySchema = z.strictObject({
+  ids: z
+    .string()
+    .trim()
+    .regex(/^\d+(,\d+){0,199}$/, { error: 'ids must be a comma-separated list of up to 200 item ids.' })
+    .transform((s) => s.split(',').map(Number))
+    .optional(),
+  kitId: z.coerce.number().int().positive().optional(),
+});
+
+export const kitLabelSchema = z.object({ itemId: z.number(), assetTag: z.string(), kindName: z.string(), kitName: z.string().nullable(), url: z.string(), qrSvgDataUrl: z.string() });
