@@ -1,0 +1,153 @@
+import { Suspense } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import type { Me } from '@heatfleet/domain';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { Wordmark } from '@/components/ui/wordmark';
+import { paths } from '@/config/paths';
+import { Can, MemberAbilityProvider } from '@/lib/ability';
+import { RequireSession, sessionQueries } from '@/lib/auth';
+import { useSignOut } from '@/features/auth/api/use-sign-out';
+import { FirmSwitcher } from '@/features/firms/components/firm-switcher';
+import { outboxQueries } from '@/features/outbox/api/outbox-queries';
+
+function useOutboxIsAvailable(): boolean {
+  // In production the API answers 404 here, so the Outbox only appears where a mail catcher runs.
+  const probe = useQuery({ ...outboxQueries.list(), enabled: !import.meta.env.DEV, staleTime: 5 * 60_000 });
+  return import.meta.env.DEV || probe.isSuccess;
+}
+
+const navLinkClass = ({ isActive }: { isActive: boolean }) =>
+  `inline-flex min-h-11 items-center border-b-4 px-3 font-semibold ${
+    isActive ? 'border-ember-500 text-white' : 'border-transparent text-brand-100 hover:text-white'
+  }`;
+
+function SkipLink() {
+  return (
+    <a
+      href="#main"
+      className="sr-only rounded-md bg-card px-4 py-2 font-semibold text-brand-900 focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-10 focus:px-4 focus:py-2"
+    >
+      Skip to content
+    </a>
+  );
+}
+
+function SignOutButton() {
+  const navigate = useNavigate();
+  const signOut = useSignOut();
+  return (
+    <button
+      type="button"
+      disabled={signOut.isPending}
+      onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) })}
+      className="min-h-11 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
+    >
+      Sign out
+    </button>
+  );
+}
+
+function SignedInHeader({ me }: { me: Me }) {
+  const showOutbox = useOutboxIsAvailable();
+  return (
+    <header className="bg-brand-900 text-white">
+      <div className="mx-auto max-w-5xl px-4">
+        <div className="flex items-center justify-between gap-3 pt-2">
+          <Link to={paths.home.getHref()} className="inline-flex min-h-11 shrink-0 items-center rounded-md" aria-label="Heatfleet home">
+            <Wordmark />
+          </Link>
+          <div className="flex min-w-0 items-center gap-2">
+            <span className="min-w-0 truncate text-sm text-brand-100" title={me.user.email}>
+              {me.user.name}
+            </span>
+            <SignOutButton />
+          </div>
+        </div>
+        <div className="flex min-h-11 items-center py-1">
+          {me.memberships.length > 1 ? (
+            <FirmSwitcher me={me} />
+          ) : (
+            <span className="truncate text-sm font-semibold text-brand-100">{me.activeFirm.name}</span>
+          )}
+        </div>
+        <nav aria-label="Main">
+          <ul className="-mx-3 flex flex-wrap">
+            <li>
+              <NavLink to={paths.home.getHref()} end className={navLinkClass}>
+                Home
+              </NavLink>
+            </li>
+            <Can I="read" a="Member">
+              <li>
+                <NavLink to={paths.team.getHref()} className={navLinkClass}>
+                  Team
+                </NavLink>
+              </li>
+            </Can>
+            {showOutbox ? (
+              <li>
+                <NavLink to={paths.outbox.getHref()} className={navLinkClass}>
+                  Outbox
+                </NavLink>
+              </li>
+            ) : null}
+          </ul>
+        </nav>
+      </div>
+    </header>
+  );
+}
+
+function Main() {
+  return (
+    <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6">
+      <Suspense fallback={<PageSpinner />}>
+        <Outlet />
+      </Suspense>
+    </main>
+  );
+}
+
+/** The shell of every signed-in screen; anyone signed out is sent to sign in and brought back after. */
+export function AppLayout() {
+  return (
+    <RequireSession>
+      {(me) => (
+        <MemberAbilityProvider me={me}>
+          <div className="flex min-h-dvh flex-col">
+            <SkipLink />
+            <SignedInHeader me={me} />
+            <Main />
+          </div>
+        </MemberAbilityProvider>
+      )}
+    </RequireSession>
+  );
+}
+
+/** The Outbox is the local mail catcher's inbox: it must open signed out too, e.g. to read a password reset. */
+export function OutboxLayout() {
+  const me = useQuery(sessionQueries.me());
+  if (me.isPending) return <PageSpinner />;
+  if (me.data) return <AppLayout />;
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <SkipLink />
+      <header className="bg-brand-900 text-white">
+        <div className="mx-auto flex max-w-5xl items-center justify-between gap-3 px-4 py-2">
+          <Link to={paths.home.getHref()} className="inline-flex min-h-11 items-center rounded-md" aria-label="Heatfleet home">
+            <Wordmark />
+          </Link>
+          <Link
+            to={paths.signIn.getHref()}
+            className="inline-flex min-h-11 items-center rounded-md border border-brand-600 px-4 font-semibold text-white hover:bg-brand-800"
+          >
+            Sign in
+          </Link>
+        </div>
+      </header>
+      <Main />
+    </div>
+  );
+}

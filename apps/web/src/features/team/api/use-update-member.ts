@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { UpdateMemberInput } from '@heatfleet/domain';
+import { apiClient } from '@/lib/api-client';
+import { memberEnvelopeSchema, memberQueries } from '@/features/team/api/member-queries';
+
+export async function updateMember({ id, ...input }: UpdateMemberInput & { id: number }) {
+  return (await apiClient.patch(`/api/members/${id}`, input, memberEnvelopeSchema)).member;
+}
+
+export function useUpdateMember() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: updateMember,
+    onSettled: () => queryClient.invalidateQueries({ queryKey: memberQueries.lists() }),
+  });
+}

@@ -1,0 +1,70 @@
+import { subject } from '@casl/ability';
+import { roleLabels, roles, type Member, type Role } from '@heatfleet/domain';
+import { SelectField } from '@/components/ui/select-field';
+import { useAbility } from '@/lib/ability';
+import { useUpdateMember } from '@/features/team/api/use-update-member';
+
+interface MemberCellProps {
+  member: Member;
+  firmId: number;
+  isYou: boolean;
+}
+
+function asSubject(member: Member, firmId: number, role: Role = member.role) {
+  return subject('Member', { firmId, userId: member.userId, role, active: member.active });
+}
+
+export function MemberRoleCell({ member, firmId, isYou }: MemberCellProps) {
+  const ability = useAbility();
+  const update = useUpdateMember();
+  // Changing your own role could lock you out of this very screen; another Owner or Admin does it.
+  const canChange = !isYou && ability.can('update', asSubject(member, firmId));
+  if (!canChange) return <span>{roleLabels[member.role]}</span>;
+
+  // Offer only the roles the rules allow the member to end up with (an Admin never makes an Owner).
+  const options = roles
+    .filter((role) => role === member.role || ability.can('update', asSubject(member, firmId, role)))
+    .map((role) => ({ value: role, label: roleLabels[role] }));
+  const shownRole = update.isPending && update.variables.role ? update.variables.role : member.role;
+
+  return (
+    <div className="w-full max-w-44 max-sm:ml-auto sm:w-40">
+      <SelectField
+        label={`Role for ${member.name}`}
+        hideLabel
+        options={options}
+        value={shownRole}
+        disabled={update.isPending}
+        onChange={(event) => update.mutate({ id: member.id, role: event.target.value as Role })}
+        error={update.isError ? update.error.message : undefined}
+      />
+    </div>
+  );
+}
+
+export function MemberStatusAction({ member, firmId, isYou }: MemberCellProps) {
+  const ability = useAbility();
+  const update = useUpdateMember();
+  if (isYou || !ability.can('update', asSubject(member, firmId))) return null;
+
+  return (
+    <div className="flex flex-col items-end gap-1 max-sm:w-full max-sm:items-stretch">
+      <button
+        type="button"
+        disabled={update.isPending}
+        onClick={() => update.mutate({ id: member.id, active: !member.active })}
+        className={`min-h-11 rounded-md border px-3 font-semibold disabled:opacity-60 ${
+          member.active ? 'border-danger-700 text-danger-700 hover:bg-danger-50' : 'border-brand-600 text-brand-700 hover:bg-brand-50'
+        }`}
+      >
+        {member.active ? 'Deactivate' : 'Reactivate'}
+        <span className="sr-only"> {member.name}</span>
+      </button>
+      {update.isError ? (
+        <p role="alert" className="text-sm font-semibold text-danger-700">
+          {update.error.message}
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { isApiError } from '@/lib/api-client';
+
+declare module '@tanstack/react-query' {
+  interface Register {
+    queryMeta: {
+      /** Marks the query that says who is signed in; it is refetched when any request finds the session gone. */
+      session?: boolean;
+    };
+  }
+}
+
+function refetchSessionOn401(error: unknown): void {
+  if (isApiError(error, 401)) {
+    void queryClient.invalidateQueries({ predicate: (query) => query.meta?.session === true });
+  }
+}
+
+export const queryClient: QueryClient = new QueryClient({
+  queryCache: new QueryCache({ onError: refetchSessionOn401 }),
+  mutationCache: new MutationCache({ onError: refetchSessionOn401 }),
+  defaultOptions: {
+    queries: {
+      // Others change the same records (a colleague joins, stock moves): show the cache at once, then refetch on every visit.
+      staleTime: 0,
+      // A 4xx will not change on retry; network blips and 5xx might.
+      retry: (failureCount, error) => {
+        if (isApiError(error) && error.status >= 400 && error.status < 500) return false;
+        return failureCount < 2;
+      },
+    },
+    mutations: { retry: false },
+  },
+});
