@@ -21,6 +21,8 @@ export default defineConfig({
   server: {
     port: Number(process.env.PORT ?? 5173),
     strictPort: true,
+    // The stack's data and the test reports change while the dev server runs; none of it is source.
+    watch: { ignored: ['**/.data/**', '**/dist/**', '**/test-results/**'] },
     proxy: {
       '/api': { target: process.env.API_PROXY_TARGET ?? 'http://127.0.0.1:5174', changeOrigin: false },
     },
@@ -29,6 +31,7 @@ export default defineConfig({
   test: {
     projects: [
       { extends: true, test: { name: 'domain', include: ['packages/domain/**/*.test.ts'], environment: 'node' } },
+      { extends: true, test: { name: 'devstack', include: ['packages/devstack/**/*.test.ts'], environment: 'node' } },
       {
         extends: true,
         test: {

@@ -62,7 +62,8 @@ export function createApp(deps: AppDeps): Express {
     } }));
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(path.join(dist, 'index.html'));
+      // root + relative name: sendFile refuses absolute paths that pass through a dot-folder (.data/).
+      res.sendFile('index.html', { root: dist });
     });
   }
   app.use(notFoundHandler);

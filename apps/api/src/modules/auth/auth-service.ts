@@ -29,6 +29,7 @@ export async function buildMe(db: Knex, userId: number, firmId: number): Promise
     memberships,
     activeFirm: { id: firm.id, name: firm.name, timeZone: firm.time_zone },
     role: active.role,
+    memberId: active.memberId,
   };
 }
 

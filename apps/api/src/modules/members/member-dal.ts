@@ -54,12 +54,12 @@ export async function findActiveMembership(db: Knex, userId: number, firmId: num
 
 /** The person's active memberships with firm names, oldest first. */
 export async function listMembershipsOfUser(db: Knex | Knex.Transaction, userId: number): Promise<Membership[]> {
-  const rows: { firm_id: number; name: string; role: Role }[] = await db('memberships as m')
+  const rows: { id: number; firm_id: number; name: string; role: Role }[] = await db('memberships as m')
     .join('firms as f', 'f.id', 'm.firm_id')
     .where({ 'm.user_id': userId, 'm.active': true })
     .orderBy('m.id')
-    .select('m.firm_id', 'f.name', 'm.role');
-  return rows.map((r) => ({ firmId: r.firm_id, firmName: r.name, role: r.role }));
+    .select('m.id', 'm.firm_id', 'f.name', 'm.role');
+  return rows.map((r) => ({ memberId: r.id, firmId: r.firm_id, firmName: r.name, role: r.role }));
 }
 
 export async function insertMembership(trx: Knex.Transaction, m: { firmId: number; userId: number; role: Role }): Promise<number> {

@@ -1,0 +1,74 @@
+import { join } from 'node:path';
+import { repoRoot } from './repo-root.ts';
+
+export type ProfileName = 'dev' | 'test';
+
+export interface Profile {
+  name: ProfileName;
+  nodeEnv: 'development' | 'test';
+  dataDir: string;
+  mariadb: { dataDir: string; port: number; dbName: string; extraArgs: string[] };
+  redis: { dataDir: string; port: number };
+  smtpPort: number;
+  appPort: number;
+  outboxDir: string;
+  /** Where the built client goes and the server serves it from. */
+  distDir: string;
+  logDir: string;
+  logLevel: 'info' | 'warn';
+}
+
+export const databaseUser = 'heatfleet';
+// A fixed password is fine: both instances listen on 127.0.0.1 only and hold invented data.
+export const databasePassword = 'heatfleet-local';
+
+function appPortFromEnv(fallback: number): number {
+  const raw = process.env.PORT;
+  if (raw === undefined || raw === '') return fallback;
+  const port = Number(raw);
+  if (!Number.isInteger(port) || port < 1 || port > 65534) {
+    throw new Error(`PORT must be a whole number from 1 to 65534, got "${raw}".`);
+  }
+  return port;
+}
+
+export function getProfile(name: ProfileName): Profile {
+  const dataDir = join(repoRoot, '.data', name);
+  const common = {
+    dataDir,
+    outboxDir: join(dataDir, 'outbox'),
+    logDir: join(dataDir, 'logs'),
+  };
+  if (name === 'dev') {
+    return {
+      ...common,
+      name,
+      nodeEnv: 'development',
+      mariadb: { dataDir: join(dataDir, 'mariadb'), port: 3406, dbName: 'heatfleet', extraArgs: [] },
+      redis: { dataDir: join(dataDir, 'redis'), port: 6479 },
+      smtpPort: 2525,
+      appPort: appPortFromEnv(5173),
+      distDir: join(repoRoot, 'dist'),
+      logLevel: 'info',
+    };
+  }
+  return {
+    ...common,
+    name,
+    nodeEnv: 'test',
+    mariadb: {
+      dataDir: join(dataDir, 'mariadb'),
+      port: 3407,
+      dbName: 'heatfleet_test',
+      // Test data is thrown away each run: trading crash durability for faster commits is fine here.
+      extraArgs: ['--innodb-flush-log-at-trx-commit=2', '--sync-binlog=0'],
+    },
+    redis: { dataDir: join(dataDir, 'redis'), port: 6480 },
+    smtpPort: 2526,
+    appPort: 5183,
+    // The same dist/ as `npm start`: a folder under .data would trip express's sendFile, which refuses
+    // any path with a dot-folder in it unless given a root.
+    distDir: join(repoRoot, 'dist'),
+    logLevel: 'warn',
+  };
+}

@@ -1,0 +1,47 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { databasePassword, databaseUser, getProfile, type Profile, type ProfileName } from './profiles.ts';
+
+export const mailFrom = 'Heatfleet <no-reply@heatfleet.example>';
+
+/** Made once per data folder and kept, so sessions survive a restart of `npm start`. */
+function sessionSecret(dataDir: string): string {
+  const file = join(dataDir, 'session-secret');
+  if (existsSync(file)) {
+    const kept = readFileSync(file, 'utf8').trim();
+    if (kept.length >= 32) return kept;
+  }
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('hex');
+  writeFileSync(file, `${secret}\n`, { mode: 0o600 });
+  return secret;
+}
+
+/** The variables the API and worker read (apps/api/src/config/env.ts), for one profile. */
+export function stackEnv(profileOrName: Profile | ProfileName): Record<string, string> {
+  const profile = typeof profileOrName === 'string' ? getProfile(profileOrName) : profileOrName;
+  return {
+    NODE_ENV: profile.nodeEnv,
+    PORT: String(profile.appPort),
+    APP_ORIGIN: `http://localhost:${profile.appPort}`,
+    DATABASE_HOST: '127.0.0.1',
+    DATABASE_PORT: String(profile.mariadb.port),
+    DATABASE_USER: databaseUser,
+    DATABASE_PASSWORD: databasePassword,
+    DATABASE_NAME: profile.mariadb.dbName,
+    REDIS_URL: `redis://127.0.0.1:${profile.redis.port}`,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(profile.smtpPort),
+    MAIL_FROM: mailFrom,
+    SESSION_SECRET: sessionSecret(profile.dataDir),
+    OUTBOX_DIR: profile.outboxDir,
+    WEB_DIST_DIR: profile.distDir,
+    LOG_LEVEL: profile.logLevel,
+  };
+}
+
+/** The current environment with the stack's variables (and any extras) on top, for a child process. */
+export function childEnv(profile: Profile, extra: Record<string, string> = {}): NodeJS.ProcessEnv {
+  return { ...process.env, ...stackEnv(profile), ...extra };
+}
