@@ -25,7 +25,7 @@ export interface TestApp {
 }
 
 export function createTestApp(opts: { env?: Partial<Record<keyof Env, string>>; limits?: SignInLimits } = {}): TestApp {
-  const env = parseEnv({ ...process.env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent', ...opts.env });
+  const env = parseEnv({ ...process.env, LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'error', ...opts.env });
   const clock = new TestClock();
   const deps = createDeps(env, { clock, limits: opts.limits });
   return { app: createApp(deps), deps, clock, close: () => closeDeps(deps) };

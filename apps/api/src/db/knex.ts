@@ -22,7 +22,9 @@ export function createKnex(
       password: env.DATABASE_PASSWORD,
       database: env.DATABASE_NAME,
       timezone: 'Z',
-      dateStrings: false,
+      // DATE columns are calendar days: keep them as 'YYYY-MM-DD' rather than midnight instants
+      // (mysql2 takes a list of types here; knex's typings only know the boolean form).
+      dateStrings: ['DATE'] as unknown as boolean,
       supportBigNumbers: true,
       bigNumberStrings: false,
       connectTimeout: 3000,
