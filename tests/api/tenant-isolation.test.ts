@@ -1,9 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiRoutes } from '@heatfleet/api/routes/api-routes.ts';
-import type { RouteDefinition } from '@heatfleet/api/routes/route-registry.ts';
-import { createTestApp, signIn, type Client, type TestApp } from './support/test-app.ts';
+import { createTestApp, signIn, type TestApp } from './support/test-app.ts';
 import { allTables, seedFirm, snapshotFirm, tenantTables, type SeededFirm } from './support/seed-firm.ts';
-import { probeBody, probePath, routeKey } from './support/route-probes.ts';
+import { callProbe, routeKey } from './support/route-probes.ts';
 
 /**
  * Routes that touch no firm's records, each with the reason. Every other route is called by a
@@ -38,11 +37,6 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-async function call(client: Client, route: RouteDefinition, firm: SeededFirm) {
-  const url = probePath(route, firm);
-  const body = probeBody(route, firm);
-  return route.method === 'get' ? client.get(url) : client[route.method](url, body);
-}
 
 describe('tenant isolation', () => {
   it('every table except people and plumbing carries firm_id', async () => {
@@ -66,7 +60,7 @@ describe('tenant isolation', () => {
       expect(routes.length).toBeGreaterThan(0);
       for (const route of routes) {
         const client = await signIn(t.app, b.people[role].email);
-        const res = await call(client, route, a);
+        const res = await callProbe(client, route, a);
         const label = `${routeKey(route)} -> ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`;
         expect(res.status === 404 || (res.status >= 200 && res.status < 300), label).toBe(true);
         const text = JSON.stringify(res.body ?? '');

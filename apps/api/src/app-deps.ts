@@ -3,6 +3,7 @@ import type { Logger } from 'pino';
 import type { AppAbility, Role } from '@heatfleet/domain';
 import type { Env } from './config/env.ts';
 import type { Clock } from './lib/clock.ts';
+import type { ObjectStore } from './lib/object-store.ts';
 import type { MailQueue } from './modules/mail/mail-queue.ts';
 import type { SignInLimiter } from './modules/auth/sign-in-limiter.ts';
 
@@ -13,6 +14,7 @@ export interface AppDeps {
   clock: Clock;
   logger: Logger;
   mailQueue: MailQueue;
+  objectStore: ObjectStore;
   signInLimiter: SignInLimiter;
 }
 

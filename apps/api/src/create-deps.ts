@@ -3,6 +3,7 @@ import type { Env } from './config/env.ts';
 import { createKnex } from './db/knex.ts';
 import { systemClock, type Clock } from './lib/clock.ts';
 import { createLogger } from './lib/logger.ts';
+import { createObjectStore } from './lib/object-store.ts';
 import { createSignInLimiter, type SignInLimits } from './modules/auth/sign-in-limiter.ts';
 import { createMailQueue } from './modules/mail/mail-queue.ts';
 
@@ -14,6 +15,7 @@ export function createDeps(env: Env, overrides: { clock?: Clock; limits?: SignIn
     db: createKnex(env, logger),
     clock: overrides.clock ?? systemClock,
     mailQueue: createMailQueue(env.REDIS_URL, logger),
+    objectStore: createObjectStore(env),
     signInLimiter: createSignInLimiter(overrides.limits),
   };
 }

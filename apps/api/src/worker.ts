@@ -1,6 +1,7 @@
 import { env } from './config/env.ts';
 import { createKnex } from './db/knex.ts';
 import { startEmailWorker } from './jobs/email-worker.ts';
+import { startReminderWorker } from './jobs/reminder-worker.ts';
 import { systemClock } from './lib/clock.ts';
 import { createLogger } from './lib/logger.ts';
 
@@ -8,6 +9,7 @@ const config = env();
 const logger = createLogger(config.LOG_LEVEL);
 const db = createKnex(config, logger);
 const email = startEmailWorker({ env: config, db, logger, clock: systemClock });
+const reminders = startReminderWorker({ env: config, db, logger, clock: systemClock });
 logger.info('Heatfleet worker started');
 
 process.on('unhandledRejection', (err) => logger.error({ err }, 'unhandled rejection'));
@@ -16,7 +18,7 @@ async function shutdown() {
   if (stopping) return;
   stopping = true;
   setTimeout(() => process.exit(1), 10_000).unref();
-  await email.close();
+  await Promise.all([email.close(), reminders.close()]);
   await db.destroy();
   process.exit(0);
 }

@@ -11,3 +11,4 @@ export * from './kits/kit-schemas.ts';
 export * from './kits/inspection-due.ts';
 export * from './photos/photo-schemas.ts';
 export * from './reminders/reminder-schemas.ts';
+export * from './kits/default-item-kinds.ts';

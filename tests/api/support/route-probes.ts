@@ -1,6 +1,6 @@
 import type { RouteDefinition } from '@heatfleet/api/routes/route-registry.ts';
 import type { SeededFirm } from './seed-firm.ts';
-import { uniqueEmail } from './test-app.ts';
+import { uniqueEmail, type Client } from './test-app.ts';
 
 export const routeKey = (r: Pick<RouteDefinition, 'method' | 'path'>) => `${r.method.toUpperCase()} ${r.path}`;
 
@@ -13,6 +13,11 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'invitations:id': (f) => String(f.invitation.id),
   'invitations:token': (f) => f.invitation.token,
   'outbox:id': () => 'does-not-exist',
+  'vans:id': (f) => String(f.van.id),
+  'kits:id': (f) => String(f.kit.id),
+  'kit-items:id': (f) => String(f.looseItemId),
+  'item-kinds:id': (f) => String(f.kindId),
+  'photos:id': (f) => String(f.photoId),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -26,7 +31,52 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'PATCH /members/:id': () => ({ role: 'stores' }),
   'POST /invitations': () => ({ email: uniqueEmail('probe-invitee'), role: 'engineer' }),
   'POST /invitations/by-token/:token/accept': () => ({ password: 'probe password 123', name: 'Probe' }),
+  'POST /vans': () => ({ name: `Probe van ${Math.random().toString(36).slice(2, 7)}`, registration: `PR${Math.floor(Math.random() * 90 + 10)} ${Math.random().toString(36).slice(2, 5).toUpperCase()}` }),
+  'PATCH /vans/:id': () => ({ notes: 'probe' }),
+  'POST /depots': () => ({ name: `Probe depot ${Math.random().toString(36).slice(2, 7)}` }),
+  'POST /item-kinds': () => ({ name: `Probe kind ${Math.random().toString(36).slice(2, 7)}`, intervalDays: 30, intervalUses: null, dueSoonDays: 7, overduePolicy: 'block' }),
+  'PATCH /item-kinds/:id': () => ({ dueSoonDays: 5 }),
+  'POST /kits': () => ({ name: `Probe kit ${Math.random().toString(36).slice(2, 7)}` }),
+  'PATCH /kits/:id': () => ({ notes: 'probe' }),
+  'POST /kits/:id/check-out': (f) => ({ toLocationId: f.van.id }),
+  'POST /kits/:id/check-in': (f) => ({ toLocationId: f.depotId, condition: 'in_service' }),
+  'POST /kits/:id/move': (f) => ({ toLocationId: f.spareVanId }),
+  'POST /kit-items': (f) => ({ assetTag: `PRB-${Math.random().toString(36).slice(2, 8).toUpperCase()}`, kindId: f.kindId, kitId: f.kit.id }),
+  'PATCH /kit-items/:id': () => ({ notes: 'probe' }),
+  'POST /kit-items/:id/check-out': (f) => ({ toLocationId: f.van.id }),
+  'POST /kit-items/:id/check-in': (f) => ({ toLocationId: f.depotId, condition: 'in_service' }),
+  'POST /kit-items/:id/move': (f) => ({ toLocationId: f.spareVanId }),
+  'POST /kit-items/:id/inspections': (f) => ({ result: 'passed', photoId: f.photoId }),
+  'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
 };
+
+/** Query strings per route, built from a firm's records. */
+const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
+  'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
+  'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
+};
+
+export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {
+  if (!route.request.query) return '';
+  const build = queries[routeKey(route)];
+  if (!build) throw new Error(`The isolation harness has no sample query for ${routeKey(route)}: add one to route-probes.ts`);
+  return `?${new URLSearchParams(build(firm)).toString()}`;
+}
+
+/** A tiny valid PNG (1x1), for upload routes. */
+export const tinyPng = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
+
+/** Multipart fields per upload route, built from a firm's records. */
+const multipartFields: Record<string, (f: SeededFirm) => Record<string, string>> = {
+  'POST /photos': (f) => ({ itemId: String(f.looseItemId) }),
+};
+
+export function probeMultipart(route: RouteDefinition, firm: SeededFirm): Record<string, string> | undefined {
+  if (!route.multipart) return undefined;
+  const build = multipartFields[routeKey(route)];
+  if (!build) throw new Error(`The isolation harness has no multipart fields for ${routeKey(route)}: add them to route-probes.ts`);
+  return build(firm);
+}
 
 export function probePath(route: RouteDefinition, firm: SeededFirm): string {
   const resource = route.path.split('/')[1] ?? '';
@@ -42,4 +92,13 @@ export function probeBody(route: RouteDefinition, firm: SeededFirm): unknown {
   const build = bodies[routeKey(route)];
   if (!build) throw new Error(`The isolation harness has no sample body for ${routeKey(route)}: add one to route-probes.ts`);
   return build(firm);
+}
+
+/** Calls a route as the client, filling path, query, body or upload from the firm's records. */
+export function callProbe(client: Client, route: RouteDefinition, firm: SeededFirm) {
+  const url = probePath(route, firm) + probeQuery(route, firm);
+  const fields = probeMultipart(route, firm);
+  if (fields && route.multipart) return client.upload(url, fields, { field: route.multipart.fileField, content: tinyPng, filename: 'probe.png', contentType: 'image/png' });
+  if (route.method === 'get') return client.get(url);
+  return client[route.method](url, probeBody(route, firm));
 }

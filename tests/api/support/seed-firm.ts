@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { roles, type Role } from '@heatfleet/domain';
 import { hashPassword } from '@heatfleet/api/modules/auth/password.ts';
 import { createToken } from '@heatfleet/api/lib/tokens.ts';
+import { setUpNewFirm } from '@heatfleet/api/modules/firms/firm-dal.ts';
 import { TEST_PASSWORD, uniqueEmail } from './test-app.ts';
 
 export interface SeededFirm {
@@ -13,6 +14,14 @@ export interface SeededFirm {
   target: { email: string; userId: number; memberId: number };
   invitation: { id: number; email: string; token: string };
   emailId: number;
+  depotId: number;
+  van: { id: number; registration: string };
+  /** A second van with no engineer, to move kit to. */
+  spareVanId: number;
+  kit: { id: number; name: string; itemIds: number[] };
+  looseItemId: number;
+  kindId: number;
+  photoId: number;
   /** Strings that belong to this firm only: none may appear in another firm's answers. */
   sentinels: string[];
 }
@@ -53,8 +62,37 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
       purpose: 'invitation',
       sent_at: new Date(),
     })) as number[];
-    const sentinels = [firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email)];
-    return { firmId: firmId!, firmName, people, target, invitation: { id: invitationId!, email: inviteEmail, token }, emailId: emailId!, sentinels };
+    await setUpNewFirm(trx, firmId!);
+    const depotId = ((await trx('locations').where({ firm_id: firmId, kind: 'depot' }).first('id')) as { id: number }).id;
+    const suffix = Math.random().toString(36).slice(2, 6).toUpperCase();
+    const registration = `SD${String(firmId).padStart(2, '0').slice(-2)} ${suffix.slice(0, 3)}`;
+    const [vanId] = (await trx('locations').insert({
+      firm_id: firmId, kind: 'van', name: `${label} van`, registration, engineer_member_id: people.engineer.memberId, mot_due_on: '2027-01-10', service_due_on: '2027-03-01',
+    })) as number[];
+    const [spareVanId] = (await trx('locations').insert({ firm_id: firmId, kind: 'van', name: `${label} spare van`, registration: `SP${suffix}1` })) as number[];
+    const kindId = ((await trx('item_kinds').where({ firm_id: firmId, name: 'Hose set' }).first('id')) as { id: number }).id;
+    const kitName = `${label} rig ${suffix}`;
+    const [kitId] = (await trx('kits').insert({ firm_id: firmId, name: kitName })) as number[];
+    const itemIds: number[] = [];
+    for (const part of ['A', 'B']) {
+      const [itemId] = (await trx('kit_items').insert({
+        firm_id: firmId, kit_id: kitId, kind_id: kindId, asset_tag: `T${suffix}${firmId}${part}`, location_id: depotId, in_service_since: '2026-11-01',
+      })) as number[];
+      itemIds.push(itemId!);
+    }
+    const [looseItemId] = (await trx('kit_items').insert({
+      firm_id: firmId, kind_id: kindId, asset_tag: `L${suffix}${firmId}`, location_id: depotId, in_service_since: '2026-11-01',
+    })) as number[];
+    await trx('custody_events').insert({ firm_id: firmId, item_id: looseItemId, action: 'check_in', to_location_id: depotId, by_user_id: people.stores.userId, condition: 'in_service' });
+    await trx('inspections').insert({ firm_id: firmId, item_id: looseItemId, result: 'passed', by_user_id: people.stores.userId, inspected_on: '2026-11-20', notes: `${label} inspected` });
+    const [photoId] = (await trx('photos').insert({
+      firm_id: firmId, item_id: looseItemId, object_key: `firms/${firmId}/photos/seeded-${suffix}-${firmId}.png`, content_type: 'image/png', byte_size: 1, uploaded_by_user_id: people.stores.userId,
+    })) as number[];
+    const sentinels = [firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email), registration, kitName, `T${suffix}${firmId}A`, `L${suffix}${firmId}`];
+    return {
+      firmId: firmId!, firmName, people, target, invitation: { id: invitationId!, email: inviteEmail, token }, emailId: emailId!, sentinels,
+      depotId, van: { id: vanId!, registration }, spareVanId: spareVanId!, kit: { id: kitId!, name: kitName, itemIds }, looseItemId: looseItemId!, kindId, photoId: photoId!,
+    };
   });
 }
 

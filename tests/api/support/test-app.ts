@@ -78,6 +78,15 @@ export class Client {
   delete(url: string) {
     return this.send('delete', url);
   }
+
+  /** A multipart upload with the session's CSRF token. */
+  async upload(url: string, fields: Record<string, string>, file?: { field: string; content: Buffer; filename: string; contentType?: string }) {
+    if (!this.csrfToken) await this.refreshCsrf();
+    let req = this.agent.post(url).set('X-CSRF-Token', this.csrfToken);
+    for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+    if (file) req = req.attach(file.field, file.content, { filename: file.filename, contentType: file.contentType ?? 'application/octet-stream' });
+    return req;
+  }
 }
 
 export interface SignedUp {

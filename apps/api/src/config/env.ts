@@ -21,6 +21,13 @@ const envSchema = z.object({
   SESSION_SECRET: z.string().min(32, { error: 'SESSION_SECRET must be at least 32 characters.' }),
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(120),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  // S3-compatible object storage for photos; the defaults point at the local stand-in of `npm start`.
+  S3_ENDPOINT: z.url().optional().default('http://127.0.0.1:4569'),
+  S3_REGION: z.string().default('eu-west-2'),
+  S3_BUCKET: z.string().default('heatfleet-photos'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: z.stringbool().default(true),
   OUTBOX_DIR: z.string().optional(),
   WEB_DIST_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

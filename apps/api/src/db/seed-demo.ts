@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import type { Role } from '@heatfleet/domain';
 import { hashPassword } from '../modules/auth/password.ts';
+import { setUpNewFirm } from '../modules/firms/firm-dal.ts';
+import { seedDemoFleet } from './seed-demo-fleet.ts';
 
 // Invented firms and people for the demo; no real person, place or firm.
 export const DEMO_PASSWORD = 'heatfleet-demo-2026';
@@ -37,7 +39,7 @@ const demoPeople: DemoPerson[] = [
 ];
 
 /** Seeds the two demo firms once; a second run finds them and changes nothing. */
-export async function seedDemoFirms(db: Knex): Promise<'seeded' | 'already-seeded'> {
+export async function seedDemoFirms(db: Knex, now = new Date()): Promise<'seeded' | 'already-seeded'> {
   const existing = await db('firms').where({ name: demoFirms.brackenford.name }).first('id');
   if (existing) return 'already-seeded';
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -46,6 +48,7 @@ export async function seedDemoFirms(db: Knex): Promise<'seeded' | 'already-seede
     for (const key of Object.keys(demoFirms) as (keyof typeof demoFirms)[]) {
       const [id] = await trx('firms').insert({ name: demoFirms[key].name, address: demoFirms[key].address, time_zone: 'Europe/London' });
       firmIds[key] = id as number;
+      await setUpNewFirm(trx, id as number);
     }
     for (const person of demoPeople) {
       const [userId] = await trx('users').insert({ email: person.email, name: person.name, password_hash: passwordHash });
@@ -53,6 +56,7 @@ export async function seedDemoFirms(db: Knex): Promise<'seeded' | 'already-seede
         await trx('memberships').insert({ firm_id: firmIds[firm], user_id: userId, role, active: true });
       }
     }
+    await seedDemoFleet(trx, firmIds, now);
   });
   return 'seeded';
 }

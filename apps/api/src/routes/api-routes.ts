@@ -1,9 +1,15 @@
 import { authRoutes } from '../modules/auth/auth-router.ts';
 import { healthRoutes } from '../modules/health/health-router.ts';
 import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
+import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
+import { kitItemRoutes } from '../modules/kits/kit-item-router.ts';
+import { kitRoutes } from '../modules/kits/kit-router.ts';
+import { locationRoutes } from '../modules/locations/location-router.ts';
 import { memberRoutes } from '../modules/members/member-router.ts';
 import { openApiRoute } from '../modules/openapi/openapi-router.ts';
 import { outboxRoutes } from '../modules/outbox/outbox-router.ts';
+import { photoRoutes } from '../modules/photos/photo-router.ts';
+import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
 /**
@@ -15,6 +21,12 @@ export const apiRoutes: RouteDefinition[] = [
   ...authRoutes,
   ...memberRoutes,
   ...invitationRoutes,
+  ...locationRoutes,
+  ...itemKindRoutes,
+  ...kitRoutes,
+  ...kitItemRoutes,
+  ...photoRoutes,
+  ...reminderRoutes,
   ...outboxRoutes,
   openApiRoute(() => apiRoutes),
 ];

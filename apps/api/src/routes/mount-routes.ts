@@ -1,15 +1,23 @@
-import { Router } from 'express';
-import type { AppDeps } from '../app-deps.ts';
+import { Router, type RequestHandler } from 'express';
+import type { Actor, AppDeps } from '../app-deps.ts';
 import { authenticate } from '../middleware/authenticate.ts';
 import { emptyParamsSchema, emptyQuerySchema, type RouteDefinition } from './route-registry.ts';
 
-/** Mounts registry routes: authenticate (for member routes), parse every input, then the handler. */
+/**
+ * Mounts registry routes: authenticate (member routes, before anything else reads the request,
+ * such as an upload), the route's own middleware, then parse every input and run the handler.
+ */
 export function mountRoutes(routes: RouteDefinition[], deps: AppDeps): Router {
   const router = Router();
+  const signedIn: RequestHandler = async (req, res, next) => {
+    res.locals.actor = await authenticate(req, deps);
+    next();
+  };
   for (const route of routes) {
     if (route.devOnly && deps.env.NODE_ENV === 'production') continue;
-    router[route.method](route.path, ...(route.before?.(deps) ?? []), async (req, res) => {
-      const actor = route.access === 'member' ? await authenticate(req, deps) : null;
+    const chain = [...(route.access === 'member' ? [signedIn] : []), ...(route.before?.(deps) ?? [])];
+    router[route.method](route.path, ...chain, async (req, res) => {
+      const actor = (res.locals.actor as Actor | undefined) ?? null;
       const params = (route.request.params ?? emptyParamsSchema).parse(req.params);
       const query = (route.request.query ?? emptyQuerySchema).parse(req.query);
       const body = route.request.body ? route.request.body.parse(req.body ?? {}) : undefined;

@@ -18,6 +18,8 @@ export interface RouteDefinition {
   tenantData: boolean;
   devOnly?: boolean;
   request: { params?: ZodType; query?: ZodType; body?: ZodType };
+  /** A multipart upload: the file field and the text fields beside it (parsed by the route itself). */
+  multipart?: { fileField: string; fields: ZodType };
   responses: Record<number, { description: string; schema?: ZodType }>;
   before?: (deps: AppDeps) => RequestHandler[];
   handle: (ctx: RouteContext<unknown, unknown, unknown>) => Promise<void>;

@@ -67,6 +67,7 @@ export const csrfResponseSchema = z.object({ csrfToken: z.string() });
 
 export const userSchema = z.object({ id: z.number(), name: z.string(), email: z.string() });
 export const membershipSchema = z.object({
+  memberId: z.number(),
   firmId: z.number(),
   firmName: z.string(),
   role: roleSchema,
@@ -76,6 +77,8 @@ export const meResponseSchema = z.object({
   memberships: z.array(membershipSchema),
   activeFirm: z.object({ id: z.number(), name: z.string(), timeZone: z.string() }),
   role: roleSchema,
+  /** The person's membership in the active firm (rules such as "their own van" use it). */
+  memberId: z.number(),
 });
 export type Me = z.infer<typeof meResponseSchema>;
 export type Membership = z.infer<typeof membershipSchema>;

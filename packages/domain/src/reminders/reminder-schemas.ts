@@ -26,3 +26,12 @@ export type ReminderDelivery = z.infer<typeof reminderDeliverySchema>;
 
 /** Vans are reminded of MOT and service this many days ahead. */
 export const VAN_DUE_WINDOW_DAYS = 30;
+
+/** A firm's reminder settings as the API answers them: the editable part plus when the last scan ran. */
+export const reminderSettingsViewSchema = reminderSettingsSchema.extend({
+  lastScanOn: z.string().nullable(),
+});
+export type ReminderSettingsView = z.infer<typeof reminderSettingsViewSchema>;
+
+/** Without a settings row a firm gets every reminder, scanned from 07:00 in its time zone. */
+export const defaultReminderSettings: ReminderSettings = { scanHour: 7, inspectionReminders: true, vanReminders: true };

@@ -10,7 +10,7 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notFound, ruleBroken, signedOut } from '../../lib/http-error.ts';
 import { createToken, hashToken } from '../../lib/tokens.ts';
 import { endSessionsOfUser } from '../../middleware/session.ts';
-import { findFirm, insertFirm } from '../firms/firm-dal.ts';
+import { findFirm, insertFirm, setUpNewFirm } from '../firms/firm-dal.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import { passwordResetEmail } from '../mail/mail-templates.ts';
 import { findActiveMembership, insertMembership, listMembershipsOfUser } from '../members/member-dal.ts';
@@ -47,6 +47,7 @@ export async function signUp(deps: AppDeps, input: SignUpInput): Promise<{ userI
     const userId = existing?.id ?? (await insertUser(trx, { email: input.email, name: input.name, passwordHash: passwordHash! }));
     const firmId = await insertFirm(trx, { name: input.firmName });
     await insertMembership(trx, { firmId, userId, role: 'owner' });
+    await setUpNewFirm(trx, firmId);
     return { userId, firmId };
   });
 }

@@ -1,0 +1,136 @@
+import { subject } from '@casl/ability';
+import type { CheckInInput, CheckOutInput, KitItem, MoveInput } from '@heatfleet/domain';
+import type { Knex } from 'knex';
+import type { Actor, AppDeps } from '../../app-deps.ts';
+import { conflict, HttpError, notAllowed, notFound } from '../../lib/http-error.ts';
+import { findLocation, firstDepot, type LocationRow } from '../locations/location-dal.ts';
+import { insertCustodyEvents, lockItems } from './kit-dal.ts';
+import { loadItems } from './kit-service.ts';
+
+export type CustodyTarget = { kitId: number } | { itemId: number };
+type Action = 'check_out' | 'check_in' | 'move';
+
+function describeWhere(loc: NonNullable<KitItem['location']>): string {
+  if (loc.kind === 'depot') return `at ${loc.name}`;
+  return `out on van ${loc.registration ?? loc.name}${loc.engineerName ? ` with ${loc.engineerName}` : ''}`;
+}
+
+function labelOf(target: CustodyTarget, items: KitItem[]): string {
+  return 'kitId' in target ? (items[0]?.kit?.name ?? 'That kit') : (items[0]?.assetTag ?? 'That item');
+}
+
+function custodySubject(firmId: number, loc: LocationRow) {
+  return subject('Custody', { firmId, kind: loc.kind, engineerMemberId: loc.engineer_member_id });
+}
+
+async function destination(trx: Knex.Transaction, actor: Actor, action: Action, toLocationId: number | undefined): Promise<LocationRow> {
+  if (action === 'check_in') {
+    const depot = toLocationId ? await findLocation(trx, actor.firmId, toLocationId) : await firstDepot(trx, actor.firmId);
+    if (!depot || depot.kind !== 'depot' || !depot.active) throw notFound(toLocationId ? 'That depot' : 'A depot to check in to');
+    return depot;
+  }
+  const van = await findLocation(trx, actor.firmId, toLocationId!);
+  if (!van || van.kind !== 'van' || !van.active) throw notFound('That van');
+  return van;
+}
+
+async function checkPhoto(trx: Knex.Transaction, firmId: number, photoId: number | undefined) {
+  if (photoId === undefined) return;
+  if (!(await trx('photos').where({ firm_id: firmId, id: photoId }).first('id'))) throw notFound('That photo');
+}
+
+/**
+ * Moves a kit (all its items) or one item, appending one custody event per item. The item rows
+ * are locked first, so of two engineers checking out the same kit at once exactly one succeeds;
+ * the other then sees where it went and gets 409 naming the holder.
+ */
+export async function recordCustody(
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  target: CustodyTarget,
+  action: Action,
+  input: CheckOutInput | CheckInInput | MoveInput,
+): Promise<void> {
+  const now = deps.clock.now();
+  const ids = await lockItems(trx, actor.firmId, 'kitId' in target ? { kitId: target.kitId } : { itemId: target.itemId });
+  if ('kitId' in target && !(await trx('kits').where({ firm_id: actor.firmId, id: target.kitId }).first('id'))) throw notFound('That kit');
+  if (ids.length === 0) throw 'kitId' in target ? new HttpError(400, 'That kit has no items to move yet.', 'RuleBroken') : notFound('That item');
+  const items = await loadItems(trx, actor.firmId, now, { ids });
+  const label = labelOf(target, items);
+  const to = await destination(trx, actor, action, (input as { toLocationId?: number }).toLocationId);
+
+  // Where the items are now (the kit moves as one; a split kit is refused rather than half-moved).
+  const froms = new Set(items.map((i) => i.location?.id ?? null));
+  const here = items[0]!.location;
+  if (froms.size > 1) throw conflict(`${label} is split across places; move its items one at a time.`);
+
+  if (action === 'check_out') {
+    if (here?.kind === 'van') throw conflict(`${label} is already ${describeWhere(here)}.`);
+  } else if (action === 'check_in') {
+    if (!here || here.kind !== 'van') throw conflict(`${label} is already checked in${here ? ` ${describeWhere(here)}` : ''}.`);
+  } else {
+    if (!here || here.kind !== 'van') throw conflict(`${label} is not out on a van; check it out instead.`);
+    if (here.id === to.id) throw conflict(`${label} is already on that van.`);
+  }
+
+  // Engineers act for their own van only: taking kit onto it (check-out, or a move to it), or
+  // handing it in or on from it (check-in, or a move from it). Stores and above act for any van.
+  const fromRow = here ? await findLocation(trx, actor.firmId, here.id) : undefined;
+  const touching = action === 'check_out' ? [to] : action === 'check_in' ? [fromRow] : [fromRow, to];
+  if (!touching.some((loc) => loc && actor.ability.can('create', custodySubject(actor.firmId, loc)))) {
+    throw notAllowed('You can check kit out to, in from, or on from your own van only.');
+  }
+
+  let overdueReason: string | null = null;
+  if (action !== 'check_in') {
+    const broken = items.filter((i) => i.condition === 'out_of_service');
+    if (broken.length) {
+      throw new HttpError(409, `${broken.map((i) => i.assetTag).join(', ')} is out of service and cannot go out.`, 'OutOfService', broken.map((i) => ({ path: i.assetTag, message: 'Out of service' })));
+    }
+    const overdue = items.filter((i) => i.inspection.state === 'overdue');
+    const blocked = overdue.filter((i) => i.kind.overduePolicy === 'block');
+    const reason = (input as CheckOutInput).overdueReason;
+    if (blocked.length || (overdue.length && !reason)) {
+      const list = (blocked.length ? blocked : overdue).map((i) => ({
+        path: i.assetTag,
+        message: i.kind.overduePolicy === 'block' ? `${i.kind.name}: stays in until inspected` : `${i.kind.name}: overdue for inspection; give a reason to take it`,
+      }));
+      throw new HttpError(
+        409,
+        blocked.length
+          ? `${blocked.map((i) => i.assetTag).join(', ')} must be inspected before it goes out.`
+          : `${overdue.map((i) => i.assetTag).join(', ')} is overdue for inspection. Say why it goes out anyway, or inspect it first.`,
+        'InspectionOverdue',
+        list,
+      );
+    }
+    if (overdue.length) overdueReason = reason ?? null;
+  }
+
+  const checkIn = action === 'check_in' ? (input as CheckInInput) : undefined;
+  await checkPhoto(trx, actor.firmId, checkIn?.photoId);
+  await insertCustodyEvents(
+    trx,
+    items.map((i) => ({
+      firm_id: actor.firmId,
+      item_id: i.id,
+      kit_id: i.kit?.id ?? null,
+      action,
+      from_location_id: here?.id ?? null,
+      to_location_id: to.id,
+      by_user_id: actor.userId,
+      condition: checkIn?.condition ?? null,
+      missing_parts: checkIn?.missingParts ?? null,
+      note: input.note ?? null,
+      overdue_reason: overdueReason,
+      photo_id: checkIn?.photoId ?? null,
+      created_at: now,
+    })),
+  );
+  // The cached whereabouts follow the event just written, in the same transaction.
+  const update: Record<string, unknown> = { location_id: to.id };
+  if (checkIn) update.condition = checkIn.condition;
+  await trx('kit_items').where('firm_id', actor.firmId).whereIn('id', ids).update(update);
+  if (checkIn?.photoId) await trx('photos').where({ firm_id: actor.firmId, id: checkIn.photoId }).whereNull('item_id').update({ item_id: items[0]!.id });
+}

@@ -1,0 +1,54 @@
+import type { ReminderKind } from './reminder-dal.ts';
+
+export interface DigestLine {
+  kind: ReminderKind;
+  summary: string;
+}
+
+export interface RenderedDigest {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
+const count = (n: number) => `${n} reminder${n === 1 ? '' : 's'}`;
+
+function sections(lines: DigestLine[]): { title: string; lines: string[] }[] {
+  const kit = lines.filter((l) => l.kind === 'inspection_due').map((l) => l.summary);
+  const vans = lines.filter((l) => l.kind !== 'inspection_due').map((l) => l.summary);
+  return [
+    { title: 'Kit due for inspection', lines: kit },
+    { title: 'Van MOT and service', lines: vans },
+  ].filter((s) => s.lines.length > 0);
+}
+
+/** One e-mail listing the reminders new in this scan, for the office or for one engineer's van. */
+export function reminderDigestEmail(p: {
+  firmName: string;
+  audience: { kind: 'office' } | { kind: 'engineer'; name: string };
+  lines: DigestLine[];
+  link: string;
+}): RenderedDigest {
+  const intro =
+    p.audience.kind === 'office'
+      ? `Heatfleet found ${count(p.lines.length)} for ${p.firmName} today.`
+      : `Hello ${p.audience.name}, Heatfleet found ${count(p.lines.length)} for your van at ${p.firmName} today.`;
+  const parts = sections(p.lines);
+  const text = [
+    intro,
+    ...parts.map((s) => `${s.title}:\n${s.lines.map((l) => `- ${l}`).join('\n')}`),
+    `You get each reminder once for each time it falls due. All of them are in Heatfleet: ${p.link}`,
+  ].join('\n\n');
+  const html = `<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">
+<p>${escapeHtml(intro)}</p>
+${parts.map((s) => `<h3>${escapeHtml(s.title)}</h3>\n<ul>${s.lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>`).join('\n')}
+<p>You get each reminder once for each time it falls due. <a href="${escapeHtml(p.link)}">All of them are in Heatfleet</a></p>
+<p style="color:#555">Heatfleet</p></body></html>`;
+  const subject =
+    p.audience.kind === 'office' ? `${p.firmName}: ${count(p.lines.length)} for kit and vans` : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
+  return { subject, text: `${text}\n`, html };
+}
