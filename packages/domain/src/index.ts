@@ -12,3 +12,6 @@ export * from './kits/inspection-due.ts';
 export * from './photos/photo-schemas.ts';
 export * from './reminders/reminder-schemas.ts';
 export * from './kits/default-item-kinds.ts';
+export * from './stock/units.ts';
+export * from './stock/fefo.ts';
+export * from './stock/restock.ts';

@@ -100,7 +100,10 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
 export async function snapshotFirm(db: Knex, firmId: number): Promise<Record<string, unknown[]>> {
   const tables = await tenantTables(db);
   const snapshot: Record<string, unknown[]> = { firms: await db('firms').where({ id: firmId }) };
-  for (const table of tables) snapshot[table] = await db(table).where({ firm_id: firmId }).orderBy('id');
+  // Not every table has an id column (balances are keyed by place and batch): sort the rows themselves.
+  for (const table of tables) {
+    snapshot[table] = ((await db(table).where({ firm_id: firmId })) as unknown[]).map((r) => JSON.stringify(r)).sort();
+  }
   return snapshot;
 }
 
