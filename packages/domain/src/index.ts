@@ -15,3 +15,4 @@ export * from './kits/default-item-kinds.ts';
 export * from './stock/units.ts';
 export * from './stock/fefo.ts';
 export * from './stock/restock.ts';
+export * from './stock/stock-schemas.ts';

@@ -23,7 +23,11 @@ export type SubjectName =
   | 'Inspection'
   | 'Photo'
   | 'Reminder'
-  | 'ReminderSettings';
+  | 'ReminderSettings'
+  | 'Product'
+  | 'Stock'
+  | 'StockUse'
+  | 'ParLevel';
 export type AppSubjects =
   | SubjectName
   | 'all'
@@ -31,7 +35,8 @@ export type AppSubjects =
   | (MemberRecord & ForcedSubject<'Member'>)
   | (InvitationRecord & ForcedSubject<'Invitation'>)
   | (LocationRecord & ForcedSubject<'Location'>)
-  | (LocationRecord & ForcedSubject<'Custody'>);
+  | (LocationRecord & ForcedSubject<'Custody'>)
+  | (LocationRecord & ForcedSubject<'StockUse'>);
 export type AppAbility = MongoAbility<[Action, AppSubjects]>;
 
 export interface AbilityInput {
@@ -54,7 +59,7 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
   // Every member may see who else is in the firm (names and roles), e.g. to hand a kit over.
   can('read', 'Member', inFirm);
   // Everyone may look up where any kit is, and see the firm's vans and depots.
-  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo'], inFirm);
+  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'ParLevel'], inFirm);
 
   switch (member.role) {
     case 'owner':
@@ -67,16 +72,18 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
       // An Admin neither makes, changes nor removes an Owner.
       cannot('update', 'Member', { role: 'owner' });
       cannot('create', 'Invitation', { role: 'owner' });
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings'], inFirm);
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings', 'Product', 'Stock', 'StockUse', 'ParLevel'], inFirm);
       break;
     case 'stores':
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo'], inFirm);
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'StockUse', 'ParLevel'], inFirm);
       can('read', 'Reminder', inFirm);
       break;
     case 'engineer':
       // Their own van only: check kit out to it, back in from it, or on to another van from it.
       if (member.memberId !== undefined) {
         can('create', 'Custody', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
+        // Stock used by hand (a job's chemicals come off with the job) from their own van only.
+        can('create', 'StockUse', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
       }
       can('create', ['Inspection', 'Photo'], inFirm);
       break;

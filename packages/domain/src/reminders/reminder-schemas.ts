@@ -17,6 +17,9 @@ export type ReminderSettings = z.infer<typeof reminderSettingsSchema>;
 export const reminderDeliverySchema = z.object({
   id: z.number(),
   kind: z.enum(reminderKinds),
+  /** What it is about, for a link: a kit item's or a van's id. */
+  subjectType: z.enum(['kit_item', 'van']),
+  subjectId: z.number(),
   summary: z.string(),
   recipient: z.string(),
   sentAt: z.string().nullable(),

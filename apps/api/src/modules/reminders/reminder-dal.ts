@@ -271,15 +271,26 @@ export async function listReminderDeliveries(db: Db, firmId: number, limit: numb
       this.on('e.id', '=', 'd.email_id').andOn('e.firm_id', '=', 'd.firm_id');
     })
     .where('d.firm_id', firmId)
-    .select('d.id', 'r.kind', 'r.summary', 'd.recipient', 'e.sent_at', 'd.created_at')
+    .select('d.id', 'r.kind', 'r.subject_type', 'r.subject_id', 'r.summary', 'd.recipient', 'e.sent_at', 'd.created_at')
     .orderBy([
       { column: 'd.created_at', order: 'desc' },
       { column: 'd.id', order: 'desc' },
     ])
-    .limit(limit)) as { id: number; kind: ReminderKind; summary: string; recipient: string; sent_at: Date | null; created_at: Date }[];
+    .limit(limit)) as {
+    id: number;
+    kind: ReminderKind;
+    subject_type: 'kit_item' | 'van';
+    subject_id: number;
+    summary: string;
+    recipient: string;
+    sent_at: Date | null;
+    created_at: Date;
+  }[];
   return rows.map((r) => ({
     id: Number(r.id),
     kind: r.kind,
+    subjectType: r.subject_type,
+    subjectId: r.subject_id,
     summary: r.summary,
     recipient: r.recipient,
     sentAt: r.sent_at ? new Date(r.sent_at).toISOString() : null,

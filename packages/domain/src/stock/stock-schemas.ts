@@ -1,0 +1,178 @@
+import { z } from 'zod';
+import { calendarDateSchema } from '../lib/calendar-date.ts';
+
+export const productKinds = ['cleaner', 'inhibitor', 'descaler', 'leak_sealer', 'neutraliser', 'other'] as const;
+export const productKindLabels: Record<(typeof productKinds)[number], string> = {
+  cleaner: 'Cleaner',
+  inhibitor: 'Inhibitor',
+  descaler: 'Descaler',
+  leak_sealer: 'Leak sealer',
+  neutraliser: 'Neutraliser',
+  other: 'Other',
+};
+
+const text = (label: string, max: number) =>
+  z.string().trim().max(max, { error: `${label} must be at most ${max} characters.` }).transform((s) => (s === '' ? null : s)).nullable().optional();
+const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
+const packs = (label: string) =>
+  z.number({ error: `${label} is required.` }).int({ error: `${label} must be whole packs.` }).min(1, { error: `${label} must be at least 1 pack.` }).max(100_000, { error: `${label} must be at most 100000 packs.` });
+
+export const productInputSchema = z
+  .strictObject({
+    name: z.string({ error: 'Name is required.' }).trim().min(1, { error: 'Name is required.' }).max(120),
+    kind: z.enum(productKinds, { error: () => ({ message: `Kind must be one of: ${productKinds.join(', ')}.` }) }),
+    packSize: z.number({ error: 'Pack size is required.' }).positive({ error: 'Pack size must be more than 0.' }).max(25_000, { error: 'Pack size must be at most 25000.' }),
+    packUnit: z.enum(['ml', 'l'], { error: () => ({ message: 'Pack unit must be ml or l.' }) }),
+    doseLitresPer100L: z.number().min(0.001, { error: 'Dose must be more than 0.' }).max(100, { error: 'Dose must be at most 100 litres per 100 litres.' }).nullable().optional(),
+    radiatorsPerPack: z.number().int().min(1).max(100).nullable().optional(),
+    targetMin: z.number().min(0).max(1_000_000).nullable().optional(),
+    targetMax: z.number().min(0).max(1_000_000).nullable().optional(),
+    targetUnit: text('Target unit', 20),
+    testMethod: text('Test method', 300),
+    shelfLifeMonths: z.number().int().min(1).max(240).nullable().optional(),
+    hazardNotes: text('Hazard notes', 2000),
+  })
+  .refine((p) => p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000, { error: 'Pack size must be at most 25 litres.', path: ['packSize'] })
+  .refine((p) => p.targetMin == null || p.targetMax == null || p.targetMin <= p.targetMax, { error: 'The target range must run from low to high.', path: ['targetMax'] });
+export type ProductInput = z.infer<typeof productInputSchema>;
+
+export const productSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  kind: z.enum(productKinds),
+  packSizeMl: z.number(),
+  doseLitresPer100L: z.number().nullable(),
+  radiatorsPerPack: z.number().nullable(),
+  targetMin: z.number().nullable(),
+  targetMax: z.number().nullable(),
+  targetUnit: z.string().nullable(),
+  testMethod: z.string().nullable(),
+  shelfLifeMonths: z.number().nullable(),
+  hazardNotes: z.string().nullable(),
+  safetyDataSheet: z.object({ url: z.string(), byteSize: z.number(), uploadedAt: z.string() }).nullable(),
+  active: z.boolean(),
+});
+export type Product = z.infer<typeof productSchema>;
+
+export const lotNumberSchema = z.string({ error: 'Lot number is required.' }).trim().min(1, { error: 'Lot number is required.' }).max(60);
+
+export const receiptInputSchema = z.strictObject({
+  locationId: id('Depot'),
+  reference: text('Delivery reference', 100),
+  lines: z
+    .array(z.strictObject({ productId: id('Product'), lotNumber: lotNumberSchema, expiresOn: calendarDateSchema, quantity: packs('Quantity') }), { error: 'Add at least one line.' })
+    .min(1, { error: 'Add at least one line.' })
+    .max(100),
+});
+export type ReceiptInput = z.infer<typeof receiptInputSchema>;
+
+const transferLine = z.strictObject({ productId: id('Product'), batchId: id('Batch').optional(), quantity: packs('Quantity') });
+export const transferInputSchema = z
+  .strictObject({ fromLocationId: id('From'), toLocationId: id('To'), lines: z.array(transferLine).min(1, { error: 'Add at least one line.' }).max(200), note: text('Note', 300) })
+  .refine((t) => t.fromLocationId !== t.toLocationId, { error: 'From and to must be different places.', path: ['toLocationId'] });
+export type TransferInput = z.infer<typeof transferInputSchema>;
+
+export const usageInputSchema = z.strictObject({
+  locationId: id('Location'),
+  productId: id('Product'),
+  batchId: id('Batch').optional(),
+  quantity: packs('Quantity'),
+  reason: z.string({ error: 'Say what it was used for.' }).trim().min(3, { error: 'Say what it was used for.' }).max(300),
+});
+export type UsageInput = z.infer<typeof usageInputSchema>;
+
+export const stocktakeInputSchema = z.strictObject({
+  locationId: id('Location'),
+  counts: z
+    .array(z.strictObject({ batchId: id('Batch'), counted: z.number().int().min(0, { error: 'A count cannot be negative.' }).max(100_000) }))
+    .min(1, { error: 'Count at least one batch.' })
+    .max(500),
+  note: text('Note', 300),
+});
+export type StocktakeInput = z.infer<typeof stocktakeInputSchema>;
+
+export const writeOffReasons = ['expired', 'damaged', 'spilled'] as const;
+export const writeOffInputSchema = z.strictObject({
+  locationId: id('Location'),
+  batchId: id('Batch'),
+  quantity: packs('Quantity'),
+  reason: z.enum(writeOffReasons, { error: () => ({ message: 'Reason must be expired, damaged or spilled.' }) }),
+  note: text('Note', 300),
+});
+export type WriteOffInput = z.infer<typeof writeOffInputSchema>;
+
+export const reversalInputSchema = z.strictObject({ reason: z.string().trim().min(3, { error: 'Say why it is being reversed.' }).max(300) });
+
+export const parLevelInputSchema = z
+  .strictObject({
+    locationId: id('Location'),
+    productId: id('Product'),
+    minimum: z.number().int().min(0).max(100_000),
+    target: z.number().int().min(0).max(100_000),
+  })
+  .refine((p) => p.target >= p.minimum, { error: 'The target must be at least the minimum.', path: ['target'] });
+export type ParLevelInput = z.infer<typeof parLevelInputSchema>;
+
+export const movementKinds = ['received', 'transfer_out', 'transfer_in', 'used', 'counted', 'written_off', 'reversal'] as const;
+export const movementKindLabels: Record<(typeof movementKinds)[number], string> = {
+  received: 'Received',
+  transfer_out: 'Sent',
+  transfer_in: 'Arrived',
+  used: 'Used',
+  counted: 'Stocktake adjustment',
+  written_off: 'Written off',
+  reversal: 'Reversal',
+};
+
+export const ledgerQuerySchema = z.strictObject({
+  locationId: z.coerce.number().int().positive().optional(),
+  productId: z.coerce.number().int().positive().optional(),
+  kind: z.enum(movementKinds).optional(),
+  from: calendarDateSchema.optional(),
+  to: calendarDateSchema.optional(),
+  /** Keyset cursor: the id of the last movement of the previous page. */
+  before: z.coerce.number().int().positive().optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(50),
+});
+export type LedgerQuery = z.infer<typeof ledgerQuerySchema>;
+
+export const movementSchema = z.object({
+  id: z.number(),
+  groupId: z.string(),
+  kind: z.enum(movementKinds),
+  location: z.object({ id: z.number(), name: z.string() }),
+  product: z.object({ id: z.number(), name: z.string() }),
+  batch: z.object({ id: z.number(), lotNumber: z.string(), expiresOn: z.string() }),
+  quantityDelta: z.number(),
+  reason: z.string().nullable(),
+  reference: z.string().nullable(),
+  reversesMovementId: z.number().nullable(),
+  byName: z.string(),
+  createdAt: z.string(),
+});
+export type Movement = z.infer<typeof movementSchema>;
+
+export const stockHealth = ['no_par', 'ok', 'below_target', 'below_minimum', 'empty'] as const;
+export const stockHealthLabels: Record<(typeof stockHealth)[number], string> = {
+  no_par: 'No level set',
+  ok: 'Stocked',
+  below_target: 'Below target',
+  below_minimum: 'Below minimum',
+  empty: 'None usable',
+};
+
+export function stockHealthOf(usable: number, par: { minimum: number; target: number } | null): (typeof stockHealth)[number] {
+  if (!par) return 'no_par';
+  if (usable <= 0 && par.minimum > 0) return 'empty';
+  if (usable < par.minimum) return 'below_minimum';
+  if (usable < par.target) return 'below_target';
+  return 'ok';
+}
+
+export const restockApplyInputSchema = z.strictObject({
+  lines: z
+    .array(z.strictObject({ toLocationId: id('Van'), productId: id('Product'), batchId: id('Batch'), quantity: packs('Quantity') }))
+    .min(1, { error: 'Nothing to apply.' })
+    .max(5000),
+});
+export type RestockApplyInput = z.infer<typeof restockApplyInputSchema>;
