@@ -234,8 +234,11 @@ describe('service-due reminders', () => {
   it('lists what was sent to whom on the Reminders page, for Owner, Admin and Stores only', async () => {
     const stores = await signIn(t.app, firm.people.stores.email);
     const res = await stores.get('/api/reminders').expect(200);
-    const reminders = res.body.reminders as { recipient: string; summary: string; kind: string; sentAt: string | null }[];
+    const reminders = res.body.reminders as { recipient: string; summary: string; kind: string; subjectType: string; subjectId: number; sentAt: string | null }[];
     expect(reminders).toHaveLength(17);
+    expect(reminders).toContainEqual(
+      expect.objectContaining({ recipient: firm.people.engineer.email, kind: 'mot_due', subjectType: 'van', subjectId: ids.north }),
+    );
     expect(reminders.filter((r) => r.recipient === firm.people.engineer.email).map((r) => r.summary).sort()).toEqual(
       expect.arrayContaining([expect.stringContaining('RT-H1'), expect.stringContaining('RT-M1'), expect.stringContaining('Van-North')]),
     );

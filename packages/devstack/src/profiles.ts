@@ -10,6 +10,7 @@ export interface Profile {
   mariadb: { dataDir: string; port: number; dbName: string; extraArgs: string[] };
   redis: { dataDir: string; port: number };
   smtpPort: number;
+  s3: { dataDir: string; port: number; bucket: string; region: string };
   appPort: number;
   outboxDir: string;
   /** Where the built client goes and the server serves it from. */
@@ -39,6 +40,7 @@ export function getProfile(name: ProfileName): Profile {
     outboxDir: join(dataDir, 'outbox'),
     logDir: join(dataDir, 'logs'),
   };
+  const s3 = (port: number) => ({ dataDir: join(dataDir, 's3'), port, bucket: 'heatfleet-photos', region: 'eu-west-2' });
   if (name === 'dev') {
     return {
       ...common,
@@ -47,6 +49,7 @@ export function getProfile(name: ProfileName): Profile {
       mariadb: { dataDir: join(dataDir, 'mariadb'), port: 3406, dbName: 'heatfleet', extraArgs: [] },
       redis: { dataDir: join(dataDir, 'redis'), port: 6479 },
       smtpPort: 2525,
+      s3: s3(4569),
       appPort: appPortFromEnv(5173),
       distDir: join(repoRoot, 'dist'),
       logLevel: 'info',
@@ -65,6 +68,7 @@ export function getProfile(name: ProfileName): Profile {
     },
     redis: { dataDir: join(dataDir, 'redis'), port: 6480 },
     smtpPort: 2526,
+    s3: s3(4570),
     appPort: 5183,
     // The same dist/ as `npm start`: a folder under .data would trip express's sendFile, which refuses
     // any path with a dot-folder in it unless given a root.

@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { startMailCatcher, type MailCatcher } from './mail-catcher.ts';
 import { startMariadb, stopMariadb, type MariadbInstance } from './mariadb.ts';
+import { startObjectStore, type ObjectStore } from './object-store.ts';
 import type { Profile } from './profiles.ts';
 import { startRedis, stopRedis, type RedisInstance } from './redis.ts';
 
@@ -8,6 +9,7 @@ export interface Services {
   mariadb: MariadbInstance;
   redis: RedisInstance | null;
   mail: MailCatcher | null;
+  objectStore: ObjectStore | null;
   /** Stops what this process started, newest first; servers that were already up are left running. */
   stop(): Promise<void>;
 }
@@ -22,7 +24,7 @@ export function describeMariadb(instance: MariadbInstance): string {
   return `MariaDB on ${instance.port}: ${init}started in ${seconds(instance.startMs)}`;
 }
 
-/** MariaDB, then Redis and the mail catcher (unless only the database is wanted, as for db:migrate). */
+/** MariaDB, then Redis, the mail catcher and the S3 object store (unless only the database is wanted, as for db:migrate). */
 export async function startServices(
   profile: Profile,
   options: { only?: 'mariadb'; log?: (line: string) => void } = {},
@@ -46,7 +48,7 @@ export async function startServices(
     });
     if (mariadb.startedHere) stops.push(() => stopMariadb(mariadb));
     log(describeMariadb(mariadb));
-    if (options.only === 'mariadb') return { mariadb, redis: null, mail: null, stop: stopAll };
+    if (options.only === 'mariadb') return { mariadb, redis: null, mail: null, objectStore: null, stop: stopAll };
 
     const redis = await startRedis({ dataDir: profile.redis.dataDir, port: profile.redis.port });
     if (redis.startedHere) stops.push(() => stopRedis(redis));
@@ -55,7 +57,11 @@ export async function startServices(
     const mail = await startMailCatcher({ port: profile.smtpPort, outboxDir: profile.outboxDir });
     stops.push(() => mail.close());
     log(`Mail catcher on ${mail.port}: writing to ${profile.outboxDir}`);
-    return { mariadb, redis, mail, stop: stopAll };
+
+    const objectStore = await startObjectStore({ port: profile.s3.port, dataDir: profile.s3.dataDir, bucket: profile.s3.bucket });
+    stops.push(() => objectStore.close());
+    log(`Object store (S3) on ${objectStore.port}: bucket ${objectStore.bucket} in ${profile.s3.dataDir}`);
+    return { mariadb, redis, mail, objectStore, stop: stopAll };
   } catch (error) {
     await stopAll().catch(() => undefined);
     throw error;

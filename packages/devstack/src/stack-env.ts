@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { databasePassword, databaseUser, getProfile, type Profile, type ProfileName } from './profiles.ts';
 
 export const mailFrom = 'Heatfleet <no-reply@heatfleet.example>';
+const s3rverCredential = 'S3RVER';
 
 /** Made once per data folder and kept, so sessions survive a restart of `npm start`. */
 function sessionSecret(dataDir: string): string {
@@ -34,6 +35,13 @@ export function stackEnv(profileOrName: Profile | ProfileName): Record<string, s
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(profile.smtpPort),
     MAIL_FROM: mailFrom,
+    S3_ENDPOINT: `http://127.0.0.1:${profile.s3.port}`,
+    S3_REGION: profile.s3.region,
+    S3_BUCKET: profile.s3.bucket,
+    // s3rver accepts only this fixed key pair; a real store gets its own from the deployment's secrets.
+    S3_ACCESS_KEY_ID: s3rverCredential,
+    S3_SECRET_ACCESS_KEY: s3rverCredential,
+    S3_FORCE_PATH_STYLE: 'true',
     SESSION_SECRET: sessionSecret(profile.dataDir),
     OUTBOX_DIR: profile.outboxDir,
     WEB_DIST_DIR: profile.distDir,

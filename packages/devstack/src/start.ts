@@ -51,6 +51,7 @@ function printBanner(apiPort: number): void {
     `  MariaDB     127.0.0.1:${profile.mariadb.port}, database ${profile.mariadb.dbName}, user ${databaseUser} / ${databasePassword}`,
     `  Redis       127.0.0.1:${profile.redis.port}`,
     `  Mail        SMTP 127.0.0.1:${profile.smtpPort}, nothing is delivered: read it at ${url}/outbox`,
+    `  Photos      S3 http://127.0.0.1:${profile.s3.port}, bucket ${profile.s3.bucket}, files in ${relative(process.cwd(), profile.s3.dataDir) || profile.s3.dataDir}`,
     devMode ? `  API         http://127.0.0.1:${apiPort} (Vite proxies /api to it)` : `  API         ${url}/api`,
     `  logs        ${relative(process.cwd(), profile.logDir) || profile.logDir}`,
     '',
@@ -69,10 +70,11 @@ async function main(): Promise<void> {
     { port: profile.appPort, what: devMode ? 'the Vite dev server' : 'Heatfleet' },
     ...(devMode ? [{ port: apiPort, what: 'the API behind Vite' }] : []),
     { port: profile.smtpPort, what: 'the mail catcher' },
+    { port: profile.s3.port, what: 'the S3 object store' },
   ]);
 
   const services = await startServices(profile, { log: say });
-  await life.add('MariaDB, Redis and the mail catcher', () => services.stop());
+  await life.add('MariaDB, Redis, the mail catcher and the object store', () => services.stop());
 
   const env = childEnv(profile, { PORT: String(apiPort) });
   await step('Migrating the database', nodeTsArgs(apiFiles.dbCli, ['migrate']), env);

@@ -145,13 +145,16 @@ async function main(): Promise<void> {
   await assertPortsFree([
     ...(wantE2e ? [{ port: profile.appPort, what: 'the test app' }] : []),
     { port: profile.smtpPort, what: 'the test mail catcher' },
+    { port: profile.s3.port, what: 'the test S3 object store' },
   ]);
   rmSync(vitestJson, { force: true });
   rmSync(playwrightJson, { force: true });
 
   heading('Test stack');
+  // The database is recreated each run, so last run's photo objects would belong to rows that no longer exist.
+  rmSync(profile.s3.dataDir, { recursive: true, force: true });
   const services = await startServices(profile, { log: say });
-  await life.add('MariaDB, Redis and the mail catcher', () => services.stop());
+  await life.add('MariaDB, Redis, the mail catcher and the object store', () => services.stop());
   const env = childEnv(profile);
 
   await freshDatabase(env, false);
