@@ -18,6 +18,8 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'kit-items:id': (f) => String(f.looseItemId),
   'item-kinds:id': (f) => String(f.kindId),
   'photos:id': (f) => String(f.photoId),
+  'products:id': (f) => String(f.product.id),
+  'stock:id': (f) => String(f.movementId),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -47,6 +49,16 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'POST /kit-items/:id/check-in': (f) => ({ toLocationId: f.depotId, condition: 'in_service' }),
   'POST /kit-items/:id/move': (f) => ({ toLocationId: f.spareVanId }),
   'POST /kit-items/:id/inspections': (f) => ({ result: 'passed', photoId: f.photoId }),
+  'POST /products': () => ({ name: `Probe product ${Math.random().toString(36).slice(2, 7)}`, kind: 'inhibitor', packSize: 1, packUnit: 'l', doseLitresPer100L: 1 }),
+  'PUT /products/:id': (f) => ({ name: f.product.name, kind: 'cleaner', packSize: 500, packUnit: 'ml' }),
+  'POST /stock/receipts': (f) => ({ locationId: f.depotId, lines: [{ productId: f.product.id, lotNumber: f.product.lotNumber, expiresOn: '2030-01-31', quantity: 1 }] }),
+  'POST /stock/transfers': (f) => ({ fromLocationId: f.depotId, toLocationId: f.van.id, lines: [{ productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
+  'POST /stock/usages': (f) => ({ locationId: f.van.id, productId: f.product.id, quantity: 1, reason: 'Probe use' }),
+  'POST /stock/stocktakes': (f) => ({ locationId: f.depotId, counts: [{ batchId: f.product.batchId, counted: 9 }] }),
+  'POST /stock/write-offs': (f) => ({ locationId: f.depotId, batchId: f.product.batchId, quantity: 1, reason: 'damaged' }),
+  'POST /stock/movements/:id/reverse': () => ({ reason: 'Probe reversal' }),
+  'PUT /par-levels': (f) => ({ locationId: f.van.id, productId: f.product.id, minimum: 1, target: 2 }),
+  'POST /stock/restock-run': (f) => ({ lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
   'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
 };
 
@@ -54,6 +66,12 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
 const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
   'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
+  'GET /stock/batches': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),
+  'GET /stock/movements': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),
+  'GET /stock/movements.csv': (f) => ({ productId: String(f.product.id) }),
+  'GET /stock/restock-run': (f) => ({ depotId: String(f.depotId) }),
+  'POST /stock/restock-run': (f) => ({ depotId: String(f.depotId) }),
+  'GET /stock/reorder-list.csv': (f) => ({ depotId: String(f.depotId) }),
 };
 
 export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {
@@ -66,9 +84,13 @@ export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {
 /** A tiny valid PNG (1x1), for upload routes. */
 export const tinyPng = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
 
+/** A minimal PDF (what a safety data sheet upload must be). */
+export const tinyPdf = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+
 /** Multipart fields per upload route, built from a firm's records. */
 const multipartFields: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'POST /photos': (f) => ({ itemId: String(f.looseItemId) }),
+  'POST /products/:id/safety-data-sheet': () => ({}),
 };
 
 export function probeMultipart(route: RouteDefinition, firm: SeededFirm): Record<string, string> | undefined {
@@ -98,7 +120,10 @@ export function probeBody(route: RouteDefinition, firm: SeededFirm): unknown {
 export function callProbe(client: Client, route: RouteDefinition, firm: SeededFirm) {
   const url = probePath(route, firm) + probeQuery(route, firm);
   const fields = probeMultipart(route, firm);
-  if (fields && route.multipart) return client.upload(url, fields, { field: route.multipart.fileField, content: tinyPng, filename: 'probe.png', contentType: 'image/png' });
+  if (fields && route.multipart) {
+    const pdf = route.multipart.fileField === 'file';
+    return client.upload(url, fields, { field: route.multipart.fileField, content: pdf ? tinyPdf : tinyPng, filename: pdf ? 'probe.pdf' : 'probe.png', contentType: pdf ? 'application/pdf' : 'image/png' });
+  }
   if (route.method === 'get') return client.get(url);
   return client[route.method](url, probeBody(route, firm));
 }

@@ -22,6 +22,8 @@ export interface SeededFirm {
   looseItemId: number;
   kindId: number;
   photoId: number;
+  product: { id: number; name: string; batchId: number; lotNumber: string };
+  movementId: number;
   /** Strings that belong to this firm only: none may appear in another firm's answers. */
   sentinels: string[];
 }
@@ -88,10 +90,30 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
     const [photoId] = (await trx('photos').insert({
       firm_id: firmId, item_id: looseItemId, object_key: `firms/${firmId}/photos/seeded-${suffix}-${firmId}.png`, content_type: 'image/png', byte_size: 1, uploaded_by_user_id: people.stores.userId,
     })) as number[];
-    const sentinels = [firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email), registration, kitName, `T${suffix}${firmId}A`, `L${suffix}${firmId}`];
+    const productName = `${label} cleaner ${suffix}`;
+    const [productId] = (await trx('products').insert({ firm_id: firmId, name: productName, kind: 'cleaner', pack_size_ml: 1000, dose_litres_per_100l: 1 })) as number[];
+    const lotNumber = `LOT${suffix}${firmId}`;
+    const [batchId] = (await trx('product_batches').insert({ firm_id: firmId, product_id: productId, lot_number: lotNumber, expires_on: '2030-01-31' })) as number[];
+    await trx('stock_balances').insert([
+      { firm_id: firmId, location_id: depotId, batch_id: batchId, product_id: productId, quantity: 10 },
+      { firm_id: firmId, location_id: vanId, batch_id: batchId, product_id: productId, quantity: 2 },
+    ]);
+    const [movementId] = (await trx('stock_movements').insert([
+      { firm_id: firmId, group_id: `seed-${suffix}-${firmId}`, kind: 'received', location_id: depotId, product_id: productId, batch_id: batchId, quantity_delta: 12, by_user_id: people.stores.userId, reference: `DEL-${suffix}` },
+    ])) as number[];
+    await trx('stock_movements').insert([
+      { firm_id: firmId, group_id: `seed2-${suffix}-${firmId}`, kind: 'transfer_out', location_id: depotId, product_id: productId, batch_id: batchId, quantity_delta: -2, by_user_id: people.stores.userId },
+      { firm_id: firmId, group_id: `seed2-${suffix}-${firmId}`, kind: 'transfer_in', location_id: vanId, product_id: productId, batch_id: batchId, quantity_delta: 2, by_user_id: people.stores.userId },
+    ]);
+    await trx('par_levels').insert([
+      { firm_id: firmId, location_id: vanId, product_id: productId, minimum: 3, target: 5 },
+      { firm_id: firmId, location_id: depotId, product_id: productId, minimum: 20, target: 30 },
+    ]);
+    const sentinels = [firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email), registration, kitName, `T${suffix}${firmId}A`, `L${suffix}${firmId}`, productName, lotNumber];
     return {
       firmId: firmId!, firmName, people, target, invitation: { id: invitationId!, email: inviteEmail, token }, emailId: emailId!, sentinels,
       depotId, van: { id: vanId!, registration }, spareVanId: spareVanId!, kit: { id: kitId!, name: kitName, itemIds }, looseItemId: looseItemId!, kindId, photoId: photoId!,
+      product: { id: productId!, name: productName, batchId: batchId!, lotNumber }, movementId: movementId!,
     };
   });
 }

@@ -9,6 +9,7 @@ import { memberRoutes } from '../modules/members/member-router.ts';
 import { openApiRoute } from '../modules/openapi/openapi-router.ts';
 import { outboxRoutes } from '../modules/outbox/outbox-router.ts';
 import { photoRoutes } from '../modules/photos/photo-router.ts';
+import { stockRoutes } from '../modules/stock/stock-router.ts';
 import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
@@ -26,6 +27,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...kitRoutes,
   ...kitItemRoutes,
   ...photoRoutes,
+  ...stockRoutes,
   ...reminderRoutes,
   ...outboxRoutes,
   openApiRoute(() => apiRoutes),

@@ -98,12 +98,12 @@ export const SDS_MAX_BYTES = 10 * 1024 * 1024;
 /** Stores a product's safety data sheet: a PDF by its content, under the firm's prefix. */
 export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: number, file: Buffer): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'Product');
+  const row = (await deps.db('products').where({ firm_id: actor.firmId, id }).first('id', 'sds_object_key')) as { id: number; sds_object_key: string | null } | undefined;
+  if (!row) throw notFound('That product');
   const type = await fileTypeFromBuffer(file);
   if (type?.mime !== 'application/pdf') {
     throw new HttpError(422, 'A safety data sheet must be a PDF file.', 'ValidationFailed', [{ path: 'file', message: 'Upload a PDF.' }]);
   }
-  const row = (await deps.db('products').where({ firm_id: actor.firmId, id }).first('id', 'sds_object_key')) as { id: number; sds_object_key: string | null } | undefined;
-  if (!row) throw notFound('That product');
   const key = `firms/${actor.firmId}/safety-data-sheets/${randomUUID()}.pdf`;
   await deps.objectStore.put(key, file, 'application/pdf');
   try {

@@ -115,3 +115,8 @@ export async function ledgerForExport(deps: AppDeps, actor: Actor, query: Omit<L
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   return ((await ledgerBase(deps.db, actor.firmId, query).limit(LEDGER_CSV_MAX_ROWS)) as Record<string, unknown>[]).map(toMovement);
 }
+
+export async function movementsByIds(db: Db, firmId: number, ids: number[]): Promise<Movement[]> {
+  if (ids.length === 0) return [];
+  return ((await ledgerBase(db, firmId, {}).whereIn('m.id', ids)) as Record<string, unknown>[]).map(toMovement);
+}
