@@ -63,8 +63,11 @@ export async function applyMovements(trx: Knex.Transaction, firmId: number, user
       );
     }
   }
+  const written = lines.filter((l) => l.quantityDelta !== 0);
+  // A stocktake that matches every balance changes nothing and writes nothing.
+  if (written.length === 0) return groupId;
   await trx('stock_movements').insert(
-    lines.filter((l) => l.quantityDelta !== 0).map((l) => ({
+    written.map((l) => ({
       firm_id: firmId,
       group_id: groupId,
       kind: l.kind,
