@@ -3,6 +3,7 @@ import type { Role } from '@heatfleet/domain';
 import { hashPassword } from '../modules/auth/password.ts';
 import { setUpNewFirm } from '../modules/firms/firm-dal.ts';
 import { seedDemoFleet } from './seed-demo-fleet.ts';
+import { seedDemoStock } from './seed-demo-stock.ts';
 
 // Invented firms and people for the demo; no real person, place or firm.
 export const DEMO_PASSWORD = 'heatfleet-demo-2026';
@@ -57,6 +58,7 @@ export async function seedDemoFirms(db: Knex, now = new Date()): Promise<'seeded
       }
     }
     await seedDemoFleet(trx, firmIds, now);
+    await seedDemoStock(trx, firmIds, now);
   });
   return 'seeded';
 }
