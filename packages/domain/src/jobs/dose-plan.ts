@@ -1,0 +1,31 @@
+export interface DoseRule {
+  packSizeMl: number;
+  /** Litres of product per 100 litres of system water, from the product's label. */
+  doseLitresPer100L: number | null;
+  /** One pack per N radiators, where the product gives that rule of thumb. */
+  radiatorsPerPack: number | null;
+}
+
+export interface DosePlan {
+  litres: number | null;
+  packsByVolume: number | null;
+  packsByRadiators: number | null;
+  packs: number;
+  decidedBy: 'volume' | 'radiators' | 'none';
+}
+
+/**
+ * Product litres = volume x rate / 100, rounded up to whole packs; and the packs-per-radiators
+ * rule of thumb where the product has one. The larger wins, and the plan says which.
+ */
+export function dosePlan(volumeLitres: number, radiators: number, rule: DoseRule): DosePlan {
+  const litres = rule.doseLitresPer100L === null ? null : (volumeLitres * rule.doseLitresPer100L) / 100;
+  // A hair of tolerance so 2.0000000001 packs of floating point does not become 3.
+  const packsByVolume = litres === null ? null : Math.ceil(litres / (rule.packSizeMl / 1000) - 1e-9);
+  const packsByRadiators = rule.radiatorsPerPack === null ? null : Math.ceil(radiators / rule.radiatorsPerPack);
+  const v = packsByVolume ?? 0;
+  const r = packsByRadiators ?? 0;
+  const packs = Math.max(v, r);
+  const decidedBy = packs === 0 ? 'none' : v >= r ? 'volume' : 'radiators';
+  return { litres, packsByVolume, packsByRadiators, packs, decidedBy };
+}
