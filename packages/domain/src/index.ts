@@ -19,3 +19,4 @@ export * from './stock/stock-schemas.ts';
 export * from './jobs/system-volume.ts';
 export * from './jobs/dose-plan.ts';
 export * from './jobs/water-tests.ts';
+export * from './jobs/job-schemas.ts';

@@ -20,6 +20,8 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'photos:id': (f) => String(f.photoId),
   'products:id': (f) => String(f.product.id),
   'stock:id': (f) => String(f.movementId),
+  'customers:id': (f) => String(f.customerId),
+  'jobs:id': (f) => String(f.jobId),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -58,6 +60,10 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'POST /stock/write-offs': (f) => ({ locationId: f.depotId, batchId: f.product.batchId, quantity: 1, reason: 'damaged' }),
   'POST /stock/movements/:id/reverse': () => ({ reason: 'Probe reversal' }),
   'PUT /par-levels': (f) => ({ locationId: f.van.id, productId: f.product.id, minimum: 1, target: 2 }),
+  'POST /customers': () => ({ name: 'Probe customer' }),
+  'POST /customers/:id/sites': () => ({ address: '1 Probe Street' }),
+  'POST /jobs': (f) => ({ siteId: f.siteId, scheduledOn: '2026-12-20', productIds: [f.product.id], survey: { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'double' }], pipeRuns: [] } }),
+  'POST /jobs/:id/complete': () => ({}),
   'POST /stock/restock-run': (f) => ({ lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
   'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
 };

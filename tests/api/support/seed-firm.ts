@@ -24,6 +24,9 @@ export interface SeededFirm {
   photoId: number;
   product: { id: number; name: string; batchId: number; lotNumber: string };
   movementId: number;
+  customerId: number;
+  siteId: number;
+  jobId: number;
   /** Strings that belong to this firm only: none may appear in another firm's answers. */
   sentinels: string[];
 }
@@ -109,11 +112,19 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
       { firm_id: firmId, location_id: vanId, product_id: productId, minimum: 3, target: 5 },
       { firm_id: firmId, location_id: depotId, product_id: productId, minimum: 20, target: 30 },
     ]);
-    const sentinels = [firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email), registration, kitName, `T${suffix}${firmId}A`, `L${suffix}${firmId}`, productName, lotNumber];
+    const customerName = `${label} customer ${suffix}`;
+    const [customerId] = (await trx('customers').insert({ firm_id: firmId, name: customerName, email: `${label.toLowerCase()}-${suffix.toLowerCase()}@customer.example` })) as number[];
+    const siteAddress = `${suffix} Quarry Lane, Brackenford`;
+    const [siteId] = (await trx('sites').insert({ firm_id: firmId, customer_id: customerId, address: siteAddress })) as number[];
+    const survey = { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'single' }], pipeRuns: [] };
+    const [jobId] = (await trx('jobs').insert({ firm_id: firmId, site_id: siteId, engineer_member_id: people.engineer.memberId, van_location_id: vanId, scheduled_on: '2026-12-10', survey: JSON.stringify(survey) })) as number[];
+    await trx('job_products').insert({ firm_id: firmId, job_id: jobId, product_id: productId });
+    const sentinels = [customerName, siteAddress, firmName, inviteEmail, target.email, ...roles.map((r) => people[r].email), registration, kitName, `T${suffix}${firmId}A`, `L${suffix}${firmId}`, productName, lotNumber];
     return {
       firmId: firmId!, firmName, people, target, invitation: { id: invitationId!, email: inviteEmail, token }, emailId: emailId!, sentinels,
       depotId, van: { id: vanId!, registration }, spareVanId: spareVanId!, kit: { id: kitId!, name: kitName, itemIds }, looseItemId: looseItemId!, kindId, photoId: photoId!,
       product: { id: productId!, name: productName, batchId: batchId!, lotNumber }, movementId: movementId!,
+      customerId: customerId!, siteId: siteId!, jobId: jobId!,
     };
   });
 }

@@ -1,6 +1,7 @@
 import { authRoutes } from '../modules/auth/auth-router.ts';
 import { healthRoutes } from '../modules/health/health-router.ts';
 import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
+import { jobRoutes } from '../modules/jobs/job-router.ts';
 import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
 import { kitItemRoutes } from '../modules/kits/kit-item-router.ts';
 import { kitRoutes } from '../modules/kits/kit-router.ts';
@@ -28,6 +29,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...kitItemRoutes,
   ...photoRoutes,
   ...stockRoutes,
+  ...jobRoutes,
   ...reminderRoutes,
   ...outboxRoutes,
   openApiRoute(() => apiRoutes),

@@ -27,7 +27,9 @@ export type SubjectName =
   | 'Product'
   | 'Stock'
   | 'StockUse'
-  | 'ParLevel';
+  | 'ParLevel'
+  | 'Customer'
+  | 'Job';
 export type AppSubjects =
   | SubjectName
   | 'all'
@@ -36,7 +38,8 @@ export type AppSubjects =
   | (InvitationRecord & ForcedSubject<'Invitation'>)
   | (LocationRecord & ForcedSubject<'Location'>)
   | (LocationRecord & ForcedSubject<'Custody'>)
-  | (LocationRecord & ForcedSubject<'StockUse'>);
+  | (LocationRecord & ForcedSubject<'StockUse'>)
+  | ({ firmId: number; engineerMemberId: number | null } & ForcedSubject<'Job'>);
 export type AppAbility = MongoAbility<[Action, AppSubjects]>;
 
 export interface AbilityInput {
@@ -59,7 +62,7 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
   // Every member may see who else is in the firm (names and roles), e.g. to hand a kit over.
   can('read', 'Member', inFirm);
   // Everyone may look up where any kit is, and see the firm's vans and depots.
-  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'ParLevel'], inFirm);
+  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'ParLevel', 'Customer', 'Job'], inFirm);
 
   switch (member.role) {
     case 'owner':
@@ -72,10 +75,10 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
       // An Admin neither makes, changes nor removes an Owner.
       cannot('update', 'Member', { role: 'owner' });
       cannot('create', 'Invitation', { role: 'owner' });
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings', 'Product', 'Stock', 'StockUse', 'ParLevel'], inFirm);
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings', 'Product', 'Stock', 'StockUse', 'ParLevel', 'Customer', 'Job'], inFirm);
       break;
     case 'stores':
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'StockUse', 'ParLevel'], inFirm);
+      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'StockUse', 'ParLevel', 'Customer', 'Job'], inFirm);
       can('read', 'Reminder', inFirm);
       break;
     case 'engineer':
@@ -85,7 +88,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
         // Stock used by hand (a job's chemicals come off with the job) from their own van only.
         can('create', 'StockUse', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
       }
-      can('create', ['Inspection', 'Photo'], inFirm);
+      can('create', ['Inspection', 'Photo', 'Customer', 'Job'], inFirm);
+      if (member.memberId !== undefined) can('update', 'Job', { firmId: member.firmId, engineerMemberId: member.memberId });
       break;
   }
   return build();

@@ -1,0 +1,108 @@
+import { z } from 'zod';
+import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { copperTubes, pipeWaterContentLitresPerMetre, boreLitresPerMetre, quickEstimateLitres, radiatorLitres, systemVolumeLitres, type PanelType } from './system-volume.ts';
+
+const text = (label: string, max: number) =>
+  z.string().trim().max(max, { error: `${label} must be at most ${max} characters.` }).transform((s) => (s === '' ? null : s)).nullable().optional();
+const name = (label: string, max = 120) => z.string({ error: `${label} is required.` }).trim().min(1, { error: `${label} is required.` }).max(max);
+
+export const customerInputSchema = z.strictObject({
+  name: name('Customer name'),
+  email: z.union([z.literal(''), z.email({ error: 'That is not an e-mail address.' })]).transform((s) => (s === '' ? null : s.toLowerCase())).nullable().optional(),
+  phone: text('Phone', 40),
+  contact: text('Contact', 120),
+});
+export type CustomerInput = z.infer<typeof customerInputSchema>;
+
+export const siteInputSchema = z.strictObject({
+  address: name('Address', 500),
+  postcode: text('Postcode', 12),
+  accessNotes: text('Access notes', 1000),
+  systemNotes: text('System notes', 1000),
+});
+export type SiteInput = z.infer<typeof siteInputSchema>;
+
+export const panelTypes = ['single', 'single_fins', 'double', 'double_fins', 'column', 'towel_rail', 'other'] as const;
+const tubeSizes = [...(Object.keys(copperTubes) as (keyof typeof copperTubes)[]), 'plastic'] as const;
+
+export const surveyRadiatorSchema = z.strictObject({
+  room: name('Room', 80),
+  panel: z.enum(panelTypes),
+  heightMm: z.number().int().min(100).max(2500).nullable().optional(),
+  lengthMm: z.number().int().min(100).max(4000).nullable().optional(),
+  /** Typed in from the maker's data instead of the dimensions. */
+  litres: z.number().min(0).max(200).nullable().optional(),
+  ratedWatts: z.number().int().min(0).max(20_000).nullable().optional(),
+  coldSpotNote: text('Cold spot note', 300),
+});
+
+export const surveyPipeRunSchema = z
+  .strictObject({ tube: z.enum(tubeSizes), boreMm: z.number().min(5).max(60).nullable().optional(), lengthM: z.number().min(0).max(2000) })
+  .refine((r) => r.tube !== 'plastic' || (r.boreMm ?? 0) > 0, { error: 'A plastic pipe needs its bore in mm.', path: ['boreMm'] });
+
+export const boilerKinds = ['combi', 'system', 'regular'] as const;
+/** Heat exchanger water content by boiler kind, litres: defaults to edit (from memory, not a standard). */
+export const defaultHeatExchangerLitres: Record<(typeof boilerKinds)[number], number> = { combi: 1, system: 2, regular: 3 };
+
+export const surveySchema = z.strictObject({
+  systemType: z.enum(['open_vented', 'sealed']),
+  boilerKind: z.enum(boilerKinds),
+  fuel: z.enum(['gas', 'oil', 'other']),
+  heatExchangerLitres: z.number().min(0).max(100).nullable().optional(),
+  cylinderCoilLitres: z.number().min(0).max(100).nullable().optional(),
+  otherLitres: z.number().min(0).max(2000).nullable().optional(),
+  radiators: z.array(surveyRadiatorSchema).max(80),
+  pipeRuns: z.array(surveyPipeRunSchema).max(100),
+});
+export type Survey = z.infer<typeof surveySchema>;
+
+export interface VolumeBreakdown {
+  radiatorsLitres: number;
+  pipeworkLitres: number;
+  heatExchangerLitres: number;
+  cylinderCoilLitres: number;
+  otherLitres: number;
+  totalLitres: number;
+  /** True when the survey was too short and the quick estimate was used. */
+  estimate: boolean;
+  howReached: string;
+}
+
+/**
+ * The system volume from a survey, each part shown; when radiators lack sizes or litres and no pipe
+ * runs were measured, the quick estimate stands in (and says so).
+ */
+export function surveyVolume(survey: Survey): VolumeBreakdown {
+  const sized = survey.radiators.filter((r) => r.litres != null || (r.heightMm && r.lengthMm));
+  const heatExchangerLitres = survey.heatExchangerLitres ?? defaultHeatExchangerLitres[survey.boilerKind];
+  const cylinderCoilLitres = survey.cylinderCoilLitres ?? 0;
+  const otherLitres = survey.otherLitres ?? 0;
+  if (survey.radiators.length > 0 && (sized.length < survey.radiators.length || survey.pipeRuns.length === 0)) {
+    const estimate = quickEstimateLitres(survey.radiators.map((r) => r.panel as PanelType));
+    const totalLitres = estimate + heatExchangerLitres + cylinderCoilLitres + otherLitres;
+    return {
+      radiatorsLitres: estimate,
+      pipeworkLitres: 0,
+      heatExchangerLitres,
+      cylinderCoilLitres,
+      otherLitres,
+      totalLitres,
+      estimate: true,
+      howReached: `Estimate: about 10 L per single-panel equivalent, pipework included (${survey.radiators.length} radiators), plus the boiler and other parts.`,
+    };
+  }
+  const radiatorsLitres = survey.radiators.reduce((n, r) => n + (r.litres ?? radiatorLitres(r.panel as PanelType, r.heightMm!, r.lengthMm!)), 0);
+  const pipeworkLitres = survey.pipeRuns.reduce((n, p) => n + p.lengthM * (p.tube === 'plastic' ? boreLitresPerMetre(p.boreMm!) : pipeWaterContentLitresPerMetre(p.tube)), 0);
+  const parts = { radiatorsLitres, pipeworkLitres, heatExchangerLitres, cylinderCoilLitres, otherLitres };
+  return { ...parts, totalLitres: systemVolumeLitres(parts), estimate: false, howReached: 'Measured: radiators by size or stated litres, pipework by tube size and length, plus the boiler, cylinder coil and other parts.' };
+}
+
+export const createJobInputSchema = z.strictObject({
+  siteId: z.number().int().positive(),
+  scheduledOn: calendarDateSchema,
+  engineerMemberId: z.number().int().positive().nullable().optional(),
+  survey: surveySchema,
+  /** The products to dose (a cleaner, an inhibitor). */
+  productIds: z.array(z.number().int().positive()).max(6).default([]),
+});
+export type CreateJobInput = z.infer<typeof createJobInputSchema>;
