@@ -1,8 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { addDays, calendarDateIn, roles, VAN_DUE_WINDOW_DAYS, type OutboxMessage, type Role } from '@heatfleet/domain';
+import { addDays, BATCH_EXPIRY_WINDOW_DAYS, calendarDateIn, roles, VAN_DUE_WINDOW_DAYS, type OutboxMessage, type Role } from '@heatfleet/domain';
 import { hashPassword } from '@heatfleet/api/modules/auth/password.ts';
 import { startReminderWorker } from '@heatfleet/api/jobs/reminder-worker.ts';
 import { runReminderScan } from '@heatfleet/api/modules/reminders/reminder-scan.ts';
+import { applyMovements, type MovementLine } from '@heatfleet/api/modules/stock/stock-ledger.ts';
 import { createTestApp, signIn, TEST_PASSWORD, uniqueEmail, type TestApp } from './support/test-app.ts';
 import { startTestEmailWorker } from './support/email-worker.ts';
 import { findEmails, waitForEmail } from './support/outbox.ts';
@@ -336,10 +337,10 @@ describe('service-due reminders', () => {
 
     const admin = await signIn(t.app, other.people.admin.email);
     const defaults = await admin.get('/api/reminder-settings').expect(200);
-    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, lastScanOn: null });
+    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, lastScanOn: null });
     const off = await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: false, vanReminders: true });
     expect(off.status).toBe(200);
-    expect(off.body.settings).toMatchObject({ scanHour: 6, inspectionReminders: false, vanReminders: true });
+    expect(off.body.settings).toMatchObject({ scanHour: 6, inspectionReminders: false, vanReminders: true, stockReminders: true });
     const bad = await admin.put('/api/reminder-settings', { scanHour: 24, inspectionReminders: false, vanReminders: true });
     expect(bad.status).toBe(422);
 
@@ -360,5 +361,195 @@ describe('service-due reminders', () => {
     const stores = await signIn(t.app, other.people.stores.email);
     await stores.get('/api/reminder-settings').expect(403);
     expect((await stores.post('/api/reminders/scan')).status).toBe(403);
+  });
+});
+
+describe('restock reminders', () => {
+  let firm: SeededFirm;
+  const ids = {} as Record<'depot' | 'north' | 'south' | 'cleaner' | 'inhibitor' | 'c1' | 'c2' | 'i1' | 'i2', number>;
+  let seededOn: string;
+
+  /** Movements through the real ledger, so balances and movements agree as they do in the app. */
+  async function move(f: SeededFirm, lines: MovementLine[]) {
+    await t.deps.db.transaction((trx) => applyMovements(trx, f.firmId, f.people.stores.userId, lines, t.clock.now()));
+  }
+  const transfer = (from: number, to: number, productId: number, batchId: number, n: number): MovementLine[] => [
+    { kind: 'transfer_out', locationId: from, productId, batchId, quantityDelta: -n },
+    { kind: 'transfer_in', locationId: to, productId, batchId, quantityDelta: n },
+  ];
+
+  async function addProduct(f: SeededFirm, name: string, kind: string) {
+    const [id] = (await t.deps.db('products').insert({ firm_id: f.firmId, name, kind, pack_size_ml: 1000 })) as number[];
+    return id!;
+  }
+  async function addBatch(f: SeededFirm, productId: number, lot: string, expiresOn: string) {
+    const [id] = (await t.deps.db('product_batches').insert({ firm_id: f.firmId, product_id: productId, lot_number: lot, expires_on: expiresOn })) as number[];
+    return id!;
+  }
+  async function setPar(f: SeededFirm, locationId: number, productId: number, minimum: number, target: number) {
+    await t.deps.db('par_levels').insert({ firm_id: f.firmId, location_id: locationId, product_id: productId, minimum, target });
+  }
+
+  /** Each digest line under a section heading, by heading. */
+  function sectionsOf(message: OutboxMessage): Record<string, string[]> {
+    const out: Record<string, string[]> = {};
+    let current = '';
+    for (const line of message.text.split('\n')) {
+      if (line.endsWith(':') && !line.startsWith('- ')) current = line.slice(0, -1);
+      else if (line.startsWith('- ')) (out[current] ??= []).push(line.slice(2));
+    }
+    return out;
+  }
+
+  beforeAll(async () => {
+    firm = await seedBareFirm('stock');
+    seededOn = today();
+    const d = (days: number) => addDays(seededOn, days);
+    const [depot] = (await t.deps.db('locations').insert({ firm_id: firm.firmId, kind: 'depot', name: 'Depot-Main' })) as number[];
+    ids.depot = depot!;
+    // No MOT or service dates: these digests carry stock lines only.
+    ids.north = await addVan(firm, { name: 'Van-North', registration: 'RT11 NRT', engineerMemberId: firm.people.engineer.memberId, motDueOn: null, serviceDueOn: null });
+    ids.south = await addVan(firm, { name: 'Van-South', registration: 'RT22 STH', engineerMemberId: firm.target.memberId, motDueOn: null, serviceDueOn: null });
+    ids.cleaner = await addProduct(firm, 'Test Cleaner Alpha', 'cleaner');
+    ids.inhibitor = await addProduct(firm, 'Test Inhibitor Beta', 'inhibitor');
+    ids.c1 = await addBatch(firm, ids.cleaner, 'RT-C1', d(30)); // expires within the window
+    ids.c2 = await addBatch(firm, ids.cleaner, 'RT-C2', d(400));
+    ids.i1 = await addBatch(firm, ids.inhibitor, 'RT-I1', d(500));
+    ids.i2 = await addBatch(firm, ids.inhibitor, 'RT-I2', d(BATCH_EXPIRY_WINDOW_DAYS + 1)); // one day outside it
+
+    await move(firm, [
+      { kind: 'received', locationId: ids.depot, productId: ids.cleaner, batchId: ids.c1, quantityDelta: 2 },
+      { kind: 'received', locationId: ids.depot, productId: ids.cleaner, batchId: ids.c2, quantityDelta: 10 },
+      { kind: 'received', locationId: ids.depot, productId: ids.inhibitor, batchId: ids.i1, quantityDelta: 10 },
+      { kind: 'received', locationId: ids.depot, productId: ids.inhibitor, batchId: ids.i2, quantityDelta: 1 },
+    ]);
+    await move(firm, [...transfer(ids.depot, ids.north, ids.cleaner, ids.c2, 3), ...transfer(ids.depot, ids.north, ids.inhibitor, ids.i1, 2), ...transfer(ids.depot, ids.south, ids.inhibitor, ids.i1, 2)]);
+    await move(firm, [{ kind: 'used', locationId: ids.north, productId: ids.cleaner, batchId: ids.c2, quantityDelta: -2, reason: 'Cleaning job' }]);
+
+    // Van-North: 1 cleaner against a minimum of 2. Van-South and both inhibitor levels are fine.
+    await setPar(firm, ids.north, ids.cleaner, 2, 4);
+    await setPar(firm, ids.north, ids.inhibitor, 1, 2);
+    await setPar(firm, ids.south, ids.inhibitor, 1, 2);
+    // Depot cleaner: 9 usable (RT-C1 2, RT-C2 7); the restock run plans 3 to Van-North, leaving 6 against a minimum of 8.
+    await setPar(firm, ids.depot, ids.cleaner, 8, 12);
+    await setPar(firm, ids.depot, ids.inhibitor, 2, 4);
+  });
+
+  it('sends Stores and Owner a digest of vans below minimum, depot reorders and expiring batches; the engineer gets their van', async () => {
+    const result = await runReminderScan(t.deps, firm.firmId, t.clock.now());
+    expect(result).toEqual({ reminders: 3, emails: 3, ran: true });
+
+    // The reorder list's rule (PRODUCT.md, computation 3): cover = usable after transfers / (packs used in 90 days / 90);
+    // 6 / (2 / 90) = 270 days. The 60-day expiry window is common practice (no source).
+    expect(BATCH_EXPIRY_WINDOW_DAYS).toBe(60);
+    const expected = {
+      'Vans below their minimum stock': ['Van-North (RT11 NRT): Test Cleaner Alpha 1 usable, under its minimum of 2 (target 4)'],
+      'Depot stock to reorder': [
+        "Test Cleaner Alpha at Depot-Main: 6 usable after the planned restock, under its minimum of 8; order 6 packs to reach 12 (about 270 days of cover at the last 90 days' use)",
+      ],
+      'Batches expiring': [`Test Cleaner Alpha lot RT-C1: expires on ${addDays(seededOn, 30)} (in 30 days); 2 packs held: Depot-Main 2`],
+    };
+    for (const person of [firm.people.owner, firm.people.stores]) {
+      const digest = await onlyEmailTo(person.email, /reminder/);
+      expect(digest.subject).toBe(`${firm.firmName}: 3 reminders for stock`);
+      expect(sectionsOf(digest)).toEqual(expected);
+    }
+    const north = await onlyEmailTo(firm.people.engineer.email, /reminder/);
+    expect(north.subject).toBe(`Your van: 1 reminder from ${firm.firmName}`);
+    expect(sectionsOf(north)).toEqual({ 'Vans below their minimum stock': expected['Vans below their minimum stock'] });
+    await settle();
+    expect(await reminderEmailsTo(firm.target.email)).toHaveLength(0);
+    expect(await reminderEmailsTo(firm.people.admin.email)).toHaveLength(0);
+
+    const rows = await t.deps.db('reminders').where({ firm_id: firm.firmId }).orderBy('id').select('kind', 'subject_type', 'subject_id', 'period_key');
+    const lastArrival = (locationId: number, productId: number) =>
+      t.deps.db('stock_movements').where({ firm_id: firm.firmId, location_id: locationId, product_id: productId }).where('quantity_delta', '>', 0).max({ id: 'id' }).first();
+    const northIn = Number((await lastArrival(ids.north, ids.cleaner))!.id);
+    const depotIn = Number((await lastArrival(ids.depot, ids.cleaner))!.id);
+    expect(rows).toEqual([
+      { kind: 'van_below_minimum', subject_type: 'van', subject_id: ids.north, period_key: `p${ids.cleaner}:in${northIn}` },
+      { kind: 'depot_reorder', subject_type: 'product', subject_id: ids.cleaner, period_key: `d${ids.depot}:in${depotIn}` },
+      { kind: 'batch_expiring', subject_type: 'batch', subject_id: ids.c1, period_key: addDays(seededOn, 30) },
+    ]);
+
+    const stores = await signIn(t.app, firm.people.stores.email);
+    const page = (await stores.get('/api/reminders').expect(200)).body.reminders as { kind: string; subjectType: string }[];
+    expect(page.map((r) => `${r.kind}/${r.subjectType}`).sort()).toEqual(
+      ['batch_expiring/batch', 'batch_expiring/batch', 'depot_reorder/product', 'depot_reorder/product', 'van_below_minimum/van', 'van_below_minimum/van', 'van_below_minimum/van'].sort(),
+    );
+  });
+
+  it('a second scan sends nothing; the next day only a batch that has just come within 60 days', async () => {
+    expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toEqual({ reminders: 0, emails: 0, ran: true });
+    await settle();
+    expect(await reminderEmailsTo(firm.people.owner.email)).toHaveLength(1);
+
+    // A day on, RT-I2 expires in exactly 60 days. The rest are the same dip and the same expiry: not again.
+    t.clock.advance(DAY_MS);
+    expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toEqual({ reminders: 1, emails: 2, ran: true });
+    const owner = await waitFor('the next day\'s office digest', async () => {
+      const all = await reminderEmailsTo(firm.people.owner.email);
+      return all.length === 2 ? all.find((m) => m.text.includes('RT-I2')) : undefined;
+    });
+    expect(sectionsOf(owner)).toEqual({ 'Batches expiring': [`Test Inhibitor Beta lot RT-I2: expires on ${addDays(seededOn, 61)} (in 60 days); 1 pack held: Depot-Main 1`] });
+    expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toEqual({ reminders: 0, emails: 0, ran: true });
+    await settle();
+    expect(await reminderEmailsTo(firm.people.owner.email)).toHaveLength(2);
+    expect(await reminderEmailsTo(firm.people.engineer.email)).toHaveLength(1);
+  });
+
+  it('reminds again when a van dips under its minimum a second time, not while the depot line is unchanged', async () => {
+    // A restock brings Van-North to 4 (its target); jobs then take it back down to 1.
+    await move(firm, transfer(ids.depot, ids.north, ids.cleaner, ids.c2, 3));
+    expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toEqual({ reminders: 0, emails: 0, ran: true });
+    await move(firm, [{ kind: 'used', locationId: ids.north, productId: ids.cleaner, batchId: ids.c2, quantityDelta: -3, reason: 'Cleaning job' }]);
+
+    const result = await runReminderScan(t.deps, firm.firmId, t.clock.now());
+    expect(result).toEqual({ reminders: 1, emails: 3, ran: true });
+    const engineerDigests = await waitFor('the second digest to the engineer', async () => {
+      const all = await reminderEmailsTo(firm.people.engineer.email);
+      return all.length === 2 ? all : undefined;
+    });
+    for (const m of engineerDigests) expect(sectionsOf(m)).toEqual({ 'Vans below their minimum stock': [expect.stringContaining('Van-North (RT11 NRT): Test Cleaner Alpha 1 usable')] });
+    const owner = await waitFor('the office digest of the second dip', async () => {
+      const all = await reminderEmailsTo(firm.people.owner.email);
+      return all.length === 3 ? all.find((m) => m.text.includes('Van-North') && m.subject.includes('1 reminder ')) : undefined;
+    });
+    expect(sectionsOf(owner)).toEqual({ 'Vans below their minimum stock': ['Van-North (RT11 NRT): Test Cleaner Alpha 1 usable, under its minimum of 2 (target 4)'] });
+    expect(await t.deps.db('reminders').where({ firm_id: firm.firmId, kind: 'van_below_minimum' })).toHaveLength(2);
+  });
+
+  it('with stock reminders switched off none is sent; a save that leaves the switch out keeps it; switched on, they come', async () => {
+    const other = await seedBareFirm('stock-switch');
+    const [depot] = (await t.deps.db('locations').insert({ firm_id: other.firmId, kind: 'depot', name: 'Depot-West' })) as number[];
+    const van = await addVan(other, { name: 'Van-West', registration: 'RT55 WST', engineerMemberId: other.people.engineer.memberId, motDueOn: null, serviceDueOn: null });
+    const product = await addProduct(other, 'Test Cleaner Delta', 'cleaner');
+    const batch = await addBatch(other, product, 'SW-C1', addDays(today(), 20));
+    await move(other, [{ kind: 'received', locationId: depot!, productId: product, batchId: batch, quantityDelta: 1 }]);
+    await setPar(other, van, product, 1, 2);
+    await setPar(other, depot!, product, 2, 4);
+
+    const admin = await signIn(t.app, other.people.admin.email);
+    const off = await admin.put('/api/reminder-settings', { scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: false });
+    expect(off.status).toBe(200);
+    expect(off.body.settings).toMatchObject({ stockReminders: false });
+    // The settings form of an older client sends no stockReminders: the switch stays off.
+    const kept = await admin.put('/api/reminder-settings', { scanHour: 8, inspectionReminders: true, vanReminders: true });
+    expect(kept.body.settings).toMatchObject({ scanHour: 8, stockReminders: false });
+    expect((await admin.put('/api/reminder-settings', { scanHour: 8, inspectionReminders: true, vanReminders: true, stockReminders: 'no' })).status).toBe(422);
+
+    expect((await admin.post('/api/reminders/scan')).body).toEqual({ sent: 0 });
+    await settle();
+    expect(await reminderEmailsTo(other.people.owner.email)).toHaveLength(0);
+    expect(await t.deps.db('reminders').where({ firm_id: other.firmId })).toHaveLength(0);
+
+    expect((await admin.put('/api/reminder-settings', { scanHour: 8, inspectionReminders: true, vanReminders: true, stockReminders: true })).status).toBe(200);
+    expect((await admin.post('/api/reminders/scan')).body).toEqual({ sent: 3 });
+    const digest = await onlyEmailTo(other.people.owner.email, /reminder/);
+    expect(Object.keys(sectionsOf(digest))).toEqual(['Vans below their minimum stock', 'Depot stock to reorder', 'Batches expiring']);
+    expect(sectionsOf(digest)['Depot stock to reorder']).toEqual([
+      // Nothing used yet: no rate to give days of cover from.
+      'Test Cleaner Delta at Depot-West: 0 usable after the planned restock, under its minimum of 2; order 4 packs to reach 4 (none used in the last 90 days)',
+    ]);
   });
 });

@@ -78,3 +78,4 @@ export async function seedDemoStock(trx: Trx, firmIds: { brackenford: number; ta
     }
   }
 }
+

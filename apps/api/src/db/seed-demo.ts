@@ -3,6 +3,7 @@ import type { Role } from '@heatfleet/domain';
 import { hashPassword } from '../modules/auth/password.ts';
 import { setUpNewFirm } from '../modules/firms/firm-dal.ts';
 import { seedDemoFleet } from './seed-demo-fleet.ts';
+import { seedDemoJobs } from './seed-demo-jobs.ts';
 import { seedDemoStock } from './seed-demo-stock.ts';
 
 // Invented firms and people for the demo; no real person, place or firm.
@@ -59,6 +60,7 @@ export async function seedDemoFirms(db: Knex, now = new Date()): Promise<'seeded
     }
     await seedDemoFleet(trx, firmIds, now);
     await seedDemoStock(trx, firmIds, now);
+    await seedDemoJobs(trx, firmIds, now);
   });
   return 'seeded';
 }

@@ -1,10 +1,18 @@
 import type { Knex } from 'knex';
 import type { ResultSetHeader } from 'mysql2';
-import { defaultReminderSettings, type ReminderDelivery, type ReminderSettings, type ReminderSettingsView } from '@heatfleet/domain';
+import {
+  defaultReminderSettings,
+  type CalendarDate,
+  type ReminderDelivery,
+  type ReminderKind,
+  type ReminderSettings,
+  type ReminderSettingsView,
+  type ReminderSubjectType,
+} from '@heatfleet/domain';
 
 type Db = Knex | Knex.Transaction;
 
-export type ReminderKind = 'inspection_due' | 'mot_due' | 'service_due';
+export type { ReminderKind };
 
 export interface FirmToScan {
   id: number;
@@ -17,6 +25,7 @@ interface SettingsRow {
   scan_hour: number;
   inspection_reminders: number | boolean;
   van_reminders: number | boolean;
+  stock_reminders: number | boolean;
   last_scan_on: string | null;
 }
 
@@ -26,29 +35,35 @@ const toSettings = (row: SettingsRow | undefined): ReminderSettingsView =>
         scanHour: Number(row.scan_hour),
         inspectionReminders: Boolean(row.inspection_reminders),
         vanReminders: Boolean(row.van_reminders),
+        stockReminders: Boolean(row.stock_reminders),
         lastScanOn: row.last_scan_on,
       }
     : { ...defaultReminderSettings, lastScanOn: null };
 
 export async function findReminderSettings(db: Db, firmId: number): Promise<ReminderSettingsView> {
-  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'last_scan_on')) as
+  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'last_scan_on')) as
     | SettingsRow
     | undefined;
   return toSettings(row);
 }
 
-/** Writes the settings, creating the row on first use (a firm without one has the defaults). */
+/**
+ * Writes the settings, creating the row on first use (a firm without one has the defaults). A switch
+ * left out of the input keeps its stored value (or the column default on a new row).
+ */
 export async function saveReminderSettings(db: Db, firmId: number, settings: ReminderSettings): Promise<void> {
+  const stock = settings.stockReminders === undefined ? {} : { stock_reminders: settings.stockReminders };
   await db('reminder_settings')
     .insert({
       firm_id: firmId,
       scan_hour: settings.scanHour,
       inspection_reminders: settings.inspectionReminders,
       van_reminders: settings.vanReminders,
+      ...stock,
       updated_at: db.fn.now(3),
     })
     .onConflict('firm_id')
-    .merge(['scan_hour', 'inspection_reminders', 'van_reminders', 'updated_at']);
+    .merge(['scan_hour', 'inspection_reminders', 'van_reminders', ...Object.keys(stock), 'updated_at']);
 }
 
 /**
@@ -72,7 +87,7 @@ export async function lockFirmForScan(trx: Knex.Transaction, firmId: number): Pr
   const row = (await trx('reminder_settings')
     .where({ firm_id: firmId })
     .forUpdate()
-    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'last_scan_on')) as SettingsRow | undefined;
+    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'last_scan_on')) as SettingsRow | undefined;
   return { id: firm.id, name: firm.name, timeZone: firm.time_zone, settings: toSettings(row) };
 }
 
@@ -84,7 +99,7 @@ export async function markFirmScanned(trx: Knex.Transaction, firmId: number, on:
 export async function listFirmsToScan(db: Db, firmIds?: number[]): Promise<FirmToScan[]> {
   const q = db('firms as f')
     .leftJoin('reminder_settings as s', 's.firm_id', 'f.id')
-    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.last_scan_on')
+    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.last_scan_on')
     .orderBy('f.id');
   if (firmIds) q.whereIn('f.id', firmIds);
   const rows = (await q) as (SettingsRow & { id: number; name: string; time_zone: string; scan_hour: number | null })[];
@@ -213,6 +228,92 @@ export async function listVansForScan(db: Db, firmId: number): Promise<VanForSca
   }));
 }
 
+export interface StockPlace {
+  id: number;
+  kind: 'van' | 'depot';
+  name: string;
+  registration: string | null;
+  engineerMemberId: number | null;
+}
+
+/** The firm's active vans and depots, depots first (the first depot is the one the restock run draws on). */
+export async function listStockPlaces(db: Db, firmId: number): Promise<StockPlace[]> {
+  const rows = (await db('locations')
+    .where({ firm_id: firmId, active: true })
+    .whereIn('kind', ['van', 'depot'])
+    .select('id', 'kind', 'name', 'registration', 'engineer_member_id')
+    .orderBy([{ column: 'kind' }, { column: 'id' }])) as {
+    id: number;
+    kind: 'van' | 'depot';
+    name: string;
+    registration: string | null;
+    engineer_member_id: number | null;
+  }[];
+  return rows.map((r) => ({ id: r.id, kind: r.kind, name: r.name, registration: r.registration, engineerMemberId: r.engineer_member_id }));
+}
+
+export async function listActiveProducts(db: Db, firmId: number): Promise<{ id: number; name: string }[]> {
+  return (await db('products').where({ firm_id: firmId, active: true }).select('id', 'name').orderBy('name')) as { id: number; name: string }[];
+}
+
+/** The newest movement that added stock of a product at a place (received, transferred in, counted up, reversed back), if any. */
+export async function latestArrivalId(db: Db, firmId: number, locationId: number, productId: number): Promise<number | null> {
+  const row = (await db('stock_movements')
+    .where({ firm_id: firmId, location_id: locationId, product_id: productId })
+    .where('quantity_delta', '>', 0)
+    .orderBy('id', 'desc')
+    .first('id')) as { id: number | string } | undefined;
+  return row ? Number(row.id) : null;
+}
+
+/** Packs used per product across the firm since an instant (the reorder list's 90 days). */
+export async function packsUsedSince(db: Db, firmId: number, since: Date): Promise<Map<number, number>> {
+  const rows = (await db('stock_movements')
+    .where({ firm_id: firmId, kind: 'used' })
+    .where('created_at', '>=', since)
+    .groupBy('product_id')
+    .select('product_id')
+    .sum({ n: 'quantity_delta' })) as { product_id: number; n: string | number }[];
+  return new Map(rows.map((r) => [r.product_id, -Number(r.n)]));
+}
+
+export interface BatchHeld {
+  batchId: number;
+  lotNumber: string;
+  expiresOn: CalendarDate;
+  productName: string;
+  /** Packs per place holding it, largest first. */
+  places: { name: string; quantity: number }[];
+}
+
+/** Batches of active products with stock somewhere that expire on or before `lastDay` (already expired included). */
+export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay: CalendarDate): Promise<BatchHeld[]> {
+  const rows = (await db('stock_balances as s')
+    .join('product_batches as b', (j) => j.on('b.id', '=', 's.batch_id').andOn('b.firm_id', '=', 's.firm_id'))
+    .join('products as p', (j) => j.on('p.id', '=', 's.product_id').andOn('p.firm_id', '=', 's.firm_id'))
+    .join('locations as l', (j) => j.on('l.id', '=', 's.location_id').andOn('l.firm_id', '=', 's.firm_id'))
+    .where('s.firm_id', firmId)
+    .where('s.quantity', '>', 0)
+    .where('b.expires_on', '<=', lastDay)
+    .where('p.active', true)
+    .select('b.id as batch_id', 'b.lot_number', 'b.expires_on', 'p.name as product_name', 'l.name as location_name', 's.quantity')
+    .orderBy([{ column: 'b.expires_on' }, { column: 'p.name' }, { column: 'b.lot_number' }, { column: 's.quantity', order: 'desc' }, { column: 'l.name' }])) as {
+    batch_id: number;
+    lot_number: string;
+    expires_on: string;
+    product_name: string;
+    location_name: string;
+    quantity: number;
+  }[];
+  const byBatch = new Map<number, BatchHeld>();
+  for (const r of rows) {
+    const batch = byBatch.get(r.batch_id) ?? { batchId: r.batch_id, lotNumber: r.lot_number, expiresOn: r.expires_on, productName: r.product_name, places: [] };
+    batch.places.push({ name: r.location_name, quantity: r.quantity });
+    byBatch.set(r.batch_id, batch);
+  }
+  return [...byBatch.values()];
+}
+
 export interface Recipient {
   memberId: number;
   role: 'owner' | 'admin' | 'stores' | 'engineer';
@@ -231,7 +332,7 @@ export async function listActiveMembers(db: Db, firmId: number): Promise<Recipie
 
 export interface NewReminder {
   kind: ReminderKind;
-  subjectType: 'kit_item' | 'van';
+  subjectType: ReminderSubjectType;
   subjectId: number;
   periodKey: string;
   summary: string;
@@ -279,7 +380,7 @@ export async function listReminderDeliveries(db: Db, firmId: number, limit: numb
     .limit(limit)) as {
     id: number;
     kind: ReminderKind;
-    subject_type: 'kit_item' | 'van';
+    subject_type: ReminderSubjectType;
     subject_id: number;
     summary: string;
     recipient: string;

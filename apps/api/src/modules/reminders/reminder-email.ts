@@ -17,13 +17,29 @@ function escapeHtml(s: string): string {
 
 const count = (n: number) => `${n} reminder${n === 1 ? '' : 's'}`;
 
+const sectionTitles: { title: string; kinds: ReminderKind[] }[] = [
+  { title: 'Kit due for inspection', kinds: ['inspection_due'] },
+  { title: 'Van MOT and service', kinds: ['mot_due', 'service_due'] },
+  { title: 'Vans below their minimum stock', kinds: ['van_below_minimum'] },
+  { title: 'Depot stock to reorder', kinds: ['depot_reorder'] },
+  { title: 'Batches expiring', kinds: ['batch_expiring'] },
+];
+
 function sections(lines: DigestLine[]): { title: string; lines: string[] }[] {
-  const kit = lines.filter((l) => l.kind === 'inspection_due').map((l) => l.summary);
-  const vans = lines.filter((l) => l.kind !== 'inspection_due').map((l) => l.summary);
-  return [
-    { title: 'Kit due for inspection', lines: kit },
-    { title: 'Van MOT and service', lines: vans },
-  ].filter((s) => s.lines.length > 0);
+  return sectionTitles
+    .map((s) => ({ title: s.title, lines: lines.filter((l) => s.kinds.includes(l.kind)).map((l) => l.summary) }))
+    .filter((s) => s.lines.length > 0);
+}
+
+/** "kit", "vans" and "stock", as far as the digest covers them, for the office subject line. */
+function topics(lines: DigestLine[]): string {
+  const has = (kinds: ReminderKind[]) => lines.some((l) => kinds.includes(l.kind));
+  const words = [
+    ...(has(['inspection_due']) ? ['kit'] : []),
+    ...(has(['mot_due', 'service_due']) ? ['vans'] : []),
+    ...(has(['van_below_minimum', 'depot_reorder', 'batch_expiring']) ? ['stock'] : []),
+  ];
+  return words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}` : (words[0] ?? 'kit and vans');
 }
 
 /** One e-mail listing the reminders new in this scan, for the office or for one engineer's van. */
@@ -49,6 +65,6 @@ ${parts.map((s) => `<h3>${escapeHtml(s.title)}</h3>\n<ul>${s.lines.map((l) => `<
 <p>You get each reminder once for each time it falls due. <a href="${escapeHtml(p.link)}">All of them are in Heatfleet</a></p>
 <p style="color:#555">Heatfleet</p></body></html>`;
   const subject =
-    p.audience.kind === 'office' ? `${p.firmName}: ${count(p.lines.length)} for kit and vans` : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
+    p.audience.kind === 'office' ? `${p.firmName}: ${count(p.lines.length)} for ${topics(p.lines)}` : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
   return { subject, text: `${text}\n`, html };
 }

@@ -17,7 +17,7 @@ export const reminderRoutes: RouteDefinition[] = [
   }),
   defineRoute({
     method: 'post', path: '/reminders/scan', tag: 'Reminders', access: 'member', tenantData: true,
-    summary: 'Scan the firm for due kit and vans now and send what is new (Owner, Admin)',
+    summary: 'Scan the firm for due kit, vans and low or expiring stock now and send what is new (Owner, Admin)',
     request: {},
     responses: {
       200: { description: 'How many reminders were new and sent (0 when everything due was already reminded)', schema: z.object({ sent: z.number() }) },
@@ -37,7 +37,7 @@ export const reminderRoutes: RouteDefinition[] = [
   }),
   defineRoute({
     method: 'put', path: '/reminder-settings', tag: 'Reminders', access: 'member', tenantData: true,
-    summary: 'Change the scan hour or turn a kind of reminder on or off (Owner, Admin)',
+    summary: 'Change the scan hour or turn a kind of reminder on or off; a switch left out keeps its value (Owner, Admin)',
     request: { body: reminderSettingsSchema },
     responses: { 200: { description: 'Saved', schema: settingsBody } },
     handle: async ({ body, res, deps, actor }) => {

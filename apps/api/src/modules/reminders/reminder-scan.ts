@@ -21,6 +21,7 @@ import {
   type VanForScan,
 } from './reminder-dal.ts';
 import { reminderDigestEmail, type DigestLine } from './reminder-email.ts';
+import { stockCandidates } from './reminder-stock.ts';
 
 /** What a scan needs; AppDeps has all of it, and the worker builds the same from its own parts. */
 export interface ReminderScanDeps {
@@ -128,8 +129,9 @@ interface Digest {
 }
 
 /**
- * The office digest goes to the active Owner and Stores members; each engineer whose van (or kit on
- * it) has something new gets a digest of just that. Someone in the office set already sees it all.
+ * The office digest goes to the active Owner and Stores members; each engineer whose van (its kit,
+ * its dates or its stock under minimum) has something new gets a digest of just that. Someone in the
+ * office set already sees it all.
  */
 function planDigests(fresh: (Candidate & { id: number })[], members: Recipient[]): Digest[] {
   const office = members.filter((m) => m.role === 'owner' || m.role === 'stores');
@@ -167,6 +169,7 @@ export async function runReminderScan(
     const candidates = [
       ...(firm.settings.inspectionReminders ? inspectionCandidates(await listItemsForScan(trx, firmId), today) : []),
       ...(firm.settings.vanReminders ? vanCandidates(await listVansForScan(trx, firmId), today) : []),
+      ...(firm.settings.stockReminders ? await stockCandidates(trx, firmId, today, now) : []),
     ];
     const fresh: (Candidate & { id: number })[] = [];
     for (const candidate of candidates) {
