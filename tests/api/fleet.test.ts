@@ -231,3 +231,17 @@ describe('labels', () => {
     expect((await stores.get('/api/kit-items/labels')).status).toBe(400);
   });
 });
+
+describe('the items list', () => {
+  it('searches by tag, kit or serial (case-insensitive) and sorts on the server', async () => {
+    const firm = await seedFirm(t.deps.db, 'itemsearch');
+    const stores = await signIn(t.app, firm.people.stores.email);
+    const tag = (await t.deps.db('kit_items').where({ id: firm.looseItemId }).first('asset_tag')).asset_tag as string;
+    const found = await stores.get(`/api/kit-items?q=${encodeURIComponent(tag.toLowerCase())}`).expect(200);
+    expect(found.body.items.map((i: { id: number }) => i.id)).toEqual([firm.looseItemId]);
+    expect((await stores.get('/api/kit-items?q=%25').expect(200)).body.total).toBe(0);
+    const desc = await stores.get(`/api/kit-items?kindId=${firm.kindId}&sort=assetTag&dir=desc`).expect(200);
+    const tags = desc.body.items.map((i: { assetTag: string }) => i.assetTag);
+    expect(tags).toEqual([...tags].sort().reverse());
+  });
+});

@@ -195,6 +195,8 @@ export const kitItemListQuerySchema = z.strictObject({
   kitId: z.coerce.number().int().positive().optional(),
   inspectionState: z.enum(inspectionStates).optional(),
   q: z.string().trim().max(80).optional(),
+  sort: z.enum(['assetTag', 'kind', 'kit', 'location', 'due']).default('assetTag'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });

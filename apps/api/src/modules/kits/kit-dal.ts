@@ -86,7 +86,12 @@ export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
   if (filter.kitId !== undefined) q.where('i.kit_id', filter.kitId);
   if (filter.kindId !== undefined) q.where('i.kind_id', filter.kindId);
   if (filter.locationId !== undefined) q.where('i.location_id', filter.locationId);
-  if (filter.q) q.where((w) => w.whereLike('i.asset_tag', `%${filter.q}%`).orWhereLike('i.serial_number', `%${filter.q}%`).orWhereLike('k.name', `%${filter.q}%`));
+  if (filter.q) {
+    // Plain LIKE: the column's collation already ignores case (knex's whereLike adds a binary
+    // collation MariaDB refuses for utf8mb4). Wildcards typed by the user are taken literally.
+    const pattern = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    q.where((w) => w.where('i.asset_tag', 'like', pattern).orWhere('i.serial_number', 'like', pattern).orWhere('k.name', 'like', pattern));
+  }
   return q as unknown as Promise<ItemRow[]>;
 }
 

@@ -56,6 +56,21 @@ export async function listItems(deps: AppDeps, actor: Actor, query: KitItemListQ
   const all = await loadItems(deps.db, actor.firmId, deps.clock.now(), query);
   // The due state is computed, not stored, so that filter and the paging run here.
   const filtered = query.inspectionState ? all.filter((i) => i.inspection.state === query.inspectionState) : all;
+  const key: Record<KitItemListQuery['sort'], (i: KitItem) => string | number> = {
+    assetTag: (i) => i.assetTag,
+    kind: (i) => i.kind.name,
+    kit: (i) => i.kit?.name ?? '',
+    location: (i) => i.location?.name ?? '',
+    // Most urgent first when ascending: overdue, then due soon, then by due day.
+    due: (i) => `${3 - stateRank[i.inspection.state]}:${i.inspection.dueOn ?? '9999-12-31'}`,
+  };
+  const by = key[query.sort];
+  const sign = query.dir === 'desc' ? -1 : 1;
+  filtered.sort((a, b) => {
+    const x = by(a);
+    const y = by(b);
+    return sign * (x < y ? -1 : x > y ? 1 : 0) || a.assetTag.localeCompare(b.assetTag);
+  });
   const start = (query.page - 1) * query.pageSize;
   return { items: filtered.slice(start, start + query.pageSize), total: filtered.length, page: query.page, pageSize: query.pageSize };
 }
