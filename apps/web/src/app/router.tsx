@@ -32,6 +32,41 @@ export const router = createBrowserRouter([
         children: [
           { index: true, lazy: () => import('@/app/routes/home/home-page').then((m) => ({ Component: m.HomePage })) },
           { path: paths.team.path, lazy: () => import('@/app/routes/team/team-page').then((m) => ({ Component: m.TeamPage })) },
+          { path: paths.vans.path, lazy: () => import('@/app/routes/vans/vans-page').then((m) => ({ Component: m.VansPage })) },
+          { path: paths.van.path, lazy: () => import('@/app/routes/vans/van-page').then((m) => ({ Component: m.VanPage })) },
+          { path: paths.myVan.path, lazy: () => import('@/app/routes/vans/my-van-page').then((m) => ({ Component: m.MyVanPage })) },
+          { path: paths.kits.path, lazy: () => import('@/app/routes/kits/kits-page').then((m) => ({ Component: m.KitsPage })) },
+          { path: paths.kit.path, lazy: () => import('@/app/routes/kits/kit-page').then((m) => ({ Component: m.KitPage })) },
+          {
+            path: paths.kitItem.path,
+            lazy: () => import('@/app/routes/kits/kit-item-page').then((m) => ({ Component: m.KitItemPage })),
+          },
+          { path: paths.labels.path, lazy: () => import('@/app/routes/labels/labels-page').then((m) => ({ Component: m.LabelsPage })) },
+          {
+            path: paths.reminders.path,
+            lazy: () => import('@/app/routes/reminders/reminders-page').then((m) => ({ Component: m.RemindersPage })),
+          },
+          {
+            path: paths.settings.path,
+            lazy: () => import('@/app/routes/settings/settings-page').then((m) => ({ Component: m.SettingsPage })),
+          },
+          { path: paths.stock.path, lazy: () => import('@/app/routes/stock/stock-page').then((m) => ({ Component: m.StockPage })) },
+          { path: paths.products.path, lazy: () => import('@/app/routes/stock/products-page').then((m) => ({ Component: m.ProductsPage })) },
+          { path: paths.product.path, lazy: () => import('@/app/routes/stock/product-page').then((m) => ({ Component: m.ProductPage })) },
+          { path: paths.stockLedger.path, lazy: () => import('@/app/routes/stock/ledger-page').then((m) => ({ Component: m.LedgerPage })) },
+          { path: paths.stockReceive.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.ReceivePage })) },
+          { path: paths.stockTransfer.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.TransferPage })) },
+          { path: paths.stockUse.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.UsePage })) },
+          { path: paths.stockStocktake.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.StocktakePage })) },
+          { path: paths.stockWriteOff.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.WriteOffPage })) },
+          {
+            path: paths.restockRun.path,
+            lazy: () => import('@/app/routes/stock/restock-run-page').then((m) => ({ Component: m.RestockRunPage })),
+          },
+          {
+            path: paths.reorderList.path,
+            lazy: () => import('@/app/routes/stock/reorder-list-page').then((m) => ({ Component: m.ReorderListPage })),
+          },
         ],
       },
       {

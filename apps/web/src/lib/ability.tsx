@@ -5,8 +5,8 @@ import { defineAbilityFor, type AppAbility, type Me } from '@heatfleet/domain';
 /** The same rule set the API enforces; here it only decides what to show. */
 export function MemberAbilityProvider({ me, children }: { me: Me; children: ReactNode }) {
   const ability = useMemo(
-    () => defineAbilityFor({ userId: me.user.id, firmId: me.activeFirm.id, role: me.role }),
-    [me.user.id, me.activeFirm.id, me.role],
+    () => defineAbilityFor({ userId: me.user.id, firmId: me.activeFirm.id, role: me.role, memberId: me.memberId }),
+    [me.user.id, me.activeFirm.id, me.role, me.memberId],
   );
   return <AbilityProvider value={ability}>{children}</AbilityProvider>;
 }

@@ -90,10 +90,24 @@ async function toApiError(response: Response): Promise<ApiError> {
   });
 }
 
-async function send(method: Method, path: string, body: unknown, token: string | undefined): Promise<unknown> {
+export interface RequestOptions {
+  /** Sent as the Idempotency-Key header: the same key on a retry makes the server replay its first answer. */
+  idempotencyKey?: string;
+}
+
+async function send(
+  method: Method,
+  path: string,
+  body: unknown,
+  token: string | undefined,
+  options: RequestOptions = {},
+): Promise<unknown> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  // FormData sets its own multipart Content-Type with the boundary; naming it here would drop the boundary.
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (token) headers['X-CSRF-Token'] = token;
+  if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey;
 
   let response: Response;
   try {
@@ -101,7 +115,7 @@ async function send(method: Method, path: string, body: unknown, token: string |
       method,
       headers,
       credentials: 'same-origin',
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     });
   } catch {
     throw new ApiError({ status: 0, code: 'NetworkError', message: UNREACHABLE_MESSAGE });
@@ -113,15 +127,15 @@ async function send(method: Method, path: string, body: unknown, token: string |
   return text ? (JSON.parse(text) as unknown) : undefined;
 }
 
-async function request(method: Method, path: string, body?: unknown): Promise<unknown> {
+async function request(method: Method, path: string, body?: unknown, options?: RequestOptions): Promise<unknown> {
   if (method === 'GET') return send(method, path, undefined, undefined);
   try {
-    return await send(method, path, body, await getCsrfToken());
+    return await send(method, path, body, await getCsrfToken(), options);
   } catch (error) {
     // The session may have changed under us (another tab signed in or out): fetch a fresh token and try once more.
     if (isApiError(error, 403) && error.code === 'CsrfTokenInvalid') {
       setCsrfToken(null);
-      return send(method, path, body, await getCsrfToken());
+      return send(method, path, body, await getCsrfToken(), options);
     }
     throw error;
   }
@@ -133,8 +147,11 @@ function parseWith<T extends z.ZodType>(schema: T, data: unknown): z.infer<T> {
 
 export const apiClient = {
   get: async <T extends z.ZodType>(path: string, schema: T) => parseWith(schema, await request('GET', path)),
-  post: async <T extends z.ZodType>(path: string, body: unknown, schema: T) =>
-    parseWith(schema, await request('POST', path, body)),
+  post: async <T extends z.ZodType>(path: string, body: unknown, schema: T, options?: RequestOptions) =>
+    parseWith(schema, await request('POST', path, body, options)),
+  /** A multipart upload (a photo); the body is FormData. */
+  upload: async <T extends z.ZodType>(path: string, form: FormData, schema: T) =>
+    parseWith(schema, await request('POST', path, form)),
   put: async <T extends z.ZodType>(path: string, body: unknown, schema: T) =>
     parseWith(schema, await request('PUT', path, body)),
   patch: async <T extends z.ZodType>(path: string, body: unknown, schema: T) =>

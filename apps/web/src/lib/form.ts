@@ -17,7 +17,12 @@ function firstErrorPerField(issues: ReadonlyArray<{ path: PropertyKey[] | string
  * One way for every form: the shared zod schema checks input before it is sent, and the API's own
  * 422 details land beside the same fields. Anything not tied to a field shows as the form's message.
  */
-export function useSchemaForm<S extends z.ZodType>(schema: S, fields: readonly string[]) {
+export function useSchemaForm<S extends z.ZodType>(
+  schema: S,
+  fields: readonly string[],
+  /** Turns the form's strings into what the schema expects (ids to numbers, empty dates to null, checkboxes to booleans). */
+  prepare?: (values: Record<string, string | undefined>) => Record<string, unknown>,
+) {
   const formRef = useRef<HTMLFormElement>(null);
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
@@ -54,12 +59,12 @@ export function useSchemaForm<S extends z.ZodType>(schema: S, fields: readonly s
     (onValid: (data: z.output<S>) => void) => (event: FormEvent<HTMLFormElement>) => {
       event.preventDefault();
       const formData = new FormData(event.currentTarget);
-      const values: Record<string, unknown> = {};
+      const values: Record<string, string | undefined> = {};
       for (const field of fields) {
         const value = formData.get(field);
         if (typeof value === 'string') values[field] = value;
       }
-      const parsed = schema.safeParse(values);
+      const parsed = schema.safeParse(prepare ? prepare(values) : values);
       if (!parsed.success) {
         setFieldErrors(firstErrorPerField(parsed.error.issues));
         setFormError(null);
@@ -69,8 +74,18 @@ export function useSchemaForm<S extends z.ZodType>(schema: S, fields: readonly s
       clearErrors();
       onValid(parsed.data);
     },
-    [schema, fields, clearErrors],
+    [schema, fields, clearErrors, prepare],
   );
 
   return { formRef, fieldErrors, formError, handleSubmit, showError, clearErrors };
+}
+
+/** For optional numeric selects: "" means none. */
+export function idOrNull(value: string | undefined): number | null {
+  return value ? Number(value) : null;
+}
+
+/** Optional text and date inputs: an empty box means "not set". */
+export function textOrNull(value: string | undefined): string | null {
+  return value && value.trim() !== '' ? value : null;
 }

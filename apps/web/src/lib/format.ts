@@ -24,3 +24,11 @@ export function formatDateTime(iso: string, timeZone: string): string {
   const date = new Date(iso);
   return Number.isNaN(date.getTime()) ? iso : formatter(timeZone, true).format(date);
 }
+
+/**
+ * Due dates are calendar days ('YYYY-MM-DD') with no zone; formatting them in UTC keeps the day as
+ * written whatever zone the phone is in.
+ */
+export function formatCalendarDate(date: string): string {
+  return formatDate(`${date}T00:00:00Z`, 'UTC');
+}

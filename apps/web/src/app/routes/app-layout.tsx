@@ -5,11 +5,12 @@ import type { Me } from '@heatfleet/domain';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { Wordmark } from '@/components/ui/wordmark';
 import { paths } from '@/config/paths';
-import { Can, MemberAbilityProvider } from '@/lib/ability';
+import { Can, MemberAbilityProvider, useAbility } from '@/lib/ability';
 import { RequireSession, sessionQueries } from '@/lib/auth';
 import { useSignOut } from '@/features/auth/api/use-sign-out';
 import { FirmSwitcher } from '@/features/firms/components/firm-switcher';
 import { outboxQueries } from '@/features/outbox/api/outbox-queries';
+import { vanQueries } from '@/features/vans/api/van-queries';
 
 function useOutboxIsAvailable(): boolean {
   // In production the API answers 404 here, so the Outbox only appears where a mail catcher runs.
@@ -48,10 +49,29 @@ function SignOutButton() {
   );
 }
 
+function useHasOwnVan(): boolean {
+  // Anyone may be given a van (an owner who still does jobs), so ask rather than go by role.
+  const mine = useQuery({ ...vanQueries.mine(), staleTime: 5 * 60_000 });
+  return Boolean(mine.data?.van);
+}
+
+function NavItem({ to, children, end = false }: { to: string; children: string; end?: boolean }) {
+  return (
+    <li>
+      <NavLink to={to} end={end} className={navLinkClass}>
+        {children}
+      </NavLink>
+    </li>
+  );
+}
+
 function SignedInHeader({ me }: { me: Me }) {
   const showOutbox = useOutboxIsAvailable();
+  const hasOwnVan = useHasOwnVan();
+  const ability = useAbility();
+  const showSettings = ability.can('update', 'ItemKind') || ability.can('update', 'ReminderSettings');
   return (
-    <header className="bg-brand-900 text-white">
+    <header className="bg-brand-900 text-white print:hidden">
       <div className="mx-auto max-w-5xl px-4">
         <div className="flex items-center justify-between gap-3 pt-2">
           <Link to={paths.home.getHref()} className="inline-flex min-h-11 shrink-0 items-center rounded-md" aria-label="Heatfleet home">
@@ -73,25 +93,27 @@ function SignedInHeader({ me }: { me: Me }) {
         </div>
         <nav aria-label="Main">
           <ul className="-mx-3 flex flex-wrap">
-            <li>
-              <NavLink to={paths.home.getHref()} end className={navLinkClass}>
-                Home
-              </NavLink>
-            </li>
-            <Can I="read" a="Member">
-              <li>
-                <NavLink to={paths.team.getHref()} className={navLinkClass}>
-                  Team
-                </NavLink>
-              </li>
+            <NavItem to={paths.home.getHref()} end>
+              Home
+            </NavItem>
+            {hasOwnVan ? <NavItem to={paths.myVan.getHref()}>My van</NavItem> : null}
+            <Can I="read" a="Location">
+              <NavItem to={paths.vans.getHref()}>Vans</NavItem>
             </Can>
-            {showOutbox ? (
-              <li>
-                <NavLink to={paths.outbox.getHref()} className={navLinkClass}>
-                  Outbox
-                </NavLink>
-              </li>
-            ) : null}
+            <Can I="read" a="Kit">
+              <NavItem to={paths.kits.getHref()}>Kits</NavItem>
+            </Can>
+            <Can I="read" a="Stock">
+              <NavItem to={paths.stock.getHref()}>Stock</NavItem>
+            </Can>
+            <Can I="read" a="Reminder">
+              <NavItem to={paths.reminders.getHref()}>Reminders</NavItem>
+            </Can>
+            <Can I="read" a="Member">
+              <NavItem to={paths.team.getHref()}>Team</NavItem>
+            </Can>
+            {showSettings ? <NavItem to={paths.settings.getHref()}>Settings</NavItem> : null}
+            {showOutbox ? <NavItem to={paths.outbox.getHref()}>Outbox</NavItem> : null}
           </ul>
         </nav>
       </div>
@@ -101,7 +123,7 @@ function SignedInHeader({ me }: { me: Me }) {
 
 function Main() {
   return (
-    <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6">
+    <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 print:max-w-none print:p-0">
       <Suspense fallback={<PageSpinner />}>
         <Outlet />
       </Suspense>

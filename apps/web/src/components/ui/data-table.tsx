@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { useId, type ReactNode } from 'react';
 import {
   columnFilteringFeature,
   createColumnHelper,
@@ -16,8 +16,10 @@ import {
   sortFn_text,
   tableFeatures,
   useTable,
+  type PaginationState,
   type SortingState,
   type TableOptions,
+  type Updater,
 } from '@tanstack/react-table';
 import { Button } from '@/components/ui/button';
 
@@ -48,6 +50,20 @@ export function createDataTableColumnHelper<TData extends object>() {
 
 export type DataTableColumns<TData extends object> = TableOptions<DataTableFeatures, TData>['columns'];
 
+/**
+ * For lists too long to send whole: the server filters and pages, the table shows one page and asks
+ * for others. Sorting then orders the rows of the page shown.
+ */
+export interface DataTableServerPaging {
+  rowCount: number;
+  pageIndex: number;
+  onPageChange: (pageIndex: number) => void;
+  filter: string;
+  onFilterChange: (filter: string) => void;
+  /** True while another page loads, so the rows shown are not mistaken for it. */
+  isFetching?: boolean;
+}
+
 interface DataTableProps<TData extends object> {
   /** Keep stable (module scope or useMemo): a new array each render rebuilds every row model. */
   columns: DataTableColumns<TData>;
@@ -61,6 +77,9 @@ interface DataTableProps<TData extends object> {
   emptyMessage: string;
   pageSize?: number;
   initialSorting?: SortingState;
+  server?: DataTableServerPaging;
+  /** Controls above the table that narrow it further, e.g. filters by kind or place. */
+  toolbar?: ReactNode;
 }
 
 const sortMarks = { asc: '▲', desc: '▼' } as const;
@@ -75,6 +94,8 @@ export function DataTable<TData extends object>({
   emptyMessage,
   pageSize = 10,
   initialSorting = [],
+  server,
+  toolbar,
 }: DataTableProps<TData>) {
   const filterId = useId();
   const sortId = useId();
@@ -86,12 +107,25 @@ export function DataTable<TData extends object>({
     globalFilterFn: 'includesString',
     enableSortingRemoval: false,
     initialState: { sorting: initialSorting, pagination: { pageIndex: 0, pageSize }, globalFilter: '' },
+    ...(server
+      ? {
+          manualPagination: true,
+          manualFiltering: true,
+          rowCount: server.rowCount,
+          state: { pagination: { pageIndex: server.pageIndex, pageSize } },
+          onPaginationChange: (updater: Updater<PaginationState>) => {
+            const next = typeof updater === 'function' ? updater({ pageIndex: server.pageIndex, pageSize }) : updater;
+            server.onPageChange(next.pageIndex);
+          },
+        }
+      : {}),
   });
 
-  const filter = String(table.state.globalFilter ?? '');
+  const filter = server ? server.filter : String(table.state.globalFilter ?? '');
+  const setFilter = server ? server.onFilterChange : (value: string) => table.setGlobalFilter(value);
   const { pageIndex } = table.state.pagination;
   const rows = table.getRowModel().rows;
-  const matching = table.getPrePaginatedRowModel().rows.length;
+  const matching = server ? server.rowCount : table.getPrePaginatedRowModel().rows.length;
   const pageCount = Math.max(1, table.getPageCount());
   const first = matching === 0 ? 0 : pageIndex * pageSize + 1;
   const last = Math.min(matching, (pageIndex + 1) * pageSize);
@@ -115,11 +149,13 @@ export function DataTable<TData extends object>({
           id={filterId}
           type="search"
           value={filter}
-          onChange={(event) => table.setGlobalFilter(event.target.value)}
+          onChange={(event) => setFilter(event.target.value)}
           className="min-h-11 rounded-md border border-line-strong bg-card px-3 text-base"
           autoComplete="off"
         />
       </div>
+
+      {toolbar}
 
       {sortable.length > 0 ? (
         // On a phone the rows stack as cards and the header row is hidden, so sorting gets its own controls.
@@ -152,7 +188,8 @@ export function DataTable<TData extends object>({
         </div>
       ) : null}
 
-      <p className="text-sm text-ink-muted" aria-live="polite">
+      <p className="text-sm text-ink-muted" aria-live="polite" aria-busy={server?.isFetching || undefined}>
+        {server?.isFetching ? 'Loading… ' : null}
         {matching === 0
           ? `No ${itemsLabel} to show.`
           : `Showing ${first}–${last} of ${matching} ${itemsLabel}${filter ? ` matching "${filter}"` : ''}.`}

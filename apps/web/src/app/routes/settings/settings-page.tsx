@@ -1,0 +1,27 @@
+import { Card } from '@/components/ui/card';
+import { PageHeader } from '@/components/ui/page-header';
+import { Can } from '@/lib/ability';
+import { useSignedInMe } from '@/lib/auth';
+import { ItemKindsEditor } from '@/features/kits/components/item-kinds-editor';
+import { ReminderSettingsForm } from '@/features/reminders/components/reminder-settings-form';
+
+export function SettingsPage() {
+  const me = useSignedInMe();
+  return (
+    <>
+      <PageHeader title="Settings">How {me.activeFirm.name} inspects its kit and when it is reminded.</PageHeader>
+      <div className="space-y-5">
+        <Can I="update" a="ReminderSettings">
+          <Card title="Reminders" description="One digest e-mail a day per firm, and one per engineer for their own van.">
+            <ReminderSettingsForm timeZone={me.activeFirm.timeZone} />
+          </Card>
+        </Can>
+        <Can I="update" a="ItemKind">
+          <Card title="Item kinds and inspection rules">
+            <ItemKindsEditor />
+          </Card>
+        </Can>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,49 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { movementSchema, type ReceiptInput, type StocktakeInput, type TransferInput, type UsageInput, type WriteOffInput } from '@heatfleet/domain';
+import { apiClient } from '@/lib/api-client';
+import { stockQueries } from '@/features/stock/api/stock-queries';
+
+const movedSchema = z.object({ groupId: z.string(), movements: z.array(movementSchema) });
+
+export type StockMovementRequest =
+  | { action: 'receipts'; input: ReceiptInput }
+  | { action: 'transfers'; input: TransferInput }
+  | { action: 'usages'; input: UsageInput }
+  | { action: 'stocktakes'; input: StocktakeInput }
+  | { action: 'write-offs'; input: WriteOffInput };
+
+export function sendStockMovement(request: StockMovementRequest, idempotencyKey: string) {
+  return apiClient.post(`/api/stock/${request.action}`, request.input, movedSchema, { idempotencyKey });
+}
+
+/** Every stock form goes through here; any movement can change the grid, batches, ledger, plan and van stock. */
+export function useStockMovement() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ request, idempotencyKey }: { request: StockMovementRequest; idempotencyKey: string }) => sendStockMovement(request, idempotencyKey),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+  });
+}
+
+const reversedSchema = movedSchema;
+
+export function useReverseMovement() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ movementId, reason, idempotencyKey }: { movementId: number; reason: string; idempotencyKey: string }) =>
+      apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, reversedSchema, { idempotencyKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+  });
+}
+
+const appliedSchema = z.object({ groupId: z.string() });
+
+export function useApplyRestockRun() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ lines, idempotencyKey }: { lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[]; idempotencyKey: string }) =>
+      apiClient.post('/api/stock/restock-run', { lines }, appliedSchema, { idempotencyKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+  });
+}

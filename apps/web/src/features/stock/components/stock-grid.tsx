@@ -1,0 +1,103 @@
+import { useMemo, useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { stockHealthLabels } from '@heatfleet/domain';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { QueryErrorNotice } from '@/components/ui/query-error-notice';
+import { stockQueries, type StockCell } from '@/features/stock/api/stock-queries';
+import { BatchList } from '@/features/stock/components/batch-list';
+import { HealthLegend, healthStyles } from '@/features/stock/components/stock-health';
+
+interface Selected {
+  locationId: number;
+  productId: number;
+}
+
+/** Products down, places across: each cell the usable packs, coloured by health against par; a cell opens its batches. */
+export function StockGridView() {
+  const grid = useQuery(stockQueries.grid());
+  const [selected, setSelected] = useState<Selected | null>(null);
+  const cells = useMemo(() => {
+    const map = new Map<string, StockCell>();
+    for (const cell of grid.data?.cells ?? []) map.set(`${cell.locationId}:${cell.productId}`, cell);
+    return map;
+  }, [grid.data]);
+
+  if (grid.isPending) return <PageSpinner label="Loading stock…" />;
+  if (grid.isError) return <QueryErrorNotice error={grid.error} onRetry={() => void grid.refetch()} />;
+  const { products, locations } = grid.data;
+  if (products.length === 0) return <p className="text-ink-muted">No products yet. Add one under Products first.</p>;
+
+  const selectedProduct = selected ? products.find((p) => p.id === selected.productId) : undefined;
+  const selectedPlace = selected ? locations.find((l) => l.id === selected.locationId) : undefined;
+
+  return (
+    <div className="space-y-4">
+      <HealthLegend />
+      {/* The grid scrolls inside its own box on a phone, so the page itself never runs wider than the screen. */}
+      <div className="max-w-full overflow-x-auto rounded-lg border border-line" tabIndex={0} role="region" aria-label="Stock grid, scrolls sideways">
+        <table className="min-w-full border-collapse text-left">
+          <caption className="sr-only">Usable packs of each product at each place</caption>
+          <thead>
+            <tr>
+              <th scope="col" className="sticky left-0 z-[1] border-b-2 border-line bg-card px-2 py-2 text-sm font-semibold text-ink-muted">
+                Product
+              </th>
+              {locations.map((place) => (
+                <th key={place.id} scope="col" className="border-b-2 border-line px-2 py-2 text-sm font-semibold whitespace-nowrap text-ink-muted">
+                  {place.name}
+                  {place.kind === 'depot' ? <span className="block text-xs font-normal">Depot</span> : place.registration ? <span className="block font-mono text-xs font-normal">{place.registration}</span> : null}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {products.map((product) => (
+              <tr key={product.id} className="border-b border-line">
+                <th scope="row" className="sticky left-0 z-[1] max-w-36 bg-card px-2 py-1 text-sm font-semibold [overflow-wrap:anywhere] sm:max-w-none">
+                  {product.name}
+                </th>
+                {locations.map((place) => {
+                  const cell = cells.get(`${place.id}:${product.id}`);
+                  const health = cell?.health ?? 'no_par';
+                  const usable = cell?.usable ?? 0;
+                  const isSelected = selected?.locationId === place.id && selected.productId === product.id;
+                  const label = `${product.name} at ${place.name}: ${usable} usable, ${stockHealthLabels[health]}${cell?.par ? `, minimum ${cell.par.minimum}, target ${cell.par.target}` : ''}${cell?.expired ? `, ${cell.expired} expired` : ''}`;
+                  return (
+                    <td key={place.id} className="px-1 py-1">
+                      <button
+                        type="button"
+                        aria-label={label}
+                        aria-pressed={isSelected}
+                        onClick={() => setSelected(isSelected ? null : { locationId: place.id, productId: product.id })}
+                        className={`flex min-h-11 w-full min-w-16 flex-col items-center justify-center rounded-md border px-2 font-semibold ${healthStyles[health].cell} ${isSelected ? 'ring-3 ring-brand-700' : ''}`}
+                      >
+                        <span className="text-lg leading-tight">
+                          <span aria-hidden="true" className="mr-1 text-xs">
+                            {healthStyles[health].mark}
+                          </span>
+                          {usable}
+                        </span>
+                        {cell?.par ? <span className="text-xs font-normal">of {cell.par.target}</span> : null}
+                        {cell?.expired ? <span className="text-xs font-normal">+{cell.expired} expired</span> : null}
+                      </button>
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {selected && selectedProduct && selectedPlace ? (
+        <section aria-label="Batches" className="rounded-lg border border-line bg-canvas p-3">
+          <h3 className="font-bold text-brand-900">
+            {selectedProduct.name} at {selectedPlace.name}
+          </h3>
+          <BatchList locationId={selected.locationId} productId={selected.productId} today={grid.data.today} />
+        </section>
+      ) : (
+        <p className="text-sm text-ink-muted">Choose a cell to see its batches, lot by lot.</p>
+      )}
+    </div>
+  );
+}
