@@ -89,3 +89,27 @@ describe('jobs', () => {
     expect(await t.deps.db('stock_movements').where({ firm_id: firm.firmId, job_id: firm.jobId })).toHaveLength(0);
   });
 });
+
+describe('the completion report', () => {
+  it('is a PDF with the firm, the volume and how it was reached, the chemicals by lot and the cautions', async () => {
+    const { PDFParse } = await import('pdf-parse');
+    const firm = await seedFirm(t.deps.db, 'job-report');
+    const engineer = await signIn(t.app, firm.people.engineer.email);
+    await engineer.post(`/api/jobs/${firm.jobId}/complete`, {}).then((r) => expect(r.status).toBe(200));
+    const res = await engineer.get(`/api/jobs/${firm.jobId}/report.pdf`).buffer(true).parse((r, cb) => {
+      const parts: Buffer[] = [];
+      r.on('data', (c: Buffer) => parts.push(c));
+      r.on('end', () => cb(null, Buffer.concat(parts)));
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    const text = (await new PDFParse({ data: new Uint8Array(res.body as Buffer) }).getText()).text.replace(/\s+/g, ' ');
+    expect(text).toContain(firm.firmName);
+    expect(text).toContain('System water volume');
+    // One single panel on the quick estimate: 10 L, plus 1 L for a combi's heat exchanger (from memory).
+    expect(text).toContain('11.0 litres');
+    expect(text).toContain(`lot ${firm.product.lotNumber}`);
+    expect(text).toContain('Gas Safe Register');
+    expect(text).toContain('foul drain');
+  });
+});

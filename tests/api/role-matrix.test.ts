@@ -85,6 +85,7 @@ const allowed: Record<string, Role[]> = {
   'GET /jobs/:id': everyone,
   // The probe's job is the seeded engineer's own: they may complete it; so may the office.
   'POST /jobs/:id/complete': everyone,
+  'GET /jobs/:id/report.pdf': everyone,
   'GET /reminders': ['owner', 'admin', 'stores'],
   'POST /reminders/scan': managers,
   'GET /reminder-settings': managers,

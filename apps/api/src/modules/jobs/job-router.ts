@@ -4,6 +4,7 @@ import { withTransactionRetry } from '../../db/with-retry.ts';
 import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { completeJob, createCustomer, createJob, createSite, getCustomer, getJob, listCustomers, listJobs } from './job-service.ts';
+import { renderJobReport } from './job-report.ts';
 
 export const jobRoutes: RouteDefinition[] = [
   defineRoute({
@@ -72,6 +73,23 @@ export const jobRoutes: RouteDefinition[] = [
         }),
       );
       res.status(out.status).json(out.body);
+    },
+  }),
+  defineRoute({
+    method: 'get', path: '/jobs/:id/report.pdf', tag: 'Jobs', access: 'member', tenantData: true,
+    summary: 'The completion report as a PDF (firm, customer, system, volume and how it was reached, chemicals with lots, cautions)',
+    request: { params: idParamSchema },
+    responses: { 200: { description: 'PDF' } },
+    handle: async ({ params, res, deps, actor }) => {
+      const detail = await getJob(deps, actor, params.id);
+      const firm = await deps.db('firms').where({ id: actor.firmId }).first('name');
+      const engineer = detail.job.engineerMemberId
+        ? await deps.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.firm_id': actor.firmId, 'm.id': detail.job.engineerMemberId }).first('u.name')
+        : undefined;
+      const pdf = await renderJobReport(detail, firm.name as string, (engineer?.name as string | undefined) ?? null);
+      res.setHeader('Content-Type', 'application/pdf');
+      res.setHeader('Content-Disposition', `attachment; filename="cleaning-report-${params.id}.pdf"`);
+      res.send(pdf);
     },
   }),
 ];
