@@ -9,6 +9,7 @@ import { paths } from '@/config/paths';
 import { useAbility } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
 import { productQueries } from '@/features/stock/api/stock-queries';
+import { ParLevelsEditor } from '@/features/stock/components/par-levels-editor';
 import { doseText, targetRangeText } from '@/features/stock/components/product-columns';
 import { ProductForm } from '@/features/stock/components/product-form';
 import { SafetyDataSheetCard } from '@/features/stock/components/safety-data-sheet-card';
@@ -36,6 +37,11 @@ export function ProductPage() {
         <Card title="Safety data sheet">
           <SafetyDataSheetCard product={p} canUpload={canEdit} timeZone={me.activeFirm.timeZone} />
         </Card>
+        {ability.can('update', 'ParLevel') ? (
+          <Card title="Par levels" description="Packs to keep at each place: below the minimum it needs restocking, and a restock fills it to the target.">
+            <ParLevelsEditor productId={p.id} />
+          </Card>
+        ) : null}
         {canEdit ? (
           <Card title="Details">
             <ProductForm key={p.id} product={p} />

@@ -26,13 +26,11 @@ export function useStockMovement() {
   });
 }
 
-const reversedSchema = movedSchema;
-
 export function useReverseMovement() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ movementId, reason, idempotencyKey }: { movementId: number; reason: string; idempotencyKey: string }) =>
-      apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, reversedSchema, { idempotencyKey }),
+      apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, movedSchema, { idempotencyKey }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
 }
@@ -44,6 +42,7 @@ export function useApplyRestockRun() {
   return useMutation({
     mutationFn: ({ lines, idempotencyKey }: { lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[]; idempotencyKey: string }) =>
       apiClient.post('/api/stock/restock-run', { lines }, appliedSchema, { idempotencyKey }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+    // A refused run (stock moved since it was computed) is recomputed too, so the next try starts from the truth.
+    onSettled: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
 }

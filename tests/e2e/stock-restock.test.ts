@@ -1,0 +1,119 @@
+import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+
+// Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1".
+const password = 'heatfleet-demo-2026';
+const stores = 'stores@brackenford.example';
+const engineer = 'engineer@brackenford.example';
+
+async function signInToApi(baseURL: string, email: string): Promise<{ api: APIRequestContext; csrf: string }> {
+  const api = await playwrightRequest.newContext({ baseURL });
+  const first = await api.get('/api/auth/csrf');
+  expect(first.ok()).toBe(true);
+  const { csrfToken } = (await first.json()) as { csrfToken: string };
+  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
+  expect(signedIn.status(), await signedIn.text()).toBe(200);
+  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
+}
+
+/**
+ * A product of its own for this run, with par levels on the engineer's van, so the numbers the test
+ * checks do not depend on what the demo stock happens to hold.
+ */
+async function prepareProduct(baseURL: string) {
+  const { api, csrf } = await signInToApi(baseURL, stores);
+  const headers = { 'X-CSRF-Token': csrf };
+  const name = `Trial cleaner ${runId().toUpperCase()}`;
+  const created = await api.post('/api/products', { data: { name, kind: 'cleaner', packSize: 1, packUnit: 'l', shelfLifeMonths: 24 }, headers });
+  expect(created.status(), await created.text()).toBe(201);
+  const { product } = (await created.json()) as { product: { id: number } };
+
+  const grid = (await (await api.get('/api/stock')).json()) as { locations: { id: number; kind: string; name: string }[] };
+  const van = grid.locations.find((l) => l.kind === 'van' && l.name === 'Van 1');
+  const depot = grid.locations.find((l) => l.kind === 'depot');
+  expect(van, 'the demo firm has Van 1').toBeDefined();
+  expect(depot, 'the demo firm has a depot').toBeDefined();
+  const par = await api.put('/api/par-levels', { data: { locationId: van!.id, productId: product.id, minimum: 2, target: 4 }, headers });
+  expect(par.status(), await par.text()).toBe(200);
+  await api.dispose();
+  return { name, depotName: depot!.name };
+}
+
+function isoDaysFromNow(days: number): string {
+  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+}
+
+async function expectNoOverflow(page: Page, what: string) {
+  const overflow = await horizontalOverflow(page);
+  expect(overflow.scrollWidth, `${what} overflows: ${overflow.widest ?? ''}`).toBeLessThanOrEqual(360);
+}
+
+test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
+
+test('stores receives a delivery, runs a restock and the engineer sees it on My van', async ({ page, browser, baseURL }, testInfo) => {
+  const { name, depotName } = await prepareProduct(baseURL!);
+  const lot = `T${runId().slice(-6).toUpperCase()}`;
+
+  await signIn(page, stores, password);
+  await mainNav(page).getByRole('link', { name: 'Stock' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Stock' })).toBeVisible();
+  // The new product has no stock anywhere yet, and Van 1 is below its minimum of it.
+  await expect(page.getByRole('button', { name: `${name} at Van 1: 0 usable, None usable, minimum 2, target 4` })).toBeVisible();
+  await page.screenshot({ path: testInfo.outputPath('stock-grid-360.png'), fullPage: true });
+  await expectNoOverflow(page, 'the stock grid');
+
+  await page.getByRole('navigation', { name: 'Stock' }).getByRole('link', { name: 'Receive' }).click();
+  const receive = page.getByRole('form', { name: 'Receive a delivery' });
+  await expect(receive.getByLabel('Depot')).toHaveValue(/\d+/);
+  await receive.getByLabel('Delivery note or order reference (optional)').fill(`DN-${lot}`);
+  await receive.getByLabel('Product').selectOption({ label: name });
+  await receive.getByLabel('Lot number').fill(lot);
+  await receive.getByLabel('Use by').fill(isoDaysFromNow(400));
+  await receive.getByLabel('Quantity (packs)').fill('10');
+  await page.screenshot({ path: testInfo.outputPath('receive-360.png'), fullPage: true });
+  await expectNoOverflow(page, 'the delivery form');
+  await receive.getByRole('button', { name: 'Receive delivery' }).click();
+  await expect(receive.getByText('Received 10 packs on 1 line.')).toBeVisible();
+
+  // The delivery shows in the ledger, with its lot and reference.
+  await page.getByRole('navigation', { name: 'Stock' }).getByRole('link', { name: 'Ledger' }).click();
+  const received = page.getByRole('row').filter({ hasText: `DN-${lot}` });
+  await expect(received).toHaveCount(1);
+  await expect(received).toContainText('Received');
+  await expect(received).toContainText(lot);
+  await expect(received).toContainText('+10');
+
+  await page.getByRole('navigation', { name: 'Stock' }).getByRole('link', { name: 'Restock run' }).click();
+  const picks = page.getByRole('list', { name: 'Pick list by van' });
+  const van1 = picks.getByRole('listitem').filter({ has: page.getByRole('heading', { name: /^Van 1/ }) });
+  const line = van1.getByRole('row').filter({ hasText: name });
+  await expect(line).toContainText(lot);
+  await expect(line).toContainText('has 0, target 4');
+  // Four packs bring Van 1 from nothing to its target, all from the lot just received.
+  await expect(line.getByRole('cell').last()).toHaveText('4');
+  await expect(page.getByText(`From ${depotName}:`)).toBeVisible();
+  await page.screenshot({ path: testInfo.outputPath('restock-run-360.png'), fullPage: true });
+  await expectNoOverflow(page, 'the restock run');
+  await page.emulateMedia({ media: 'print' });
+  await page.screenshot({ path: testInfo.outputPath('pick-list-print.png'), fullPage: true });
+  await expect(page.getByRole('button', { name: 'Apply restock run' })).toBeHidden();
+  await page.emulateMedia({ media: 'screen' });
+
+  await page.getByRole('button', { name: 'Apply restock run' }).click();
+  await expect(page.getByText(/^Applied: \d+ packs? moved from /)).toBeVisible();
+  // Recomputed after applying: Van 1 is at target for the new product, so it leaves the plan.
+  await expect(picks.getByRole('row').filter({ hasText: name })).toHaveCount(0);
+
+  const engineerContext = await browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true, locale: 'en-GB', timezoneId: 'Europe/London' });
+  const phone = await engineerContext.newPage();
+  await signIn(phone, engineer, password);
+  await mainNav(phone).getByRole('link', { name: 'My van' }).click();
+  const onBoard = phone.getByRole('list', { name: 'Stock on my van' });
+  const row = onBoard.getByRole('listitem').filter({ hasText: name });
+  await expect(row).toContainText('4 packs');
+  await expect(row).toContainText('Stocked');
+  await expect(row).toContainText(`lot ${lot}`);
+  await phone.screenshot({ path: testInfo.outputPath('my-van-stock-360.png'), fullPage: true });
+  await expectNoOverflow(phone, 'My van');
+  await engineerContext.close();
+});
