@@ -26,7 +26,7 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
     await expect(page.getByRole('heading', { level: 1, name: firmName })).toBeVisible();
     await expect(page.getByRole('heading', { name: 'Your role: Owner' })).toBeVisible();
     // A new firm has no van for its owner yet, so no "My van".
-    await expectNavLinks(page, ['Home', 'Vans', 'Kits', 'Stock', 'Reminders', 'Team', 'Settings', 'Outbox']);
+    await expectNavLinks(page, ['Home', 'Vans', 'Jobs', 'Kits', 'Stock', 'Reminders', 'Team', 'Settings', 'Outbox']);
   });
 
   await test.step('the Owner invites an engineer from Team', async () => {
@@ -75,7 +75,7 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
   await test.step('the engineer sees the team read-only, without invite or role controls', async () => {
     // Outbox shows because the test stack runs a mail catcher; nothing else beyond what an engineer may open.
     // No van assigned yet, so no "My van"; no Reminders or Settings for an engineer.
-    await expectNavLinks(engineer, ['Home', 'Vans', 'Kits', 'Stock', 'Team', 'Outbox']);
+    await expectNavLinks(engineer, ['Home', 'Vans', 'Jobs', 'Kits', 'Stock', 'Team', 'Outbox']);
     await mainNav(engineer).getByRole('link', { name: 'Team' }).click();
 
     const members = engineer.getByRole('table', { name: 'Members of the firm' });

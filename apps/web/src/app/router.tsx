@@ -46,6 +46,9 @@ export const router = createBrowserRouter([
             path: paths.reminders.path,
             lazy: () => import('@/app/routes/reminders/reminders-page').then((m) => ({ Component: m.RemindersPage })),
           },
+          { path: paths.jobs.path, lazy: () => import('@/app/routes/jobs/jobs-page').then((m) => ({ Component: m.JobsPage })) },
+          { path: paths.newJob.path, lazy: () => import('@/app/routes/jobs/new-job-page').then((m) => ({ Component: m.NewJobPage })) },
+          { path: paths.job.path, lazy: () => import('@/app/routes/jobs/job-page').then((m) => ({ Component: m.JobPage })) },
           {
             path: paths.settings.path,
             lazy: () => import('@/app/routes/settings/settings-page').then((m) => ({ Component: m.SettingsPage })),

@@ -38,6 +38,9 @@ export const paths = {
   restockRun: { path: '/stock/restock-run', getHref: () => '/stock/restock-run' },
   reorderList: { path: '/stock/reorder-list', getHref: () => '/stock/reorder-list' },
   settings: { path: '/settings', getHref: () => '/settings' },
+  jobs: { path: '/jobs', getHref: () => '/jobs' },
+  newJob: { path: '/jobs/new', getHref: () => '/jobs/new' },
+  job: { path: '/jobs/:id', getHref: (id: number) => `/jobs/${id}` },
   outbox: { path: '/outbox', getHref: () => '/outbox' },
   outboxMessage: { path: '/outbox/:id', getHref: (id: string) => `/outbox/${encodeURIComponent(id)}` },
 } as const;

@@ -100,6 +100,9 @@ function SignedInHeader({ me }: { me: Me }) {
             <Can I="read" a="Location">
               <NavItem to={paths.vans.getHref()}>Vans</NavItem>
             </Can>
+            <Can I="read" a="Job">
+              <NavItem to={paths.jobs.getHref()}>Jobs</NavItem>
+            </Can>
             <Can I="read" a="Kit">
               <NavItem to={paths.kits.getHref()}>Kits</NavItem>
             </Can>

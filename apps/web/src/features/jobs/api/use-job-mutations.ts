@@ -1,0 +1,46 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { CreateJobInput, CustomerInput, SiteInput } from '@heatfleet/domain';
+import { apiClient } from '@/lib/api-client';
+import { customerEnvelopeSchema, customerQueries, jobDetailSchema, jobQueries, siteEnvelopeSchema } from '@/features/jobs/api/job-queries';
+
+export function useCompleteJob(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ idempotencyKey }: { idempotencyKey: string }) =>
+      apiClient.post(`/api/jobs/${id}/complete`, {}, jobDetailSchema, { idempotencyKey }),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
+      // The van's stock and the site's next check changed too.
+      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
+      void queryClient.invalidateQueries({ queryKey: ['stock'] });
+      void queryClient.invalidateQueries({ queryKey: ['vans'] });
+    },
+  });
+}
+
+export function useCreateJob() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateJobInput) => apiClient.post('/api/jobs', input, jobDetailSchema),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(jobQueries.detail(detail.job.id).queryKey, detail);
+      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
+    },
+  });
+}
+
+export function useCreateCustomer() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: CustomerInput) => (await apiClient.post('/api/customers', input, customerEnvelopeSchema)).customer,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
+  });
+}
+
+export function useCreateSite(customerId: number | null) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: SiteInput) => (await apiClient.post(`/api/customers/${customerId}/sites`, input, siteEnvelopeSchema)).site,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
+  });
+}

@@ -1,0 +1,42 @@
+import { Link } from 'react-router-dom';
+import { Badge } from '@/components/ui/badge';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { paths } from '@/config/paths';
+import { formatCalendarDate } from '@/lib/format';
+import type { JobListRow } from '@/features/jobs/api/job-queries';
+
+const helper = createDataTableColumnHelper<JobListRow>();
+
+export function buildJobColumns(): DataTableColumns<JobListRow> {
+  return helper.columns([
+    // ISO calendar dates sort correctly as text.
+    helper.accessor('scheduledOn', {
+      header: 'Date',
+      sortFn: 'text',
+      enableGlobalFilter: false,
+      cell: (info) => (
+        <Link to={paths.job.getHref(info.row.original.id)} className="font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4">
+          {formatCalendarDate(info.getValue())}
+        </Link>
+      ),
+    }),
+    helper.accessor('customerName', { header: 'Customer', sortFn: 'text' }),
+    helper.accessor('address', { header: 'Address', sortFn: 'text' }),
+    helper.accessor('status', {
+      header: 'Status',
+      sortFn: 'text',
+      cell: (info) =>
+        info.getValue() === 'completed' ? <Badge tone="ok">Completed</Badge> : <Badge tone="neutral">Booked</Badge>,
+    }),
+    helper.accessor((job) => job.nextCheckOn ?? '9999-12-31', {
+      id: 'nextCheck',
+      header: 'Next check',
+      sortFn: 'text',
+      enableGlobalFilter: false,
+      cell: (info) => {
+        const on = info.row.original.nextCheckOn;
+        return on ? formatCalendarDate(on) : <span className="text-ink-muted">After completion</span>;
+      },
+    }),
+  ]);
+}

@@ -1,0 +1,144 @@
+import { defaultHeatExchangerLitres, panelTypes, type Survey } from '@heatfleet/domain';
+
+export type PanelType = (typeof panelTypes)[number];
+export type TubeSize = '8' | '10' | '15' | '22' | '28' | 'plastic';
+
+/** What the form holds while typing: every number as the text in its box. */
+export interface RadiatorDraft {
+  key: number;
+  room: string;
+  panel: PanelType;
+  heightMm: string;
+  lengthMm: string;
+  litres: string;
+  coldSpotNote: string;
+}
+
+export interface PipeRunDraft {
+  key: number;
+  tube: TubeSize;
+  boreMm: string;
+  lengthM: string;
+}
+
+export interface SurveyDraft {
+  systemType: Survey['systemType'];
+  boilerKind: Survey['boilerKind'];
+  fuel: Survey['fuel'];
+  heatExchangerLitres: string;
+  cylinderCoilLitres: string;
+  otherLitres: string;
+  radiators: RadiatorDraft[];
+  pipeRuns: PipeRunDraft[];
+}
+
+export const panelLabels: Record<PanelType, string> = {
+  single: 'Single panel',
+  single_fins: 'Single with fins',
+  double: 'Double panel',
+  double_fins: 'Double with fins',
+  column: 'Column',
+  towel_rail: 'Towel rail',
+  other: 'Other',
+};
+
+export const tubeLabels: Record<TubeSize, string> = {
+  '8': 'Copper 8 mm',
+  '10': 'Copper 10 mm',
+  '15': 'Copper 15 mm',
+  '22': 'Copper 22 mm',
+  '28': 'Copper 28 mm',
+  plastic: 'Plastic (give the bore)',
+};
+
+let nextKey = 1;
+export function newRowKey(): number {
+  return nextKey++;
+}
+
+export function emptyRadiator(): RadiatorDraft {
+  return { key: newRowKey(), room: '', panel: 'single', heightMm: '', lengthMm: '', litres: '', coldSpotNote: '' };
+}
+
+export function emptyPipeRun(): PipeRunDraft {
+  return { key: newRowKey(), tube: '15', boreMm: '', lengthM: '' };
+}
+
+export function initialSurveyDraft(): SurveyDraft {
+  return {
+    systemType: 'sealed',
+    boilerKind: 'combi',
+    fuel: 'gas',
+    heatExchangerLitres: String(defaultHeatExchangerLitres.combi),
+    cylinderCoilLitres: '',
+    otherLitres: '',
+    radiators: [],
+    pipeRuns: [],
+  };
+}
+
+/** A box left empty is "not given"; anything else goes to the schema as a number, so "abc" fails there in words. */
+function numberOrNull(text: string): number | null {
+  const trimmed = text.trim();
+  return trimmed === '' ? null : Number(trimmed.replace(',', '.'));
+}
+
+/** The survey exactly as typed, for the schema to judge on submit. */
+export function draftToSurveyInput(draft: SurveyDraft): unknown {
+  return {
+    systemType: draft.systemType,
+    boilerKind: draft.boilerKind,
+    fuel: draft.fuel,
+    heatExchangerLitres: numberOrNull(draft.heatExchangerLitres),
+    cylinderCoilLitres: numberOrNull(draft.cylinderCoilLitres),
+    otherLitres: numberOrNull(draft.otherLitres),
+    radiators: draft.radiators.map((r) => ({
+      room: r.room,
+      panel: r.panel,
+      heightMm: numberOrNull(r.heightMm),
+      lengthMm: numberOrNull(r.lengthMm),
+      litres: numberOrNull(r.litres),
+      coldSpotNote: r.coldSpotNote,
+    })),
+    pipeRuns: draft.pipeRuns.map((p) => ({
+      tube: p.tube,
+      ...(p.tube === 'plastic' ? { boreMm: numberOrNull(p.boreMm) } : {}),
+      lengthM: numberOrNull(p.lengthM) ?? 0,
+    })),
+  };
+}
+
+function usable(text: string, min: number, max: number): number | null {
+  const n = numberOrNull(text);
+  return n !== null && Number.isFinite(n) && n >= min && n <= max ? n : null;
+}
+
+/**
+ * The survey as far as it can be read while the engineer is still typing: a half-typed or
+ * out-of-range figure counts as not given, so the live panel never stalls on one bad box.
+ */
+export function draftToLiveSurvey(draft: SurveyDraft): Survey {
+  return {
+    systemType: draft.systemType,
+    boilerKind: draft.boilerKind,
+    fuel: draft.fuel,
+    heatExchangerLitres: usable(draft.heatExchangerLitres, 0, 100),
+    cylinderCoilLitres: usable(draft.cylinderCoilLitres, 0, 100),
+    otherLitres: usable(draft.otherLitres, 0, 2000),
+    radiators: draft.radiators.map((r, i) => ({
+      room: r.room.trim() || `Radiator ${i + 1}`,
+      panel: r.panel,
+      heightMm: usable(r.heightMm, 100, 2500),
+      lengthMm: usable(r.lengthMm, 100, 4000),
+      litres: usable(r.litres, 0, 200),
+      coldSpotNote: null,
+    })),
+    pipeRuns: draft.pipeRuns.flatMap((p): Survey['pipeRuns'] => {
+      const lengthM = usable(p.lengthM, 0, 2000);
+      if (lengthM === null) return [];
+      if (p.tube !== 'plastic') return [{ tube: p.tube, lengthM }];
+      const boreMm = usable(p.boreMm, 5, 60);
+      return boreMm === null ? [] : [{ tube: p.tube, boreMm, lengthM }];
+    }),
+  };
+}
