@@ -53,7 +53,7 @@ export function StockGridView() {
           <tbody>
             {products.map((product) => (
               <tr key={product.id} className="border-b border-line">
-                <th scope="row" className="sticky left-0 z-[1] max-w-36 bg-card px-2 py-1 text-sm font-semibold [overflow-wrap:anywhere] sm:max-w-none">
+                <th scope="row" className="sticky left-0 z-[1] max-w-36 bg-card min-w-28 px-2 py-1 text-sm font-semibold hyphens-auto [overflow-wrap:break-word] sm:max-w-none">
                   {product.name}
                 </th>
                 {locations.map((place) => {
