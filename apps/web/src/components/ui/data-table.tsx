@@ -52,9 +52,12 @@ export type DataTableColumns<TData extends object> = TableOptions<DataTableFeatu
 
 /**
  * For lists too long to send whole: the server filters and pages, the table shows one page and asks
- * for others. Sorting then orders the rows of the page shown.
+ * for others. With `sorting` and `onSortingChange` the server sorts too; without them sorting orders
+ * the rows of the page shown.
  */
 export interface DataTableServerPaging {
+  sorting?: SortingState;
+  onSortingChange?: (sorting: SortingState) => void;
   rowCount: number;
   pageIndex: number;
   onPageChange: (pageIndex: number) => void;
@@ -117,6 +120,16 @@ export function DataTable<TData extends object>({
             const next = typeof updater === 'function' ? updater({ pageIndex: server.pageIndex, pageSize }) : updater;
             server.onPageChange(next.pageIndex);
           },
+          ...(server.sorting && server.onSortingChange
+            ? {
+                manualSorting: true,
+                state: { pagination: { pageIndex: server.pageIndex, pageSize }, sorting: server.sorting },
+                onSortingChange: (updater: Updater<SortingState>) => {
+                  const next = typeof updater === 'function' ? updater(server.sorting!) : updater;
+                  server.onSortingChange!(next);
+                },
+              }
+            : {}),
         }
       : {}),
   });

@@ -28,7 +28,8 @@ export const kitItemColumns: DataTableColumns<KitItem> = helper.columns([
   helper.accessor((item) => itemConditionLabels[item.condition], {
     id: 'condition',
     header: 'Condition',
-    sortFn: 'text',
+    // The server sorts the items list and has no condition order.
+    enableSorting: false,
     cell: (info) => (
       <span className={info.row.original.condition === 'in_service' ? '' : 'font-semibold text-ember-700'}>{info.getValue()}</span>
     ),

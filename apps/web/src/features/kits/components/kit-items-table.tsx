@@ -12,6 +12,9 @@ import { kitItemColumns } from '@/features/kits/components/kit-item-columns';
 
 const PAGE_SIZE = 25;
 const initialSorting = [{ id: 'assetTag', desc: false }];
+// Table column -> the API's sort key; a column the server cannot sort by falls back to the asset tag.
+const serverSortKeys: Record<string, NonNullable<KitItemFilters['sort']>> = { assetTag: 'assetTag', kind: 'kind', kit: 'kit', where: 'location', due: 'due' };
+const columnOfSortKey = Object.fromEntries(Object.entries(serverSortKeys).map(([column, key]) => [key, column]));
 
 export interface PlaceOption {
   id: number;
@@ -30,6 +33,8 @@ function readFilters(params: URLSearchParams): KitItemFilters {
     locationId: positiveInt(params.get('place')),
     inspectionState: inspectionStates.find((s) => s === state),
     q: params.get('q') ?? undefined,
+    sort: Object.values(serverSortKeys).find((k) => k === params.get('sort')),
+    dir: params.get('dir') === 'desc' ? 'desc' : undefined,
     page: positiveInt(params.get('page')) ?? 1,
     pageSize: PAGE_SIZE,
   };
@@ -122,6 +127,11 @@ export function KitItemsTable({ places }: { places: PlaceOption[] }) {
       initialSorting={initialSorting}
       toolbar={toolbar}
       server={{
+        sorting: [{ id: columnOfSortKey[filters.sort ?? 'assetTag'] ?? 'assetTag', desc: filters.dir === 'desc' }],
+        onSortingChange: (sorting) => {
+          const first = sorting[0];
+          update({ sort: first ? (serverSortKeys[first.id] ?? 'assetTag') : undefined, dir: first?.desc ? 'desc' : undefined });
+        },
         rowCount: page.total,
         pageIndex: filters.page - 1,
         onPageChange: (pageIndex) => update({ page: pageIndex > 0 ? String(pageIndex + 1) : undefined }),
