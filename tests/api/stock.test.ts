@@ -228,7 +228,7 @@ describe('restock and reorder', () => {
 });
 
 describe('products', () => {
-  it('keeps pack sizes in millilitres and refuses a pack over 25 litres', async () => {
+  it('keeps pack sizes in millilitres, refuses a pack over 25 litres, and takes the firm\u2019s own kind', async () => {
     const firm = await seedFirm(t.deps.db, 'product');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
     const ok = await stores!.post('/api/products', { name: 'Demo inhibitor', kind: 'inhibitor', packSize: 0.5, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10 });
@@ -237,6 +237,12 @@ describe('products', () => {
     const big = await stores!.post('/api/products', { name: 'Too big', kind: 'cleaner', packSize: 30, packUnit: 'l' });
     expect(big.status).toBe(422);
     expect(big.body.message).toMatch(/25 litres/);
+    const own = await stores!.post('/api/products', { name: 'Demo pipe lubricant', kind: 'other', ownKind: 'Pipe lubricant', packSize: 250, packUnit: 'ml' });
+    expect(own.status).toBe(201);
+    expect(own.body.product).toMatchObject({ kind: 'other', ownKind: 'Pipe lubricant' });
+    const unnamed = await stores!.post('/api/products', { name: 'Demo unnamed', kind: 'other', packSize: 1, packUnit: 'l' });
+    expect(unnamed.status).toBe(422);
+    expect(unnamed.body.details[0].path).toBe('ownKind');
   });
 
   it('takes a safety data sheet as a PDF only, and serves it as an attachment to its firm', async () => {

@@ -17,10 +17,17 @@ const id = (label: string) => z.number({ error: `${label} is required.` }).int()
 const packs = (label: string) =>
   z.number({ error: `${label} is required.` }).int({ error: `${label} must be whole packs.` }).min(1, { error: `${label} must be at least 1 pack.` }).max(100_000, { error: `${label} must be at most 100000 packs.` });
 
+/** What to call a product's kind on screen: the firm's own name for "other". */
+export function productKindLabel(product: { kind: (typeof productKinds)[number]; ownKind?: string | null }): string {
+  return product.kind === 'other' && product.ownKind ? product.ownKind : productKindLabels[product.kind];
+}
+
 export const productInputSchema = z
   .strictObject({
     name: z.string({ error: 'Name is required.' }).trim().min(1, { error: 'Name is required.' }).max(120),
     kind: z.enum(productKinds, { error: () => ({ message: `Kind must be one of: ${productKinds.join(', ')}.` }) }),
+    /** The firm's own kind, named when the kind is "other". */
+    ownKind: text('Your own kind', 40),
     packSize: z.number({ error: 'Pack size is required.' }).positive({ error: 'Pack size must be more than 0.' }).max(25_000, { error: 'Pack size must be at most 25000.' }),
     packUnit: z.enum(['ml', 'l'], { error: () => ({ message: 'Pack unit must be ml or l.' }) }),
     doseLitresPer100L: z.number().min(0.001, { error: 'Dose must be more than 0.' }).max(100, { error: 'Dose must be at most 100 litres per 100 litres.' }).nullable().optional(),
@@ -33,6 +40,7 @@ export const productInputSchema = z
     hazardNotes: text('Hazard notes', 2000),
   })
   .refine((p) => p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000, { error: 'Pack size must be at most 25 litres.', path: ['packSize'] })
+  .refine((p) => p.kind !== 'other' || !!p.ownKind, { error: 'Name your own kind of product.', path: ['ownKind'] })
   .refine((p) => p.targetMin == null || p.targetMax == null || p.targetMin <= p.targetMax, { error: 'The target range must run from low to high.', path: ['targetMax'] });
 export type ProductInput = z.infer<typeof productInputSchema>;
 
@@ -40,6 +48,7 @@ export const productSchema = z.object({
   id: z.number(),
   name: z.string(),
   kind: z.enum(productKinds),
+  ownKind: z.string().nullable(),
   packSizeMl: z.number(),
   doseLitresPer100L: z.number().nullable(),
   radiatorsPerPack: z.number().nullable(),

@@ -10,6 +10,7 @@ interface ProductRow {
   id: number;
   name: string;
   kind: Product['kind'];
+  own_kind: string | null;
   pack_size_ml: number;
   dose_litres_per_100l: string | null;
   radiators_per_pack: number | null;
@@ -32,6 +33,7 @@ export function toProduct(r: ProductRow): Product {
     id: r.id,
     name: r.name,
     kind: r.kind,
+    ownKind: r.own_kind,
     packSizeMl: r.pack_size_ml,
     doseLitresPer100L: num(r.dose_litres_per_100l),
     radiatorsPerPack: r.radiators_per_pack,
@@ -48,7 +50,7 @@ export function toProduct(r: ProductRow): Product {
 
 const toRow = (p: Partial<ProductInput>) => ({
   ...(p.name !== undefined && { name: p.name }),
-  ...(p.kind !== undefined && { kind: p.kind }),
+  ...(p.kind !== undefined && { kind: p.kind, own_kind: p.kind === 'other' ? (p.ownKind ?? null) : null }),
   ...(p.packSize !== undefined && p.packUnit !== undefined && { pack_size_ml: packSizeMl(p.packSize, p.packUnit) }),
   ...(p.doseLitresPer100L !== undefined && { dose_litres_per_100l: p.doseLitresPer100L }),
   ...(p.radiatorsPerPack !== undefined && { radiators_per_pack: p.radiatorsPerPack }),

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router-dom';
-import { formatPackSize, productKindLabels } from '@heatfleet/domain';
+import { formatPackSize, productKindLabel } from '@heatfleet/domain';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -27,7 +27,7 @@ export function ProductPage() {
   return (
     <>
       <PageHeader title={p.name}>
-        {productKindLabels[p.kind]}, {formatPackSize(p.packSizeMl)} packs.{' '}
+        {productKindLabel(p)}, {formatPackSize(p.packSizeMl)} packs.{' '}
         <Link to={paths.products.getHref()} className="font-semibold text-brand-700 underline underline-offset-4">
           All products
         </Link>

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { productKindLabels, type Product } from '@heatfleet/domain';
+import { productKindLabel, type Product } from '@heatfleet/domain';
 import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
 import { paths } from '@/config/paths';
 import { packSizeText } from '@/features/stock/components/pack-size';
@@ -31,7 +31,7 @@ export function buildProductColumns(showGallons: boolean): DataTableColumns<Prod
         </Link>
       ),
     }),
-    helper.accessor((p) => productKindLabels[p.kind], { id: 'kind', header: 'Kind', sortFn: 'text' }),
+    helper.accessor((p) => productKindLabel(p), { id: 'kind', header: 'Kind', sortFn: 'text' }),
     helper.accessor('packSizeMl', {
       header: 'Pack size',
       sortFn: 'basic',

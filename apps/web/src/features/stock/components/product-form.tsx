@@ -13,6 +13,7 @@ import { GallonsToggle, packSizeText } from '@/features/stock/components/pack-si
 const fields = [
   'name',
   'kind',
+  'ownKind',
   'packSize',
   'packUnit',
   'doseLitresPer100L',
@@ -31,6 +32,7 @@ function prepare(values: Record<string, string | undefined>) {
   return {
     name: values.name ?? '',
     kind: values.kind,
+    ownKind: values.ownKind ?? '',
     packSize: values.packSize?.trim() ? Number(values.packSize) : undefined,
     packUnit: values.packUnit,
     doseLitresPer100L: numberOrNull(values.doseLitresPer100L),
@@ -95,6 +97,13 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
           defaultValue={product?.kind ?? ''}
           options={[{ value: '', label: 'Choose a kind…' }, ...productKinds.map((k) => ({ value: k, label: productKindLabels[k] }))]}
           error={form.fieldErrors.kind}
+        />
+        <TextField
+          label="Your own kind (when the kind is Other)"
+          name="ownKind"
+          maxLength={40}
+          defaultValue={product?.ownKind ?? ''}
+          error={form.fieldErrors.ownKind}
         />
       </div>
       <fieldset className="grid gap-4 rounded-lg border border-line p-3 sm:grid-cols-2">
