@@ -337,7 +337,7 @@ describe('service-due reminders', () => {
 
     const admin = await signIn(t.app, other.people.admin.email);
     const defaults = await admin.get('/api/reminder-settings').expect(200);
-    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, lastScanOn: null });
+    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, annualCheckReminders: true, lastScanOn: null });
     const off = await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: false, vanReminders: true });
     expect(off.status).toBe(200);
     expect(off.body.settings).toMatchObject({ scanHour: 6, inspectionReminders: false, vanReminders: true, stockReminders: true });
@@ -551,5 +551,33 @@ describe('restock reminders', () => {
       // Nothing used yet: no rate to give days of cover from.
       'Test Cleaner Delta at Depot-West: 0 usable after the planned restock, under its minimum of 2; order 4 packs to reach 4 (none used in the last 90 days)',
     ]);
+  });
+});
+
+describe('annual check reminders', () => {
+  it('reminds the office of customers whose annual check falls within 30 days, once, and not when switched off', async () => {
+    const firm = await seedBareFirm('annual');
+    const [customerId] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'Annual Test Customer' })) as number[];
+    const soon = addDays(today(), 20);
+    const later = addDays(today(), 45);
+    await t.deps.db('sites').insert([
+      { firm_id: firm.firmId, customer_id: customerId, address: '7 Check Lane', next_check_on: soon },
+      { firm_id: firm.firmId, customer_id: customerId, address: '9 Later Lane', next_check_on: later },
+    ]);
+    const first = await runReminderScan(t.deps, firm.firmId, t.clock.now());
+    expect(first.reminders).toBe(1);
+    // The owner and stores each get the digest (the 30-day window: common practice (no source)).
+    const mail = await waitForEmail(firm.people.owner.email, { subject: /annual checks/ });
+    expect(mail.text).toContain(`Annual Test Customer, 7 Check Lane: annual inhibitor check due on ${soon}`);
+    expect(mail.text).not.toContain('9 Later Lane');
+    await waitForEmail(firm.people.stores.email, { subject: /annual checks/ });
+    expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);
+
+    const owner = await signIn(t.app, firm.people.owner.email);
+    const saved = await owner.put('/api/reminder-settings', { scanHour: 7, inspectionReminders: true, vanReminders: true, annualCheckReminders: false });
+    expect(saved.status).toBe(200);
+    await t.deps.db('sites').where({ firm_id: firm.firmId, address: '9 Later Lane' }).update({ next_check_on: addDays(today(), 5) });
+    expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);
+    expect(await findEmails(firm.people.engineer.email)).toHaveLength(0);
   });
 });

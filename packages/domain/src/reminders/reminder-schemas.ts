@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-export const reminderKinds = ['inspection_due', 'mot_due', 'service_due', 'van_below_minimum', 'depot_reorder', 'batch_expiring'] as const;
+export const reminderKinds = ['inspection_due', 'mot_due', 'service_due', 'van_below_minimum', 'depot_reorder', 'batch_expiring', 'annual_check_due'] as const;
 export type ReminderKind = (typeof reminderKinds)[number];
 export const reminderKindLabels: Record<ReminderKind, string> = {
   inspection_due: 'Inspection due',
@@ -9,10 +9,11 @@ export const reminderKindLabels: Record<ReminderKind, string> = {
   van_below_minimum: 'Van below minimum stock',
   depot_reorder: 'Depot reorder',
   batch_expiring: 'Batch expiring',
+  annual_check_due: 'Annual check due',
 };
 
-/** What a reminder is about, for a link: a kit item, a van, a product (depot reorders) or a batch. */
-export const reminderSubjectTypes = ['kit_item', 'van', 'product', 'batch'] as const;
+/** What a reminder is about, for a link: a kit item, a van, a product (depot reorders), a batch or a customer's site. */
+export const reminderSubjectTypes = ['kit_item', 'van', 'product', 'batch', 'site'] as const;
 export type ReminderSubjectType = (typeof reminderSubjectTypes)[number];
 
 export const reminderSettingsSchema = z.strictObject({
@@ -22,6 +23,7 @@ export const reminderSettingsSchema = z.strictObject({
   // Optional so a client written before stock reminders existed can still save the other settings:
   // left out, the firm's current choice stays as it is.
   stockReminders: z.boolean().optional(),
+  annualCheckReminders: z.boolean().optional(),
 });
 export type ReminderSettings = z.infer<typeof reminderSettingsSchema>;
 
@@ -46,6 +48,7 @@ export const BATCH_EXPIRY_WINDOW_DAYS = 60;
 /** A firm's reminder settings as the API answers them: every switch, plus when the last scan ran. */
 export const reminderSettingsViewSchema = reminderSettingsSchema.extend({
   stockReminders: z.boolean(),
+  annualCheckReminders: z.boolean(),
   lastScanOn: z.string().nullable(),
 });
 export type ReminderSettingsView = z.infer<typeof reminderSettingsViewSchema>;
@@ -56,4 +59,8 @@ export const defaultReminderSettings: Omit<ReminderSettingsView, 'lastScanOn'> =
   inspectionReminders: true,
   vanReminders: true,
   stockReminders: true,
+  annualCheckReminders: true,
 };
+
+/** A customer's site is reminded this many days before its annual inhibitor check: common practice (no source). */
+export const ANNUAL_CHECK_WINDOW_DAYS = 30;

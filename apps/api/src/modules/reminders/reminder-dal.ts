@@ -26,6 +26,7 @@ interface SettingsRow {
   inspection_reminders: number | boolean;
   van_reminders: number | boolean;
   stock_reminders: number | boolean;
+  annual_check_reminders: number | boolean;
   last_scan_on: string | null;
 }
 
@@ -36,12 +37,13 @@ const toSettings = (row: SettingsRow | undefined): ReminderSettingsView =>
         inspectionReminders: Boolean(row.inspection_reminders),
         vanReminders: Boolean(row.van_reminders),
         stockReminders: Boolean(row.stock_reminders),
+        annualCheckReminders: Boolean(row.annual_check_reminders),
         lastScanOn: row.last_scan_on,
       }
     : { ...defaultReminderSettings, lastScanOn: null };
 
 export async function findReminderSettings(db: Db, firmId: number): Promise<ReminderSettingsView> {
-  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'last_scan_on')) as
+  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'last_scan_on')) as
     | SettingsRow
     | undefined;
   return toSettings(row);
@@ -52,7 +54,10 @@ export async function findReminderSettings(db: Db, firmId: number): Promise<Remi
  * left out of the input keeps its stored value (or the column default on a new row).
  */
 export async function saveReminderSettings(db: Db, firmId: number, settings: ReminderSettings): Promise<void> {
-  const stock = settings.stockReminders === undefined ? {} : { stock_reminders: settings.stockReminders };
+  const stock = {
+    ...(settings.stockReminders === undefined ? {} : { stock_reminders: settings.stockReminders }),
+    ...(settings.annualCheckReminders === undefined ? {} : { annual_check_reminders: settings.annualCheckReminders }),
+  };
   await db('reminder_settings')
     .insert({
       firm_id: firmId,
@@ -87,7 +92,7 @@ export async function lockFirmForScan(trx: Knex.Transaction, firmId: number): Pr
   const row = (await trx('reminder_settings')
     .where({ firm_id: firmId })
     .forUpdate()
-    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'last_scan_on')) as SettingsRow | undefined;
+    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'last_scan_on')) as SettingsRow | undefined;
   return { id: firm.id, name: firm.name, timeZone: firm.time_zone, settings: toSettings(row) };
 }
 
@@ -99,7 +104,7 @@ export async function markFirmScanned(trx: Knex.Transaction, firmId: number, on:
 export async function listFirmsToScan(db: Db, firmIds?: number[]): Promise<FirmToScan[]> {
   const q = db('firms as f')
     .leftJoin('reminder_settings as s', 's.firm_id', 'f.id')
-    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.last_scan_on')
+    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.annual_check_reminders', 's.last_scan_on')
     .orderBy('f.id');
   if (firmIds) q.whereIn('f.id', firmIds);
   const rows = (await q) as (SettingsRow & { id: number; name: string; time_zone: string; scan_hour: number | null })[];
@@ -397,4 +402,21 @@ export async function listReminderDeliveries(db: Db, firmId: number, limit: numb
     sentAt: r.sent_at ? new Date(r.sent_at).toISOString() : null,
     createdAt: new Date(r.created_at).toISOString(),
   }));
+}
+
+export interface SiteForScan {
+  id: number;
+  address: string;
+  customerName: string;
+  nextCheckOn: string;
+}
+
+/** Customers' sites with an annual check date, for the annual-check reminders. */
+export async function listSitesForScan(trx: Knex.Transaction, firmId: number): Promise<SiteForScan[]> {
+  const rows = (await trx('sites as s')
+    .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
+    .where('s.firm_id', firmId)
+    .whereNotNull('s.next_check_on')
+    .select('s.id', 's.address', 'c.name as customer_name', 's.next_check_on')) as { id: number; address: string; customer_name: string; next_check_on: string }[];
+  return rows.map((r) => ({ id: r.id, address: r.address, customerName: r.customer_name, nextCheckOn: r.next_check_on }));
 }

@@ -23,6 +23,7 @@ const sectionTitles: { title: string; kinds: ReminderKind[] }[] = [
   { title: 'Vans below their minimum stock', kinds: ['van_below_minimum'] },
   { title: 'Depot stock to reorder', kinds: ['depot_reorder'] },
   { title: 'Batches expiring', kinds: ['batch_expiring'] },
+  { title: 'Customers due their annual check', kinds: ['annual_check_due'] },
 ];
 
 function sections(lines: DigestLine[]): { title: string; lines: string[] }[] {
@@ -38,6 +39,7 @@ function topics(lines: DigestLine[]): string {
     ...(has(['inspection_due']) ? ['kit'] : []),
     ...(has(['mot_due', 'service_due']) ? ['vans'] : []),
     ...(has(['van_below_minimum', 'depot_reorder', 'batch_expiring']) ? ['stock'] : []),
+    ...(has(['annual_check_due']) ? ['annual checks'] : []),
   ];
   return words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}` : (words[0] ?? 'kit and vans');
 }

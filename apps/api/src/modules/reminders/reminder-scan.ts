@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
-import { calendarDateIn, daysBetween, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate } from '@heatfleet/domain';
+import { ANNUAL_CHECK_WINDOW_DAYS, calendarDateIn, daysBetween, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate } from '@heatfleet/domain';
 import type { Env } from '../../config/env.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import type { MailQueue } from '../mail/mail-queue.ts';
@@ -11,6 +11,7 @@ import {
   listActiveMembers,
   listFirmsToScan,
   listItemsForScan,
+  listSitesForScan,
   listVansForScan,
   lockFirmForScan,
   markFirmScanned,
@@ -18,6 +19,7 @@ import {
   type ItemForScan,
   type NewReminder,
   type Recipient,
+  type SiteForScan,
   type VanForScan,
 } from './reminder-dal.ts';
 import { reminderDigestEmail, type DigestLine } from './reminder-email.ts';
@@ -122,6 +124,24 @@ function vanCandidates(vans: VanForScan[], today: CalendarDate): Candidate[] {
   return found;
 }
 
+/** Sites whose annual inhibitor check falls within the window, or has passed: for the office. */
+function annualCheckCandidates(sites: SiteForScan[], today: CalendarDate): Candidate[] {
+  const found: Candidate[] = [];
+  for (const site of sites) {
+    const daysLeft = daysBetween(today, site.nextCheckOn);
+    if (daysLeft > ANNUAL_CHECK_WINDOW_DAYS) continue;
+    found.push({
+      kind: 'annual_check_due',
+      subjectType: 'site',
+      subjectId: site.id,
+      periodKey: site.nextCheckOn,
+      summary: `${site.customerName}, ${site.address}: annual inhibitor check ${daysLeft < 0 ? `overdue since ${site.nextCheckOn}` : `due on ${site.nextCheckOn}`}`,
+      vanEngineerMemberId: null,
+    });
+  }
+  return found;
+}
+
 interface Digest {
   recipient: Recipient;
   audience: { kind: 'office' } | { kind: 'engineer'; name: string };
@@ -170,6 +190,7 @@ export async function runReminderScan(
       ...(firm.settings.inspectionReminders ? inspectionCandidates(await listItemsForScan(trx, firmId), today) : []),
       ...(firm.settings.vanReminders ? vanCandidates(await listVansForScan(trx, firmId), today) : []),
       ...(firm.settings.stockReminders ? await stockCandidates(trx, firmId, today, now) : []),
+      ...(firm.settings.annualCheckReminders ? annualCheckCandidates(await listSitesForScan(trx, firmId), today) : []),
     ];
     const fresh: (Candidate & { id: number })[] = [];
     for (const candidate of candidates) {

@@ -10,7 +10,7 @@ import { useSchemaForm } from '@/lib/form';
 import { reminderQueries } from '@/features/reminders/api/reminder-queries';
 import { useSaveReminderSettings } from '@/features/reminders/api/use-reminder-actions';
 
-const fields = ['scanHour', 'inspectionReminders', 'vanReminders', 'stockReminders'] as const;
+const fields = ['scanHour', 'inspectionReminders', 'vanReminders', 'stockReminders', 'annualCheckReminders'] as const;
 const hours = Array.from({ length: 24 }, (_, h) => ({ value: String(h), label: `${String(h).padStart(2, '0')}:00` }));
 
 function prepare(values: Record<string, string | undefined>) {
@@ -19,6 +19,7 @@ function prepare(values: Record<string, string | undefined>) {
     inspectionReminders: values.inspectionReminders === 'on',
     vanReminders: values.vanReminders === 'on',
     stockReminders: values.stockReminders === 'on',
+    annualCheckReminders: values.annualCheckReminders === 'on',
   };
 }
 
@@ -65,6 +66,13 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
         <span>
           <span className="font-semibold">Chemical stock</span>
           <span className="block text-sm text-ink-muted">Vans below their minimum, depot stock to reorder, batches expiring within 60 days</span>
+        </span>
+      </label>
+      <label className="flex min-h-11 items-center gap-3">
+        <input type="checkbox" name="annualCheckReminders" defaultChecked={settings.annualCheckReminders} className="size-5 accent-brand-700" />
+        <span>
+          <span className="font-semibold">Customers&apos; annual checks</span>
+          <span className="block text-sm text-ink-muted">Sites due their yearly inhibitor check within 30 days, to the owner and stores</span>
         </span>
       </label>
       <Button type="submit" busy={save.isPending}>
