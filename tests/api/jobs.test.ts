@@ -2,6 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { createTestApp, signIn, type TestApp } from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
+import { startTestEmailWorker } from './support/email-worker.ts';
+import { waitForEmail } from './support/outbox.ts';
+import { readFile } from 'node:fs/promises';
+import path from 'node:path';
 
 let t: TestApp;
 beforeAll(() => {
@@ -111,5 +115,25 @@ describe('the completion report', () => {
     expect(text).toContain(`lot ${firm.product.lotNumber}`);
     expect(text).toContain('Gas Safe Register');
     expect(text).toContain('foul drain');
+  });
+});
+
+describe('the report e-mail', () => {
+  it('goes to the customer with the PDF attached when the job is completed', async () => {
+    const worker = startTestEmailWorker(t);
+    try {
+      const firm = await seedFirm(t.deps.db, 'job-mail');
+      const customer = (await t.deps.db('customers').where({ id: firm.customerId }).first('email')).email as string;
+      const engineer = await signIn(t.app, firm.people.engineer.email);
+      await engineer.post(`/api/jobs/${firm.jobId}/complete`, {}).then((r) => expect(r.status).toBe(200));
+      const mail = await waitForEmail(customer, { subject: /cleaning report/ });
+      expect(mail.text).toContain('The report is attached');
+      const raw = await readFile(path.join(process.env.OUTBOX_DIR!, `${mail.id}.eml`), 'utf8');
+      expect(raw).toMatch(/Content-Type: application\/pdf; name=cleaning-report-\d+\.pdf/);
+      const row = await t.deps.db('emails').where({ firm_id: firm.firmId, purpose: 'job-report' }).first();
+      expect(row.attachment_key.startsWith(`firms/${firm.firmId}/reports/`)).toBe(true);
+    } finally {
+      await worker.close();
+    }
   });
 });

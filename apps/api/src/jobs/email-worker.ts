@@ -4,6 +4,7 @@ import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { Env } from '../config/env.ts';
 import type { Clock } from '../lib/clock.ts';
+import { createObjectStore } from '../lib/object-store.ts';
 import { createTransport, deliverEmail } from '../modules/mail/email-delivery.ts';
 import { listUnsentEmailIds } from '../modules/mail/mail-dal.ts';
 import { deliverJobOptions, EMAIL_QUEUE } from '../modules/mail/mail-queue.ts';
@@ -20,6 +21,7 @@ export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clo
   const connection = new Redis(deps.env.REDIS_URL, { maxRetriesPerRequest: null });
   connection.on('error', (err) => deps.logger.warn({ err: err.message }, 'worker: redis error'));
   const transport = createTransport(deps.env);
+  const objectStore = createObjectStore(deps.env);
   const from = deps.env.MAIL_FROM;
   const queue = new Queue(EMAIL_QUEUE, { connection });
 
@@ -33,7 +35,7 @@ export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clo
         return { requeued: ids.length };
       }
       const { emailId } = job.data as { emailId: number };
-      return deliverEmail(deps.db, transport, from, deps.clock, emailId);
+      return deliverEmail(deps.db, transport, from, deps.clock, emailId, objectStore);
     },
     { connection, concurrency: 4 },
   );

@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import { litresToImperialGallons } from '@heatfleet/domain';
+import type { Knex } from 'knex';
 import type { getJob } from './job-service.ts';
 
 // Full TTF files: pdfkit's font engine cannot read the web build's woff2, and woff subsets drop letters.
@@ -66,4 +67,13 @@ export function renderJobReport(detail: JobDetail, firmName: string, engineerNam
   for (const c of reportCautions) doc.text(`\u2022 ${c}`);
   doc.end();
   return done;
+}
+
+/** The report with the firm's name and the job's engineer looked up. */
+export async function renderReportFor(db: Knex | Knex.Transaction, firmId: number, detail: JobDetail): Promise<Buffer> {
+  const firm = (await db('firms').where({ id: firmId }).first('name')) as { name: string };
+  const engineer = detail.job.engineerMemberId
+    ? ((await db('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.firm_id': firmId, 'm.id': detail.job.engineerMemberId }).first('u.name')) as { name: string } | undefined)
+    : undefined;
+  return renderJobReport(detail, firm.name, engineer?.name ?? null);
 }

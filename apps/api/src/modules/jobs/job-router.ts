@@ -4,7 +4,8 @@ import { withTransactionRetry } from '../../db/with-retry.ts';
 import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { completeJob, createCustomer, createJob, createSite, getCustomer, getJob, listCustomers, listJobs } from './job-service.ts';
-import { renderJobReport } from './job-report.ts';
+import { renderReportFor } from './job-report.ts';
+import { queueJobReportEmail } from './job-report-email.ts';
 
 export const jobRoutes: RouteDefinition[] = [
   defineRoute({
@@ -66,12 +67,17 @@ export const jobRoutes: RouteDefinition[] = [
     responses: { 200: { description: 'Completed' }, 409: { description: 'Already completed, or the van is short' } },
     handle: async ({ params, req, res, deps, actor }) => {
       const key = idempotencyKeyOf(req);
+      let emailId: number | null = null;
       const out = await withTransactionRetry(() =>
         runIdempotent(deps, actor, key, `complete job ${params.id}`, async (trx) => {
           await completeJob(trx, deps, actor, params.id);
-          return { status: 200, body: await getJob(deps, actor, params.id, trx) };
+          const detail = await getJob(deps, actor, params.id, trx);
+          // The report e-mail is written with the completion, so it exists exactly when the job is done.
+          emailId = await queueJobReportEmail(trx, deps, actor, detail);
+          return { status: 200, body: detail };
         }),
       );
+      if (emailId !== null) await deps.mailQueue.notify([emailId]);
       res.status(out.status).json(out.body);
     },
   }),
@@ -82,11 +88,7 @@ export const jobRoutes: RouteDefinition[] = [
     responses: { 200: { description: 'PDF' } },
     handle: async ({ params, res, deps, actor }) => {
       const detail = await getJob(deps, actor, params.id);
-      const firm = await deps.db('firms').where({ id: actor.firmId }).first('name');
-      const engineer = detail.job.engineerMemberId
-        ? await deps.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.firm_id': actor.firmId, 'm.id': detail.job.engineerMemberId }).first('u.name')
-        : undefined;
-      const pdf = await renderJobReport(detail, firm.name as string, (engineer?.name as string | undefined) ?? null);
+      const pdf = await renderReportFor(deps.db, actor.firmId, detail);
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader('Content-Disposition', `attachment; filename="cleaning-report-${params.id}.pdf"`);
       res.send(pdf);

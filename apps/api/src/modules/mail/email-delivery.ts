@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Env } from '../../config/env.ts';
 import type { Clock } from '../../lib/clock.ts';
+import type { ObjectStore } from '../../lib/object-store.ts';
 import { claimUnsentEmail, markEmailSent, recordEmailFailure } from './mail-dal.ts';
 
 // Longer than any SMTP exchange (the transport gives up after 10 s), so a lease never expires mid-send.
@@ -24,11 +25,23 @@ export function createTransport(env: Env): Transporter {
  * duplicated or retried job does not send it twice; a failure is recorded and rethrown for the
  * queue's backoff.
  */
-export async function deliverEmail(db: Knex, transport: Transporter, from: string, clock: Clock, emailId: number): Promise<'sent' | 'skipped'> {
+export async function deliverEmail(
+  db: Knex,
+  transport: Transporter,
+  from: string,
+  clock: Clock,
+  emailId: number,
+  objectStore?: ObjectStore,
+): Promise<'sent' | 'skipped'> {
   const email = await claimUnsentEmail(db, emailId, clock.now(), DELIVERY_LEASE_MS);
   if (!email) return 'skipped';
   try {
+    const attachments =
+      email.attachment_key && objectStore
+        ? [{ filename: email.attachment_name ?? 'attachment.pdf', content: await streamToBuffer(await objectStore.get(email.attachment_key)), contentType: 'application/pdf' }]
+        : undefined;
     await transport.sendMail({
+      attachments,
       from,
       to: email.to_address,
       subject: email.subject,
@@ -42,4 +55,10 @@ export async function deliverEmail(db: Knex, transport: Transporter, from: strin
   }
   await markEmailSent(db, emailId, clock.now());
   return 'sent';
+}
+
+async function streamToBuffer(stream: AsyncIterable<Uint8Array>): Promise<Buffer> {
+  const parts: Buffer[] = [];
+  for await (const chunk of stream) parts.push(Buffer.from(chunk));
+  return Buffer.concat(parts);
 }

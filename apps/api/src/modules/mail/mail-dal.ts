@@ -6,7 +6,9 @@ export interface NewEmail {
   subject: string;
   text: string;
   html: string | null;
-  purpose: 'invitation' | 'password-reset' | 'reminder';
+  purpose: 'invitation' | 'password-reset' | 'reminder' | 'job-report';
+  /** A file in object storage to attach, e.g. a completion report. */
+  attachment?: { key: string; filename: string };
 }
 
 export interface EmailRow {
@@ -18,6 +20,8 @@ export interface EmailRow {
   html_body: string | null;
   attempts: number;
   sent_at: Date | null;
+  attachment_key: string | null;
+  attachment_name: string | null;
 }
 
 /** Written inside the caller's transaction: the e-mail exists exactly when the change it reports does. */
@@ -29,6 +33,8 @@ export async function insertEmail(trx: Knex.Transaction, email: NewEmail): Promi
     text_body: email.text,
     html_body: email.html,
     purpose: email.purpose,
+    attachment_key: email.attachment?.key ?? null,
+    attachment_name: email.attachment?.filename ?? null,
   });
   return id as number;
 }
