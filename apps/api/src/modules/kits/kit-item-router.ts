@@ -1,7 +1,5 @@
 import { z } from 'zod';
 import {
-  checkInInputSchema,
-  checkOutInputSchema,
   createKitItemInputSchema,
   custodyEventSchema,
   idParamSchema,
@@ -10,36 +8,19 @@ import {
   kitItemSchema,
   kitLabelSchema,
   labelsQuerySchema,
-  moveInputSchema,
   photoSchema,
   recordInspectionInputSchema,
   updateKitItemInputSchema,
 } from '@heatfleet/domain';
 import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { recordCustody } from './custody-service.ts';
+import { custodyRoute } from './custody-route.ts';
 import { recordInspection } from './inspection-service.ts';
 import { createItem, getItem, getItemDetail, listItems, updateItem } from './kit-service.ts';
 import { listCustodyEvents, listInspections } from './kit-dal.ts';
 import { buildLabels } from './label-service.ts';
 
 const itemAndEvents = z.object({ item: kitItemSchema, events: z.array(custodyEventSchema) });
-
-const custodyRoute = (action: 'check_out' | 'check_in' | 'move', path: string, body: typeof checkOutInputSchema | typeof checkInInputSchema | typeof moveInputSchema, summary: string) =>
-  defineRoute({
-    method: 'post', path, tag: 'Kits', access: 'member', tenantData: true,
-    summary: `${summary} Send an Idempotency-Key header: a retry with the same key replays the first answer.`,
-    request: { params: idParamSchema, body },
-    responses: { 200: { description: 'Done; the item as it now stands', schema: itemAndEvents }, 409: { description: 'Already out, overdue, or out of service' } },
-    handle: async ({ params, body: input, req, res, deps, actor }) => {
-      const out = await runIdempotent(deps, actor, idempotencyKeyOf(req), `${action} item ${params.id}`, async (trx) => {
-        await recordCustody(trx, deps, actor, { itemId: params.id }, action, input);
-        const [item, events] = await Promise.all([getItem(deps, actor, params.id, trx), listCustodyEvents(trx, actor.firmId, { itemId: params.id })]);
-        return { status: 200, body: { item, events } };
-      });
-      res.status(out.status).json(out.body);
-    },
-  });
 
 export const kitItemRoutes: RouteDefinition[] = [
   // Before /kit-items/:id, so "labels" is not read as an id.
@@ -88,9 +69,16 @@ export const kitItemRoutes: RouteDefinition[] = [
       res.json({ item: await updateItem(deps, actor, params.id, body) });
     },
   }),
-  custodyRoute('check_out', '/kit-items/:id/check-out', checkOutInputSchema, 'Check one item out to a van.'),
-  custodyRoute('check_in', '/kit-items/:id/check-in', checkInInputSchema, 'Check one item in to a depot with its condition.'),
-  custodyRoute('move', '/kit-items/:id/move', moveInputSchema, 'Move one item from one van to another.'),
+  ...([
+    ['check_out', '/kit-items/:id/check-out', 'Check one item out to a van.'],
+    ['check_in', '/kit-items/:id/check-in', 'Check one item in to a depot with its condition.'],
+    ['move', '/kit-items/:id/move', 'Move one item from one van to another.'],
+  ] as const).map(([action, path, summary]) =>
+    custodyRoute({
+      action, path, summary, what: 'item', target: (id) => ({ itemId: id }), response: itemAndEvents,
+      answer: async (trx, deps, actor, id) => ({ item: await getItem(deps, actor, id, trx), events: await listCustodyEvents(trx, actor.firmId, { itemId: id }) }),
+    }),
+  ),
   defineRoute({
     method: 'post', path: '/kit-items/:id/inspections', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Record an inspection; a failed one sets the item to needs attention',

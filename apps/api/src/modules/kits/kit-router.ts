@@ -1,42 +1,18 @@
 import { z } from 'zod';
 import {
-  checkInInputSchema,
-  checkOutInputSchema,
   createKitInputSchema,
   custodyEventSchema,
   idParamSchema,
   inspectionSchema,
   kitItemSchema,
   kitSchema,
-  moveInputSchema,
   updateKitInputSchema,
 } from '@heatfleet/domain';
-import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { recordCustody } from './custody-service.ts';
+import { custodyRoute } from './custody-route.ts';
 import { createKit, getKitDetail, listKits, updateKit } from './kit-service.ts';
 
 const kitDetail = z.object({ kit: kitSchema, items: z.array(kitItemSchema), events: z.array(custodyEventSchema), inspections: z.array(inspectionSchema) });
-const custodyResponses = {
-  200: { description: 'Done; the kit as it now stands', schema: kitDetail },
-  409: { description: 'Already out (names who has it), overdue for inspection, or out of service' },
-};
-
-const custodyRoute = (action: 'check_out' | 'check_in' | 'move', path: string, body: typeof checkOutInputSchema | typeof checkInInputSchema | typeof moveInputSchema, summary: string) =>
-  defineRoute({
-    method: 'post', path, tag: 'Kits', access: 'member', tenantData: true,
-    summary: `${summary} Send an Idempotency-Key header: a retry with the same key replays the first answer.`,
-    request: { params: idParamSchema, body },
-    responses: custodyResponses,
-    handle: async ({ params, body: input, req, res, deps, actor }) => {
-      const out = await runIdempotent(deps, actor, idempotencyKeyOf(req), `${action} kit ${params.id}`, async (trx) => {
-        await recordCustody(trx, deps, actor, { kitId: params.id }, action, input);
-        return { status: 200, body: await getKitDetail(deps, actor, params.id, trx) };
-      });
-      res.status(out.status).json(out.body);
-    },
-  });
-
 export const kitRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get', path: '/kits', tag: 'Kits', access: 'member', tenantData: true,
@@ -74,7 +50,11 @@ export const kitRoutes: RouteDefinition[] = [
       res.json({ kit: await updateKit(deps, actor, params.id, body) });
     },
   }),
-  custodyRoute('check_out', '/kits/:id/check-out', checkOutInputSchema, 'Check a kit out to a van: all its items go.'),
-  custodyRoute('check_in', '/kits/:id/check-in', checkInInputSchema, 'Check a kit in to a depot with its condition.'),
-  custodyRoute('move', '/kits/:id/move', moveInputSchema, 'Move a kit from one van to another.'),
+  ...([
+    ['check_out', '/kits/:id/check-out', 'Check a kit out to a van: all its items go.'],
+    ['check_in', '/kits/:id/check-in', 'Check a kit in to a depot with its condition.'],
+    ['move', '/kits/:id/move', 'Move a kit from one van to another.'],
+  ] as const).map(([action, path, summary]) =>
+    custodyRoute({ action, path, summary, what: 'kit', target: (id) => ({ kitId: id }), response: kitDetail, answer: (trx, deps, actor, id) => getKitDetail(deps, actor, id, trx) }),
+  ),
 ];
