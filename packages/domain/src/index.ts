@@ -20,3 +20,4 @@ export * from './jobs/system-volume.ts';
 export * from './jobs/dose-plan.ts';
 export * from './jobs/water-tests.ts';
 export * from './jobs/job-schemas.ts';
+export * from './jobs/job-sheet.ts';

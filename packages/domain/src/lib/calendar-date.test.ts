@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { addDays, calendarDateIn, calendarDateSchema, daysBetween } from './calendar-date.ts';
+import { addDays, addMonths, calendarDateIn, calendarDateSchema, daysBetween } from './calendar-date.ts';
 
 describe('calendar dates', () => {
   it('adds days across month and year ends', () => {
@@ -20,5 +20,13 @@ describe('calendar dates', () => {
     expect(calendarDateSchema.safeParse('2026-02-30').success).toBe(false);
     expect(calendarDateSchema.safeParse('2028-02-29').success).toBe(true);
     expect(calendarDateSchema.safeParse('01/12/2026').success).toBe(false);
+  });
+
+  // Calendar months, as a person counts them: a year on from 29 February 2028 is 28 February 2029.
+  it('adds calendar months, falling back to the last day of a shorter month', () => {
+    expect(addMonths('2026-12-02', 12)).toBe('2027-12-02');
+    expect(addMonths('2027-01-31', 1)).toBe('2027-02-28');
+    expect(addMonths('2028-02-29', 12)).toBe('2029-02-28');
+    expect(addMonths('2026-11-30', 3)).toBe('2027-02-28');
   });
 });

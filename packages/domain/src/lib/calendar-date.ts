@@ -28,3 +28,16 @@ export function calendarDateIn(instant: Date, timeZone: string): CalendarDate {
   const get = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
   return `${get('year')}-${get('month')}-${get('day')}`;
 }
+
+/**
+ * The same day `months` later; a day the target month lacks falls back to its last day
+ * (31 January + 1 month is 28 or 29 February), as a year on from 29 February is 28 February.
+ */
+export function addMonths(date: CalendarDate, months: number): CalendarDate {
+  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
+  const monthIndex = y * 12 + (m - 1) + months;
+  const year = Math.floor(monthIndex / 12);
+  const month = (monthIndex % 12) + 1;
+  const lastDay = new Date(Date.UTC(year, month, 0)).getUTCDate();
+  return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(Math.min(d, lastDay)).padStart(2, '0')}`;
+}
