@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import { repoRoot } from './repo-root.ts';
 
-export type ProfileName = 'dev' | 'test';
+export type ProfileName = 'dev' | 'test' | 'drill';
 
 export interface Profile {
   name: ProfileName;
@@ -53,6 +53,22 @@ export function getProfile(name: ProfileName): Profile {
       appPort: appPortFromEnv(5173),
       distDir: join(repoRoot, 'dist'),
       logLevel: 'info',
+    };
+  }
+  if (name === 'drill') {
+    // npm run drill kills and restarts each part, so it gets its own ports and data, never the developer's
+    // (nor npm run bench's, which holds 3408, 6481, 5193 and 5194).
+    return {
+      ...common,
+      name,
+      nodeEnv: 'development',
+      mariadb: { dataDir: join(dataDir, 'mariadb'), port: 3410, dbName: 'heatfleet_drill', extraArgs: [] },
+      redis: { dataDir: join(dataDir, 'redis'), port: 6483 },
+      smtpPort: 2529,
+      s3: s3(4573),
+      appPort: 5196,
+      distDir: join(repoRoot, 'dist'),
+      logLevel: 'warn',
     };
   }
   return {

@@ -4,6 +4,7 @@ export * from './permissions/ability.ts';
 export * from './auth/auth-schemas.ts';
 export * from './members/member-schemas.ts';
 export * from './firms/firm-schemas.ts';
+export * from './firms/firm-settings-schemas.ts';
 export * from './outbox/outbox-schemas.ts';
 export * from './lib/calendar-date.ts';
 export * from './locations/location-schemas.ts';

@@ -22,6 +22,11 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'stock:id': (f) => String(f.movementId),
   'customers:id': (f) => String(f.customerId),
   'jobs:id': (f) => String(f.jobId),
+  // The seeded job's survey has one radiator (index 0).
+  'jobs:step': () => 'dose_cleaner',
+  'jobs:index': () => '0',
+  'jobs:phase': () => 'before',
+  'sites:id': (f) => String(f.siteId),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -64,8 +69,17 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'POST /customers/:id/sites': () => ({ address: '1 Probe Street' }),
   'POST /jobs': (f) => ({ siteId: f.siteId, scheduledOn: '2026-12-20', productIds: [f.product.id], survey: { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'double' }], pipeRuns: [] } }),
   'POST /jobs/:id/complete': () => ({}),
+  'PUT /jobs/:id/steps/:step': () => ({ done: true }),
+  'PUT /jobs/:id/radiators/:index/readings/:phase': () => ({ topC: 62, bottomC: 41.5, flowC: 65, returnC: 55, roomC: 19 }),
+  'PUT /jobs/:id/radiators/:index/agitation': () => ({ minutes: 5 }),
+  'PUT /jobs/:id/water-tests': () => ({ mainsTdsPpm: 180, systemTdsPpm: 190, waterClear: true, ph: 7.6 }),
+  'PUT /jobs/:id/kit': () => ({ kitItemIds: [] }),
+  'PUT /jobs/:id/notes': () => ({ notes: 'Probe note' }),
   'POST /stock/restock-run': (f) => ({ lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
   'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
+  // A fixed name: the isolation probe runs as firm B, so firm A's name here would leak into B's answers.
+  'PUT /firm': () => ({ name: 'Probe firm settings', address: '1 Probe Street', timeZone: 'Europe/London', volumeUnit: 'litres', coldBottomThresholdK: 10 }),
+  'POST /sites/:id/checks': (f) => ({ checkedOn: '2026-11-30', inhibitorProductId: f.product.id, inhibitorReading: 100 }),
 };
 
 /** Query strings per route, built from a firm's records. */
@@ -97,6 +111,7 @@ export const tinyPdf = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R
 const multipartFields: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'POST /photos': (f) => ({ itemId: String(f.looseItemId) }),
   'POST /products/:id/safety-data-sheet': () => ({}),
+  'POST /jobs/:id/photos': () => ({ tag: 'system', caption: 'Probe photo' }),
 };
 
 export function probeMultipart(route: RouteDefinition, firm: SeededFirm): Record<string, string> | undefined {

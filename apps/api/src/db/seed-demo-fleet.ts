@@ -72,6 +72,8 @@ export async function seedDemoFleet(trx: Trx, firmIds: { brackenford: number; ta
         in_service_since: addDays(today, -400),
         // Rig 3's agitator failed its last check and is waiting for repair.
         condition: n === 3 && part.kind === 'Agitator head' ? 'needs_attention' : 'in_service',
+        // An invented magnitude for the demo's vibration points; a firm enters its own tool's figure.
+        vibration_ms2: part.kind === 'Agitator head' ? (n === 2 ? 6.2 : 8.5) : null,
       });
       // Inspected 20 days ago (rigs 1, 2, 4) or 100 days ago (rig 3, now overdue on its 90-day kinds).
       const inspectedAgo = n === 3 ? 100 : 20;

@@ -5,8 +5,8 @@ import { addDays, calendarDateIn } from '@heatfleet/domain';
 // Invented products for the demo: no real brand, and the dose and target figures are made up
 // for the screens to have something to show. A firm enters its own from the product labels.
 const demoProducts = [
-  { name: 'HFL System Cleaner', kind: 'cleaner', ml: 1000, dose: 1, rads: 10, shelf: 36, hazard: 'Irritant to eyes and skin. Wear gloves and eye protection. Never mix with other cleaners.' },
-  { name: 'HFL Rapid Cleaner', kind: 'cleaner', ml: 500, dose: 0.5, rads: 8, shelf: 24, hazard: 'Irritant to eyes and skin. Wear gloves and eye protection.' },
+  { name: 'HFL System Cleaner', kind: 'cleaner', ml: 1000, dose: 1, rads: 10, shelf: 36, circulate: 60, hazard: 'Irritant to eyes and skin. Wear gloves and eye protection. Never mix with other cleaners.' },
+  { name: 'HFL Rapid Cleaner', kind: 'cleaner', ml: 500, dose: 0.5, rads: 8, shelf: 24, circulate: 30, hazard: 'Irritant to eyes and skin. Wear gloves and eye protection.' },
   { name: 'HFL Inhibitor', kind: 'inhibitor', ml: 1000, dose: 1, rads: 10, shelf: 48, min: 1, max: 1.5, unit: '% v/v', test: 'Refractometer reading against the chart on the pack', hazard: 'Avoid contact with eyes.' },
   { name: 'HFL Descaler', kind: 'descaler', ml: 1000, dose: 2, rads: null, shelf: 24, hazard: 'Acidic. Corrosive to eyes. Wear gloves and eye protection; rinse spills at once.' },
   { name: 'HFL Leak Sealer', kind: 'leak_sealer', ml: 500, dose: 0.5, rads: null, shelf: 24, hazard: 'Avoid contact with eyes.' },
@@ -38,6 +38,7 @@ export async function seedDemoStock(trx: Trx, firmIds: { brackenford: number; ta
       test_method: 'test' in p ? p.test : null,
       shelf_life_months: p.shelf,
       hazard_notes: p.hazard,
+      min_circulation_minutes: 'circulate' in p ? p.circulate : null,
     })) as number[];
     // Two lots at the depot: one expiring within two months (for FEFO and the expiry reminder), one later.
     const lots = [

@@ -7,15 +7,15 @@ import type { Clock } from '../lib/clock.ts';
 import { createObjectStore } from '../lib/object-store.ts';
 import { createTransport, deliverEmail } from '../modules/mail/email-delivery.ts';
 import { listUnsentEmailIds } from '../modules/mail/mail-dal.ts';
-import { deliverJobOptions, EMAIL_QUEUE } from '../modules/mail/mail-queue.ts';
+import { deliverJob, EMAIL_QUEUE, emailRetryDelayMs } from '../modules/mail/mail-queue.ts';
 
 const SWEEP_EVERY_MS = 60_000;
 const SWEEP_GRACE_MS = 30_000;
 
 /**
  * Delivers stored e-mails. Besides the "deliver" jobs the API queues, a repeating sweep re-queues
- * any e-mail still unsent (Redis was down when it was written, or the SMTP server was down for
- * longer than the job's own retries): so an e-mail is retried every sweep until it goes.
+ * any e-mail still unsent and not already waiting in a job (Redis was down when it was written, or
+ * the SMTP server was down for longer than the job's own retries): so an e-mail is never given up on.
  */
 export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clock: Clock }) {
   const connection = new Redis(deps.env.REDIS_URL, { maxRetriesPerRequest: null });
@@ -31,13 +31,13 @@ export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clo
       if (job.name === 'sweep') {
         const olderThan = new Date(deps.clock.now().getTime() - SWEEP_GRACE_MS);
         const ids = await listUnsentEmailIds(deps.db, olderThan);
-        await queue.addBulk(ids.map((emailId) => ({ name: 'deliver', data: { emailId }, opts: deliverJobOptions })));
+        await queue.addBulk(ids.map(deliverJob));
         return { requeued: ids.length };
       }
       const { emailId } = job.data as { emailId: number };
       return deliverEmail(deps.db, transport, from, deps.clock, emailId, objectStore);
     },
-    { connection, concurrency: 4 },
+    { connection, concurrency: 4, settings: { backoffStrategy: emailRetryDelayMs } },
   );
   worker.on('failed', (job, err) => deps.logger.warn({ jobId: job?.id, err: err.message }, 'e-mail job failed'));
   worker.on('error', (err) => deps.logger.warn({ err: err.message }, 'worker error'));

@@ -10,7 +10,7 @@ export interface ObjectStore {
 }
 
 const unavailable = () =>
-  new HttpError(503, 'Photo storage cannot be reached just now. Nothing was saved; try again in a minute.', 'ServiceUnavailable', undefined, { 'Retry-After': '30' });
+  new HttpError(503, 'Heatfleet cannot reach its file storage (photos and data sheets) just now. Nothing was saved; try again in a minute.', 'ServiceUnavailable', undefined, { 'Retry-After': '30' });
 
 function isUnreachable(err: unknown): boolean {
   const e = err as { code?: string; name?: string; $metadata?: { httpStatusCode?: number } };

@@ -2,6 +2,7 @@ import { authRoutes } from '../modules/auth/auth-router.ts';
 import { healthRoutes } from '../modules/health/health-router.ts';
 import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
 import { jobRoutes } from '../modules/jobs/job-router.ts';
+import { jobSheetRoutes } from '../modules/jobs/job-sheet-router.ts';
 import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
 import { kitItemRoutes } from '../modules/kits/kit-item-router.ts';
 import { kitRoutes } from '../modules/kits/kit-router.ts';
@@ -12,6 +13,9 @@ import { outboxRoutes } from '../modules/outbox/outbox-router.ts';
 import { photoRoutes } from '../modules/photos/photo-router.ts';
 import { stockRoutes } from '../modules/stock/stock-router.ts';
 import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
+import { firmRoutes } from '../modules/firms/firm-router.ts';
+import { overviewRoutes } from '../modules/overview/overview-router.ts';
+import { siteRoutes } from '../modules/sites/site-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
 /**
@@ -30,7 +34,11 @@ export const apiRoutes: RouteDefinition[] = [
   ...photoRoutes,
   ...stockRoutes,
   ...jobRoutes,
+  ...jobSheetRoutes,
   ...reminderRoutes,
+  ...firmRoutes,
+  ...overviewRoutes,
+  ...siteRoutes,
   ...outboxRoutes,
   openApiRoute(() => apiRoutes),
 ];

@@ -50,6 +50,11 @@ export const router = createBrowserRouter([
           { path: paths.newJob.path, lazy: () => import('@/app/routes/jobs/new-job-page').then((m) => ({ Component: m.NewJobPage })) },
           { path: paths.job.path, lazy: () => import('@/app/routes/jobs/job-page').then((m) => ({ Component: m.JobPage })) },
           {
+            path: paths.customers.path,
+            lazy: () => import('@/app/routes/customers/customers-page').then((m) => ({ Component: m.CustomersPage })),
+          },
+          { path: paths.site.path, lazy: () => import('@/app/routes/sites/site-page').then((m) => ({ Component: m.SitePage })) },
+          {
             path: paths.settings.path,
             lazy: () => import('@/app/routes/settings/settings-page').then((m) => ({ Component: m.SettingsPage })),
           },

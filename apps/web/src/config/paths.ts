@@ -41,6 +41,8 @@ export const paths = {
   jobs: { path: '/jobs', getHref: () => '/jobs' },
   newJob: { path: '/jobs/new', getHref: () => '/jobs/new' },
   job: { path: '/jobs/:id', getHref: (id: number) => `/jobs/${id}` },
+  customers: { path: '/customers', getHref: () => '/customers' },
+  site: { path: '/sites/:id', getHref: (id: number) => `/sites/${id}` },
   outbox: { path: '/outbox', getHref: () => '/outbox' },
   outboxMessage: { path: '/outbox/:id', getHref: (id: string) => `/outbox/${encodeURIComponent(id)}` },
 } as const;

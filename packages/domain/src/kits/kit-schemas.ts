@@ -63,6 +63,11 @@ export const createKitInputSchema = z.strictObject({ name: name('Kit name'), not
 export type CreateKitInput = z.infer<typeof createKitInputSchema>;
 export const updateKitInputSchema = createKitInputSchema.partial();
 
+export const vibrationMs2Schema = z
+  .number({ error: 'Vibration magnitude must be a number of m/s².' })
+  .min(0, { error: 'Vibration magnitude cannot be negative.' })
+  .max(100, { error: 'Vibration magnitude must be at most 100 m/s².' });
+
 export const createKitItemInputSchema = z.strictObject({
   assetTag: assetTagSchema,
   kindId: id('Kind'),
@@ -79,6 +84,8 @@ export const updateKitItemInputSchema = z.strictObject({
   serialNumber: text('Serial number', 80),
   notes: text('Notes', 1000),
   condition: itemConditionSchema.optional(),
+  /** A vibrating tool's magnitude in m/s^2, from its maker or the firm's own measurement (for the HSE points). */
+  vibrationMs2: vibrationMs2Schema.nullable().optional(),
 });
 export type UpdateKitItemInput = z.infer<typeof updateKitItemInputSchema>;
 
@@ -109,6 +116,7 @@ export const kitItemSchema = z.object({
   notes: z.string().nullable(),
   location: locationRefSchema.nullable(),
   inspection: inspectionDueSchema,
+  vibrationMs2: z.number().nullable(),
 });
 export type KitItem = z.infer<typeof kitItemSchema>;
 

@@ -32,6 +32,11 @@ describe('defineAbilityFor', () => {
     expect(ability('owner').can('create', subject('Invitation', { firmId, role: 'owner' as const }))).toBe(true);
   });
 
+  it('only Owner and Admin change the firm\u2019s settings, and only their own firm\u2019s', () => {
+    expect(roles.filter((r) => ability(r).can('update', subject('Firm', { firmId })))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('update', subject('Firm', { firmId: firmId + 1 })))).toEqual([]);
+  });
+
   it('only the Owner may delete the firm', () => {
     expect(roles.filter((r) => ability(r).can('delete', subject('Firm', { firmId })))).toEqual(['owner']);
   });

@@ -38,6 +38,14 @@ export const productInputSchema = z
     testMethod: text('Test method', 300),
     shelfLifeMonths: z.number().int().min(1).max(240).nullable().optional(),
     hazardNotes: text('Hazard notes', 2000),
+    /** A cleaner's minimum hot circulation time, from its label. */
+    minCirculationMinutes: z
+      .number({ error: 'Minimum circulation time must be a number of minutes.' })
+      .int({ error: 'Minimum circulation time is whole minutes.' })
+      .min(1, { error: 'Minimum circulation time must be at least 1 minute.' })
+      .max(1440, { error: 'Minimum circulation time must be at most 1440 minutes (a day).' })
+      .nullable()
+      .optional(),
   })
   .refine((p) => p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000, { error: 'Pack size must be at most 25 litres.', path: ['packSize'] })
   .refine((p) => p.kind !== 'other' || !!p.ownKind, { error: 'Name your own kind of product.', path: ['ownKind'] })
@@ -58,6 +66,7 @@ export const productSchema = z.object({
   testMethod: z.string().nullable(),
   shelfLifeMonths: z.number().nullable(),
   hazardNotes: z.string().nullable(),
+  minCirculationMinutes: z.number().nullable(),
   safetyDataSheet: z.object({ url: z.string(), byteSize: z.number(), uploadedAt: z.string() }).nullable(),
   active: z.boolean(),
 });

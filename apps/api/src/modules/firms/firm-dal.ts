@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { DEFAULT_TIME_ZONE, defaultItemKinds } from '@heatfleet/domain';
+import { DEFAULT_COLD_BOTTOM_THRESHOLD_K, DEFAULT_TIME_ZONE, defaultItemKinds, type FirmSettings, type FirmSettingsInput } from '@heatfleet/domain';
 
 export interface FirmRow {
   id: number;
@@ -30,4 +30,37 @@ export async function setUpNewFirm(trx: Knex.Transaction, firmId: number): Promi
       electrical: k.electrical,
     })),
   );
+}
+
+interface FirmSettingsRow {
+  id: number;
+  name: string;
+  address: string | null;
+  time_zone: string;
+  volume_unit: FirmSettings['volumeUnit'];
+  cold_bottom_threshold_k: string | number | null;
+}
+
+export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: number): Promise<FirmSettings | undefined> {
+  const row = (await db('firms').where({ id: firmId }).first('id', 'name', 'address', 'time_zone', 'volume_unit', 'cold_bottom_threshold_k')) as FirmSettingsRow | undefined;
+  return (
+    row && {
+      id: row.id,
+      name: row.name,
+      address: row.address,
+      timeZone: row.time_zone,
+      volumeUnit: row.volume_unit,
+      coldBottomThresholdK: row.cold_bottom_threshold_k === null ? DEFAULT_COLD_BOTTOM_THRESHOLD_K : Number(row.cold_bottom_threshold_k),
+    }
+  );
+}
+
+export async function updateFirmSettings(db: Knex | Knex.Transaction, firmId: number, input: FirmSettingsInput): Promise<void> {
+  await db('firms').where({ id: firmId }).update({
+    name: input.name,
+    address: input.address ?? null,
+    time_zone: input.timeZone,
+    volume_unit: input.volumeUnit,
+    cold_bottom_threshold_k: input.coldBottomThresholdK,
+  });
 }

@@ -21,7 +21,7 @@ export async function queueJobReportEmail(trx: Knex.Transaction, deps: AppDeps, 
     .first('c.name', 'c.email')) as { name: string; email: string | null } | undefined;
   if (!customer?.email) return null;
   const firm = (await trx('firms').where({ id: actor.firmId }).first('name')) as { name: string };
-  const pdf = await renderReportFor(trx, actor.firmId, detail);
+  const pdf = await renderReportFor(deps, trx, actor.firmId, detail);
   const key = `firms/${actor.firmId}/reports/job-${detail.job.id}-${randomUUID()}.pdf`;
   try {
     await deps.objectStore.put(key, pdf, 'application/pdf');

@@ -83,12 +83,12 @@ export const jobRoutes: RouteDefinition[] = [
   }),
   defineRoute({
     method: 'get', path: '/jobs/:id/report.pdf', tag: 'Jobs', access: 'member', tenantData: true,
-    summary: 'The completion report as a PDF (firm, customer, system, volume and how it was reached, chemicals with lots, cautions)',
+    summary: 'The completion report as a PDF (firm, customer, system, volume, chemicals with lots, radiator table, water tests, kit, steps, photos, cautions, next check)',
     request: { params: idParamSchema },
     responses: { 200: { description: 'PDF' } },
     handle: async ({ params, res, deps, actor }) => {
       const detail = await getJob(deps, actor, params.id);
-      const pdf = await renderReportFor(deps.db, actor.firmId, detail);
+      const pdf = await renderReportFor(deps, deps.db, actor.firmId, detail);
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader('Content-Disposition', `attachment; filename="cleaning-report-${params.id}.pdf"`);
       res.send(pdf);

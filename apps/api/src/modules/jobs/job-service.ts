@@ -1,6 +1,6 @@
 import { ForbiddenError, subject } from '@casl/ability';
 import {
-  addDays,
+  addMonths,
   allocateFefo,
   dosePlan,
   surveySchema,
@@ -17,6 +17,7 @@ import { findVanOfMember } from '../locations/location-dal.ts';
 import { findMember } from '../members/member-dal.ts';
 import { firmToday } from '../kits/kit-service.ts';
 import { applyMovements, balancesAt } from '../stock/stock-ledger.ts';
+import { buildSheet } from './job-sheet-service.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -48,7 +49,7 @@ export async function createSite(deps: AppDeps, actor: Actor, customerId: number
   return { id: id as number, ...input };
 }
 
-interface JobRow {
+export interface JobRow {
   id: number;
   site_id: number;
   engineer_member_id: number | null;
@@ -58,9 +59,10 @@ interface JobRow {
   survey: string | Survey;
   completed_at: Date | null;
   next_check_on: string | null;
+  notes: string | null;
 }
 
-async function jobRow(db: Db, firmId: number, id: number, forUpdate = false): Promise<JobRow> {
+export async function jobRow(db: Db, firmId: number, id: number, forUpdate = false): Promise<JobRow> {
   const q = db('jobs').where({ firm_id: firmId, id }).first();
   if (forUpdate) q.forUpdate();
   const row = (await q) as JobRow | undefined;
@@ -125,10 +127,12 @@ export async function getJob(deps: AppDeps, actor: Actor, id: number, db: Db = d
   const used = await db('stock_movements as m').join('product_batches as b', 'b.id', 'm.batch_id').join('products as p', 'p.id', 'm.product_id')
     .where({ 'm.firm_id': actor.firmId, 'm.job_id': id, 'm.kind': 'used' }).select('p.name as product', 'b.lot_number as lotNumber', 'b.expires_on as expiresOn', db.raw('-m.quantity_delta AS packs'));
   const plan = await planJob(db, deps, actor.firmId, row);
+  const sheet = await buildSheet(db, deps, actor, row, plan.survey);
   return {
     job: { id: row.id, status: row.status, scheduledOn: row.scheduled_on, engineerMemberId: row.engineer_member_id, vanLocationId: row.van_location_id, completedAt: row.completed_at?.toISOString() ?? null, nextCheckOn: row.next_check_on, site },
     ...plan,
     chemicalsUsed: used as { product: string; lotNumber: string; expiresOn: string; packs: number }[],
+    sheet,
   };
 }
 
@@ -165,8 +169,8 @@ export async function completeJob(trx: Knex.Transaction, deps: AppDeps, actor: A
     plan.doses.flatMap((d) => d.takeFromVan.map((a) => ({ kind: 'used' as const, locationId: row.van_location_id!, productId: d.product.id, batchId: a.batchId, quantityDelta: -a.quantity, jobId: id, reason: `Job ${id}` }))),
     deps.clock.now(),
   );
-  // The annual inhibitor check falls due a year on (PRODUCT.md, computation 7).
-  const nextCheckOn = addDays(plan.today, 365);
+  // The annual inhibitor check falls due 12 calendar months on (PRODUCT.md, computation 7).
+  const nextCheckOn = addMonths(plan.today, 12);
   await trx('jobs').where({ firm_id: actor.firmId, id }).update({ status: 'completed', completed_at: deps.clock.now(), completed_by_user_id: actor.userId, next_check_on: nextCheckOn });
   await trx('sites').where({ firm_id: actor.firmId, id: row.site_id }).update({ next_check_on: nextCheckOn });
 }

@@ -43,6 +43,7 @@ export function toKitItem(row: ItemRow, today: string): KitItem {
     notes: row.notes,
     location: locationRefOf(row),
     inspection: { ...due, lastInspectedOn: row.last_inspected_on, usesSinceInspection: uses },
+    vibrationMs2: row.vibration_ms2 == null ? null : Number(row.vibration_ms2),
   };
 }
 
@@ -148,6 +149,7 @@ export async function updateItem(deps: AppDeps, actor: Actor, id: number, input:
       ...(input.serialNumber !== undefined && { serial_number: input.serialNumber }),
       ...(input.notes !== undefined && { notes: input.notes }),
       ...(input.condition !== undefined && { condition: input.condition }),
+      ...(input.vibrationMs2 !== undefined && { vibration_ms2: input.vibrationMs2 }),
     };
     if (Object.keys(patch).length) await trx('kit_items').where({ firm_id: actor.firmId, id }).update(patch);
   });
@@ -180,7 +182,7 @@ export async function listKits(deps: AppDeps, actor: Actor, db: Db = deps.db): P
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Kit');
   const [kits, items] = await Promise.all([
     db('kits').where({ firm_id: actor.firmId }).orderBy('name').select('id', 'name', 'notes') as Promise<{ id: number; name: string; notes: string | null }[]>,
-    loadItems(db, actor.firmId, deps.clock.now()),
+    loadItems(db, actor.firmId, deps.clock.now(), { inKit: true }),
   ]);
   const byKit = new Map<number, KitItem[]>();
   for (const i of items) if (i.kit) byKit.set(i.kit.id, [...(byKit.get(i.kit.id) ?? []), i]);

@@ -1,24 +1,10 @@
-import type { RequestHandler } from 'express';
-import multer from 'multer';
 import { z } from 'zod';
-import { idParamSchema, PHOTO_MAX_BYTES, photoSchema } from '@heatfleet/domain';
+import { idParamSchema, photoSchema } from '@heatfleet/domain';
 import { HttpError } from '../../lib/http-error.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { openPhoto, savePhoto } from './photo-service.ts';
+import { receivePhoto } from './receive-photo.ts';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: PHOTO_MAX_BYTES, files: 1, fields: 5 } }).single('photo');
-
-/** Multer, with its errors turned into the API's error body. */
-const receivePhoto: RequestHandler = (req, res, next) => {
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    const code = (err as { code?: string }).code;
-    if (code === 'LIMIT_FILE_SIZE') {
-      return next(new HttpError(413, `That photo is over ${PHOTO_MAX_BYTES / 1024 / 1024} MB; take a smaller one.`, 'TooLarge', [{ path: 'photo', message: 'Too large' }]));
-    }
-    next(new HttpError(422, 'Send the photo as multipart form data in a field called "photo".', 'ValidationFailed', [{ path: 'photo', message: String((err as Error).message) }]));
-  });
-};
 
 export const photoFieldsSchema = z.strictObject({
   itemId: z.coerce.number().int().positive().optional(),

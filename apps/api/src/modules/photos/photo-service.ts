@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { ForbiddenError } from '@casl/ability';
 import { fileTypeFromBuffer } from 'file-type';
 import { photoContentTypes, type Photo } from '@heatfleet/domain';
+import type { Knex } from 'knex';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
@@ -29,9 +30,20 @@ const toPhoto = (r: PhotoRow): Photo => ({
 /**
  * Stores an uploaded photo. The type comes from the bytes (a renamed executable is refused
  * whatever its name or declared type); the key is ours, under the firm's prefix. The object is
- * written first and removed again if the row cannot be, so a failure leaves neither behind.
+ * written first and removed again if the row cannot be (or the guard refuses), so a failure leaves
+ * neither behind.
  */
-export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts: { itemId?: number; caption?: string }): Promise<Photo> {
+export interface SavePhotoOptions {
+  itemId?: number;
+  /** A job's photo, tagged by what it shows; the caller has checked the job. */
+  jobId?: number;
+  tag?: string;
+  caption?: string;
+  /** Runs in the row's transaction before the insert (e.g. locks the job and checks it is still open). */
+  guard?: (trx: Knex.Transaction) => Promise<void>;
+}
+
+export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts: SavePhotoOptions): Promise<Photo> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Photo');
   const detected = await fileTypeFromBuffer(file);
   const type = photoContentTypes.find((t) => t === detected?.mime);
@@ -44,16 +56,21 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
   const key = `firms/${actor.firmId}/photos/${randomUUID()}.${extensionFor[type]}`;
   await deps.objectStore.put(key, file, type);
   try {
-    const [id] = await deps.db('photos').insert({
-      firm_id: actor.firmId,
-      item_id: opts.itemId ?? null,
-      object_key: key,
-      content_type: type,
-      byte_size: file.length,
-      caption: opts.caption ?? null,
-      uploaded_by_user_id: actor.userId,
+    return await deps.db.transaction(async (trx) => {
+      await opts.guard?.(trx);
+      const [id] = await trx('photos').insert({
+        firm_id: actor.firmId,
+        item_id: opts.itemId ?? null,
+        job_id: opts.jobId ?? null,
+        tag: opts.tag ?? null,
+        object_key: key,
+        content_type: type,
+        byte_size: file.length,
+        caption: opts.caption ?? null,
+        uploaded_by_user_id: actor.userId,
+      });
+      return toPhoto((await trx('photos').where({ firm_id: actor.firmId, id }).first()) as PhotoRow);
     });
-    return toPhoto((await deps.db('photos').where({ firm_id: actor.firmId, id }).first()) as PhotoRow);
   } catch (err) {
     await deps.objectStore.delete(key).catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
     throw err;

@@ -20,6 +20,7 @@ interface ProductRow {
   test_method: string | null;
   shelf_life_months: number | null;
   hazard_notes: string | null;
+  min_circulation_minutes: number | null;
   sds_object_key: string | null;
   sds_byte_size: number | null;
   sds_uploaded_at: Date | null;
@@ -43,6 +44,7 @@ export function toProduct(r: ProductRow): Product {
     testMethod: r.test_method,
     shelfLifeMonths: r.shelf_life_months,
     hazardNotes: r.hazard_notes,
+    minCirculationMinutes: r.min_circulation_minutes ?? null,
     safetyDataSheet: r.sds_object_key && r.sds_uploaded_at ? { url: `/api/products/${r.id}/safety-data-sheet`, byteSize: r.sds_byte_size ?? 0, uploadedAt: r.sds_uploaded_at.toISOString() } : null,
     active: Boolean(r.active),
   };
@@ -60,6 +62,7 @@ const toRow = (p: Partial<ProductInput>) => ({
   ...(p.testMethod !== undefined && { test_method: p.testMethod }),
   ...(p.shelfLifeMonths !== undefined && { shelf_life_months: p.shelfLifeMonths }),
   ...(p.hazardNotes !== undefined && { hazard_notes: p.hazardNotes }),
+  ...(p.minCirculationMinutes !== undefined && { min_circulation_minutes: p.minCirculationMinutes }),
 });
 
 export async function listProducts(deps: AppDeps, actor: Actor): Promise<Product[]> {

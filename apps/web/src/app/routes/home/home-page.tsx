@@ -1,25 +1,85 @@
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
 import { roleLabels, roleSummaries } from '@heatfleet/domain';
+import { Alert } from '@/components/ui/alert';
+import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { QueryErrorNotice } from '@/components/ui/query-error-notice';
+import { paths } from '@/config/paths';
 import { useSignedInMe } from '@/lib/auth';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { FirmList } from '@/features/firms/components/firm-list';
+import { MyHavToday, OwnerOverview } from '@/features/overview/components/owner-overview';
+import { vanQueries } from '@/features/vans/api/van-queries';
+import { VanSummary } from '@/features/vans/components/van-summary';
+
+function MyVanCard({ timeZone }: { timeZone: string }) {
+  const mine = useQuery(vanQueries.mine());
+  return (
+    <Card title="Your van">
+      {mine.isPending ? (
+        <PageSpinner label="Loading your van…" />
+      ) : mine.isError ? (
+        <QueryErrorNotice error={mine.error} onRetry={() => void mine.refetch()} />
+      ) : mine.data.van ? (
+        <div className="space-y-4">
+          <VanSummary van={mine.data.van} timeZone={timeZone} />
+          <Link to={paths.myVan.getHref()} className={buttonClasses('secondary', 'w-full sm:w-auto')}>
+            Kit and stock on {mine.data.van.name}
+          </Link>
+        </div>
+      ) : (
+        <Alert tone="info">No van is assigned to you. The stores or the office can assign one.</Alert>
+      )}
+    </Card>
+  );
+}
+
+function AccountCards() {
+  const me = useSignedInMe();
+  return (
+    <>
+      <Card title={`Your role: ${roleLabels[me.role]}`}>
+        <p>{roleSummaries[me.role]}</p>
+      </Card>
+      <Card title="Your firms" description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}>
+        <FirmList me={me} />
+      </Card>
+      <Card title="Change your password" description="Other devices signed in as you are signed out when you change it.">
+        <ChangePasswordForm email={me.user.email} />
+      </Card>
+    </>
+  );
+}
 
 export function HomePage() {
   const me = useSignedInMe();
+  if (me.role === 'owner' || me.role === 'admin') {
+    return (
+      <>
+        <PageHeader title={me.activeFirm.name}>The firm at a glance. Each card links to its list.</PageHeader>
+        <OwnerOverview />
+        <div className="mt-5 grid gap-5 lg:grid-cols-3">
+          <AccountCards />
+        </div>
+      </>
+    );
+  }
   return (
     <>
       <PageHeader title={me.activeFirm.name}>Signed in as {me.user.name} ({me.user.email}).</PageHeader>
       <div className="grid gap-5 lg:grid-cols-2">
-        <Card title={`Your role: ${roleLabels[me.role]}`}>
-          <p>{roleSummaries[me.role]}</p>
-        </Card>
-        <Card title="Your firms" description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}>
-          <FirmList me={me} />
-        </Card>
-        <Card title="Change your password" description="Other devices signed in as you are signed out when you change it.">
-          <ChangePasswordForm email={me.user.email} />
-        </Card>
+        {me.role === 'engineer' ? (
+          <>
+            <MyVanCard timeZone={me.activeFirm.timeZone} />
+            <Card title="Hand-arm vibration today" description="From your agitation time on today's jobs: 100 points is the exposure action value, 400 the limit value.">
+              <MyHavToday />
+            </Card>
+          </>
+        ) : null}
+        <AccountCards />
       </div>
     </>
   );

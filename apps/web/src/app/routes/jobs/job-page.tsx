@@ -2,6 +2,7 @@ import { subject } from '@casl/ability';
 import { useQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router-dom';
 import { Badge } from '@/components/ui/badge';
+import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -14,17 +15,27 @@ import { ChemicalsUsed } from '@/features/jobs/components/chemicals-used';
 import { CompleteJobPanel } from '@/features/jobs/components/complete-job-panel';
 import { JobCautions } from '@/features/jobs/components/job-cautions';
 import { JobPlan } from '@/features/jobs/components/job-plan';
+import { JobSheetSections } from '@/features/jobs/components/job-sheet';
+import type { InhibitorChoice } from '@/features/jobs/components/water-tests-form';
+import { productQueries } from '@/features/stock/api/stock-queries';
 
+/** The job sheet: the plan, then the visit section by section, then completion and the report. */
 export function JobPage() {
   const id = Number(useParams().id);
   const me = useSignedInMe();
   const ability = useAbility();
   const job = useQuery({ ...jobQueries.detail(id), enabled: Number.isInteger(id) && id > 0 });
+  // Only for the inhibitors' target ranges; the sheet still works (without the live check) if this fails.
+  const products = useQuery(productQueries.list());
   if (job.isPending) return <PageSpinner label="Loading the job…" />;
   if (job.isError) return <QueryErrorNotice error={job.error} onRetry={() => void job.refetch()} />;
   const { job: row } = job.data;
   const completed = row.status === 'completed';
   const canComplete = ability.can('update', subject('Job', { firmId: me.activeFirm.id, engineerMemberId: row.engineerMemberId }));
+  const inhibitors: InhibitorChoice[] = (products.data ?? [])
+    .filter((p) => p.kind === 'inhibitor' && (p.active || p.id === job.data.sheet.water.inhibitorProductId))
+    .map((p) => ({ id: p.id, name: p.name, targetMin: p.targetMin, targetMax: p.targetMax, targetUnit: p.targetUnit }));
+  const timeZone = me.activeFirm.timeZone;
   return (
     <>
       <PageHeader title={`Job at ${row.site.address}`}>
@@ -36,10 +47,8 @@ export function JobPage() {
         </span>
       </PageHeader>
       <div className="space-y-5">
-        <JobPlan detail={job.data} />
-        <JobCautions />
         {completed ? (
-          <Card title="Done" description={row.completedAt ? `Completed ${formatDateTime(row.completedAt, me.activeFirm.timeZone)}.` : undefined}>
+          <Card title="Done" description={row.completedAt ? `Completed ${formatDateTime(row.completedAt, timeZone)}. The sheet below is the record and can no longer change.` : undefined}>
             <div className="space-y-3">
               <h3 className="font-bold text-brand-900">Chemicals used</h3>
               <ChemicalsUsed used={job.data.chemicalsUsed} />
@@ -47,13 +56,17 @@ export function JobPage() {
                 Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
               </p>
               <p>
-                <a className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline" href={`/api/jobs/${row.id}/report.pdf`} download>
-                  Download the completion report (PDF)
+                <a className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')} href={`/api/jobs/${row.id}/report.pdf`} download>
+                  Download the report (PDF)
                 </a>
               </p>
             </div>
           </Card>
-        ) : canComplete ? (
+        ) : null}
+        <JobPlan detail={job.data} />
+        {completed ? null : <JobCautions />}
+        <JobSheetSections detail={job.data} timeZone={timeZone} inhibitors={inhibitors} />
+        {!completed && canComplete ? (
           <Card title="Complete the job">
             <CompleteJobPanel detail={job.data} />
           </Card>

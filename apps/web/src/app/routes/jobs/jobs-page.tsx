@@ -11,11 +11,16 @@ export function JobsPage() {
     <>
       <PageHeader title="Jobs">Cleaning visits: booked, done, and when each site is due its annual check.</PageHeader>
       <div className="space-y-5">
-        <Can I="create" a="Job">
-          <Link to={paths.newJob.getHref()} className={buttonClasses('primary', 'w-full sm:w-auto')}>
-            Book a job
+        <div className="flex flex-col gap-3 sm:flex-row">
+          <Can I="create" a="Job">
+            <Link to={paths.newJob.getHref()} className={buttonClasses('primary', 'w-full sm:w-auto')}>
+              Book a job
+            </Link>
+          </Can>
+          <Link to={paths.customers.getHref()} className={buttonClasses('secondary', 'w-full sm:w-auto')}>
+            Customers and sites
           </Link>
-        </Can>
+        </div>
         <Card title="Jobs">
           <JobsTable />
         </Card>

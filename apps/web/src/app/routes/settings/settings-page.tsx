@@ -2,6 +2,7 @@ import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { Can } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
+import { FirmSettingsForm } from '@/features/firms/components/firm-settings-form';
 import { ItemKindsEditor } from '@/features/kits/components/item-kinds-editor';
 import { ReminderSettingsForm } from '@/features/reminders/components/reminder-settings-form';
 
@@ -9,8 +10,13 @@ export function SettingsPage() {
   const me = useSignedInMe();
   return (
     <>
-      <PageHeader title="Settings">How {me.activeFirm.name} inspects its kit and when it is reminded.</PageHeader>
+      <PageHeader title="Settings">{me.activeFirm.name}: the firm itself, how it inspects its kit and when it is reminded.</PageHeader>
       <div className="space-y-5">
+        <Can I="update" a="Firm">
+          <Card title="Firm" description="Name, address, time zone, units and the cold-bottom threshold of the radiator log.">
+            <FirmSettingsForm />
+          </Card>
+        </Can>
         <Can I="update" a="ReminderSettings">
           <Card title="Reminders" description="One digest e-mail a day per firm, and one per engineer for their own van.">
             <ReminderSettingsForm timeZone={me.activeFirm.timeZone} />

@@ -1,6 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { surveySchema } from '@heatfleet/domain';
+import { jobSteps, surveySchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
 // The API answers jobs without a shared response schema, so the client pins down the fields it reads.
@@ -45,6 +45,83 @@ const doseSchema = z.object({
 });
 export type JobDose = z.infer<typeof doseSchema>;
 
+const readingSchema = z.object({
+  topC: z.number(),
+  bottomC: z.number(),
+  flowC: z.number().nullable().optional(),
+  returnC: z.number().nullable().optional(),
+  roomC: z.number(),
+  differenceK: z.number(),
+  coldBottom: z.boolean(),
+  deltaTK: z.number(),
+  deltaTFrom: z.enum(['flow_return', 'surfaces']),
+  outputWatts: z.number().nullable(),
+});
+export type SavedReading = z.infer<typeof readingSchema>;
+
+const kitItemSchema = z.object({ id: z.number(), assetTag: z.string(), kindName: z.string(), kitName: z.string().nullable() });
+
+export const jobPhotoSchema = z.object({ id: z.number(), url: z.string(), tag: z.string(), caption: z.string().nullable(), createdAt: z.string() });
+export type JobPhoto = z.infer<typeof jobPhotoSchema>;
+
+/** The on-site record (see the job sheet contract): what was ticked, read, tested and used. */
+export const jobSheetSchema = z.object({
+  editable: z.boolean(),
+  steps: z.array(z.object({ step: z.enum(jobSteps), label: z.string(), doneAt: z.string().nullable(), doneByName: z.string().nullable() })),
+  circulation: z.object({
+    minimumMinutes: z.number().nullable(),
+    startedAt: z.string().nullable(),
+    elapsedMinutes: z.number().nullable(),
+    met: z.boolean().nullable(),
+  }),
+  coldBottomThresholdK: z.coerce.number(),
+  radiators: z.array(
+    z.object({
+      index: z.number(),
+      room: z.string(),
+      panel: z.string(),
+      ratedWatts: z.number().nullable(),
+      before: readingSchema.nullable(),
+      after: readingSchema.nullable(),
+      agitation: z
+        .object({
+          minutes: z.number(),
+          kitItemId: z.number().nullable(),
+          kitItemTag: z.string().nullable(),
+          magnitudeMs2: z.coerce.number().nullable(),
+          points: z.number(),
+        })
+        .nullable(),
+    }),
+  ),
+  hav: z.object({
+    engineerName: z.string().nullable(),
+    day: z.string(),
+    points: z.number(),
+    level: z.enum(['low', 'nearing_action', 'above_action', 'nearing_limit', 'above_limit']),
+    message: z.string(),
+  }),
+  water: z.object({
+    mainsTdsPpm: z.coerce.number().nullable(),
+    systemTdsPpm: z.coerce.number().nullable(),
+    waterClear: z.boolean().nullable(),
+    inhibitorReading: z.coerce.number().nullable(),
+    inhibitorProductId: z.number().nullable(),
+    ph: z.coerce.number().nullable(),
+    figures: z.object({
+      flush: z.object({ complete: z.boolean(), withinPercent: z.number() }).nullable(),
+      inhibitor: z.object({ result: z.enum(['pass', 'low', 'high']), min: z.number(), max: z.number(), unit: z.string().nullable() }).nullable(),
+    }),
+  }),
+  kitUsed: z.array(kitItemSchema),
+  kitOnVan: z.array(kitItemSchema.extend({ vibrationMs2: z.coerce.number().nullable() })),
+  photos: z.array(jobPhotoSchema),
+  notes: z.string(),
+});
+export type JobSheet = z.infer<typeof jobSheetSchema>;
+export type SheetRadiator = JobSheet['radiators'][number];
+export type SheetKitItem = JobSheet['kitOnVan'][number];
+
 export const jobDetailSchema = z.object({
   job: z.object({
     id: z.number(),
@@ -60,6 +137,7 @@ export const jobDetailSchema = z.object({
   volume: volumeSchema,
   doses: z.array(doseSchema),
   chemicalsUsed: z.array(z.object({ product: z.string(), lotNumber: z.string(), expiresOn: z.string(), packs: count })),
+  sheet: jobSheetSchema,
 });
 export type JobDetail = z.infer<typeof jobDetailSchema>;
 

@@ -12,12 +12,20 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
   const idempotency = useIdempotencyKey();
   const short = detail.doses.some((d) => d.shortfall > 0);
   const taking = detail.doses.flatMap((d) => d.takeFromVan.map((a) => `${a.quantity} × ${d.product.name} (lot ${a.lotNumber})`));
+  // Not a bar to completing (a step may not apply on every system), but worth a second look first.
+  const unticked = detail.sheet.steps.filter((s) => s.doneAt === null);
+  const untickedNote = unticked.length ? (
+    <p className="rounded-md bg-ember-100 px-3 py-2 text-ember-700">
+      Not ticked yet: {unticked.map((s) => s.label).join('; ')}.
+    </p>
+  ) : null;
 
   if (!confirming) {
     return (
       <div className="space-y-2">
         {short ? <p className="text-danger-700">The van is short: restock it before completing.</p> : null}
-        <Button className="w-full sm:w-auto" onClick={() => setConfirming(true)}>
+        {untickedNote}
+        <Button className="min-h-12 w-full sm:w-auto" onClick={() => setConfirming(true)}>
           Complete the job
         </Button>
       </div>
@@ -25,12 +33,15 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
   }
   return (
     <div className="space-y-3 rounded-md border border-line-strong p-4">
+      {untickedNote}
       <p className="font-semibold">
         {taking.length ? `This takes ${taking.join(', ')} off the van. Complete the job?` : 'Complete the job?'}
       </p>
+      <p className="text-ink-muted">Once completed, the job sheet can no longer change, and the report is e-mailed to the customer if they have an address.</p>
       {complete.isError ? <Alert tone="error">{complete.error.message}</Alert> : null}
       <div className="flex flex-wrap gap-3">
         <Button
+          className="min-h-12"
           busy={complete.isPending}
           onClick={() =>
             complete.mutate(
@@ -46,7 +57,7 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
         >
           Yes, complete it
         </Button>
-        <Button variant="secondary" disabled={complete.isPending} onClick={() => setConfirming(false)}>
+        <Button variant="secondary" className="min-h-12" disabled={complete.isPending} onClick={() => setConfirming(false)}>
           Not yet
         </Button>
       </div>

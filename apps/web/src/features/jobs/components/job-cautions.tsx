@@ -1,14 +1,6 @@
-/** Our own words for the hazards of a cleaning visit; shown on the job screens before anything is done. */
-export const jobCautions = [
-  'Hot water and surfaces scald: let the system cool before draining.',
-  'Isolate the boiler electrically and prove it dead before working on it.',
-  'Work on gas appliances only by a business on the Gas Safe Register; oil appliances only by a competent, registered person.',
-  "Read the product's safety data sheet; wear gloves and eye protection; never mix cleaners.",
-  'Flushing water and sludge go to a foul drain, never a surface-water drain.',
-  'Do not over-pressurise old open-vented pipework; sealed systems relieve at about 3 bar.',
-  "These figures support your judgement; they do not replace it. Follow local codes, the manufacturers' instructions and licensed practice.",
-] as const;
+import { cautionKeys, cautionTexts, type CautionKey } from '@heatfleet/domain';
 
+/** All the cautions of a cleaning visit, in the domain's words (the PDF report prints the same). */
 export function JobCautions() {
   return (
     <section aria-labelledby="job-cautions-heading" className="rounded-xl border-l-4 border-ember-500 bg-ember-100 p-4">
@@ -16,10 +8,31 @@ export function JobCautions() {
         Before you start
       </h2>
       <ul className="mt-2 list-disc space-y-1 pl-5 text-ink">
-        {jobCautions.map((caution) => (
-          <li key={caution}>{caution}</li>
+        {cautionKeys.map((key) => (
+          <li key={key}>{cautionTexts[key]}</li>
         ))}
       </ul>
     </section>
   );
+}
+
+/** The cautions that protect one step, printed right above its tick so they are read before it is done. */
+export function StepCautions({ keys, label }: { keys: readonly CautionKey[]; label: string }) {
+  if (keys.length === 0) return null;
+  return (
+    <ul aria-label={label} className="space-y-1 rounded-md border-l-4 border-ember-500 bg-ember-100 px-3 py-2 text-ink">
+      {keys.map((key) => (
+        <li key={key} className="flex gap-2">
+          <span aria-hidden="true" className="font-bold text-ember-700">
+            !
+          </span>
+          <span>{cautionTexts[key]}</span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+export function JudgementNote() {
+  return <p className="rounded-md bg-brand-50 px-3 py-2 text-sm text-brand-800">{cautionTexts.judgement}</p>;
 }

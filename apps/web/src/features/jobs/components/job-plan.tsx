@@ -1,7 +1,7 @@
-import { Card } from '@/components/ui/card';
 import { formatCalendarDate } from '@/lib/format';
 import type { JobDetail } from '@/features/jobs/api/job-queries';
-import { DoseSummary, VolumeBreakdown, useGallonsToggle } from '@/features/jobs/components/volume-breakdown';
+import { SheetSection } from '@/features/jobs/components/sheet-section';
+import { DoseSummary, VolumeBreakdown, formatLitres, useGallonsToggle } from '@/features/jobs/components/volume-breakdown';
 
 function packs(n: number): string {
   return `${n} pack${n === 1 ? '' : 's'}`;
@@ -12,15 +12,17 @@ export function JobPlan({ detail }: { detail: JobDetail }) {
   const { withGallons, toggle } = useGallonsToggle();
   const radiators = detail.survey.radiators.length;
   const completed = detail.job.status === 'completed';
+  const summary = `${formatLitres(detail.volume.totalLitres, false)} · ${detail.doses.map((d) => `${d.product.name} ${packs(d.packs)}`).join(', ') || 'no products'}`;
   return (
-    <div className="space-y-5">
-      <Card title="System volume">
+    <SheetSection title="The plan" summary={summary} defaultOpen={!completed}>
+      <div className="space-y-3">
+        <h3 className="font-bold text-brand-900">System volume</h3>
         {toggle}
-        <div className="mt-3">
-          <VolumeBreakdown volume={detail.volume} withGallons={withGallons} />
-        </div>
-      </Card>
-      <Card title="Dose plan" description={`${radiators} radiators surveyed.`}>
+        <VolumeBreakdown volume={detail.volume} withGallons={withGallons} />
+      </div>
+      <div className="space-y-3 border-t border-line pt-4">
+        <h3 className="font-bold text-brand-900">Dose plan</h3>
+        <p className="text-ink-muted">{radiators} radiators surveyed.</p>
         {detail.doses.length === 0 ? (
           <p>No products were chosen for this job.</p>
         ) : (
@@ -53,7 +55,7 @@ export function JobPlan({ detail }: { detail: JobDetail }) {
             ))}
           </ul>
         )}
-      </Card>
-    </div>
+      </div>
+    </SheetSection>
   );
 }

@@ -30,6 +30,7 @@ export function RadiatorRows({ rows, onChange, errors }: { rows: RadiatorDraft[]
               <TextField label="Height (mm)" name={`${at}.heightMm`} inputMode="numeric" value={row.heightMm} onChange={(e) => update(row.key, { heightMm: e.target.value })} error={errors[`${at}.heightMm`]} />
               <TextField label="Length (mm)" name={`${at}.lengthMm`} inputMode="numeric" value={row.lengthMm} onChange={(e) => update(row.key, { lengthMm: e.target.value })} error={errors[`${at}.lengthMm`]} />
               <TextField label="Or litres, if known" name={`${at}.litres`} inputMode="decimal" value={row.litres} onChange={(e) => update(row.key, { litres: e.target.value })} error={errors[`${at}.litres`]} />
+              <TextField label="Rated output (W), if known" name={`${at}.ratedWatts`} inputMode="numeric" value={row.ratedWatts} onChange={(e) => update(row.key, { ratedWatts: e.target.value })} error={errors[`${at}.ratedWatts`]} />
               <TextField label="Cold spot note (optional)" name={`${at}.coldSpotNote`} value={row.coldSpotNote} onChange={(e) => update(row.key, { coldSpotNote: e.target.value })} error={errors[`${at}.coldSpotNote`]} />
             </div>
           </div>

@@ -11,6 +11,8 @@ export interface RadiatorDraft {
   heightMm: string;
   lengthMm: string;
   litres: string;
+  /** The maker's output at dT 50 (EN 442), for the output figure on the job sheet. */
+  ratedWatts: string;
   coldSpotNote: string;
 }
 
@@ -57,7 +59,7 @@ export function newRowKey(): number {
 }
 
 export function emptyRadiator(): RadiatorDraft {
-  return { key: newRowKey(), room: '', panel: 'single', heightMm: '', lengthMm: '', litres: '', coldSpotNote: '' };
+  return { key: newRowKey(), room: '', panel: 'single', heightMm: '', lengthMm: '', litres: '', ratedWatts: '', coldSpotNote: '' };
 }
 
 export function emptyPipeRun(): PipeRunDraft {
@@ -98,6 +100,7 @@ export function draftToSurveyInput(draft: SurveyDraft): unknown {
       heightMm: numberOrNull(r.heightMm),
       lengthMm: numberOrNull(r.lengthMm),
       litres: numberOrNull(r.litres),
+      ratedWatts: numberOrNull(r.ratedWatts),
       coldSpotNote: r.coldSpotNote,
     })),
     pipeRuns: draft.pipeRuns.map((p) => ({
@@ -131,6 +134,7 @@ export function draftToLiveSurvey(draft: SurveyDraft): Survey {
       heightMm: usable(r.heightMm, 100, 2500),
       lengthMm: usable(r.lengthMm, 100, 4000),
       litres: usable(r.litres, 0, 200),
+      ratedWatts: usable(r.ratedWatts, 0, 20_000),
       coldSpotNote: null,
     })),
     pipeRuns: draft.pipeRuns.flatMap((p): Survey['pipeRuns'] => {

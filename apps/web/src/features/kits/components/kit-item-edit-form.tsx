@@ -8,7 +8,7 @@ import { textOrNull, useSchemaForm } from '@/lib/form';
 import { itemKindQueries, kitQueries } from '@/features/kits/api/kit-queries';
 import { useUpdateKitItem } from '@/features/kits/api/use-save-kit';
 
-const fields = ['kindId', 'kitId', 'serialNumber', 'condition', 'notes'] as const;
+const fields = ['kindId', 'kitId', 'serialNumber', 'condition', 'notes', 'vibrationMs2'] as const;
 
 function prepare(values: Record<string, string | undefined>) {
   return {
@@ -17,6 +17,7 @@ function prepare(values: Record<string, string | undefined>) {
     serialNumber: textOrNull(values.serialNumber),
     condition: values.condition,
     notes: textOrNull(values.notes),
+    vibrationMs2: values.vibrationMs2?.trim() ? Number(values.vibrationMs2) : null,
   };
 }
 
@@ -49,6 +50,19 @@ export function KitItemEditForm({ item, onDone }: { item: KitItem; onDone: () =>
         />
         <TextField label="Serial number" name="serialNumber" defaultValue={item.serialNumber ?? ''} autoComplete="off" error={form.fieldErrors.serialNumber} />
         <TextField label="Notes" name="notes" defaultValue={item.notes ?? ''} autoComplete="off" error={form.fieldErrors.notes} className="sm:col-span-2" />
+        <TextField
+          label="Vibration magnitude (m/s²)"
+          name="vibrationMs2"
+          type="number"
+          inputMode="decimal"
+          min={0}
+          step="any"
+          defaultValue={item.vibrationMs2 === null ? '' : String(item.vibrationMs2)}
+          hint="For a vibrating tool such as an agitator head: from the tool’s maker or the firm’s own measurement. Used for the engineer’s hand-arm vibration points."
+          autoComplete="off"
+          error={form.fieldErrors.vibrationMs2}
+          className="sm:col-span-2"
+        />
       </div>
       <div className="flex flex-wrap gap-2">
         <Button type="submit" busy={update.isPending}>

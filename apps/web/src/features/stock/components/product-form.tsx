@@ -24,6 +24,7 @@ const fields = [
   'testMethod',
   'shelfLifeMonths',
   'hazardNotes',
+  'minCirculationMinutes',
 ] as const;
 
 const numberOrNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : Number(value));
@@ -43,6 +44,8 @@ function prepare(values: Record<string, string | undefined>) {
     testMethod: values.testMethod ?? '',
     shelfLifeMonths: numberOrNull(values.shelfLifeMonths),
     hazardNotes: values.hazardNotes ?? '',
+    // Only a cleaner shows the field; for other kinds it is left out and keeps what is stored.
+    ...(values.minCirculationMinutes === undefined ? {} : { minCirculationMinutes: numberOrNull(values.minCirculationMinutes) }),
   };
 }
 
@@ -61,6 +64,7 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
   const [packSize, setPackSize] = useState(initialPack.size);
   const [packUnit, setPackUnit] = useState<'ml' | 'l'>(initialPack.unit);
   const [showGallons, setShowGallons] = useState(false);
+  const [kind, setKind] = useState<string>(product?.kind ?? '');
   const [saved, setSaved] = useState<string | null>(null);
   const pending = create.isPending || update.isPending;
   const sizeNumber = Number(packSize);
@@ -80,6 +84,7 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
             if (!product) {
               form.formRef.current?.reset();
               setPackSize('');
+              setKind('');
             }
             onSaved?.(saved);
           },
@@ -94,7 +99,8 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
         <SelectField
           label="Kind"
           name="kind"
-          defaultValue={product?.kind ?? ''}
+          value={kind}
+          onChange={(event) => setKind(event.target.value)}
           options={[{ value: '', label: 'Choose a kind…' }, ...productKinds.map((k) => ({ value: k, label: productKindLabels[k] }))]}
           error={form.fieldErrors.kind}
         />
@@ -184,6 +190,19 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
           defaultValue={str(product?.shelfLifeMonths)}
           error={form.fieldErrors.shelfLifeMonths}
         />
+        {kind === 'cleaner' ? (
+          <TextField
+            label="Minimum circulation time (minutes)"
+            name="minCirculationMinutes"
+            type="number"
+            inputMode="numeric"
+            min={1}
+            step={1}
+            hint="From the cleaner’s label: how long it must circulate hot. The job sheet times against it."
+            defaultValue={str(product?.minCirculationMinutes)}
+            error={form.fieldErrors.minCirculationMinutes}
+          />
+        ) : null}
       </div>
       <TextareaField label="Hazard notes" name="hazardNotes" rows={3} maxLength={2000} defaultValue={product?.hazardNotes ?? ''} error={form.fieldErrors.hazardNotes} />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}

@@ -1,0 +1,96 @@
+import { useId } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { COLD_BOTTOM_THRESHOLD_MAX_K, COLD_BOTTOM_THRESHOLD_MIN_K, firmSettingsInputSchema, volumeUnitLabels, volumeUnits } from '@heatfleet/domain';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ChoiceGroup } from '@/components/ui/choice-group';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { QueryErrorNotice } from '@/components/ui/query-error-notice';
+import { TextField } from '@/components/ui/text-field';
+import { TextareaField } from '@/components/ui/textarea-field';
+import { useSchemaForm } from '@/lib/form';
+import { firmSettingsQueries, useSaveFirmSettings, type FirmSettingsView } from '@/features/firms/api/firm-settings-queries';
+
+const fields = ['name', 'address', 'timeZone', 'volumeUnit', 'coldBottomThresholdK'] as const;
+
+function prepare(values: Record<string, string | undefined>) {
+  return {
+    name: values.name ?? '',
+    address: values.address ?? '',
+    timeZone: values.timeZone ?? '',
+    volumeUnit: values.volumeUnit,
+    coldBottomThresholdK: values.coldBottomThresholdK?.trim() ? Number(values.coldBottomThresholdK) : undefined,
+  };
+}
+
+// Every zone the browser knows, offered as suggestions; the API checks the same way with Intl.
+const zones: string[] = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : [];
+
+function Form({ firm }: { firm: FirmSettingsView }) {
+  const save = useSaveFirmSettings();
+  const form = useSchemaForm(firmSettingsInputSchema, fields, prepare);
+  const listId = useId();
+  return (
+    <form
+      ref={form.formRef}
+      noValidate
+      aria-label="Firm settings"
+      className="space-y-4"
+      onSubmit={form.handleSubmit((input) => save.mutate(input, { onError: form.showError }))}
+    >
+      {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
+      {save.isSuccess ? <Alert tone="success">Firm settings saved.</Alert> : null}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Firm name" name="name" maxLength={120} defaultValue={firm.name} error={form.fieldErrors.name} />
+        <div>
+          <TextField
+            label="Time zone"
+            name="timeZone"
+            list={listId}
+            autoComplete="off"
+            defaultValue={firm.timeZone}
+            hint="Due dates and each day's vibration points follow this zone, e.g. Europe/London."
+            error={form.fieldErrors.timeZone}
+          />
+          <datalist id={listId}>
+            {zones.map((z) => (
+              <option key={z} value={z} />
+            ))}
+          </datalist>
+        </div>
+      </div>
+      <TextareaField label="Address" name="address" rows={3} maxLength={500} defaultValue={firm.address ?? ''} hint="Printed on the cleaning reports." error={form.fieldErrors.address} />
+      <ChoiceGroup
+        legend="Volumes shown in"
+        name="volumeUnit"
+        columns={2}
+        defaultValue={firm.volumeUnit}
+        options={volumeUnits.map((u) => ({ value: u, label: volumeUnitLabels[u] }))}
+        error={form.fieldErrors.volumeUnit}
+      />
+      <TextField
+        label="Cold-bottom threshold (K, top to bottom)"
+        name="coldBottomThresholdK"
+        type="number"
+        inputMode="decimal"
+        min={COLD_BOTTOM_THRESHOLD_MIN_K}
+        max={COLD_BOTTOM_THRESHOLD_MAX_K}
+        step="0.5"
+        defaultValue={String(firm.coldBottomThresholdK)}
+        hint={`A radiator is flagged for sludge when its top is warmer than its bottom by more than this (${COLD_BOTTOM_THRESHOLD_MIN_K} to ${COLD_BOTTOM_THRESHOLD_MAX_K} K; 10 K is common practice).`}
+        error={form.fieldErrors.coldBottomThresholdK}
+        className="sm:max-w-xs"
+      />
+      <Button type="submit" busy={save.isPending} className="w-full sm:w-auto">
+        Save firm settings
+      </Button>
+    </form>
+  );
+}
+
+export function FirmSettingsForm() {
+  const firm = useQuery(firmSettingsQueries.detail());
+  if (firm.isPending) return <PageSpinner label="Loading the firm…" />;
+  if (firm.isError) return <QueryErrorNotice error={firm.error} onRetry={() => void firm.refetch()} />;
+  return <Form firm={firm.data} />;
+}

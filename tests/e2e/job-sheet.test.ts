@@ -1,0 +1,348 @@
+import { randomUUID } from 'node:crypto';
+import { statSync, writeFileSync, readFileSync } from 'node:fs';
+import { deflateSync, crc32 } from 'node:zlib';
+import { expect, request as playwrightRequest, test, type APIRequestContext, type Locator, type Page } from '@playwright/test';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+
+// Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1", which carries Rig 1.
+const password = 'heatfleet-demo-2026';
+const owner = 'owner@brackenford.example';
+const engineer = 'engineer@brackenford.example';
+const engineerName = 'Jory Pennock';
+
+// The sheet's words, pinned here so a change to them is a visible decision.
+const steps = {
+  isolate: 'Isolate the boiler and connect the flushing rig',
+  doseCleaner: 'Dose the cleaner',
+  circulate: 'Circulate hot for the cleaner’s minimum time',
+  agitate: 'Agitate each radiator',
+  flush: 'Flush each radiator until clear',
+  doseInhibitor: 'Dose the inhibitor',
+  reinstate: 'Reinstate: refill, vent, pressurise and check for leaks',
+};
+const cautions = {
+  electrical: 'Isolate the boiler electrically and prove it dead before working on it.',
+  gas: 'Work on gas appliances only by a business on the Gas Safe Register',
+  chemicals: 'Read the product’s safety data sheet; wear gloves and eye protection; never mix cleaners.',
+  drain: 'Flushing water and sludge go to a foul drain, never a surface-water drain.',
+  hotWater: 'Hot water and surfaces scald: let the system cool before draining.',
+  judgement: 'These figures support your judgement; they do not replace it.',
+};
+
+async function signInToApi(baseURL: string, email: string): Promise<{ api: APIRequestContext; csrf: string }> {
+  const api = await playwrightRequest.newContext({ baseURL });
+  const first = await api.get('/api/auth/csrf');
+  expect(first.ok()).toBe(true);
+  const { csrfToken } = (await first.json()) as { csrfToken: string };
+  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
+  expect(signedIn.status(), await signedIn.text()).toBe(200);
+  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
+}
+
+/**
+ * As the owner: a cleaner (60 minutes hot) and an inhibitor (1 to 1.5 % v/v) of this run's own, one
+ * pack of each on Van 1 (the demo van has used its chemicals), and a vibration figure on Rig 1's
+ * agitator, so every figure the test checks comes from data it set.
+ */
+async function prepare(baseURL: string) {
+  const { api, csrf } = await signInToApi(baseURL, owner);
+  const headers = { 'X-CSRF-Token': csrf };
+  const id = runId().toUpperCase();
+  const createProduct = async (data: Record<string, unknown>) => {
+    const created = await api.post('/api/products', { data: { packSize: 1, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10, shelfLifeMonths: 24, ...data }, headers });
+    expect(created.status(), await created.text()).toBe(201);
+    return ((await created.json()) as { product: { id: number; name: string } }).product;
+  };
+  const cleaner = await createProduct({ name: `Trial cleaner ${id}`, kind: 'cleaner', minCirculationMinutes: 60 });
+  const inhibitor = await createProduct({ name: `Trial inhibitor ${id}`, kind: 'inhibitor', targetMin: 1, targetMax: 1.5, targetUnit: '% v/v', testMethod: 'Refractometer' });
+
+  const grid = (await (await api.get('/api/stock')).json()) as { locations: { id: number; kind: string; name: string }[] };
+  const van = grid.locations.find((l) => l.kind === 'van' && l.name === 'Van 1');
+  const depot = grid.locations.find((l) => l.kind === 'depot');
+  expect(van, 'the demo firm has Van 1').toBeDefined();
+  expect(depot, 'the demo firm has a depot').toBeDefined();
+  const lines = [cleaner, inhibitor].map((p) => ({ productId: p.id, quantity: 1 }));
+  const lot = `S${id.slice(-6)}`;
+  const expiresOn = new Date(Date.now() + 400 * 86_400_000).toISOString().slice(0, 10);
+  const received = await api.post('/api/stock/receipts', {
+    data: { locationId: depot!.id, reference: `Job sheet test ${lot}`, lines: lines.map((l) => ({ ...l, lotNumber: lot, expiresOn })) },
+    headers: { ...headers, 'Idempotency-Key': randomUUID() },
+  });
+  expect(received.status(), await received.text()).toBe(201);
+  const moved = await api.post('/api/stock/transfers', {
+    data: { fromLocationId: depot!.id, toLocationId: van!.id, lines },
+    headers: { ...headers, 'Idempotency-Key': randomUUID() },
+  });
+  expect(moved.status(), await moved.text()).toBe(201);
+
+  const onVan = (await (await api.get(`/api/kit-items?locationId=${van!.id}&q=AGI`)).json()) as { items: { id: number; assetTag: string }[] };
+  const agitator = onVan.items[0];
+  expect(agitator, 'Van 1 carries an agitator head').toBeDefined();
+  const patched = await api.patch(`/api/kit-items/${agitator!.id}`, { data: { vibrationMs2: 10 }, headers });
+  expect(patched.status(), await patched.text()).toBe(200);
+  await api.dispose();
+  return { cleaner, inhibitor, agitatorTag: agitator!.assetTag };
+}
+
+/** A small PNG (8 x 8, one colour) built byte by byte, so the test needs no image file in the repo. */
+function writePng(path: string): void {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'ascii'), data]);
+    const length = Buffer.alloc(4);
+    length.writeUInt32BE(data.length);
+    const crc = Buffer.alloc(4);
+    crc.writeUInt32BE(crc32(body));
+    return Buffer.concat([length, body, crc]);
+  };
+  const size = 8;
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(size, 0);
+  header.writeUInt32BE(size, 4);
+  header.set([8, 2, 0, 0, 0], 8); // 8-bit RGB, no interlace
+  const row = Buffer.concat([Buffer.from([0]), Buffer.from(Array.from({ length: size }, () => [21, 85, 87]).flat())]);
+  const pixels = deflateSync(Buffer.concat(Array.from({ length: size }, () => row)));
+  writeFileSync(path, Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', header), chunk('IDAT', pixels), chunk('IEND', Buffer.alloc(0))]));
+}
+
+async function expectNoOverflow(page: Page, what: string) {
+  const overflow = await horizontalOverflow(page);
+  expect(overflow.scrollWidth, `${what} overflows: ${overflow.widest ?? ''}`).toBeLessThanOrEqual(360);
+}
+
+/** Controls on the sheet shorter than 48 px: the engineer may be wearing gloves. */
+async function smallTargets(page: Page): Promise<string[]> {
+  return page.evaluate(() =>
+    Array.from(document.querySelectorAll('main button, main select, main input:not([type=checkbox]):not([type=radio]), main textarea, main summary, main a[download]'))
+      .filter((el) => (el as HTMLElement).offsetParent !== null && el.getBoundingClientRect().height < 47.5)
+      .map((el) => `${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 40) || (el as HTMLInputElement).name}" ${Math.round(el.getBoundingClientRect().height)} px`),
+  );
+}
+
+/** The caution is on screen and sits above the tick it protects. */
+async function expectAbove(caution: Locator, tick: Locator) {
+  await expect(caution).toBeVisible();
+  const [c, t] = [await caution.boundingBox(), await tick.boundingBox()];
+  expect(c && t && c.y + c.height <= t.y, 'the caution comes before its tick').toBe(true);
+}
+
+async function tick(section: Locator, label: string) {
+  await section.getByRole('button', { name: label, exact: true }).click();
+  await expect(section.getByRole('button', { name: new RegExp(`^Untick step \\d: ${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`) })).toBeVisible();
+}
+
+async function fillReadings(form: Locator, values: Partial<Record<'Top (°C)' | 'Bottom (°C)' | 'Flow (°C), if taken' | 'Return (°C), if taken' | 'Room (°C), if taken', string>>) {
+  for (const [label, value] of Object.entries(values)) await form.getByLabel(label, { exact: true }).fill(value);
+}
+
+test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
+
+test('an engineer on a phone records a cleaning job from the survey to the report', async ({ page, baseURL }, testInfo) => {
+  test.setTimeout(180_000);
+  const { cleaner, inhibitor, agitatorTag } = await prepare(baseURL!);
+  const shot = (name: string) => page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
+
+  // The survey: two sized radiators with their rated outputs, one pipe run, a cleaner and an inhibitor.
+  await signIn(page, engineer, password);
+  await mainNav(page).getByRole('link', { name: 'Jobs' }).click();
+  await page.getByRole('link', { name: 'Book a job' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Book a job' })).toBeVisible();
+  const customerName = `Sheet household ${runId().toUpperCase()}`;
+  const address = `3 Sheet Row, Brackenford BF8 ${runId().slice(-3).toUpperCase()}`;
+  await page.getByLabel('Customer', { exact: true }).selectOption({ label: 'A new customer…' });
+  await page.getByRole('group', { name: 'New customer' }).getByLabel('Customer name').fill(customerName);
+  await page.getByRole('button', { name: 'Add the customer' }).click();
+  await expect(page.getByLabel('Customer', { exact: true }).locator('option:checked')).toHaveText(customerName);
+  await page.getByLabel('Site', { exact: true }).selectOption({ label: 'A new site…' });
+  await page.getByRole('group', { name: 'New site' }).getByLabel('Site address').fill(address);
+  await page.getByRole('button', { name: 'Add the site' }).click();
+  await expect(page.getByLabel('Site', { exact: true }).locator('option:checked')).toHaveText(address);
+
+  const live = page.getByRole('status', { name: 'Live system volume' });
+  await page.getByRole('button', { name: 'Add a radiator' }).click();
+  await page.getByRole('button', { name: 'Add a radiator' }).click();
+  const lounge = page.getByRole('group', { name: 'Radiator 1' });
+  await lounge.getByLabel('Room').fill('Lounge');
+  await lounge.getByLabel('Panel type').selectOption('double');
+  await lounge.getByLabel('Height (mm)').fill('600');
+  await lounge.getByLabel('Length (mm)').fill('1200');
+  await lounge.getByLabel('Rated output (W), if known').fill('1800');
+  const bedroom = page.getByRole('group', { name: 'Radiator 2' });
+  await bedroom.getByLabel('Room').fill('Bedroom');
+  await bedroom.getByLabel('Height (mm)').fill('600');
+  await bedroom.getByLabel('Length (mm)').fill('800');
+  await bedroom.getByLabel('Rated output (W), if known').fill('700');
+  await page.getByRole('button', { name: 'Add a pipe run' }).click();
+  await page.getByRole('group', { name: 'Pipe run 1' }).getByLabel('Length (m)').fill('12');
+  // 7.2 L double panel + 2.4 L single + 12 m of 15 mm copper (0.1453 L/m, EN 1057) + 1 L combi heat exchanger.
+  await expect(live).toHaveText('Volume 12.3 L');
+  await page.getByLabel(new RegExp(`^${cleaner.name}`)).check();
+  await page.getByLabel(new RegExp(`^${inhibitor.name}`)).check();
+  await expect(page.getByText(`${cleaner.name}: 1 pack`)).toBeVisible();
+  await expect(page.getByText(`${inhibitor.name}: 1 pack`)).toBeVisible();
+  await expectNoOverflow(page, 'the new job form');
+  await page.getByRole('button', { name: 'Book the job' }).click();
+
+  // The sheet: the plan first, nothing short on the van.
+  await expect(page.getByRole('heading', { level: 1, name: `Job at ${address}` })).toBeVisible();
+  await expect(page.getByLabel('System volume').getByText('System volume 12.3 L', { exact: true })).toBeVisible();
+  await expect(page.getByText(/short of/)).toHaveCount(0);
+  await shot('sheet-top-360');
+  await expectNoOverflow(page, 'the job sheet');
+
+  const stepList = page.getByRole('region', { name: 'Steps' });
+  const isolate = stepList.getByRole('button', { name: steps.isolate, exact: true });
+  await expectAbove(stepList.getByText(cautions.electrical), isolate);
+  await expectAbove(stepList.getByText(cautions.gas), isolate);
+  await tick(stepList, steps.isolate);
+  await expect(stepList.getByText(new RegExp(`^Done at \\d{2}:\\d{2} by ${engineerName}$`))).toHaveCount(1);
+  await expectAbove(stepList.getByRole('list', { name: 'Cautions before step 2' }).getByText(cautions.chemicals), stepList.getByRole('button', { name: steps.doseCleaner, exact: true }));
+  const circulation = stepList.getByRole('status', { name: 'Circulation' });
+  await expect(circulation).toContainText('circulation clock starts when the cleaner is dosed; this cleaner needs at least 60 minutes hot');
+  await tick(stepList, steps.doseCleaner);
+  await expect(circulation).toContainText('Circulated 0 of 60 minutes');
+  await expect(circulation).toContainText('Not yet');
+
+  // Unticking clears the time; ticking again records a new one.
+  await stepList.getByRole('button', { name: `Untick step 1: ${steps.isolate}` }).click();
+  await expect(isolate).toBeVisible();
+  await tick(stepList, steps.isolate);
+
+  // Readings before: the lounge has a cold bottom (20 K against the default 10 K threshold).
+  const radiators = page.getByRole('region', { name: 'Radiators' });
+  await expect(radiators.getByText(cautions.judgement)).toBeVisible();
+  const loungeCard = radiators.getByRole('group', { name: 'Radiator 1: Lounge' });
+  const bedroomCard = radiators.getByRole('group', { name: 'Radiator 2: Bedroom' });
+  const loungeBefore = loungeCard.getByRole('form', { name: 'Readings before' });
+  await fillReadings(loungeBefore, { 'Top (°C)': '168', 'Bottom (°C)': '48' });
+  await loungeBefore.getByRole('button', { name: 'Save before readings' }).click();
+  await expect(loungeBefore.getByText('Top temperature must be between -10 and 110 °C.')).toBeVisible();
+  await fillReadings(loungeBefore, { 'Top (°C)': '68' });
+  // EN 442: 1800 W x ((68 + 48) / 2 - 20 = 38 K / 50)^1.3 = 1260 W, worked out as typed.
+  await expect(loungeBefore.getByText('Top to bottom 20 K')).toBeVisible();
+  await expect(loungeBefore.getByText('Cold bottom', { exact: true })).toBeVisible();
+  await expect(loungeBefore.getByText('Output about 1,260 W of 1,800 W rated (EN 442)')).toBeVisible();
+  await loungeBefore.getByRole('button', { name: 'Save before readings' }).click();
+  await expect(loungeBefore.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await expect(loungeBefore.getByText('Cold bottom', { exact: true })).toBeVisible();
+
+  const bedroomBefore = bedroomCard.getByRole('form', { name: 'Readings before' });
+  await fillReadings(bedroomBefore, { 'Top (°C)': '62', 'Bottom (°C)': '58', 'Room (°C), if taken': '19' });
+  await expect(bedroomBefore.getByText('No cold bottom', { exact: true })).toBeVisible();
+  await expect(bedroomBefore.getByText('Output about 541 W of 700 W rated (EN 442)')).toBeVisible();
+  await bedroomBefore.getByRole('button', { name: 'Save before readings' }).click();
+  await expect(bedroomBefore.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await shot('sheet-radiators-360');
+
+  await tick(stepList, steps.circulate);
+  await expect(circulation).toContainText('ticked before the minimum time');
+
+  // Agitation with Rig 1's agitator at 10 m/s²: 2 x 10² x (12/60) h = 40 points, then 50 more.
+  for (const [card, minutes, points] of [[loungeCard, '12', '40'], [bedroomCard, '15', '50']] as const) {
+    const agitation = card.getByRole('form', { name: 'Agitation' });
+    await agitation.getByLabel('Agitation (minutes)').fill(minutes);
+    const tool = agitation.getByLabel('Vibrating tool');
+    const value = await tool.locator('option', { hasText: agitatorTag }).getAttribute('value');
+    await tool.selectOption(value!);
+    await expect(agitation.getByText(`${points} vibration points`)).toBeVisible();
+    await agitation.getByRole('button', { name: 'Save agitation' }).click();
+    await expect(agitation.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  }
+  // 90 points is within 80% of the exposure action value of 100 (HSE points system): a warning.
+  const vibration = page.getByRole('region', { name: 'Vibration today' }).getByRole('alert', { name: 'Vibration today' });
+  await expect(vibration).toContainText('90');
+  await expect(vibration).toContainText('nearing the exposure action value of 100');
+  await tick(stepList, steps.agitate);
+
+  const flush = stepList.getByRole('button', { name: steps.flush, exact: true });
+  await expectAbove(stepList.getByRole('list', { name: 'Cautions before step 5' }).getByText(cautions.drain), flush);
+  await expectAbove(stepList.getByRole('list', { name: 'Cautions before step 5' }).getByText(cautions.hotWater), flush);
+  await tick(stepList, steps.flush);
+
+  // Readings after: the lounge's cold bottom is gone; flow and return give the mean water temperature.
+  const loungeAfter = loungeCard.getByRole('form', { name: 'Readings after' });
+  await fillReadings(loungeAfter, { 'Top (°C)': '70', 'Bottom (°C)': '64', 'Flow (°C), if taken': '72', 'Return (°C), if taken': '62' });
+  await expect(loungeAfter.getByText('No cold bottom', { exact: true })).toBeVisible();
+  await expect(loungeAfter.getByText(/^Mean water to room 47 K/)).toBeVisible();
+  await expect(loungeAfter.getByText('Output about 1,661 W of 1,800 W rated (EN 442)')).toBeVisible();
+  await loungeAfter.getByRole('button', { name: 'Save after readings' }).click();
+  await expect(loungeAfter.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  const bedroomAfter = bedroomCard.getByRole('form', { name: 'Readings after' });
+  await fillReadings(bedroomAfter, { 'Top (°C)': '66', 'Bottom (°C)': '62' });
+  await bedroomAfter.getByRole('button', { name: 'Save after readings' }).click();
+  await expect(bedroomAfter.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await expect(radiators.getByText('2 of 2 read before and after')).toBeVisible();
+
+  // Water tests: not yet at 250 ppm against 180 (38.9% off), complete at 190 (5.6%) with clear water.
+  const water = page.getByRole('form', { name: 'Water tests' });
+  await expect(water.getByText(cautions.judgement)).toBeVisible();
+  await water.getByLabel('Mains TDS (ppm)').fill('180');
+  await water.getByLabel('System TDS (ppm)').fill('250');
+  await water.getByText('Yes, clear').click();
+  await expect(water.getByText('Not yet: 38.9% from mains. Keep flushing until within 10%.')).toBeVisible();
+  await water.getByLabel('System TDS (ppm)').fill('190');
+  await expect(water.getByText('Flush complete: system water within 5.6% of mains, and clear.')).toBeVisible();
+  await expect(water.getByLabel('Inhibitor', { exact: true }).locator('option:checked')).toHaveText(inhibitor.name);
+  await water.getByLabel('Inhibitor reading (% v/v)').fill('0.6');
+  await expect(water.getByText('Inhibitor low: dose more and test again (target 1 to 1.5 % v/v).')).toBeVisible();
+  await water.getByLabel('Inhibitor reading (% v/v)').fill('1.2');
+  await expect(water.getByText('Inhibitor pass (target 1 to 1.5 % v/v).')).toBeVisible();
+  await water.getByLabel('pH, if taken').fill('7.8');
+  await water.getByRole('button', { name: 'Save the water tests' }).click();
+  await expect(water.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await expect(page.getByText('flush complete · inhibitor pass')).toBeVisible();
+
+  const doseInhibitor = stepList.getByRole('button', { name: steps.doseInhibitor, exact: true });
+  await expectAbove(stepList.getByRole('list', { name: 'Cautions before step 6' }).getByText(cautions.chemicals), doseInhibitor);
+  await tick(stepList, steps.doseInhibitor);
+  await tick(stepList, steps.reinstate);
+  await expect(page.getByText('7 of 7 ticked')).toBeVisible();
+
+  // Kit used: the agitator and the rig from the van.
+  const kit = page.getByRole('form', { name: 'Kit used' });
+  await kit.getByLabel(new RegExp(`^${agitatorTag}`)).check();
+  await kit.getByRole('button', { name: 'Save the kit used' }).click();
+  await expect(kit.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await expect(page.getByText('1 item', { exact: true })).toBeVisible();
+
+  // A photo of the magnet after the clean, from a PNG this test writes.
+  const pngPath = testInfo.outputPath('magnet-after.png');
+  writePng(pngPath);
+  const addPhoto = page.getByRole('form', { name: 'Add a photo' });
+  await addPhoto.getByLabel('Photo', { exact: true }).setInputFiles(pngPath);
+  await addPhoto.getByLabel('What it shows').selectOption({ label: 'Filter magnet after' });
+  await addPhoto.getByLabel('Caption (optional)').fill('Magnet after the clean');
+  await addPhoto.getByRole('button', { name: 'Add the photo' }).click();
+  const thumbnail = page.getByRole('list', { name: 'Photos' }).getByRole('img', { name: 'Magnet after the clean' });
+  await expect(thumbnail).toBeVisible();
+  await expect.poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBeGreaterThan(0);
+
+  const notes = page.getByRole('form', { name: 'Notes' });
+  await notes.getByLabel('Notes for the record').fill('Heavy sludge in the lounge radiator; cleared after agitation.');
+  await notes.getByRole('button', { name: 'Save the notes' }).click();
+  await expect(notes.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible();
+  await shot('sheet-filled-360');
+  await expectNoOverflow(page, 'the filled job sheet');
+  expect(await smallTargets(page), 'tap targets under 48 px').toEqual([]);
+
+  // Completion takes the chemicals off the van; the sheet becomes the record.
+  await page.getByRole('button', { name: 'Complete the job' }).click();
+  await expect(page.getByText(/off the van\. Complete the job\?$/)).toBeVisible();
+  await page.getByRole('button', { name: 'Yes, complete it' }).click();
+  await expect(page.getByText('Completed', { exact: true })).toBeVisible();
+  const used = page.getByRole('list', { name: 'Chemicals used' });
+  await expect(used.getByText(`1 × ${cleaner.name}`)).toBeVisible();
+  await expect(used.getByText(`1 × ${inhibitor.name}`)).toBeVisible();
+  await expect(page.getByText(/^Next annual check:/)).toBeVisible();
+  await expect(page.getByRole('button', { name: /^Untick|^Save|^Add the photo$/ })).toHaveCount(0);
+  await expect(stepList.getByText(new RegExp(`^Done at \\d{2}:\\d{2} by ${engineerName}$`))).toHaveCount(7);
+  await expect(loungeBefore.getByLabel('Top (°C)', { exact: true })).toBeDisabled();
+  await shot('sheet-completed-360');
+  await expectNoOverflow(page, 'the completed job sheet');
+
+  const report = page.getByRole('link', { name: /^Download the report/ });
+  const [download] = await Promise.all([page.waitForEvent('download'), report.click()]);
+  const pdfPath = testInfo.outputPath('report.pdf');
+  await download.saveAs(pdfPath);
+  expect(statSync(pdfPath).size).toBeGreaterThan(0);
+  expect(readFileSync(pdfPath).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+});
