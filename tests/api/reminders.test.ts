@@ -337,7 +337,7 @@ describe('service-due reminders', () => {
 
     const admin = await signIn(t.app, other.people.admin.email);
     const defaults = await admin.get('/api/reminder-settings').expect(200);
-    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, annualCheckReminders: true, lastScanOn: null });
+    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, annualCheckReminders: true, annualCheckCustomerEmails: false, lastScanOn: null });
     const off = await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: false, vanReminders: true });
     expect(off.status).toBe(200);
     expect(off.body.settings).toMatchObject({ scanHour: 6, inspectionReminders: false, vanReminders: true, stockReminders: true });
@@ -579,5 +579,37 @@ describe('annual check reminders', () => {
     await t.deps.db('sites').where({ firm_id: firm.firmId, address: '9 Later Lane' }).update({ next_check_on: addDays(today(), 5) });
     expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);
     expect(await findEmails(firm.people.engineer.email)).toHaveLength(0);
+  });
+
+  it('tells the customer too, once, only where the firm has turned it on and the customer has an e-mail', async () => {
+    const firm = await seedBareFirm('annual-customer');
+    const customerEmail = uniqueEmail('householder');
+    const [withEmail] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'Rowan Householder', email: customerEmail })) as number[];
+    const [withoutEmail] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'No Mail Customer' })) as number[];
+    const due = addDays(today(), 10);
+    await t.deps.db('sites').insert([
+      { firm_id: firm.firmId, customer_id: withEmail, address: '3 Sludge Row', next_check_on: due },
+      { firm_id: firm.firmId, customer_id: withoutEmail, address: '5 Quiet Close', next_check_on: due },
+    ]);
+    const owner = await signIn(t.app, firm.people.owner.email);
+    // Off by default: the office hears of both sites, the customer nothing.
+    expect((await owner.get('/api/reminder-settings')).body.settings.annualCheckCustomerEmails).toBe(false);
+    expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(2);
+    await waitForEmail(firm.people.owner.email, { subject: /annual checks/ });
+    expect(await findEmails(customerEmail)).toHaveLength(0);
+
+    const saved = await owner.put('/api/reminder-settings', { scanHour: 7, inspectionReminders: true, vanReminders: true, annualCheckCustomerEmails: true });
+    expect(saved.status).toBe(200);
+    // The next period (the date reset by a later check) is a new reminder, and now the customer hears of it.
+    const nextDue = addDays(today(), 12);
+    await t.deps.db('sites').where({ firm_id: firm.firmId }).update({ next_check_on: nextDue });
+    const second = await runReminderScan(t.deps, firm.firmId, t.clock.now());
+    expect(second.reminders).toBe(2);
+    expect(second.emails).toBe(3); // owner, stores and the one customer with an e-mail
+    const toCustomer = await waitForEmail(customerEmail, { subject: /yearly check is due/ });
+    expect(toCustomer.text).toContain('3 Sludge Row');
+    expect(toCustomer.text).not.toContain('5 Quiet Close');
+    expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).emails).toBe(0);
+    expect(await findEmails(customerEmail)).toHaveLength(1);
   });
 });

@@ -254,8 +254,11 @@ async function main(): Promise<void> {
     targets.push({ target: `${r.name}: signed-in read >= 40% of baseline`, measured: `${(r.ratioToBaseline * 100).toFixed(1)}%`, met: r.ratioToBaseline >= 0.4 });
     if (listPages.includes(r.name)) targets.push({ target: `${r.name}: p99 <= 50 ms at ${readConnections} connections`, measured: `${r.p99Ms} ms`, met: r.p99Ms <= 50 });
   }
+  // Judged on the cost under load (thousands of requests); the 20 requests alone are shown beside it, and on a
+  // shared machine they swing by 2x from one run to the next.
   for (const g of growth.filter((x) => x.name.startsWith('ledger'))) {
-    targets.push({ target: `${g.name}: cost at 1M <= 1.2x cost at 10k`, measured: g.ratio1MTo10k === null ? 'n/a' : `${g.ratio1MTo10k}x (${g.aloneMs['10k']} -> ${g.aloneMs['1M']} ms alone)`, met: g.ratio1MTo10k === null ? null : g.ratio1MTo10k <= 1.2 });
+    const r = g.underLoadCostRatio1MTo10k;
+    targets.push({ target: `${g.name}: cost at 1M <= 1.2x cost at 10k`, measured: r === null ? 'n/a' : `${r}x under load (alone ${g.aloneMs['10k']} -> ${g.aloneMs['1M']} ms, ${g.ratio1MTo10k}x)`, met: r === null ? null : r <= 1.2 });
   }
   const restock = find('restock run', 'large');
   targets.push({ target: 'restock run, 200 vans x 100 products: <= 200 ms', measured: restock ? `${restock.serialMedianMs} ms alone (p50 ${restock.p50Ms} ms at ${readConnections} connections)` : 'n/a', met: restock ? restock.serialMedianMs <= 200 : null });

@@ -24,6 +24,8 @@ export const reminderSettingsSchema = z.strictObject({
   // left out, the firm's current choice stays as it is.
   stockReminders: z.boolean().optional(),
   annualCheckReminders: z.boolean().optional(),
+  /** Also e-mail each customer whose e-mail is on file when their site falls due (off by default). */
+  annualCheckCustomerEmails: z.boolean().optional(),
 });
 export type ReminderSettings = z.infer<typeof reminderSettingsSchema>;
 
@@ -49,6 +51,7 @@ export const BATCH_EXPIRY_WINDOW_DAYS = 60;
 export const reminderSettingsViewSchema = reminderSettingsSchema.extend({
   stockReminders: z.boolean(),
   annualCheckReminders: z.boolean(),
+  annualCheckCustomerEmails: z.boolean(),
   lastScanOn: z.string().nullable(),
 });
 export type ReminderSettingsView = z.infer<typeof reminderSettingsViewSchema>;
@@ -60,6 +63,7 @@ export const defaultReminderSettings: Omit<ReminderSettingsView, 'lastScanOn'> =
   vanReminders: true,
   stockReminders: true,
   annualCheckReminders: true,
+  annualCheckCustomerEmails: false,
 };
 
 /** A customer's site is reminded this many days before its annual inhibitor check: common practice (no source). */

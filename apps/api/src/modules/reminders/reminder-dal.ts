@@ -27,6 +27,7 @@ interface SettingsRow {
   van_reminders: number | boolean;
   stock_reminders: number | boolean;
   annual_check_reminders: number | boolean;
+  annual_check_customer_emails: number | boolean;
   last_scan_on: string | null;
 }
 
@@ -38,12 +39,13 @@ const toSettings = (row: SettingsRow | undefined): ReminderSettingsView =>
         vanReminders: Boolean(row.van_reminders),
         stockReminders: Boolean(row.stock_reminders),
         annualCheckReminders: Boolean(row.annual_check_reminders),
+        annualCheckCustomerEmails: Boolean(row.annual_check_customer_emails),
         lastScanOn: row.last_scan_on,
       }
     : { ...defaultReminderSettings, lastScanOn: null };
 
 export async function findReminderSettings(db: Db, firmId: number): Promise<ReminderSettingsView> {
-  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'last_scan_on')) as
+  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'annual_check_customer_emails', 'last_scan_on')) as
     | SettingsRow
     | undefined;
   return toSettings(row);
@@ -57,6 +59,7 @@ export async function saveReminderSettings(db: Db, firmId: number, settings: Rem
   const stock = {
     ...(settings.stockReminders === undefined ? {} : { stock_reminders: settings.stockReminders }),
     ...(settings.annualCheckReminders === undefined ? {} : { annual_check_reminders: settings.annualCheckReminders }),
+    ...(settings.annualCheckCustomerEmails === undefined ? {} : { annual_check_customer_emails: settings.annualCheckCustomerEmails }),
   };
   await db('reminder_settings')
     .insert({
@@ -92,7 +95,7 @@ export async function lockFirmForScan(trx: Knex.Transaction, firmId: number): Pr
   const row = (await trx('reminder_settings')
     .where({ firm_id: firmId })
     .forUpdate()
-    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'last_scan_on')) as SettingsRow | undefined;
+    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'annual_check_customer_emails', 'last_scan_on')) as SettingsRow | undefined;
   return { id: firm.id, name: firm.name, timeZone: firm.time_zone, settings: toSettings(row) };
 }
 
@@ -104,7 +107,7 @@ export async function markFirmScanned(trx: Knex.Transaction, firmId: number, on:
 export async function listFirmsToScan(db: Db, firmIds?: number[]): Promise<FirmToScan[]> {
   const q = db('firms as f')
     .leftJoin('reminder_settings as s', 's.firm_id', 'f.id')
-    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.annual_check_reminders', 's.last_scan_on')
+    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.annual_check_reminders', 's.annual_check_customer_emails', 's.last_scan_on')
     .orderBy('f.id');
   if (firmIds) q.whereIn('f.id', firmIds);
   const rows = (await q) as (SettingsRow & { id: number; name: string; time_zone: string; scan_hour: number | null })[];
@@ -408,6 +411,7 @@ export interface SiteForScan {
   id: number;
   address: string;
   customerName: string;
+  customerEmail: string | null;
   nextCheckOn: string;
 }
 
@@ -417,6 +421,6 @@ export async function listSitesForScan(trx: Knex.Transaction, firmId: number): P
     .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
     .where('s.firm_id', firmId)
     .whereNotNull('s.next_check_on')
-    .select('s.id', 's.address', 'c.name as customer_name', 's.next_check_on')) as { id: number; address: string; customer_name: string; next_check_on: string }[];
-  return rows.map((r) => ({ id: r.id, address: r.address, customerName: r.customer_name, nextCheckOn: r.next_check_on }));
+    .select('s.id', 's.address', 'c.name as customer_name', 'c.email as customer_email', 's.next_check_on')) as { id: number; address: string; customer_name: string; customer_email: string | null; next_check_on: string }[];
+  return rows.map((r) => ({ id: r.id, address: r.address, customerName: r.customer_name, customerEmail: r.customer_email, nextCheckOn: r.next_check_on }));
 }

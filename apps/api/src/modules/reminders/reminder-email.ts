@@ -70,3 +70,18 @@ ${parts.map((s) => `<h3>${escapeHtml(s.title)}</h3>\n<ul>${s.lines.map((l) => `<
     p.audience.kind === 'office' ? `${p.firmName}: ${count(p.lines.length)} for ${topics(p.lines)}` : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
   return { subject, text: `${text}\n`, html };
 }
+
+/** To a customer whose site falls due its yearly inhibitor check, when the firm has turned this on. */
+export function annualCheckCustomerEmail(p: { firmName: string; customerName: string; address: string; dueOn: string }): RenderedDigest {
+  const due = new Date(`${p.dueOn}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+  const paragraphs = [
+    `Dear ${p.customerName},`,
+    `The heating system at ${p.address} is due its yearly inhibitor check on ${due}. The check tests that the protective inhibitor in the system water is still at the right strength, so the radiators and boiler stay free of sludge and scale.`,
+    `Please contact ${p.firmName} to arrange a visit.`,
+    p.firmName,
+  ];
+  const html = `<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">
+${paragraphs.map((line) => `<p>${escapeHtml(line)}</p>`).join('\n')}
+</body></html>`;
+  return { subject: `${p.firmName}: your heating system's yearly check is due`, text: `${paragraphs.join('\n\n')}\n`, html };
+}

@@ -22,7 +22,7 @@ import {
   type SiteForScan,
   type VanForScan,
 } from './reminder-dal.ts';
-import { reminderDigestEmail, type DigestLine } from './reminder-email.ts';
+import { annualCheckCustomerEmail, reminderDigestEmail, type DigestLine } from './reminder-email.ts';
 import { stockCandidates } from './reminder-stock.ts';
 
 /** What a scan needs; AppDeps has all of it, and the worker builds the same from its own parts. */
@@ -44,6 +44,8 @@ export interface ScanResult {
 /** A reminder found by this scan, with whose van it concerns (for the engineer's own digest). */
 interface Candidate extends NewReminder {
   vanEngineerMemberId: number | null;
+  /** For an annual check: the customer to tell too, where the firm has turned that on. */
+  customer?: { name: string; email: string | null; address: string; dueOn: string };
 }
 
 /** The hour of the day (0 to 23) an instant falls in, in a time zone. */
@@ -137,6 +139,7 @@ function annualCheckCandidates(sites: SiteForScan[], today: CalendarDate): Candi
       periodKey: site.nextCheckOn,
       summary: `${site.customerName}, ${site.address}: annual inhibitor check ${daysLeft < 0 ? `overdue since ${site.nextCheckOn}` : `due on ${site.nextCheckOn}`}`,
       vanEngineerMemberId: null,
+      customer: { name: site.customerName, email: site.customerEmail, address: site.address, dueOn: site.nextCheckOn },
     });
   }
   return found;
@@ -211,6 +214,15 @@ export async function runReminderScan(
           firmId,
           digest.reminders.map((r) => ({ reminderId: r.id, emailId, recipient: digest.recipient.email })),
         );
+      }
+    }
+    if (firm.settings.annualCheckCustomerEmails) {
+      for (const r of fresh) {
+        if (r.kind !== 'annual_check_due' || !r.customer?.email) continue;
+        const email = annualCheckCustomerEmail({ firmName: firm.name, customerName: r.customer.name, address: r.customer.address, dueOn: r.customer.dueOn });
+        const emailId = await insertEmail(trx, { firmId, to: r.customer.email, ...email, purpose: 'reminder' });
+        emailIds.push(emailId);
+        await insertReminderDeliveries(trx, firmId, [{ reminderId: r.id, emailId, recipient: r.customer.email }]);
       }
     }
     if (options.sweep) await markFirmScanned(trx, firmId, today);

@@ -10,7 +10,7 @@ import { useSchemaForm } from '@/lib/form';
 import { reminderQueries } from '@/features/reminders/api/reminder-queries';
 import { useSaveReminderSettings } from '@/features/reminders/api/use-reminder-actions';
 
-const fields = ['scanHour', 'inspectionReminders', 'vanReminders', 'stockReminders', 'annualCheckReminders'] as const;
+const fields = ['scanHour', 'inspectionReminders', 'vanReminders', 'stockReminders', 'annualCheckReminders', 'annualCheckCustomerEmails'] as const;
 const hours = Array.from({ length: 24 }, (_, h) => ({ value: String(h), label: `${String(h).padStart(2, '0')}:00` }));
 
 function prepare(values: Record<string, string | undefined>) {
@@ -20,6 +20,7 @@ function prepare(values: Record<string, string | undefined>) {
     vanReminders: values.vanReminders === 'on',
     stockReminders: values.stockReminders === 'on',
     annualCheckReminders: values.annualCheckReminders === 'on',
+    annualCheckCustomerEmails: values.annualCheckCustomerEmails === 'on',
   };
 }
 
@@ -73,6 +74,13 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
         <span>
           <span className="font-semibold">Customers&apos; annual checks</span>
           <span className="block text-sm text-ink-muted">Sites due their yearly inhibitor check within 30 days, to the owner and stores</span>
+        </span>
+      </label>
+      <label className="flex min-h-11 items-center gap-3">
+        <input type="checkbox" name="annualCheckCustomerEmails" defaultChecked={settings.annualCheckCustomerEmails} className="size-5 accent-brand-700" />
+        <span>
+          <span className="font-semibold">Tell the customer too</span>
+          <span className="block text-sm text-ink-muted">E-mail each customer whose e-mail is on file when their annual check falls due (once per check)</span>
         </span>
       </label>
       <Button type="submit" busy={save.isPending}>
