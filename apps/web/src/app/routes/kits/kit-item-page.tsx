@@ -94,6 +94,12 @@ export function KitItemPage() {
                   <dt className="text-sm font-semibold text-ink-muted">Serial number</dt>
                   <dd>{item.serialNumber ?? 'Not recorded'}</dd>
                 </div>
+                {item.vibrationMs2 != null ? (
+                  <div>
+                    <dt className="text-sm font-semibold text-ink-muted">Vibration magnitude</dt>
+                    <dd>{item.vibrationMs2} m/s² (counts towards the hand-arm vibration points of each agitation)</dd>
+                  </div>
+                ) : null}
                 {item.notes ? (
                   <div className="sm:col-span-2">
                     <dt className="text-sm font-semibold text-ink-muted">Notes</dt>
