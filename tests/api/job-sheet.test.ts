@@ -126,9 +126,9 @@ describe('radiator readings', () => {
     const r1 = after.body.sheet.radiators[0].after;
     expect(r1).toMatchObject({ differenceK: 6, deltaTK: 60, coldBottom: false });
     expect(Math.abs(r1.outputWatts - 12_675)).toBeLessThanOrEqual(1);
-    // At the rating point 75/65/20 (dT 50) the output is the rated output.
+    // At the rating point 75/65/20 (dT 50) the output is the rated output; the room not taken stays "not taken", the 20 °C rating room is used.
     const rated = await s.engineer.put(`/api/jobs/${s.jobId}/radiators/0/readings/after`, { topC: 75, bottomC: 65, flowC: 75, returnC: 65 });
-    expect(rated.body.sheet.radiators[0].after).toMatchObject({ deltaTK: 50, roomC: 20, outputWatts: 10_000 });
+    expect(rated.body.sheet.radiators[0].after).toMatchObject({ deltaTK: 50, roomC: null, roomUsedC: 20, outputWatts: 10_000 });
     // No rated output on the survey: no watts, but the difference and the flag.
     const landing = await s.engineer.put(`/api/jobs/${s.jobId}/radiators/1/readings/before`, { topC: 60, bottomC: 49.5 });
     expect(landing.body.sheet.radiators[1].before).toMatchObject({ differenceK: 10.5, coldBottom: true, outputWatts: null, deltaTFrom: 'surfaces' });

@@ -12,7 +12,7 @@ describe('radiator readings on the sheet', () => {
   it('falls back to the surface readings and the 20 °C rating room', () => {
     const f = readingFigures({ topC: 55, bottomC: 45 }, 1000, 10);
     expect(f.deltaTFrom).toBe('surfaces');
-    expect(f.roomC).toBe(20);
+    expect(f.roomUsedC).toBe(20);
     expect(f.deltaTK).toBe(30);
     expect(f.outputWatts).toBe(515);
   });

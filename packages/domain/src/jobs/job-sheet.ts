@@ -109,7 +109,8 @@ export interface ReadingFigures {
   /** Mean water to room, from flow and return where taken, else from the top and bottom surface readings. */
   deltaTK: number;
   deltaTFrom: 'flow_return' | 'surfaces';
-  roomC: number;
+  /** The room temperature the dT was reckoned from: the one taken, or the 20 °C rating room; kept apart from the reading's own roomC so "not taken" stays visible. */
+  roomUsedC: number;
   /** EN 442 output at this dT from the radiator's rated output at dT 50, when the survey has it. */
   outputWatts: number | null;
 }
@@ -123,7 +124,7 @@ export function readingFigures(r: RadiatorReadingInput, ratedWatts: number | nul
     coldBottom: coldBottom(r.topC, r.bottomC, thresholdK),
     deltaTK: round1(deltaTK),
     deltaTFrom: fromFlow ? 'flow_return' : 'surfaces',
-    roomC,
+    roomUsedC: roomC,
     outputWatts: ratedWatts ? Math.round(radiatorOutputWatts(ratedWatts, deltaTK, exponent)) : null,
   };
 }

@@ -58,7 +58,7 @@ function issuesByField(issues: ReadonlyArray<{ path: PropertyKey[]; message: str
 
 const watts = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 });
 
-function FiguresView({ figures, ratedWatts, live }: { figures: ReadingFigures | null; ratedWatts: number | null; live: boolean }) {
+function FiguresView({ figures, roomTaken, ratedWatts, live }: { figures: ReadingFigures | null; roomTaken: boolean; ratedWatts: number | null; live: boolean }) {
   if (!figures) return <p className="text-ink-muted">Enter the top and bottom temperatures to see the difference.</p>;
   return (
     <div className="space-y-1 rounded-md bg-canvas px-3 py-2">
@@ -67,7 +67,7 @@ function FiguresView({ figures, ratedWatts, live }: { figures: ReadingFigures | 
         {figures.coldBottom ? <Badge tone="danger">Cold bottom</Badge> : <Badge tone="ok">No cold bottom</Badge>}
       </p>
       <p className="tabular-nums">
-        Mean water to room {figures.deltaTK} K <span className="text-ink-muted">({figures.deltaTFrom === 'flow_return' ? 'from flow and return' : 'from the surfaces'}, room {figures.roomC} °C)</span>
+        Mean water to room {figures.deltaTK} K <span className="text-ink-muted">({figures.deltaTFrom === 'flow_return' ? 'from flow and return' : 'from the surfaces'}, room {figures.roomUsedC} °C{roomTaken ? '' : ' (not taken: the rating room)'})</span>
       </p>
       <p className="tabular-nums">
         {figures.outputWatts !== null && ratedWatts !== null
@@ -126,7 +126,7 @@ function ReadingForm({ jobId, radiator, phase, sheet }: { jobId: number; radiato
           />
         ))}
       </fieldset>
-      <FiguresView figures={figures} ratedWatts={radiator.ratedWatts} live={dirty && live !== null} />
+      <FiguresView figures={figures} roomTaken={saved && !dirty ? saved.roomC != null : parsed.success && parsed.data.roomC != null} ratedWatts={radiator.ratedWatts} live={dirty && live !== null} />
       {sheet.editable ? (
         <>
           <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
