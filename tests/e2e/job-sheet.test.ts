@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { statSync, writeFileSync, readFileSync } from 'node:fs';
 import { deflateSync, crc32 } from 'node:zlib';
-import { expect, request as playwrightRequest, test, type APIRequestContext, type Locator, type Page } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
 
 // Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1", which carries Rig 1.
 const password = 'heatfleet-demo-2026';
@@ -28,16 +28,6 @@ const cautions = {
   hotWater: 'Hot water and surfaces scald: let the system cool before draining.',
   judgement: 'These figures support your judgement; they do not replace it.',
 };
-
-async function signInToApi(baseURL: string, email: string): Promise<{ api: APIRequestContext; csrf: string }> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const first = await api.get('/api/auth/csrf');
-  expect(first.ok()).toBe(true);
-  const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
-  expect(signedIn.status(), await signedIn.text()).toBe(200);
-  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
-}
 
 /**
  * As the owner: a cleaner (60 minutes hot) and an inhibitor (1 to 1.5 % v/v) of this run's own, one

@@ -1,5 +1,5 @@
-import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test } from '@playwright/test';
+import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
 
 // Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1".
 const password = 'heatfleet-demo-2026';
@@ -11,16 +11,6 @@ const photoPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAgAAAAICAIAAABLbSncAAAAEklEQVR4nGNgYGD4z0AswK4SAFXuAf8EPy+xAAAAAElFTkSuQmCC',
   'base64',
 );
-
-async function signInToApi(baseURL: string, email: string): Promise<{ api: APIRequestContext; csrf: string }> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const first = await api.get('/api/auth/csrf');
-  expect(first.ok()).toBe(true);
-  const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
-  expect(signedIn.status(), await signedIn.text()).toBe(200);
-  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
-}
 
 /** Stores makes a fresh kit with two items for this run, so the test never depends on where the demo kits are. */
 async function prepareKit(baseURL: string) {

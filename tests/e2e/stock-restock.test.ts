@@ -1,20 +1,10 @@
-import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test, type Page } from '@playwright/test';
+import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
 
 // Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1".
 const password = 'heatfleet-demo-2026';
 const stores = 'stores@brackenford.example';
 const engineer = 'engineer@brackenford.example';
-
-async function signInToApi(baseURL: string, email: string): Promise<{ api: APIRequestContext; csrf: string }> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const first = await api.get('/api/auth/csrf');
-  expect(first.ok()).toBe(true);
-  const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
-  expect(signedIn.status(), await signedIn.text()).toBe(200);
-  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
-}
 
 /**
  * A product of its own for this run, with par levels on the engineer's van, so the numbers the test
