@@ -67,11 +67,23 @@ async function firmIds(pool: Pool, firmId: number) {
   return { depotId: depot!.id, vans, products, movements: Number(count!.n), deepCursor: Number(deep!.id) };
 }
 
+/** Waits until the API answers promptly again: requests queued behind a slow read are still running after autocannon stops. */
+async function drained(): Promise<void> {
+  const deadline = Date.now() + 120_000;
+  while (Date.now() < deadline) {
+    const began = Date.now();
+    const ok = await httpAnswers200(`${api}/api/health`);
+    if (ok && Date.now() - began < 500) return;
+    await new Promise((resolve) => setTimeout(resolve, 1_000));
+  }
+}
+
 async function measureRead(name: string, firm: string, movements: number, path: string, session: Session, baselineRps: number): Promise<ReadFigure> {
   const headers = { cookie: session.cookie };
   const serial = await serialLatency(`${api}${path}`, headers, serialCount);
   await load({ url: `${api}${path}`, connections: 8, seconds: 1, headers });
   const result = await load({ url: `${api}${path}`, connections: readConnections, seconds, headers });
+  await drained();
   const figure = { name, firm, movements, path, ...result, ratioToBaseline: round(result.requestsPerSecond / baselineRps, 3), serialMedianMs: serial.medianMs, serialMaxMs: serial.maxMs, status: serial.status };
   say(`  ${name.padEnd(16)} ${firm.padEnd(7)} ${String(result.requestsPerSecond).padStart(8)} req/s  ${(figure.ratioToBaseline * 100).toFixed(1).padStart(5)}% of baseline  p50 ${result.p50Ms} ms  p99 ${result.p99Ms} ms  alone ${serial.medianMs} ms  errors ${result.errors}${serial.status === 200 ? '' : `  (answers ${serial.status})`}`);
   return figure;
@@ -212,6 +224,7 @@ async function main(): Promise<void> {
   ] as const) {
     const since = await lastId();
     const result = await load({ url: `${api}/api/stock/usages`, method: 'POST', connections, seconds, headers: writeHeaders, bodyFor: body });
+    await drained();
     const acknowledged = result.statusCounts['201'] ?? 0;
     const ledgerRows = await usedRows([...vans], productId, since);
     writes.push({ name, ...result, acknowledged, ledgerRows });
