@@ -11,7 +11,14 @@ import { ExpiringBatchesSummary, JobsThisMonthSummary, KitDueSummary, LinkCard, 
 
 export function OwnerOverview() {
   const overview = useQuery(overviewQueries.detail());
-  if (overview.isPending) return <PageSpinner label="Loading the overview…" />;
+  // The overview fills more than a screen: holding that space while it loads keeps the cards below it
+  // from jumping down when it arrives (layout shift).
+  if (overview.isPending)
+    return (
+      <div className="min-h-screen">
+        <PageSpinner label="Loading the overview…" />
+      </div>
+    );
   if (overview.isError) return <QueryErrorNotice error={overview.error} onRetry={() => void overview.refetch()} />;
   const o = overview.data;
   return (
