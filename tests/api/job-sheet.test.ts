@@ -155,6 +155,25 @@ describe('radiator readings', () => {
   });
 });
 
+describe('flushed radiator by radiator', () => {
+  it('a tick records when each radiator was flushed until clear; a second tick keeps the first time; clearing removes it', async () => {
+    const s = await setUp('flushed');
+    const first = await s.engineer.put(`/api/jobs/${s.jobId}/radiators/1/flushed`, { done: true });
+    expect(first.status).toBe(200);
+    const at = first.body.sheet.radiators[1].flushedAt as string;
+    expect(Math.abs(Date.parse(at) - t.clock.now().getTime())).toBeLessThan(5_000);
+    expect(first.body.sheet.radiators[0].flushedAt).toBeNull();
+    t.clock.advance(minutes(3));
+    expect((await s.engineer.put(`/api/jobs/${s.jobId}/radiators/1/flushed`, { done: true })).body.sheet.radiators[1].flushedAt).toBe(at);
+    expect((await s.engineer.put(`/api/jobs/${s.jobId}/radiators/1/flushed`, { done: false })).body.sheet.radiators[1].flushedAt).toBeNull();
+    const off = await s.engineer.put(`/api/jobs/${s.jobId}/radiators/9/flushed`, { done: true });
+    expect(off.status).toBe(404);
+    expect(off.body.message).toBe('That radiator is not on this job\u2019s survey.');
+    expect((await s.engineer.put(`/api/jobs/${s.jobId}/radiators/0/flushed`, { done: 'yes' })).status).toBe(422);
+    expect(await t.deps.db('job_radiator_flushes').where({ firm_id: s.firm.firmId, job_id: s.jobId }).count({ n: '*' }).first()).toEqual({ n: 0 });
+  });
+});
+
 describe('agitation and the hand-arm vibration day', () => {
   it('HSE points: 10 m/s\u00b2 for 30 min is 100, 5 m/s\u00b2 for 3 h is 150; the day sums both jobs of the engineer', async () => {
     const s = await setUp('hav');
@@ -284,6 +303,7 @@ function writes(client: Client, s: Setup, jobId = s.jobId) {
     ['step', () => client.put(`/api/jobs/${jobId}/steps/flush`, { done: true })],
     ['reading', () => client.put(`/api/jobs/${jobId}/radiators/0/readings/after`, { topC: 70, bottomC: 66 })],
     ['agitation', () => client.put(`/api/jobs/${jobId}/radiators/0/agitation`, { minutes: 5 })],
+    ['flushed', () => client.put(`/api/jobs/${jobId}/radiators/0/flushed`, { done: true })],
     ['water', () => client.put(`/api/jobs/${jobId}/water-tests`, { mainsTdsPpm: 150, systemTdsPpm: 155, waterClear: true })],
     ['kit', () => client.put(`/api/jobs/${jobId}/kit`, { kitItemIds: [] })],
     ['notes', () => client.put(`/api/jobs/${jobId}/notes`, { notes: 'late note' })],
@@ -293,7 +313,7 @@ function writes(client: Client, s: Setup, jobId = s.jobId) {
 
 async function sheetRowCounts(s: Setup) {
   const where = { firm_id: s.firm.firmId, job_id: s.jobId };
-  const counts = await Promise.all(['job_steps', 'job_radiator_readings', 'job_agitations', 'job_water_tests', 'job_kit_items', 'photos'].map((tb) => t.deps.db(tb).where(where).count({ n: '*' }).first()));
+  const counts = await Promise.all(['job_steps', 'job_radiator_readings', 'job_agitations', 'job_water_tests', 'job_kit_items', 'photos', 'job_radiator_flushes'].map((tb) => t.deps.db(tb).where(where).count({ n: '*' }).first()));
   const job = await t.deps.db('jobs').where({ id: s.jobId }).first('notes');
   return { counts: counts.map((c) => Number((c as { n: number }).n)), notes: job.notes as string | null };
 }
@@ -306,7 +326,7 @@ describe('who may write, and when', () => {
     const stranger = await seedFirm(t.deps.db, 'writes-stranger');
     const owner = await signIn(t.app, stranger.people.owner.email);
     for (const [label, call] of writes(owner, s)) expect((await call()).status, label).toBe(404);
-    expect((await sheetRowCounts(s)).counts).toEqual([0, 0, 0, 0, 0, 0]);
+    expect((await sheetRowCounts(s)).counts).toEqual([0, 0, 0, 0, 0, 0, 0]);
     // The office may write an engineer's sheet.
     const stores = await signIn(t.app, s.firm.people.stores.email);
     expect((await stores.put(`/api/jobs/${s.jobId}/notes`, { notes: 'office note' })).status).toBe(200);
@@ -428,6 +448,7 @@ describe('the completion report with the job sheet', () => {
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/1/readings/before`, { topC: 61.5, bottomC: 47.5 }));
     // 10 m/s^2 for 30 minutes: 100 HSE points.
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/agitation`, { minutes: 30, kitItemId: s.toolId }));
+    ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/flushed`, { done: true }));
     ok(await e.put(`/api/jobs/${s.jobId}/water-tests`, { mainsTdsPpm: 200, systemTdsPpm: 215, waterClear: true, inhibitorReading: 1.2, inhibitorProductId: s.inhibitorId, ph: 7.8 }));
     ok(await e.put(`/api/jobs/${s.jobId}/kit`, { kitItemIds: [s.toolId] }));
     ok(await e.put(`/api/jobs/${s.jobId}/notes`, { notes: 'Magnet heavy on the first pass; customer shown the sludge.' }));
@@ -449,6 +470,7 @@ describe('the completion report with the job sheet', () => {
     expect(text).toMatch(/Lounge 58\.0 40\.0 18\.0 84\.0 78\.0 6\.0 yes \/ no 5148 \/ 12675 30/);
     expect(text).toMatch(/Landing 61\.5 47\.5 14\.0 - - - yes \/ - - \/ - -/);
     expect(text).toContain('100 hand-arm vibration points on this visit');
+    expect(text).toMatch(/Flushed until clear: Lounge \d+ \w+, \d\d:\d\d \(1 not recorded\)/);
     // Water tests: |215 - 200| / 200 = 7.5% (within 10% and clear: BS 7593 as commonly quoted); 1.2 in 1 to 1.5 % v/v.
     expect(text).toContain('Flush complete: PASS (system within 7.5% of mains');
     expect(text).toContain('Inhibitor: PASS: reading 1.2 % v/v against the product\u2019s target 1 to 1.5 % v/v');

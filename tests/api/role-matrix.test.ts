@@ -90,6 +90,7 @@ const allowed: Record<string, Role[]> = {
   'PUT /jobs/:id/steps/:step': everyone,
   'PUT /jobs/:id/radiators/:index/readings/:phase': everyone,
   'PUT /jobs/:id/radiators/:index/agitation': everyone,
+  'PUT /jobs/:id/radiators/:index/flushed': everyone,
   'PUT /jobs/:id/water-tests': everyone,
   'PUT /jobs/:id/kit': everyone,
   'PUT /jobs/:id/notes': everyone,

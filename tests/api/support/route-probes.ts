@@ -72,6 +72,7 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'PUT /jobs/:id/steps/:step': () => ({ done: true }),
   'PUT /jobs/:id/radiators/:index/readings/:phase': () => ({ topC: 62, bottomC: 41.5, flowC: 65, returnC: 55, roomC: 19 }),
   'PUT /jobs/:id/radiators/:index/agitation': () => ({ minutes: 5 }),
+  'PUT /jobs/:id/radiators/:index/flushed': () => ({ done: true }),
   'PUT /jobs/:id/water-tests': () => ({ mainsTdsPpm: 180, systemTdsPpm: 190, waterClear: true, ph: 7.6 }),
   'PUT /jobs/:id/kit': () => ({ kitItemIds: [] }),
   'PUT /jobs/:id/notes': () => ({ notes: 'Probe note' }),

@@ -156,6 +156,12 @@ export function renderJobReport(detail: JobDetail, ctx: ReportContext): Promise<
     doc.text(`Agitation: ${minutes} minutes in all; ${points} hand-arm vibration points on this visit (HSE points system; 100 is the exposure action value, 400 the limit value).`);
     doc.text(`The engineer\u2019s day (${sheet.hav.day}): ${sheet.hav.message}`);
   }
+  const flushed = sheet.radiators.filter((r) => r.flushedAt);
+  doc.text(
+    flushed.length
+      ? `Flushed until clear: ${flushed.map((r) => `${r.room} ${timeOf(r.flushedAt!)}`).join('; ')}${flushed.length < sheet.radiators.length ? ` (${sheet.radiators.length - flushed.length} not recorded)` : ''}.`
+      : 'No radiator was recorded as flushed until clear.',
+  );
 
   heading('Water tests');
   const w = sheet.water;

@@ -9,6 +9,7 @@ const num = (v: string | number | null | undefined): number | null => (v === nul
 export interface SheetRows {
   firm: { timeZone: string; coldBottomThresholdK: number | null };
   steps: { step: JobStep; doneAt: Date; doneByName: string | null }[];
+  flushes: { radiatorIndex: number; flushedAt: Date }[];
   readings: { radiatorIndex: number; phase: ReadingPhase; topC: number; bottomC: number; flowC: number | null; returnC: number | null; roomC: number | null }[];
   agitations: { radiatorIndex: number; minutes: number; kitItemId: number | null; kitItemTag: string | null; magnitudeMs2: number | null; recordedOn: string }[];
   water: { mainsTdsPpm: number | null; systemTdsPpm: number | null; waterClear: boolean | null; inhibitorReading: number | null; inhibitorProductId: number | null; ph: number | null } | null;
@@ -29,7 +30,7 @@ function kitItemsWithKind(db: Db, firmId: number) {
 /** Everything the sheet shows for one job: one query per table, never one per radiator. */
 export async function loadSheetRows(db: Db, firmId: number, job: { id: number; van_location_id: number | null }): Promise<SheetRows> {
   const jobOf = { firm_id: firmId, job_id: job.id };
-  const [firm, steps, readings, agitations, water, kitUsed, kitOnVan, photos, products] = await Promise.all([
+  const [firm, steps, readings, agitations, water, kitUsed, kitOnVan, photos, products, flushes] = await Promise.all([
     db('firms').where({ id: firmId }).first('time_zone', 'cold_bottom_threshold_k') as Promise<{ time_zone: string; cold_bottom_threshold_k: string | null } | undefined>,
     db('job_steps as s').leftJoin('users as u', 'u.id', 's.done_by_user_id').where({ 's.firm_id': firmId, 's.job_id': job.id }).select('s.step', 's.done_at', 'u.name as done_by_name') as Promise<
       { step: JobStep; done_at: Date; done_by_name: string | null }[]
@@ -57,10 +58,12 @@ export async function loadSheetRows(db: Db, firmId: number, job: { id: number; v
       .where({ 'jp.firm_id': firmId, 'jp.job_id': job.id })
       .orderBy('p.id')
       .select('p.id', 'p.kind', 'p.min_circulation_minutes', 'p.target_min', 'p.target_max', 'p.target_unit') as Promise<Record<string, string | number | null>[]>,
+    db('job_radiator_flushes').where(jobOf).select('radiator_index', 'flushed_at') as Promise<{ radiator_index: number; flushed_at: Date }[]>,
   ]);
   return {
     firm: { timeZone: firm?.time_zone ?? 'Europe/London', coldBottomThresholdK: num(firm?.cold_bottom_threshold_k) },
     steps: steps.map((s) => ({ step: s.step, doneAt: s.done_at, doneByName: s.done_by_name })),
+    flushes: flushes.map((f) => ({ radiatorIndex: Number(f.radiator_index), flushedAt: f.flushed_at })),
     readings: readings.map((r) => ({
       radiatorIndex: Number(r.radiator_index),
       phase: r.phase as ReadingPhase,
@@ -127,6 +130,18 @@ export async function memberName(db: Db, firmId: number, memberId: number): Prom
 export async function tickStep(trx: Knex.Transaction, firmId: number, jobId: number, step: JobStep, userId: number, now: Date): Promise<void> {
   // The first tick's time stands: a second tick (a retry, a double tap) changes nothing.
   await trx('job_steps').insert({ firm_id: firmId, job_id: jobId, step, done_at: now, done_by_user_id: userId }).onConflict(['firm_id', 'job_id', 'step']).ignore();
+}
+
+/** A radiator flushed until clear; the first tick's time stands, as for the steps. */
+export async function tickFlush(trx: Knex.Transaction, firmId: number, jobId: number, radiatorIndex: number, userId: number, now: Date): Promise<void> {
+  await trx('job_radiator_flushes')
+    .insert({ firm_id: firmId, job_id: jobId, radiator_index: radiatorIndex, flushed_at: now, flushed_by_user_id: userId })
+    .onConflict(['firm_id', 'job_id', 'radiator_index'])
+    .ignore();
+}
+
+export async function untickFlush(trx: Knex.Transaction, firmId: number, jobId: number, radiatorIndex: number): Promise<void> {
+  await trx('job_radiator_flushes').where({ firm_id: firmId, job_id: jobId, radiator_index: radiatorIndex }).delete();
 }
 
 export async function untickStep(trx: Knex.Transaction, firmId: number, jobId: number, step: JobStep): Promise<void> {

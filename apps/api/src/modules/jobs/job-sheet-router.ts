@@ -11,7 +11,7 @@ import {
 } from '@heatfleet/domain';
 import { HttpError } from '../../lib/http-error.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { addJobPhoto, recordAgitation, recordKit, recordNotes, recordReading, recordWaterTests, setStep } from './job-sheet-service.ts';
+import { addJobPhoto, recordAgitation, recordKit, recordNotes, recordReading, recordWaterTests, setFlushed, setStep } from './job-sheet-service.ts';
 import { receivePhoto } from '../photos/receive-photo.ts';
 
 const jobId = z.coerce.number({ error: 'The job id must be a number.' }).int().positive();
@@ -56,6 +56,15 @@ export const jobSheetRoutes: RouteDefinition[] = [
     responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordAgitation(deps, actor, params.id, params.index, body) });
+    },
+  }),
+  defineRoute({
+    method: 'put', path: '/jobs/:id/radiators/:index/flushed', tag: 'Jobs', access: 'member', tenantData: true,
+    summary: 'Tick a radiator flushed until clear (the first tick\u2019s time stands) or clear it',
+    request: { params: radiatorParams, body: stepInputSchema },
+    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    handle: async ({ params, body, res, deps, actor }) => {
+      res.json({ sheet: await setFlushed(deps, actor, params.id, params.index, body.done) });
     },
   }),
   defineRoute({

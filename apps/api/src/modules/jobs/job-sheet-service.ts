@@ -32,6 +32,8 @@ import {
   untickStep,
   updateJobNotes,
   upsertAgitation,
+  tickFlush,
+  untickFlush,
   upsertReading,
   upsertWaterTests,
 } from './job-sheet-dal.ts';
@@ -82,6 +84,7 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
 
   const readingOf = new Map(rows.readings.map((r) => [`${r.radiatorIndex}:${r.phase}`, r]));
   const agitationOf = new Map(rows.agitations.map((a) => [a.radiatorIndex, a]));
+  const flushedAt = new Map(rows.flushes.map((f) => [f.radiatorIndex, f.flushedAt.toISOString()]));
   const radiators = survey.radiators.map((r, index) => {
     const ratedWatts = r.ratedWatts ?? null;
     const reading = (phase: ReadingPhase) => {
@@ -98,6 +101,7 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
       ratedWatts,
       before: reading('before'),
       after: reading('after'),
+      flushedAt: flushedAt.get(index) ?? null,
       agitation: a
         ? { minutes: a.minutes, kitItemId: a.kitItemId, kitItemTag: a.kitItemTag, magnitudeMs2: a.magnitudeMs2, points: a.magnitudeMs2 ? round1(vibrationPoints(a.magnitudeMs2, a.minutes / 60)) : 0 }
         : null,
@@ -188,6 +192,14 @@ export function recordReading(deps: AppDeps, actor: Actor, jobId: number, index:
       top_c: round1(input.topC), bottom_c: round1(input.bottomC), flow_c: c(input.flowC), return_c: c(input.returnC), room_c: c(input.roomC),
       recorded_by_user_id: actor.userId, recorded_at: deps.clock.now(),
     });
+  });
+}
+
+export function setFlushed(deps: AppDeps, actor: Actor, jobId: number, index: number, done: boolean) {
+  return writeSheet(deps, actor, jobId, async (trx, row) => {
+    checkRadiator(row, index);
+    if (done) await tickFlush(trx, actor.firmId, jobId, index, actor.userId, deps.clock.now());
+    else await untickFlush(trx, actor.firmId, jobId, index);
   });
 }
 

@@ -84,6 +84,7 @@ export const jobSheetSchema = z.object({
       ratedWatts: z.number().nullable(),
       before: readingSchema.nullable(),
       after: readingSchema.nullable(),
+      flushedAt: z.string().nullable(),
       agitation: z
         .object({
           minutes: z.number(),

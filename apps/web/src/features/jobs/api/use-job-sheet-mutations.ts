@@ -32,6 +32,12 @@ export function useSaveReading(jobId: number) {
   );
 }
 
+export function useTickFlushed(jobId: number) {
+  return useSheetWrite(jobId, ({ index, done }: { index: number; done: boolean }) =>
+    apiClient.put(`/api/jobs/${jobId}/radiators/${index}/flushed`, { done }, sheetEnvelopeSchema),
+  );
+}
+
 export function useSaveAgitation(jobId: number) {
   return useSheetWrite(jobId, ({ index, agitation }: { index: number; agitation: AgitationInput }) =>
     apiClient.put(`/api/jobs/${jobId}/radiators/${index}/agitation`, agitation, sheetEnvelopeSchema),

@@ -23,7 +23,7 @@ export function JobSheetSections({ detail, timeZone, inhibitors }: { detail: Job
         <JobSteps jobId={jobId} sheet={sheet} timeZone={timeZone} />
       </SheetSection>
       <SheetSection title="Radiators" summary={radiatorsSummary(sheet)}>
-        <RadiatorLog jobId={jobId} sheet={sheet} />
+        <RadiatorLog jobId={jobId} sheet={sheet} timeZone={timeZone} />
       </SheetSection>
       <SheetSection title="Vibration today" summary={havSummary(sheet.hav)}>
         <HavDayPanel hav={sheet.hav} />

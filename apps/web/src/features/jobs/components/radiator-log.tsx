@@ -13,10 +13,10 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import type { FieldErrors } from '@/lib/form';
 import type { JobSheet, SavedReading, SheetRadiator } from '@/features/jobs/api/job-queries';
-import { useSaveAgitation, useSaveReading } from '@/features/jobs/api/use-job-sheet-mutations';
+import { useSaveAgitation, useSaveReading, useTickFlushed } from '@/features/jobs/api/use-job-sheet-mutations';
 import { JudgementNote } from '@/features/jobs/components/job-cautions';
 import { SaveFeedback } from '@/features/jobs/components/save-feedback';
-import { decimalOrNull, finiteOrNull, numberText } from '@/features/jobs/components/sheet-format';
+import { decimalOrNull, finiteOrNull, formatClock, numberText } from '@/features/jobs/components/sheet-format';
 import { panelLabels, type PanelType } from '@/features/jobs/components/survey-draft';
 
 const readingFields = [
@@ -235,7 +235,33 @@ function panelLabel(panel: string): string {
   return panel in panelLabels ? panelLabels[panel as PanelType] : panel;
 }
 
-export function RadiatorLog({ jobId, sheet }: { jobId: number; sheet: JobSheet }) {
+/** Flushed until clear, ticked radiator by radiator: the flush step's record for each one. */
+function FlushedTick({ jobId, radiator, sheet, timeZone }: { jobId: number; radiator: SheetRadiator; sheet: JobSheet; timeZone: string }) {
+  const tick = useTickFlushed(jobId);
+  const busy = tick.isPending && tick.variables.index === radiator.index;
+  const done = radiator.flushedAt !== null;
+  return (
+    <div className="space-y-2">
+      {sheet.editable && !done ? (
+        <Button variant="secondary" className="min-h-12 w-full" busy={busy} onClick={() => tick.mutate({ index: radiator.index, done: true })}>
+          Flushed until clear
+        </Button>
+      ) : (
+        <p className={`flex min-h-12 items-center gap-2 rounded-lg border-2 px-3 ${done ? 'border-ok-700 bg-ok-50' : 'border-line text-ink-muted'}`}>
+          {done ? `✓ Flushed until clear at ${formatClock(radiator.flushedAt!, timeZone)}` : 'Not recorded as flushed.'}
+        </p>
+      )}
+      {sheet.editable && done ? (
+        <Button variant="secondary" className="min-h-12" busy={busy} aria-label={`Untick flushed: radiator ${radiator.index + 1}`} onClick={() => tick.mutate({ index: radiator.index, done: false })}>
+          Untick
+        </Button>
+      ) : null}
+      {tick.isError && tick.variables.index === radiator.index ? <p role="alert" className="font-semibold text-ember-700">{tick.error.message}</p> : null}
+    </div>
+  );
+}
+
+export function RadiatorLog({ jobId, sheet, timeZone }: { jobId: number; sheet: JobSheet; timeZone: string }) {
   if (sheet.radiators.length === 0) return <p className="text-ink-muted">The survey lists no radiators.</p>;
   return (
     <div className="space-y-4">
@@ -256,6 +282,7 @@ export function RadiatorLog({ jobId, sheet }: { jobId: number; sheet: JobSheet }
               <AgitationForm jobId={jobId} radiator={radiator} sheet={sheet} />
               <ReadingForm jobId={jobId} radiator={radiator} phase="after" sheet={sheet} />
             </div>
+            <FlushedTick jobId={jobId} radiator={radiator} sheet={sheet} timeZone={timeZone} />
           </div>
         );
       })}
