@@ -242,6 +242,11 @@ test('an engineer on a phone records a cleaning job from the survey to the repor
   await expect(vibration).toContainText('90');
   await expect(vibration).toContainText('nearing the exposure action value of 100');
   await tick(stepList, steps.agitate);
+  // Each radiator is ticked as flushed until clear, with its time.
+  for (const card of [loungeCard, bedroomCard]) {
+    await card.getByRole('button', { name: 'Flushed until clear' }).click();
+    await expect(card.getByText(/Flushed until clear at \d\d:\d\d/)).toBeVisible();
+  }
 
   const flush = stepList.getByRole('button', { name: steps.flush, exact: true });
   await expectAbove(stepList.getByRole('list', { name: 'Cautions before step 5' }).getByText(cautions.drain), flush);
