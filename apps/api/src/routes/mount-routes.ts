@@ -1,4 +1,4 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type RequestHandler, type Response } from 'express';
 import type { Actor, AppDeps } from '../app-deps.ts';
 import { authenticate } from '../middleware/authenticate.ts';
 import { emptyParamsSchema, emptyQuerySchema, type RouteDefinition } from './route-registry.ts';
@@ -21,8 +21,27 @@ export function mountRoutes(routes: RouteDefinition[], deps: AppDeps): Router {
       const params = (route.request.params ?? emptyParamsSchema).parse(req.params);
       const query = (route.request.query ?? emptyQuerySchema).parse(req.query);
       const body = route.request.body ? route.request.body.parse(req.body ?? {}) : undefined;
+      if (deps.env.NODE_ENV === 'test') checkAnswers(route, res);
       await route.handle({ params, query, body, req, res, deps, actor });
     });
   }
   return router;
+}
+
+/**
+ * In tests, every JSON answer of a 2xx status must match the schema the route declares for it,
+ * so an answer that drifts from its domain schema fails a test instead of a user's page.
+ */
+function checkAnswers(route: RouteDefinition, res: Response): void {
+  const json = res.json.bind(res);
+  res.json = (payload: unknown) => {
+    const declared = route.responses[res.statusCode];
+    if (res.statusCode < 300 && declared?.schema) {
+      const parsed = declared.schema.safeParse(payload);
+      if (!parsed.success) {
+        throw new Error(`${route.method.toUpperCase()} /api${route.path} answered ${res.statusCode} off its schema: ${parsed.error.message}`);
+      }
+    }
+    return json(payload);
+  };
 }
