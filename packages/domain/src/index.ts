@@ -17,6 +17,8 @@ export * from './stock/units.ts';
 export * from './stock/fefo.ts';
 export * from './stock/restock.ts';
 export * from './stock/stock-schemas.ts';
+export * from './stock/stock-responses.ts';
+export * from './overview/overview-schemas.ts';
 export * from './jobs/system-volume.ts';
 export * from './jobs/dose-plan.ts';
 export * from './jobs/water-tests.ts';

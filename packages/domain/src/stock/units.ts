@@ -16,6 +16,12 @@ export function packSizeMl(size: number, unit: PackUnit): number {
   return Math.round(unit === 'l' ? size * 1000 : size);
 }
 
+/** How a pack is written: 1000 ml or more in whole tenths of a litre in litres, anything else in millilitres. */
+export function packSizeInUnit(ml: number): { size: number; unit: PackUnit } {
+  return ml >= 1000 && ml % 100 === 0 ? { size: ml / 1000, unit: 'l' } : { size: ml, unit: 'ml' };
+}
+
 export function formatPackSize(ml: number): string {
-  return ml >= 1000 && ml % 100 === 0 ? `${ml / 1000} L` : `${ml} ml`;
+  const { size, unit } = packSizeInUnit(ml);
+  return unit === 'l' ? `${size} L` : `${size} ml`;
 }
