@@ -12,7 +12,7 @@ export async function insertFirm(trx: Knex.Transaction, firm: { name: string }):
   return id as number;
 }
 
-export function findFirm(db: Knex, firmId: number): Promise<FirmRow | undefined> {
+export function findFirm(db: Knex | Knex.Transaction, firmId: number): Promise<FirmRow | undefined> {
   return db<FirmRow>('firms').where({ id: firmId }).first();
 }
 

@@ -15,7 +15,7 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
 import { findMember } from '../members/member-dal.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 import { applyMovements, balancesAt } from '../stock/stock-ledger.ts';
 import { buildSheet } from './job-sheet-service.ts';
 

@@ -3,7 +3,7 @@ import type { RecordInspectionInput } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { notFound, ruleBroken } from '../../lib/http-error.ts';
-import { firmToday } from './kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 
 /** Records an inspection; a failed one marks the item as needing attention. */
 export async function recordInspection(trx: Knex.Transaction, deps: AppDeps, actor: Actor, itemId: number, input: RecordInspectionInput): Promise<number> {

@@ -1,6 +1,5 @@
 import { ForbiddenError } from '@casl/ability';
 import {
-  calendarDateIn,
   inspectionDue,
   type CreateKitInput,
   type CreateKitItemInput,
@@ -12,19 +11,13 @@ import {
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
-import { findFirm } from '../firms/firm-dal.ts';
+import { firmToday } from '../firms/firm-today.ts';
 import { findItemKind } from '../item-kinds/item-kind-dal.ts';
 import { findLocation, firstDepot } from '../locations/location-dal.ts';
 import { listCustodyEvents, listInspections, locationRefOf, selectItems, type ItemFilter, type ItemRow } from './kit-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 const stateRank = { no_rule: 0, ok: 1, due_soon: 2, overdue: 3 } as const;
-
-/** The firm's calendar day now, in its own time zone. */
-export async function firmToday(db: Db, firmId: number, now: Date): Promise<string> {
-  const firm = await findFirm(db as Knex, firmId);
-  return calendarDateIn(now, firm?.time_zone ?? 'Europe/London');
-}
 
 export function toKitItem(row: ItemRow, today: string): KitItem {
   const uses = Number(row.uses_since_inspection);

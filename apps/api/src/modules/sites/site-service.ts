@@ -2,7 +2,7 @@ import { ForbiddenError } from '@casl/ability';
 import { addMonths, inhibitorCheck, type SiteCheckInput } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 import { findProduct, findSite, insertSiteCheck, listCheckableInhibitors, listSiteChecks, listSiteJobs, listSites, setSiteNextCheck } from './site-dal.ts';
 
 /** A year between inhibitor checks (PRODUCT.md, computation 7). */

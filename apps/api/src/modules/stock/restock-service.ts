@@ -4,7 +4,7 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
 import { firstDepot, findLocation } from '../locations/location-dal.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 import { applyMovements, balancesAt } from './stock-ledger.ts';
 import { stockLevels } from './stock-query-service.ts';
 

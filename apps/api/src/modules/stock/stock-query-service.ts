@@ -2,7 +2,7 @@ import { ForbiddenError } from '@casl/ability';
 import { stockHealthOf, type LedgerQuery, type Movement } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 
 type Db = Knex | Knex.Transaction;
 

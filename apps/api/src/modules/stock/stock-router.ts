@@ -30,7 +30,7 @@ import { createProduct, getProduct, listProducts, openSafetyDataSheet, saveSafet
 import { applyRestockRun, getRestockRun } from './restock-service.ts';
 import { batchesAt, ledgerForExport, ledgerPage, movementsByIds, stockGrid, stockLevels } from './stock-query-service.ts';
 import { receiveDelivery, recordStocktake, reverseMovement, transferStock, useStock, writeOff } from './stock-service.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 
 const movedSchema = z.object({ groupId: z.string(), movements: z.array(movementSchema) });
 

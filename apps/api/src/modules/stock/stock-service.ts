@@ -12,7 +12,7 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notAllowed, notFound, ruleBroken } from '../../lib/http-error.ts';
 import { findLocation, type LocationRow } from '../locations/location-dal.ts';
-import { firmToday } from '../kits/kit-service.ts';
+import { firmToday } from '../firms/firm-today.ts';
 import { applyMovements, balancesAt, type MovementLine } from './stock-ledger.ts';
 
 type Trx = Knex.Transaction;
