@@ -24,3 +24,7 @@ export * from './jobs/dose-plan.ts';
 export * from './jobs/water-tests.ts';
 export * from './jobs/job-schemas.ts';
 export * from './jobs/job-sheet.ts';
+export * from './jobs/circulation.ts';
+export * from './jobs/hav-day.ts';
+export * from './jobs/job-responses.ts';
+export * from './sites/site-schemas.ts';
