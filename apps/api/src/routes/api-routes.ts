@@ -11,6 +11,9 @@ import { memberRoutes } from '../modules/members/member-router.ts';
 import { openApiRoute } from '../modules/openapi/openapi-router.ts';
 import { outboxRoutes } from '../modules/outbox/outbox-router.ts';
 import { photoRoutes } from '../modules/photos/photo-router.ts';
+import { productRoutes } from '../modules/stock/product-router.ts';
+import { restockRoutes } from '../modules/stock/restock-router.ts';
+import { stockMovementRoutes } from '../modules/stock/stock-movement-router.ts';
 import { stockRoutes } from '../modules/stock/stock-router.ts';
 import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
 import { firmRoutes } from '../modules/firms/firm-router.ts';
@@ -32,7 +35,10 @@ export const apiRoutes: RouteDefinition[] = [
   ...kitRoutes,
   ...kitItemRoutes,
   ...photoRoutes,
+  ...productRoutes,
   ...stockRoutes,
+  ...stockMovementRoutes,
+  ...restockRoutes,
   ...jobRoutes,
   ...jobSheetRoutes,
   ...reminderRoutes,

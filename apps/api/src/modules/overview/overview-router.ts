@@ -1,3 +1,4 @@
+import { overviewResponseSchema } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { getOverview } from './overview-service.ts';
 
@@ -6,7 +7,7 @@ export const overviewRoutes: RouteDefinition[] = [
     method: 'get', path: '/overview', tag: 'Overview', access: 'member', tenantData: true,
     summary: 'The firm at a glance: stock health and MOT or service per van, kit due, batches expiring, jobs this month, chemical used per month, latest reminders, vibration points today',
     request: {},
-    responses: { 200: { description: 'Overview' } },
+    responses: { 200: { description: 'Overview', schema: overviewResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ overview: await getOverview(deps, actor) });
     },

@@ -1,5 +1,5 @@
 import { ForbiddenError } from '@casl/ability';
-import { addDays, addMonths, calendarDateIn, daysBetween, havDay, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate } from '@heatfleet/domain';
+import { addDays, addMonths, calendarDateIn, daysBetween, DEFAULT_TIME_ZONE, havDay, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate, type Overview, type OverviewDueItem, type OverviewVan } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findFirm } from '../firms/firm-dal.ts';
 import { listBatchesHeldExpiringBy } from '../reminders/reminder-dal.ts';
@@ -45,7 +45,7 @@ export function startOfDayIn(day: CalendarDate, timeZone: string): Date {
   return new Date(t);
 }
 
-function nextDueOf(van: { mot_due_on: string | null; service_due_on: string | null }, today: CalendarDate) {
+function nextDueOf(van: { mot_due_on: string | null; service_due_on: string | null }, today: CalendarDate): OverviewVan['nextDue'] {
   const dues = [
     { what: 'MOT' as const, on: van.mot_due_on },
     { what: 'service' as const, on: van.service_due_on },
@@ -61,10 +61,10 @@ function nextDueOf(van: { mot_due_on: string | null; service_due_on: string | nu
  * The owner's overview of the firm in one answer. Each part is one aggregate query for the whole
  * firm (none per van or per item), run side by side; on-hand comes from the balances, never the ledger.
  */
-export async function getOverview(deps: AppDeps, actor: Actor) {
+export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   const firm = await findFirm(deps.db, actor.firmId);
-  const timeZone = firm?.time_zone ?? 'Europe/London';
+  const timeZone = firm?.time_zone ?? DEFAULT_TIME_ZONE;
   const today = calendarDateIn(deps.clock.now(), timeZone);
   const monthStart = `${today.slice(0, 7)}-01`;
   const firstUsageMonth = addMonths(monthStart, -(USAGE_MONTHS - 1));
@@ -95,7 +95,7 @@ export async function getOverview(deps: AppDeps, actor: Actor) {
     if (cell.health === 'empty') s.outOfStock += 1;
     stockByVan.set(cell.locationId, s);
   }
-  const vanRows = vans.map((v) => ({
+  const vanRows = vans.map((v): OverviewVan => ({
     id: v.id,
     name: v.name,
     registration: v.registration,
@@ -115,7 +115,7 @@ export async function getOverview(deps: AppDeps, actor: Actor) {
       );
       return { id: i.id, assetTag: i.asset_tag, kindName: i.kind_name, locationName: i.location_name, state: due.state, dueOn: due.dueOn, usesLeft: due.usesLeft, reason: due.reason };
     })
-    .filter((i) => i.state === 'overdue' || i.state === 'due_soon')
+    .filter((i): i is OverviewDueItem => i.state === 'overdue' || i.state === 'due_soon')
     .sort((a, b) => (a.dueOn ?? '9999').localeCompare(b.dueOn ?? '9999') || a.assetTag.localeCompare(b.assetTag));
   const overdue = dueItems.filter((i) => i.state === 'overdue');
   const dueSoon = dueItems.filter((i) => i.state === 'due_soon');

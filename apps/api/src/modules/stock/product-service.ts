@@ -5,27 +5,7 @@ import { packSizeMl, type Product, type ProductInput } from '@heatfleet/domain';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notFound } from '../../lib/http-error.ts';
-
-interface ProductRow {
-  id: number;
-  name: string;
-  kind: Product['kind'];
-  own_kind: string | null;
-  pack_size_ml: number;
-  dose_litres_per_100l: string | null;
-  radiators_per_pack: number | null;
-  target_min: string | null;
-  target_max: string | null;
-  target_unit: string | null;
-  test_method: string | null;
-  shelf_life_months: number | null;
-  hazard_notes: string | null;
-  min_circulation_minutes: number | null;
-  sds_object_key: string | null;
-  sds_byte_size: number | null;
-  sds_uploaded_at: Date | null;
-  active: number;
-}
+import { findProductRef, findProductRow, insertProduct, listProductRows, productNameTaken, updateProductRow, type ProductRow, type ProductWrite } from './product-dal.ts';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -50,7 +30,7 @@ export function toProduct(r: ProductRow): Product {
   };
 }
 
-const toRow = (p: Partial<ProductInput>) => ({
+const toRow = (p: Partial<ProductInput>): ProductWrite => ({
   ...(p.name !== undefined && { name: p.name }),
   ...(p.kind !== undefined && { kind: p.kind, own_kind: p.kind === 'other' ? (p.ownKind ?? null) : null }),
   ...(p.packSize !== undefined && p.packUnit !== undefined && { pack_size_ml: packSizeMl(p.packSize, p.packUnit) }),
@@ -67,12 +47,12 @@ const toRow = (p: Partial<ProductInput>) => ({
 
 export async function listProducts(deps: AppDeps, actor: Actor): Promise<Product[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Product');
-  return ((await deps.db('products').where({ firm_id: actor.firmId }).orderBy('name')) as ProductRow[]).map(toProduct);
+  return (await listProductRows(deps.db, actor.firmId)).map(toProduct);
 }
 
 export async function getProduct(deps: AppDeps, actor: Actor, id: number): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Product');
-  const row = (await deps.db('products').where({ firm_id: actor.firmId, id }).first()) as ProductRow | undefined;
+  const row = await findProductRow(deps.db, actor.firmId, id);
   if (!row) throw notFound('That product');
   return toProduct(row);
 }
@@ -80,9 +60,8 @@ export async function getProduct(deps: AppDeps, actor: Actor, id: number): Promi
 export async function createProduct(deps: AppDeps, actor: Actor, input: ProductInput): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Product');
   const id = await deps.db.transaction(async (trx) => {
-    if (await trx('products').where({ firm_id: actor.firmId, name: input.name }).first('id')) throw conflict(`There is already a product called "${input.name}".`);
-    const [newId] = await trx('products').insert({ firm_id: actor.firmId, ...toRow(input) });
-    return newId as number;
+    if (await productNameTaken(trx, actor.firmId, input.name)) throw conflict(`There is already a product called "${input.name}".`);
+    return insertProduct(trx, actor.firmId, toRow(input));
   });
   return getProduct(deps, actor, id);
 }
@@ -90,10 +69,10 @@ export async function createProduct(deps: AppDeps, actor: Actor, input: ProductI
 export async function updateProduct(deps: AppDeps, actor: Actor, id: number, input: ProductInput): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'Product');
   await deps.db.transaction(async (trx) => {
-    const row = await trx('products').where({ firm_id: actor.firmId, id }).forUpdate().first('id', 'name');
+    const row = await findProductRef(trx, actor.firmId, id, { forUpdate: true });
     if (!row) throw notFound('That product');
-    if (input.name !== row.name && (await trx('products').where({ firm_id: actor.firmId, name: input.name }).first('id'))) throw conflict(`There is already a product called "${input.name}".`);
-    await trx('products').where({ firm_id: actor.firmId, id }).update(toRow(input));
+    if (input.name !== row.name && (await productNameTaken(trx, actor.firmId, input.name))) throw conflict(`There is already a product called "${input.name}".`);
+    await updateProductRow(trx, actor.firmId, id, toRow(input));
   });
   return getProduct(deps, actor, id);
 }
@@ -103,7 +82,7 @@ export const SDS_MAX_BYTES = 10 * 1024 * 1024;
 /** Stores a product's safety data sheet: a PDF by its content, under the firm's prefix. */
 export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: number, file: Buffer): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'Product');
-  const row = (await deps.db('products').where({ firm_id: actor.firmId, id }).first('id', 'sds_object_key')) as { id: number; sds_object_key: string | null } | undefined;
+  const row = await findProductRow(deps.db, actor.firmId, id);
   if (!row) throw notFound('That product');
   const type = await fileTypeFromBuffer(file);
   if (type?.mime !== 'application/pdf') {
@@ -112,7 +91,7 @@ export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: numbe
   const key = `firms/${actor.firmId}/safety-data-sheets/${randomUUID()}.pdf`;
   await deps.objectStore.put(key, file, 'application/pdf');
   try {
-    await deps.db('products').where({ firm_id: actor.firmId, id }).update({ sds_object_key: key, sds_byte_size: file.length, sds_uploaded_at: deps.clock.now() });
+    await updateProductRow(deps.db, actor.firmId, id, { sds_object_key: key, sds_byte_size: file.length, sds_uploaded_at: deps.clock.now() });
   } catch (err) {
     await deps.objectStore.delete(key).catch(() => undefined);
     throw err;
@@ -123,7 +102,7 @@ export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: numbe
 
 export async function openSafetyDataSheet(deps: AppDeps, actor: Actor, id: number): Promise<{ name: string; body: Readable }> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Product');
-  const row = (await deps.db('products').where({ firm_id: actor.firmId, id }).first('name', 'sds_object_key')) as { name: string; sds_object_key: string | null } | undefined;
+  const row = await findProductRow(deps.db, actor.firmId, id);
   if (!row?.sds_object_key) throw notFound('That safety data sheet');
   return { name: row.name, body: await deps.objectStore.get(row.sds_object_key) };
 }

@@ -1,11 +1,17 @@
 import { ForbiddenError } from '@casl/ability';
-import { planReorder, planRestock, type BatchStock, type RestockApplyInput } from '@heatfleet/domain';
+import { planReorder, planRestock, type BatchStock, type RestockApplied, type RestockApplyInput, type RestockRun } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
+import { withTransactionRetry } from '../../db/with-retry.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
+import { runIdempotent } from '../../lib/idempotency.ts';
 import { firstDepot, findLocation } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
-import { applyMovements, balancesAt } from './stock-ledger.ts';
+import { findBatch, listProductNames } from './product-dal.ts';
+import { reorderCsv } from './stock-csv.ts';
+import { balancesAt, sumUsedByProductSince } from './stock-ledger-dal.ts';
+import { applyMovements } from './stock-ledger.ts';
+import { listActiveVanRefs } from './stock-level-dal.ts';
 import { stockLevels } from './stock-query-service.ts';
 
 type Db = Knex | Knex.Transaction;
@@ -25,20 +31,15 @@ async function depotBatches(db: Db, firmId: number, depotId: number): Promise<Ma
 }
 
 /** The restock run and the reorder list it leaves, computed from balances (not summed from the ledger). */
-export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotId?: number) {
+export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotId?: number): Promise<RestockRun> {
   const depot = await depotOf(db, actor, depotId);
   const today = await firmToday(db, actor.firmId, deps.clock.now());
   const [levels, vans, products, batches, used] = await Promise.all([
     stockLevels(db, actor.firmId, today),
-    db('locations').where({ firm_id: actor.firmId, kind: 'van', active: true }).select('id', 'name', 'registration') as Promise<{ id: number; name: string; registration: string }[]>,
-    db('products').where({ firm_id: actor.firmId }).select('id', 'name') as Promise<{ id: number; name: string }[]>,
+    listActiveVanRefs(db, actor.firmId),
+    listProductNames(db, actor.firmId),
     depotBatches(db, actor.firmId, depot.id),
-    db('stock_movements')
-      .where({ firm_id: actor.firmId, kind: 'used' })
-      .where('created_at', '>=', new Date(deps.clock.now().getTime() - 90 * 86_400_000))
-      .groupBy('product_id')
-      .select('product_id')
-      .sum({ n: 'quantity_delta' }) as Promise<{ product_id: number; n: string }[]>,
+    sumUsedByProductSince(db, actor.firmId, new Date(deps.clock.now().getTime() - 90 * 86_400_000)),
   ]);
   const vanIds = new Set(vans.map((v) => v.id));
   const needs = levels.filter((c) => vanIds.has(c.locationId) && c.par).map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par! }));
@@ -60,7 +61,7 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
   };
 }
 
-export async function getRestockRun(deps: AppDeps, actor: Actor, depotId?: number) {
+export async function getRestockRun(deps: AppDeps, actor: Actor, depotId?: number): Promise<RestockRun> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   return computeRestock(deps.db, deps, actor, depotId);
 }
@@ -74,9 +75,7 @@ export async function applyRestockRun(trx: Knex.Transaction, deps: AppDeps, acto
   for (const l of input.lines) {
     const van = await findLocation(trx, actor.firmId, l.toLocationId);
     if (!van || van.kind !== 'van') throw notFound('That van');
-    const b = (await trx('product_batches').where({ firm_id: actor.firmId, id: l.batchId, product_id: l.productId }).first('id', 'expires_on', 'lot_number')) as
-      | { id: number; expires_on: string; lot_number: string }
-      | undefined;
+    const b = await findBatch(trx, actor.firmId, l.batchId, l.productId);
     if (!b) throw notFound('That batch');
     if (b.expires_on < today) throw conflict(`Lot ${b.lot_number} has expired since the run was computed; compute it again.`);
     lines.push(
@@ -85,4 +84,18 @@ export async function applyRestockRun(trx: Knex.Transaction, deps: AppDeps, acto
     );
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
+}
+
+/** A reviewed restock run, applied at most once per Idempotency-Key and retried whole on deadlock. */
+export async function applyRestockRunOnce(deps: AppDeps, actor: Actor, idempotencyKey: string | undefined, input: RestockApplyInput, depotId?: number): Promise<{ status: number; applied: RestockApplied }> {
+  const out = await withTransactionRetry(() =>
+    runIdempotent(deps, actor, idempotencyKey, 'restock-run', async (trx) => ({ status: 201, body: { groupId: await applyRestockRun(trx, deps, actor, input, depotId) } })),
+  );
+  return { status: out.status, applied: out.body };
+}
+
+/** The reorder list the restock run leaves, as CSV. */
+export async function exportReorderCsv(deps: AppDeps, actor: Actor, depotId?: number): Promise<string> {
+  const { reorder } = await getRestockRun(deps, actor, depotId);
+  return reorderCsv(reorder);
 }

@@ -13,7 +13,9 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notAllowed, notFound, ruleBroken } from '../../lib/http-error.ts';
 import { findLocation, type LocationRow } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
-import { applyMovements, balancesAt, type MovementLine } from './stock-ledger.ts';
+import { findBatch, findBatchByLot, findProductRef, insertBatch, type BatchRow } from './product-dal.ts';
+import { anyReversed, balancesAt, findBalanceQuantity, findMovementForUpdate, listGroupMovementsForUpdate } from './stock-ledger-dal.ts';
+import { applyMovements, type MovementLine } from './stock-ledger.ts';
 
 type Trx = Knex.Transaction;
 
@@ -24,15 +26,13 @@ async function place(trx: Trx, actor: Actor, id: number, what: 'depot' | 'any' =
 }
 
 async function product(trx: Trx, actor: Actor, id: number): Promise<{ id: number; name: string }> {
-  const p = await trx('products').where({ firm_id: actor.firmId, id }).first('id', 'name');
+  const p = await findProductRef(trx, actor.firmId, id);
   if (!p) throw notFound('That product');
   return p;
 }
 
-async function batch(trx: Trx, actor: Actor, id: number) {
-  const b = (await trx('product_batches').where({ firm_id: actor.firmId, id }).first('id', 'product_id', 'lot_number', 'expires_on')) as
-    | { id: number; product_id: number; lot_number: string; expires_on: string }
-    | undefined;
+async function batch(trx: Trx, actor: Actor, id: number): Promise<BatchRow> {
+  const b = await findBatch(trx, actor.firmId, id);
   if (!b) throw notFound('That batch');
   return b;
 }
@@ -50,13 +50,11 @@ export async function receiveDelivery(trx: Trx, deps: AppDeps, actor: Actor, inp
   const lines: MovementLine[] = [];
   for (const line of input.lines) {
     await product(trx, actor, line.productId);
-    const existing = (await trx('product_batches').where({ firm_id: actor.firmId, product_id: line.productId, lot_number: line.lotNumber }).first('id', 'expires_on')) as
-      | { id: number; expires_on: string }
-      | undefined;
+    const existing = await findBatchByLot(trx, actor.firmId, line.productId, line.lotNumber);
     if (existing && existing.expires_on !== line.expiresOn) {
       throw ruleBroken(`Lot ${line.lotNumber} is already recorded with expiry ${existing.expires_on}, not ${line.expiresOn}.`, [{ path: 'expiresOn', message: `Lot ${line.lotNumber} expires ${existing.expires_on}` }]);
     }
-    const batchId = existing?.id ?? ((await trx('product_batches').insert({ firm_id: actor.firmId, product_id: line.productId, lot_number: line.lotNumber, expires_on: line.expiresOn }))[0] as number);
+    const batchId = existing?.id ?? (await insertBatch(trx, actor.firmId, line));
     lines.push({ kind: 'received', locationId: depot.id, productId: line.productId, batchId, quantityDelta: line.quantity, reference: input.reference ?? null });
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
@@ -133,8 +131,8 @@ export async function recordStocktake(trx: Trx, deps: AppDeps, actor: Actor, inp
   const lines: MovementLine[] = [];
   for (const count of input.counts) {
     const b = await batch(trx, actor, count.batchId);
-    const bal = (await trx('stock_balances').where({ firm_id: actor.firmId, location_id: loc.id, batch_id: b.id }).forUpdate().first('quantity')) as { quantity: number } | undefined;
-    const diff = count.counted - (bal?.quantity ?? 0);
+    const onHand = await findBalanceQuantity(trx, actor.firmId, loc.id, b.id, { forUpdate: true });
+    const diff = count.counted - (onHand ?? 0);
     if (diff !== 0) lines.push({ kind: 'counted', locationId: loc.id, productId: b.product_id, batchId: b.id, quantityDelta: diff, reason: input.note ?? 'Stocktake' });
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
@@ -156,17 +154,12 @@ export async function writeOff(trx: Trx, deps: AppDeps, actor: Actor, input: Wri
 /** Undoes a movement by a new one of the opposite sign that points at it; each may be reversed once. */
 export async function reverseMovement(trx: Trx, deps: AppDeps, actor: Actor, movementId: number, reason: string): Promise<string> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
-  const m = (await trx('stock_movements').where({ firm_id: actor.firmId, id: movementId }).forUpdate().first()) as
-    | { id: number; group_id: string; kind: string; location_id: number; product_id: number; batch_id: number; quantity_delta: number }
-    | undefined;
+  const m = await findMovementForUpdate(trx, actor.firmId, movementId);
   if (!m) throw notFound('That movement');
   if (m.kind === 'reversal') throw ruleBroken('A reversal cannot itself be reversed; record a new movement instead.');
   // A transfer is undone as a whole: both its legs.
-  const legs = (m.kind === 'transfer_out' || m.kind === 'transfer_in'
-    ? await trx('stock_movements').where({ firm_id: actor.firmId, group_id: m.group_id }).forUpdate()
-    : [m]) as (typeof m)[];
-  const already = await trx('stock_movements').where('firm_id', actor.firmId).whereIn('reverses_movement_id', legs.map((l) => l.id)).first('id');
-  if (already) throw conflict('That movement has already been reversed.');
+  const legs = m.kind === 'transfer_out' || m.kind === 'transfer_in' ? await listGroupMovementsForUpdate(trx, actor.firmId, m.group_id) : [m];
+  if (await anyReversed(trx, actor.firmId, legs.map((l) => l.id))) throw conflict('That movement has already been reversed.');
   return applyMovements(
     trx,
     actor.firmId,
