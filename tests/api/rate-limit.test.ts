@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { defaultSignInLimits } from '@heatfleet/api/modules/auth/sign-in-limiter.ts';
+import { defaultRateLimits as defaultSignInLimits } from '@heatfleet/api/modules/auth/rate-limits.ts';
 import { Client, createTestApp, signUpFirm, TEST_PASSWORD, uniqueEmail, type TestApp } from './support/test-app.ts';
 
 const WRONG = 'definitely not it';

@@ -5,7 +5,7 @@ import type { Env } from './config/env.ts';
 import type { Clock } from './lib/clock.ts';
 import type { ObjectStore } from './lib/object-store.ts';
 import type { MailQueue } from './modules/mail/mail-queue.ts';
-import type { SignInLimiter } from './modules/auth/sign-in-limiter.ts';
+import type { RateLimiters } from './modules/auth/rate-limits.ts';
 
 /** What the app is built from: created once in server.ts, or per test. */
 export interface AppDeps {
@@ -15,7 +15,8 @@ export interface AppDeps {
   logger: Logger;
   mailQueue: MailQueue;
   objectStore: ObjectStore;
-  signInLimiter: SignInLimiter;
+  /** Limits on every route that takes a secret or sends an e-mail. */
+  limiters: RateLimiters;
 }
 
 /** The signed-in member acting in their active firm. */

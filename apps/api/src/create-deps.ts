@@ -4,10 +4,10 @@ import { createKnex } from './db/knex.ts';
 import { systemClock, type Clock } from './lib/clock.ts';
 import { createLogger } from './lib/logger.ts';
 import { createObjectStore } from './lib/object-store.ts';
-import { createSignInLimiter, type SignInLimits } from './modules/auth/sign-in-limiter.ts';
+import { createRateLimiters, type RateLimits } from './modules/auth/rate-limits.ts';
 import { createMailQueue } from './modules/mail/mail-queue.ts';
 
-export function createDeps(env: Env, overrides: { clock?: Clock; limits?: SignInLimits } = {}): AppDeps {
+export function createDeps(env: Env, overrides: { clock?: Clock; limits?: Partial<RateLimits> } = {}): AppDeps {
   const logger = createLogger(env.LOG_LEVEL);
   return {
     env,
@@ -16,7 +16,7 @@ export function createDeps(env: Env, overrides: { clock?: Clock; limits?: SignIn
     clock: overrides.clock ?? systemClock,
     mailQueue: createMailQueue(env.REDIS_URL, logger),
     objectStore: createObjectStore(env),
-    signInLimiter: createSignInLimiter(overrides.limits),
+    limiters: createRateLimiters(overrides.limits),
   };
 }
 

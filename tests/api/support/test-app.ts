@@ -4,7 +4,7 @@ import { createApp } from '@heatfleet/api/app.ts';
 import { parseEnv, type Env } from '@heatfleet/api/config/env.ts';
 import { closeDeps, createDeps } from '@heatfleet/api/create-deps.ts';
 import type { AppDeps } from '@heatfleet/api/app-deps.ts';
-import type { SignInLimits } from '@heatfleet/api/modules/auth/sign-in-limiter.ts';
+import type { RateLimits } from '@heatfleet/api/modules/auth/rate-limits.ts';
 
 /** A clock the test moves by hand. */
 export class TestClock {
@@ -24,11 +24,21 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export function createTestApp(opts: { env?: Partial<Record<keyof Env, string>>; limits?: SignInLimits } = {}): TestApp {
+/**
+ * Every test signs its firms up from one address (127.0.0.1), so the per-address limits on sign-ups
+ * and reset e-mails, which count every request, are lifted here; tests/api/rate-limit.test.ts and
+ * security-hardening.test.ts set them back to test them.
+ */
+export const testRateLimits: Partial<RateLimits> = { signUpsPerAddress: 100_000, resetsPerAddress: 100_000 };
+
+export function createTestApp(opts: { env?: Partial<Record<keyof Env, string>>; limits?: Partial<RateLimits> } = {}): TestApp {
   const env = parseEnv({ ...process.env, LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'error', ...opts.env });
   const clock = new TestClock();
-  const deps = createDeps(env, { clock, limits: opts.limits });
-  return { app: createApp(deps), deps, clock, close: () => closeDeps(deps) };
+  const deps = createDeps(env, { clock, limits: { ...testRateLimits, ...opts.limits } });
+  const app = createApp(deps);
+  // signUpFirm reads the confirmation link from the e-mail written to the database.
+  app.locals.deps = deps;
+  return { app, deps, clock, close: () => closeDeps(deps) };
 }
 
 let counter = 0;
@@ -96,11 +106,24 @@ export interface SignedUp {
   firmId: number;
 }
 
+/** The token of the newest link of that kind e-mailed to the address (the e-mail row written in the request's transaction). */
+export async function linkTokenFromEmail(app: Express, to: string, kind: 'sign-up/confirm' | 'reset-password' | 'invitations'): Promise<string> {
+  const deps = app.locals.deps as AppDeps;
+  const row = await deps.db('emails').where({ to_address: to }).orderBy('id', 'desc').first('text_body');
+  const match = new RegExp(`/${kind}/([A-Za-z0-9_-]+)`).exec((row?.text_body as string | undefined) ?? '');
+  if (!match?.[1]) throw new Error(`no ${kind} link e-mailed to ${to}`);
+  return match[1];
+}
+
+/** Signs a new firm up as a new person would: the form, then the link from the e-mail. */
 export async function signUpFirm(app: Express, label = 'owner', firmName = `Firm ${label}`): Promise<SignedUp> {
   const client = new Client(app);
   const email = uniqueEmail(label);
-  const res = await client.post('/api/auth/sign-up', { firmName, name: `Person ${label}`, email, password: TEST_PASSWORD });
-  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const asked = await client.post('/api/auth/sign-up', { firmName, name: `Person ${label}`, email, password: TEST_PASSWORD });
+  if (asked.status !== 202) throw new Error(`sign-up failed: ${asked.status} ${JSON.stringify(asked.body)}`);
+  const token = await linkTokenFromEmail(app, email, 'sign-up/confirm');
+  const res = await client.post('/api/auth/sign-up/confirm', { token });
+  if (res.status !== 201) throw new Error(`sign-up confirmation failed: ${res.status} ${JSON.stringify(res.body)}`);
   const me = (res.body as { me: { user: { id: number }; activeFirm: { id: number } } }).me;
   return { client, email, userId: me.user.id, firmId: me.activeFirm.id };
 }

@@ -1,11 +1,20 @@
+import { createHash } from 'node:crypto';
 import type { Request } from 'express';
 import type { Knex } from 'knex';
+import { findStored, insertKey, storeAnswer, type StoredRow } from './idempotency-dal.ts';
 import type { Actor, AppDeps } from '../app-deps.ts';
 import { HttpError } from './http-error.ts';
 
 const keyPattern = /^[A-Za-z0-9_.:-]{8,100}$/;
 
-export function idempotencyKeyOf(req: Request): string | undefined {
+/** A request's Idempotency-Key with a fingerprint of the request it came with. */
+export interface IdempotencyKey {
+  key: string;
+  /** SHA-256 of the method, path and body: the same key with another request is refused, not replayed. */
+  requestHash: string;
+}
+
+export function idempotencyKeyOf(req: Request): IdempotencyKey | undefined {
   const key = req.get('idempotency-key');
   if (key === undefined) return undefined;
   if (!keyPattern.test(key)) {
@@ -13,7 +22,8 @@ export function idempotencyKeyOf(req: Request): string | undefined {
       { path: 'Idempotency-Key', message: 'Use a UUID.' },
     ]);
   }
-  return key;
+  const fingerprint = JSON.stringify([req.method, req.baseUrl + req.path, req.body ?? null]);
+  return { key, requestHash: createHash('sha256').update(fingerprint).digest('hex') };
 }
 
 function isDuplicate(err: unknown): boolean {
@@ -28,51 +38,44 @@ function isDuplicate(err: unknown): boolean {
 export async function runIdempotent<T>(
   deps: AppDeps,
   actor: Actor,
-  key: string | undefined,
+  idempotencyKey: IdempotencyKey | undefined,
   route: string,
   work: (trx: Knex.Transaction) => Promise<{ status: number; body: T }>,
 ): Promise<{ status: number; body: T; replayed: boolean }> {
-  if (!key) return { ...(await deps.db.transaction(work)), replayed: false };
-  const existing = await findStored(deps.db, actor, key);
-  if (existing) return replay(existing, route);
+  if (!idempotencyKey) return { ...(await deps.db.transaction(work)), replayed: false };
+  const { key, requestHash } = idempotencyKey;
+  const existing = await findStored(deps.db, actor.firmId, actor.userId, key);
+  if (existing) return replay(existing, route, requestHash);
   let keyWritten = false;
   try {
     const result = await deps.db.transaction(async (trx) => {
-      const [id] = await trx('idempotency_keys').insert({
-        firm_id: actor.firmId,
-        user_id: actor.userId,
-        idempotency_key: key,
-        route,
-        status_code: 0,
-        response_body: 'null',
-      });
+      const id = await insertKey(trx, { firmId: actor.firmId, userId: actor.userId, key, route, requestHash });
       keyWritten = true;
       const out = await work(trx);
-      await trx('idempotency_keys').where({ id }).update({ status_code: out.status, response_body: JSON.stringify(out.body) });
+      await storeAnswer(trx, id, out.status, out.body);
       return out;
     });
     return { ...result, replayed: false };
   } catch (err) {
     if (keyWritten || !isDuplicate(err)) throw err;
-    const stored = await findStored(deps.db, actor, key);
+    const stored = await findStored(deps.db, actor.firmId, actor.userId, key);
     if (!stored) throw err;
-    return replay(stored, route);
+    return replay(stored, route, requestHash);
   }
 }
 
-interface StoredRow {
-  route: string;
-  status_code: number;
-  response_body: string | object;
-}
-
-async function findStored(db: Knex, actor: Actor, key: string): Promise<StoredRow | undefined> {
-  return db('idempotency_keys').where({ firm_id: actor.firmId, user_id: actor.userId, idempotency_key: key }).first('route', 'status_code', 'response_body');
-}
-
-function replay<T>(row: StoredRow, route: string): { status: number; body: T; replayed: boolean } {
+function replay<T>(row: StoredRow, route: string, requestHash: string): { status: number; body: T; replayed: boolean } {
   if (row.route !== route) {
     throw new HttpError(409, 'That Idempotency-Key was already used for a different request.', 'IdempotencyKeyReused');
+  }
+  // Rows written before the fingerprint was kept have none; they replay as before.
+  if (row.request_hash !== null && row.request_hash !== requestHash) {
+    throw new HttpError(
+      422,
+      'This save reused the reference of an earlier, different one, so it was not applied. Reload the page and enter it again.',
+      'IdempotencyKeyMismatch',
+      [{ path: 'Idempotency-Key', message: 'Send a new key for a new request.' }],
+    );
   }
   const body = typeof row.response_body === 'string' ? JSON.parse(row.response_body) : row.response_body;
   return { status: row.status_code, body: body as T, replayed: true };

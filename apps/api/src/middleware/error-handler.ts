@@ -14,6 +14,27 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, `There is no ${req.method} ${req.path} in the API.`));
 };
 
+/**
+ * The body parser's own failures (an unknown charset or Content-Encoding, a body that does not
+ * inflate, a body cut short of its Content-Length) are the client's, not ours: each becomes a 4xx
+ * in plain words instead of a 500.
+ */
+function bodyReadProblem(err: unknown): { status: 400 | 415; message: string } | null {
+  const e = err as { type?: string; status?: number; expose?: boolean } | null;
+  if (!e || typeof e.status !== 'number' || e.status < 400 || e.status >= 500 || e.expose !== true) return null;
+  switch (e.type) {
+    case 'charset.unsupported':
+      return { status: 415, message: 'The request body must be sent as UTF-8 text.' };
+    case 'encoding.unsupported':
+      return { status: 415, message: 'The request body is compressed in a way Heatfleet does not read (send it plain, gzip or deflate).' };
+    case 'request.aborted':
+    case 'request.size.invalid':
+      return { status: 400, message: 'The request body arrived incomplete. Check your connection and try again.' };
+    default:
+      return { status: 400, message: 'The request body could not be read.' };
+  }
+}
+
 /** The one error handler: every failure leaves as the shared error body, and nothing internal leaks. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const requestId = req.id ?? 'unknown';
@@ -49,6 +70,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (e.type === 'entity.too.large') {
     send(res, { statusCode: 413, error: apiErrorNames[413], message: 'The request body is too large.', requestId });
+    return;
+  }
+  const bodyProblem = bodyReadProblem(err);
+  if (bodyProblem) {
+    send(res, { statusCode: bodyProblem.status, error: bodyProblem.status === 415 ? apiErrorNames[415] : 'UnreadableBody', message: bodyProblem.message, requestId });
     return;
   }
   if (e.code === 'EBADCSRFTOKEN') {

@@ -20,6 +20,7 @@ export const apiErrorNames = {
   404: 'NotFound',
   409: 'Conflict',
   413: 'TooLarge',
+  415: 'UnsupportedMediaType',
   422: 'ValidationFailed',
   429: 'TooManyRequests',
   500: 'InternalError',

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLineName } from '../lib/text.ts';
 
 export const volumeUnits = ['litres', 'imperial_gallons'] as const;
 export type VolumeUnit = (typeof volumeUnits)[number];
@@ -20,7 +21,7 @@ export function isKnownTimeZone(zone: string): boolean {
 
 /** The firm's own settings, changed by an Owner or an Admin. */
 export const firmSettingsInputSchema = z.strictObject({
-  name: z.string({ error: 'The firm name is required.' }).trim().min(1, { error: 'The firm name is required.' }).max(120, { error: 'The firm name must be at most 120 characters.' }),
+  name: singleLineName('The firm name', { max: 120 }),
   address: z.string().trim().max(500, { error: 'The address must be at most 500 characters.' }).transform((s) => (s === '' ? null : s)).nullable().optional(),
   timeZone: z
     .string({ error: 'A time zone is required.' })

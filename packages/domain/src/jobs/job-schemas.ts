@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
+import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
 import { copperTubes, pipeWaterContentLitresPerMetre, boreLitresPerMetre, quickEstimateLitres, radiatorLitres, systemVolumeLitres, type PanelType } from './system-volume.ts';
 
-const text = (label: string, max: number) =>
-  z.string().trim().max(max, { error: `${label} must be at most ${max} characters.` }).transform((s) => (s === '' ? null : s)).nullable().optional();
-const name = (label: string, max = 120) => z.string({ error: `${label} is required.` }).trim().min(1, { error: `${label} is required.` }).max(max);
+const text = optionalPlainText;
+const name = (label: string, max = 120) => singleLineName(label, { max });
 
 export const customerInputSchema = z.strictObject({
   name: name('Customer name'),
@@ -15,7 +15,8 @@ export const customerInputSchema = z.strictObject({
 export type CustomerInput = z.infer<typeof customerInputSchema>;
 
 export const siteInputSchema = z.strictObject({
-  address: name('Address', 500),
+  // An address may run over several lines; it is still plain text.
+  address: plainText('Address', 500).pipe(z.string().min(1, { error: 'Address is required.' })),
   postcode: text('Postcode', 12),
   accessNotes: text('Access notes', 1000),
   systemNotes: text('System notes', 1000),
@@ -99,7 +100,7 @@ export function surveyVolume(survey: Survey): VolumeBreakdown {
 
 export const createJobInputSchema = z.strictObject({
   siteId: z.number().int().positive(),
-  scheduledOn: calendarDateSchema,
+  scheduledOn: calendarDateWithin('The visit date', dateRanges.planned),
   engineerMemberId: z.number().int().positive().nullable().optional(),
   survey: surveySchema,
   /** The products to dose (a cleaner, an inhibitor). */

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { coldBottom, flushComplete, HAV_ACTION_POINTS, HAV_LIMIT_POINTS, inhibitorCheck, meanWaterToRoomKelvin, radiatorOutputWatts, vibrationPoints } from './water-tests.ts';
 
 /**
@@ -90,7 +90,7 @@ export const jobPhotoTagLabels: Record<(typeof jobPhotoTags)[number], string> = 
 
 /** An inhibitor check visit, recorded against a site after the clean. */
 export const siteCheckInputSchema = z.strictObject({
-  checkedOn: calendarDateSchema,
+  checkedOn: calendarDateWithin('The check date', dateRanges.done),
   inhibitorProductId: z.number().int().positive(),
   inhibitorReading: z.number().min(0).max(100_000),
   systemTdsPpm: z.number().min(0).max(5000).nullable().optional(),

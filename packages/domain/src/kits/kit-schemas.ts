@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
+import { optionalPlainText, singleLineName } from '../lib/text.ts';
 import { locationRefSchema } from '../locations/location-schemas.ts';
 
 export const itemConditions = ['in_service', 'needs_attention', 'out_of_service'] as const;
@@ -17,16 +18,8 @@ export const overduePolicyLabels: Record<(typeof overduePolicies)[number], strin
   block: 'Stays in until inspected',
 };
 
-const text = (label: string, max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, { error: `${label} must be at most ${max} characters.` })
-    .transform((s) => (s === '' ? null : s))
-    .nullable()
-    .optional();
-const name = (label: string, max = 80) =>
-  z.string({ error: `${label} is required.` }).trim().min(1, { error: `${label} is required.` }).max(max, { error: `${label} must be at most ${max} characters.` });
+const text = optionalPlainText;
+const name = (label: string, max = 80) => singleLineName(label, { max });
 const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
 const interval = (label: string, max: number) =>
   z.number().int({ error: `${label} must be a whole number.` }).min(1, { error: `${label} must be at least 1.` }).max(max, { error: `${label} must be at most ${max}.` }).nullable();
@@ -75,7 +68,7 @@ export const createKitItemInputSchema = z.strictObject({
   serialNumber: text('Serial number', 80),
   notes: text('Notes', 1000),
   locationId: id('Location').optional(),
-  inServiceSince: calendarDateSchema.optional(),
+  inServiceSince: calendarDateWithin('In service since', dateRanges.inService).optional(),
 });
 export type CreateKitItemInput = z.infer<typeof createKitItemInputSchema>;
 export const updateKitItemInputSchema = z.strictObject({
@@ -181,7 +174,7 @@ export const recordInspectionInputSchema = z.strictObject({
   result: inspectionResultSchema,
   notes: text('Notes', 1000),
   photoId: id('Photo').optional(),
-  inspectedOn: calendarDateSchema.optional(),
+  inspectedOn: calendarDateWithin('Inspection date', dateRanges.done).optional(),
 });
 export type RecordInspectionInput = z.infer<typeof recordInspectionInputSchema>;
 

@@ -41,3 +41,32 @@ export function addMonths(date: CalendarDate, months: number): CalendarDate {
   const lastDay = new Date(Date.UTC(year, month, 0)).getUTCDate();
   return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(Math.min(d, lastDay)).padStart(2, '0')}`;
 }
+
+/**
+ * A calendar date within a range that makes sense for what it is. Years 0000-0999 or 9999 are typing
+ * slips, and a date that far out would sort, remind and print wrongly everywhere it is used.
+ * `notAfterToday` refuses dates that have not happened yet (a day's slack covers time zones).
+ */
+export function calendarDateWithin(label: string, range: { from: CalendarDate; to: CalendarDate; notAfterToday?: boolean }) {
+  const readable = (d: CalendarDate) => new Date(`${d}T00:00:00Z`).toLocaleDateString('en-GB', { timeZone: 'UTC', day: 'numeric', month: 'long', year: 'numeric' });
+  return calendarDateSchema
+    .refine((d) => d >= range.from && d <= range.to, {
+      error: (iss) => `${label} must be between ${readable(range.from)} and ${readable(range.to)} (you gave ${String(iss.input)}).`,
+    })
+    .refine((d) => !range.notAfterToday || d <= addDays(new Date().toISOString().slice(0, 10), 1), {
+      error: `${label} cannot be in the future.`,
+    });
+}
+
+/** The ranges the app accepts, one per kind of date (common practice (no source): wide enough for real records). */
+export const dateRanges = {
+  /** Bookings, due dates, expiries and checks: this century. */
+  planned: { from: '2000-01-01', to: '2099-12-31' },
+  /** When a tool went into service: from 1970, and not in the future. */
+  inService: { from: '1970-01-01', to: '2099-12-31', notAfterToday: true },
+  /**
+   * Something already done (an inspection, a check): from 2000. Its service refuses a day after
+   * today in the firm's own time zone, with its own message, so the upper bound here is only a backstop.
+   */
+  done: { from: '2000-01-01', to: '9999-12-31' },
+} as const;

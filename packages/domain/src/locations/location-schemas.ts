@@ -1,14 +1,8 @@
 import { z } from 'zod';
-import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
+import { optionalPlainText, singleLineName } from '../lib/text.ts';
 
-const optionalText = (label: string, max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, { error: `${label} must be at most ${max} characters.` })
-    .transform((s) => (s === '' ? null : s))
-    .nullable()
-    .optional();
+const optionalText = optionalPlainText;
 
 /**
  * UK registrations, loosely: letters and digits with one optional space, 2 to 8 characters, at
@@ -26,11 +20,7 @@ export const registrationSchema = z
       .refine((s) => s.replace(' ', '').length >= 2 && s.replace(' ', '').length <= 8, { error: 'A registration has 2 to 8 letters and digits.' }),
   );
 
-export const locationNameSchema = z
-  .string({ error: 'Name is required.' })
-  .trim()
-  .min(1, { error: 'Name is required.' })
-  .max(80, { error: 'Name must be at most 80 characters.' });
+export const locationNameSchema = singleLineName('Name', { max: 80 });
 
 const idSchema = z.number().int().positive();
 
@@ -38,8 +28,8 @@ export const createVanInputSchema = z.strictObject({
   name: locationNameSchema,
   registration: registrationSchema,
   engineerMemberId: idSchema.nullable().optional(),
-  motDueOn: calendarDateSchema.nullable().optional(),
-  serviceDueOn: calendarDateSchema.nullable().optional(),
+  motDueOn: calendarDateWithin('MOT due date', dateRanges.planned).nullable().optional(),
+  serviceDueOn: calendarDateWithin('Service due date', dateRanges.planned).nullable().optional(),
   notes: optionalText('Notes', 1000),
 });
 export type CreateVanInput = z.infer<typeof createVanInputSchema>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
+import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
 
 export const productKinds = ['cleaner', 'inhibitor', 'descaler', 'leak_sealer', 'neutraliser', 'other'] as const;
 export const productKindLabels: Record<(typeof productKinds)[number], string> = {
@@ -11,8 +12,7 @@ export const productKindLabels: Record<(typeof productKinds)[number], string> = 
   other: 'Other',
 };
 
-const text = (label: string, max: number) =>
-  z.string().trim().max(max, { error: `${label} must be at most ${max} characters.` }).transform((s) => (s === '' ? null : s)).nullable().optional();
+const text = optionalPlainText;
 const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
 const packs = (label: string) =>
   z.number({ error: `${label} is required.` }).int({ error: `${label} must be whole packs.` }).min(1, { error: `${label} must be at least 1 pack.` }).max(100_000, { error: `${label} must be at most 100000 packs.` });
@@ -24,7 +24,7 @@ export function productKindLabel(product: { kind: (typeof productKinds)[number];
 
 export const productInputSchema = z
   .strictObject({
-    name: z.string({ error: 'Name is required.' }).trim().min(1, { error: 'Name is required.' }).max(120),
+    name: singleLineName('Name', { max: 120 }),
     kind: z.enum(productKinds, { error: () => ({ message: `Kind must be one of: ${productKinds.join(', ')}.` }) }),
     /** The firm's own kind, named when the kind is "other". */
     ownKind: text('Your own kind', 40),
@@ -72,13 +72,13 @@ export const productSchema = z.object({
 });
 export type Product = z.infer<typeof productSchema>;
 
-export const lotNumberSchema = z.string({ error: 'Lot number is required.' }).trim().min(1, { error: 'Lot number is required.' }).max(60);
+export const lotNumberSchema = singleLineName('Lot number', { max: 60 });
 
 export const receiptInputSchema = z.strictObject({
   locationId: id('Depot'),
   reference: text('Delivery reference', 100),
   lines: z
-    .array(z.strictObject({ productId: id('Product'), lotNumber: lotNumberSchema, expiresOn: calendarDateSchema, quantity: packs('Quantity') }), { error: 'Add at least one line.' })
+    .array(z.strictObject({ productId: id('Product'), lotNumber: lotNumberSchema, expiresOn: calendarDateWithin('Expiry date', dateRanges.planned), quantity: packs('Quantity') }), { error: 'Add at least one line.' })
     .min(1, { error: 'Add at least one line.' })
     .max(100),
 });
@@ -95,7 +95,7 @@ export const usageInputSchema = z.strictObject({
   productId: id('Product'),
   batchId: id('Batch').optional(),
   quantity: packs('Quantity'),
-  reason: z.string({ error: 'Say what it was used for.' }).trim().min(3, { error: 'Say what it was used for.' }).max(300),
+  reason: plainText('The reason', 300).pipe(z.string().min(3, { error: 'Say what it was used for.' })),
 });
 export type UsageInput = z.infer<typeof usageInputSchema>;
 
@@ -146,8 +146,8 @@ export const ledgerQuerySchema = z.strictObject({
   locationId: z.coerce.number().int().positive().optional(),
   productId: z.coerce.number().int().positive().optional(),
   kind: z.enum(movementKinds).optional(),
-  from: calendarDateSchema.optional(),
-  to: calendarDateSchema.optional(),
+  from: calendarDateWithin('From', dateRanges.planned).optional(),
+  to: calendarDateWithin('To', dateRanges.planned).optional(),
   /** Keyset cursor: the id of the last movement of the previous page. */
   before: z.coerce.number().int().positive().optional(),
   limit: z.coerce.number().int().min(1).max(500).default(50),

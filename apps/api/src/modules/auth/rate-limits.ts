@@ -1,35 +1,86 @@
-import type { Request, RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { rateLimit, ipKeyGenerator, type Options } from 'express-rate-limit';
 import { HttpError } from '../../lib/http-error.ts';
 
-export interface SignInLimiter {
-  /** Failed sign-ins per account (e-mail), whichever address they come from. */
-  byAccount: RequestHandler;
-  /** Failed sign-ins per client address, whichever accounts they try. */
-  byAddress: RequestHandler;
-  /** Password-reset e-mails per address asked for, so nobody floods an inbox. */
-  passwordResetByAccount: RequestHandler;
-}
-
-export interface SignInLimits {
+/**
+ * Every route that takes a secret (a password, a link's token) or sends an e-mail is limited twice:
+ * per account (or per link) whichever address it comes from, and per client address whichever
+ * accounts it tries (OWASP Authentication Cheat Sheet, "Protect against automated attacks").
+ * Limits are sliding windows, never permanent locks: hammering a victim's account delays the victim
+ * by at most one window, and they can reset their password meanwhile.
+ */
+export interface RateLimits {
   windowMs: number;
+  /** Failed sign-ins per account, and per client address. */
   perAccount: number;
   perAddress: number;
+  /** Password-reset e-mails per address asked for (per hour), and requests per client address (per hour). */
   resetsPerAccount: number;
+  resetsPerAddress: number;
+  /** Sign-ups (each sends an e-mail) per e-mail address and per client address, per hour. */
+  signUpsPerAccount: number;
+  signUpsPerAddress: number;
+  /** Failed uses of a link (sign-up confirmation, password reset, invitation) per link and per client address. */
+  linkFailuresPerLink: number;
+  linkFailuresPerAddress: number;
+  /** Wrong current passwords at a password change, per account and per client address. */
+  passwordChangeFailuresPerAccount: number;
+  passwordChangeFailuresPerAddress: number;
 }
 
-// The lock is a sliding window, never permanent: an attacker hammering a victim's account
-// delays the victim by at most one window, and the victim can reset their password meanwhile.
-export const defaultSignInLimits: SignInLimits = {
+export const defaultRateLimits: RateLimits = {
   windowMs: 15 * 60 * 1000,
   perAccount: 10,
   perAddress: 50,
   resetsPerAccount: 5,
+  resetsPerAddress: 20,
+  signUpsPerAccount: 5,
+  signUpsPerAddress: 20,
+  linkFailuresPerLink: 5,
+  linkFailuresPerAddress: 20,
+  passwordChangeFailuresPerAccount: 5,
+  passwordChangeFailuresPerAddress: 20,
 };
 
+export interface RateLimiters {
+  signInByAccount: RequestHandler;
+  signInByAddress: RequestHandler;
+  signUpByAccount: RequestHandler;
+  signUpByAddress: RequestHandler;
+  resetRequestByAccount: RequestHandler;
+  resetRequestByAddress: RequestHandler;
+  /** Sign-up confirmation, password-reset confirmation and invitation acceptance: failures per link. */
+  linkByToken: RequestHandler;
+  linkByAddress: RequestHandler;
+  passwordChangeByAccount: RequestHandler;
+  passwordChangeByAddress: RequestHandler;
+}
+
+const HOUR_MS = 60 * 60 * 1000;
+
+function bodyString(req: Request, field: string): string | undefined {
+  const value: unknown = (req.body as Record<string, unknown> | undefined)?.[field];
+  return typeof value === 'string' ? value : undefined;
+}
+
 function emailKey(req: Request): string {
-  const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  return typeof email === 'string' ? `account:${email.trim().toLowerCase().slice(0, 254)}` : 'account:(none)';
+  const email = bodyString(req, 'email');
+  return email ? `account:${email.trim().toLowerCase().slice(0, 254)}` : 'account:(none)';
+}
+
+/** The link's token, from the body (confirmations) or the path (/invitations/:token/accept). */
+function tokenKey(req: Request): string {
+  const token = bodyString(req, 'token') ?? (req.params as Record<string, string | undefined>).token;
+  return `link:${(token ?? '(none)').slice(0, 128)}`;
+}
+
+function addressKey(req: Request): string {
+  return `address:${ipKeyGenerator(req.ip ?? '0.0.0.0')}`;
+}
+
+function signedInUserKey(_req: Request, res: Response): string {
+  const actor = res.locals.actor as { userId?: number } | undefined;
+  return `user:${actor?.userId ?? '(none)'}`;
 }
 
 function tooMany(message: string): Options['handler'] {
@@ -42,34 +93,33 @@ function tooMany(message: string): Options['handler'] {
   };
 }
 
-export function createSignInLimiter(limits: SignInLimits = defaultSignInLimits): SignInLimiter {
-  const common = {
-    windowMs: limits.windowMs,
-    standardHeaders: 'draft-8' as const,
+function limiter(opts: { windowMs: number; limit: number; key: (req: Request, res: Response) => string; message: string; failuresOnly: boolean }): RequestHandler {
+  return rateLimit({
+    windowMs: opts.windowMs,
+    limit: opts.limit,
+    standardHeaders: 'draft-8',
     legacyHeaders: false,
-    skipSuccessfulRequests: true,
+    keyGenerator: opts.key,
+    handler: tooMany(opts.message),
+    // Failures only: a person who gets it right is never slowed down by their own successes.
+    skipSuccessfulRequests: opts.failuresOnly,
     requestWasSuccessful: (_req: Request, res: { statusCode: number }) => res.statusCode < 400,
-  };
+  });
+}
+
+export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLimiters {
+  const l = { ...defaultRateLimits, ...overrides };
+  const w = l.windowMs;
   return {
-    byAccount: rateLimit({
-      ...common,
-      limit: limits.perAccount,
-      keyGenerator: emailKey,
-      handler: tooMany('Too many failed sign-ins for this account.'),
-    }),
-    byAddress: rateLimit({
-      ...common,
-      limit: limits.perAddress,
-      keyGenerator: (req) => `address:${ipKeyGenerator(req.ip ?? '0.0.0.0')}`,
-      handler: tooMany('Too many failed sign-ins from this network.'),
-    }),
-    passwordResetByAccount: rateLimit({
-      windowMs: 60 * 60 * 1000,
-      limit: limits.resetsPerAccount,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      keyGenerator: emailKey,
-      handler: tooMany('Too many password-reset e-mails asked for this address.'),
-    }),
+    signInByAccount: limiter({ windowMs: w, limit: l.perAccount, key: emailKey, failuresOnly: true, message: 'Too many failed sign-ins for this account.' }),
+    signInByAddress: limiter({ windowMs: w, limit: l.perAddress, key: addressKey, failuresOnly: true, message: 'Too many failed sign-ins from this network.' }),
+    signUpByAccount: limiter({ windowMs: HOUR_MS, limit: l.signUpsPerAccount, key: emailKey, failuresOnly: false, message: 'Too many sign-ups for this e-mail address.' }),
+    signUpByAddress: limiter({ windowMs: HOUR_MS, limit: l.signUpsPerAddress, key: addressKey, failuresOnly: false, message: 'Too many sign-ups from this network.' }),
+    resetRequestByAccount: limiter({ windowMs: HOUR_MS, limit: l.resetsPerAccount, key: emailKey, failuresOnly: false, message: 'Too many password-reset e-mails asked for this address.' }),
+    resetRequestByAddress: limiter({ windowMs: HOUR_MS, limit: l.resetsPerAddress, key: addressKey, failuresOnly: false, message: 'Too many password-reset e-mails asked from this network.' }),
+    linkByToken: limiter({ windowMs: w, limit: l.linkFailuresPerLink, key: tokenKey, failuresOnly: true, message: 'Too many failed tries with this link.' }),
+    linkByAddress: limiter({ windowMs: w, limit: l.linkFailuresPerAddress, key: addressKey, failuresOnly: true, message: 'Too many failed tries with links from this network.' }),
+    passwordChangeByAccount: limiter({ windowMs: w, limit: l.passwordChangeFailuresPerAccount, key: signedInUserKey, failuresOnly: true, message: 'Too many wrong current passwords.' }),
+    passwordChangeByAddress: limiter({ windowMs: w, limit: l.passwordChangeFailuresPerAddress, key: addressKey, failuresOnly: true, message: 'Too many wrong current passwords from this network.' }),
   };
 }

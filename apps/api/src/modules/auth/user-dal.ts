@@ -8,11 +8,11 @@ export interface UserRow {
   password_hash: string;
 }
 
-export function findUserByEmail(db: Knex, email: string): Promise<UserRow | undefined> {
+export function findUserByEmail(db: Knex | Knex.Transaction, email: string): Promise<UserRow | undefined> {
   return db<UserRow>('users').where({ email }).first();
 }
 
-export function findUserById(db: Knex, id: number): Promise<UserRow | undefined> {
+export function findUserById(db: Knex | Knex.Transaction, id: number): Promise<UserRow | undefined> {
   return db<UserRow>('users').where({ id }).first();
 }
 

@@ -43,3 +43,30 @@ export function passwordResetEmail(p: { name: string; link: string }): RenderedE
     html: layout(lines, { href: p.link, label: 'Choose a new password' }),
   };
 }
+
+export function signUpConfirmEmail(p: { name: string; firmName: string; link: string }): RenderedEmail {
+  const lines = [
+    `Hello ${p.name},`,
+    `To finish creating ${p.firmName} on Heatfleet, open the link below. It works once, for 24 hours.`,
+    'If you did not ask for this, ignore this e-mail: nothing is created without the link.',
+  ];
+  return {
+    subject: 'Finish creating your firm on Heatfleet',
+    text: `${lines.join('\n\n')}\n\nCreate the firm: ${p.link}\n`,
+    html: layout(lines, { href: p.link, label: 'Create the firm' }),
+  };
+}
+
+/** Sent instead of a confirmation when the address already has an account: the sign-up page says nothing of it. */
+export function signUpExistingAccountEmail(p: { name: string; link: string }): RenderedEmail {
+  const lines = [
+    `Hello ${p.name},`,
+    'Someone tried to create a firm on Heatfleet with your e-mail address, which already has an account.',
+    'If it was you, sign in and create the new firm from your account (the firm menu has "Create another firm"). If it was not you, ignore this e-mail: nothing was changed and nobody was signed in.',
+  ];
+  return {
+    subject: 'Someone tried to create a firm with your address',
+    text: `${lines.join('\n\n')}\n\nSign in: ${p.link}\n`,
+    html: layout(lines, { href: p.link, label: 'Sign in to Heatfleet' }),
+  };
+}
