@@ -1,12 +1,12 @@
-import { z } from 'zod';
 import {
   acceptInvitationInputSchema,
   createInvitationInputSchema,
   idParamSchema,
-  invitationPreviewSchema,
-  invitationSchema,
+  invitationAcceptedResponseSchema,
+  invitationListResponseSchema,
+  invitationPreviewResponseSchema,
+  invitationResponseSchema,
   invitationTokenParamSchema,
-  meResponseSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { buildMe } from '../auth/auth-service.ts';
@@ -18,7 +18,7 @@ export const invitationRoutes: RouteDefinition[] = [
     method: 'get', path: '/invitations', tag: 'Team', access: 'member', tenantData: true,
     summary: 'Open invitations of the active firm (Owner, Admin)',
     request: {},
-    responses: { 200: { description: 'Invitations', schema: z.object({ invitations: z.array(invitationSchema) }) } },
+    responses: { 200: { description: 'Invitations', schema: invitationListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ invitations: await listInvitations(deps, actor) });
     },
@@ -27,7 +27,7 @@ export const invitationRoutes: RouteDefinition[] = [
     method: 'post', path: '/invitations', tag: 'Team', access: 'member', tenantData: true,
     summary: 'Invite someone by e-mail with a role; the link works once and expires in 7 days',
     request: { body: createInvitationInputSchema },
-    responses: { 201: { description: 'Invited', schema: z.object({ invitation: invitationSchema }) }, 409: { description: 'Already a member' } },
+    responses: { 201: { description: 'Invited', schema: invitationResponseSchema }, 409: { description: 'Already a member' } },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ invitation: await createInvitation(deps, actor, body) });
     },
@@ -46,7 +46,7 @@ export const invitationRoutes: RouteDefinition[] = [
     method: 'get', path: '/invitations/by-token/:token', tag: 'Team', access: 'public', tenantData: false,
     summary: 'What an invitation link offers: firm, e-mail, role, and whether the account exists',
     request: { params: invitationTokenParamSchema },
-    responses: { 200: { description: 'Invitation', schema: z.object({ invitation: invitationPreviewSchema }) }, 404: { description: 'Invalid link' } },
+    responses: { 200: { description: 'Invitation', schema: invitationPreviewResponseSchema }, 404: { description: 'Invalid link' } },
     handle: async ({ params, res, deps }) => {
       res.json({ invitation: await previewInvitation(deps, params.token) });
     },
@@ -55,7 +55,7 @@ export const invitationRoutes: RouteDefinition[] = [
     method: 'post', path: '/invitations/by-token/:token/accept', tag: 'Team', access: 'public', tenantData: false,
     summary: 'Accept an invitation (new account, or join with an existing one) and sign in',
     request: { params: invitationTokenParamSchema, body: acceptInvitationInputSchema },
-    responses: { 200: { description: 'Joined', schema: z.object({ me: meResponseSchema, csrfToken: z.string() }) }, 404: { description: 'Invalid link' } },
+    responses: { 200: { description: 'Joined', schema: invitationAcceptedResponseSchema }, 404: { description: 'Invalid link' } },
     before: (deps) => [deps.signInLimiter.byAddress],
     handle: async ({ params, body, req, res, deps }) => {
       const { userId, firmId } = await acceptInvitation(deps, params.token, body);

@@ -2,7 +2,7 @@ import { ForbiddenError } from '@casl/ability';
 import { addDays, addMonths, calendarDateIn, daysBetween, DEFAULT_TIME_ZONE, havDay, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate, type Overview, type OverviewDueItem, type OverviewVan } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findFirm } from '../firms/firm-dal.ts';
-import { listBatchesHeldExpiringBy } from '../reminders/reminder-dal.ts';
+import { listBatchesHeldExpiringBy } from '../reminders/reminder-stock-dal.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
 import { countJobsScheduled, listActiveVans, listAgitationsOn, listEngineers, listItemDueInputs, listLatestReminders, listProductsForUsage, packsUsedByMonth } from './overview-dal.ts';
 

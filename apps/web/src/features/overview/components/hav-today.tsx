@@ -1,5 +1,5 @@
+import type { HavEngineer } from '@heatfleet/domain';
 import { Badge, type BadgeTone } from '@/components/ui/badge';
-import type { HavEngineer } from '@/features/overview/api/overview-queries';
 
 const levelTone: Record<HavEngineer['level'], BadgeTone> = {
   low: 'ok',

@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import type { Overview, OverviewVan } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { paths } from '@/config/paths';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
-import type { Overview, OverviewVan } from '@/features/overview/api/overview-queries';
 
 /** A card whose heading is a link to the list it summarises: the whole heading is the touch target. */
 export function LinkCard({ title, to, linkLabel, children }: { title: string; to: string; linkLabel: string; children: ReactNode }) {

@@ -1,5 +1,5 @@
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
-import type { Overview } from '@/features/overview/api/overview-queries';
+import type { Overview } from '@heatfleet/domain';
 
 // One colour per product kind from the palette tokens, so the chart reads like the rest of the app.
 const kindColours: Record<string, string> = {

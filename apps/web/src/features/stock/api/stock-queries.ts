@@ -1,89 +1,18 @@
 import { infiniteQueryOptions, queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { movementKinds, movementSchema, productKinds, productSchema, stockHealth } from '@heatfleet/domain';
+import {
+  batchStockResponseSchema,
+  ledgerPageSchema,
+  myVanStockSchema,
+  parLevelListResponseSchema,
+  productListResponseSchema,
+  productResponseSchema,
+  restockRunSchema,
+  stockGridSchema,
+  type movementKinds,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-// The API answers these without a shared schema, so the client pins down the fields it reads.
-const parSchema = z.object({ minimum: z.number(), target: z.number() });
-const healthSchema = z.enum(stockHealth);
-
-const stockCellSchema = z.object({
-  locationId: z.number(),
-  productId: z.number(),
-  usable: z.number(),
-  expired: z.number(),
-  par: parSchema.nullable(),
-  health: healthSchema,
-});
-export type StockCell = z.infer<typeof stockCellSchema>;
-
-const stockGridSchema = z.object({
-  today: z.string(),
-  products: z.array(z.object({ id: z.number(), name: z.string(), kind: z.enum(productKinds), packSizeMl: z.number() })),
-  locations: z.array(z.object({ id: z.number(), kind: z.enum(['depot', 'van']), name: z.string(), registration: z.string().nullable() })),
-  cells: z.array(stockCellSchema),
-});
-export type StockGrid = z.infer<typeof stockGridSchema>;
-export type StockPlace = StockGrid['locations'][number];
-
-const batchStockSchema = z.object({
-  location: z.object({ id: z.number(), name: z.string() }),
-  product: z.object({ id: z.number(), name: z.string() }),
-  batch: z.object({ id: z.number(), lotNumber: z.string(), expiresOn: z.string() }),
-  quantity: z.number(),
-  expired: z.boolean(),
-});
-export type BatchStockRow = z.infer<typeof batchStockSchema>;
-const batchesSchema = z.object({ batches: z.array(batchStockSchema) });
-
-const ledgerPageSchema = z.object({ movements: z.array(movementSchema), nextCursor: z.number().nullable() });
-
-const allocationSchema = z.object({ batchId: z.number(), lotNumber: z.string(), expiresOn: z.string(), quantity: z.number() });
-const restockRunSchema = z.object({
-  today: z.string(),
-  depot: z.object({ id: z.number(), name: z.string() }),
-  lines: z.array(
-    z.object({
-      locationId: z.number(),
-      productId: z.number(),
-      usable: z.number(),
-      par: parSchema,
-      wanted: z.number(),
-      allocations: z.array(allocationSchema),
-      shortfall: z.number(),
-      van: z.object({ id: z.number(), name: z.string(), registration: z.string().nullable() }),
-      product: z.object({ id: z.number(), name: z.string() }),
-    }),
-  ),
-  reorder: z.array(
-    z.object({
-      productId: z.number(),
-      usableAfterTransfers: z.number(),
-      par: parSchema,
-      orderQuantity: z.number(),
-      used90Days: z.number(),
-      daysOfCover: z.number().nullable(),
-      product: z.object({ id: z.number(), name: z.string() }),
-    }),
-  ),
-});
-export type RestockRun = z.infer<typeof restockRunSchema>;
-export type RestockRunLine = RestockRun['lines'][number];
-export type ReorderRow = RestockRun['reorder'][number];
-
-const parLevelsSchema = z.object({
-  parLevels: z.array(z.object({ locationId: z.number(), productId: z.number(), minimum: z.number(), target: z.number() })),
-});
-
-const myVanStockSchema = z.object({
-  van: z.object({ id: z.number(), name: z.string(), registration: z.string().nullable() }).nullable(),
-  stock: z.array(stockCellSchema.extend({ productName: z.string() })),
-  batches: z.array(batchStockSchema),
-});
-export type MyVanStock = z.infer<typeof myVanStockSchema>;
-
-export const productsEnvelopeSchema = z.object({ products: z.array(productSchema) });
-export const productEnvelopeSchema = z.object({ product: productSchema });
+// Each answer is parsed with the domain's schema, the one the API declares for that route.
 
 export interface LedgerFilters {
   locationId?: number | undefined;
@@ -115,12 +44,12 @@ export const productQueries = {
   list: () =>
     queryOptions({
       queryKey: productQueries.lists(),
-      queryFn: async () => (await apiClient.get('/api/products', productsEnvelopeSchema)).products,
+      queryFn: async () => (await apiClient.get('/api/products', productListResponseSchema)).products,
     }),
   detail: (id: number) =>
     queryOptions({
       queryKey: [...productQueries.all(), 'detail', id] as const,
-      queryFn: async () => (await apiClient.get(`/api/products/${id}`, productEnvelopeSchema)).product,
+      queryFn: async () => (await apiClient.get(`/api/products/${id}`, productResponseSchema)).product,
     }),
 };
 
@@ -130,7 +59,7 @@ export const stockQueries = {
   batches: (where: { locationId?: number; productId?: number }) =>
     queryOptions({
       queryKey: [...stockQueries.all(), 'batches', where] as const,
-      queryFn: async () => (await apiClient.get(`/api/stock/batches${searchOf(where)}`, batchesSchema)).batches,
+      queryFn: async () => (await apiClient.get(`/api/stock/batches${searchOf(where)}`, batchStockResponseSchema)).batches,
     }),
   ledgers: () => [...stockQueries.all(), 'ledger'] as const,
   ledger: (filters: LedgerFilters) =>
@@ -146,7 +75,7 @@ export const stockQueries = {
   parLevels: () =>
     queryOptions({
       queryKey: [...stockQueries.all(), 'par-levels'] as const,
-      queryFn: async () => (await apiClient.get('/api/par-levels', parLevelsSchema)).parLevels,
+      queryFn: async () => (await apiClient.get('/api/par-levels', parLevelListResponseSchema)).parLevels,
     }),
   mine: () => queryOptions({ queryKey: [...stockQueries.all(), 'mine'] as const, queryFn: () => apiClient.get('/api/me/van/stock', myVanStockSchema) }),
 };

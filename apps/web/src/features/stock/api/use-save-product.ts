@@ -1,13 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import type { ParLevelInput, ProductInput } from '@heatfleet/domain';
+import { parLevelResponseSchema, productResponseSchema, type ParLevelInput, type ProductInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { productEnvelopeSchema, productQueries, stockQueries } from '@/features/stock/api/stock-queries';
+import { productQueries, stockQueries } from '@/features/stock/api/stock-queries';
 
 export function useCreateProduct() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: ProductInput) => (await apiClient.post('/api/products', input, productEnvelopeSchema)).product,
+    mutationFn: async (input: ProductInput) => (await apiClient.post('/api/products', input, productResponseSchema)).product,
     // A new product also gains a row in the stock grid.
     onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: productQueries.all() }), queryClient.invalidateQueries({ queryKey: stockQueries.all() })]),
   });
@@ -16,7 +15,7 @@ export function useCreateProduct() {
 export function useUpdateProduct() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async ({ id, input }: { id: number; input: ProductInput }) => (await apiClient.put(`/api/products/${id}`, input, productEnvelopeSchema)).product,
+    mutationFn: async ({ id, input }: { id: number; input: ProductInput }) => (await apiClient.put(`/api/products/${id}`, input, productResponseSchema)).product,
     onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: productQueries.all() }), queryClient.invalidateQueries({ queryKey: stockQueries.all() })]),
   });
 }
@@ -27,7 +26,7 @@ export function useUploadSafetyDataSheet() {
     mutationFn: async ({ id, file }: { id: number; file: File }) => {
       const form = new FormData();
       form.append('file', file);
-      return (await apiClient.upload(`/api/products/${id}/safety-data-sheet`, form, productEnvelopeSchema)).product;
+      return (await apiClient.upload(`/api/products/${id}/safety-data-sheet`, form, productResponseSchema)).product;
     },
     onSuccess: () => queryClient.invalidateQueries({ queryKey: productQueries.all() }),
   });
@@ -36,7 +35,7 @@ export function useUploadSafetyDataSheet() {
 export function useSetParLevel() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: ParLevelInput) => apiClient.put('/api/par-levels', input, z.object({ parLevel: z.unknown() })),
+    mutationFn: (input: ParLevelInput) => apiClient.put('/api/par-levels', input, parLevelResponseSchema),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
 }

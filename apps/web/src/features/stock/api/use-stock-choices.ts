@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
-import { productQueries, stockQueries, type StockPlace } from '@/features/stock/api/stock-queries';
+import type { StockPlace } from '@heatfleet/domain';
+import { productQueries, stockQueries } from '@/features/stock/api/stock-queries';
 
 export function placeLabel(place: StockPlace): string {
   return place.kind === 'van' && place.registration ? `${place.name} (${place.registration})` : place.name;

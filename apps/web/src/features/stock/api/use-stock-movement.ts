@@ -1,10 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { movementSchema, type ReceiptInput, type StocktakeInput, type TransferInput, type UsageInput, type WriteOffInput } from '@heatfleet/domain';
+import { restockAppliedSchema, stockMovedSchema, type ReceiptInput, type StocktakeInput, type TransferInput, type UsageInput, type WriteOffInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { stockQueries } from '@/features/stock/api/stock-queries';
-
-const movedSchema = z.object({ groupId: z.string(), movements: z.array(movementSchema) });
 
 export type StockMovementRequest =
   | { action: 'receipts'; input: ReceiptInput }
@@ -14,7 +11,7 @@ export type StockMovementRequest =
   | { action: 'write-offs'; input: WriteOffInput };
 
 export function sendStockMovement(request: StockMovementRequest, idempotencyKey: string) {
-  return apiClient.post(`/api/stock/${request.action}`, request.input, movedSchema, { idempotencyKey });
+  return apiClient.post(`/api/stock/${request.action}`, request.input, stockMovedSchema, { idempotencyKey });
 }
 
 /** Every stock form goes through here; any movement can change the grid, batches, ledger, plan and van stock. */
@@ -30,18 +27,16 @@ export function useReverseMovement() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ movementId, reason, idempotencyKey }: { movementId: number; reason: string; idempotencyKey: string }) =>
-      apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, movedSchema, { idempotencyKey }),
+      apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, stockMovedSchema, { idempotencyKey }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
 }
-
-const appliedSchema = z.object({ groupId: z.string() });
 
 export function useApplyRestockRun() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ lines, idempotencyKey }: { lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[]; idempotencyKey: string }) =>
-      apiClient.post('/api/stock/restock-run', { lines }, appliedSchema, { idempotencyKey }),
+      apiClient.post('/api/stock/restock-run', { lines }, restockAppliedSchema, { idempotencyKey }),
     // A refused run (stock moved since it was computed) is recomputed too, so the next try starts from the truth.
     onSettled: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });

@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { parLevelInputSchema } from '@heatfleet/domain';
+import { parLevelInputSchema, type StockPlace } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
-import { stockQueries, type StockPlace } from '@/features/stock/api/stock-queries';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { useSetParLevel } from '@/features/stock/api/use-save-product';
 import { placeLabel, useStockChoices } from '@/features/stock/api/use-stock-choices';
 

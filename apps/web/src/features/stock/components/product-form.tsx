@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { productInputSchema, productKindLabels, productKinds, type Product } from '@heatfleet/domain';
+import { packSizeInUnit, packSizeMl, productInputSchema, productKindLabels, productKinds, type PackUnit, type Product } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -49,26 +49,21 @@ function prepare(values: Record<string, string | undefined>) {
   };
 }
 
-/** A pack of 1000 ml or more in whole tenths of a litre is shown in litres; anything else in millilitres. */
-function packDefaults(ml: number): { size: string; unit: 'ml' | 'l' } {
-  return ml >= 1000 && ml % 100 === 0 ? { size: String(ml / 1000), unit: 'l' } : { size: String(ml), unit: 'ml' };
-}
-
 const str = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
 
 export function ProductForm({ product, onSaved }: { product?: Product; onSaved?: (product: Product) => void }) {
   const create = useCreateProduct();
   const update = useUpdateProduct();
   const form = useSchemaForm(productInputSchema, fields, prepare);
-  const initialPack = product ? packDefaults(product.packSizeMl) : { size: '', unit: 'l' as const };
-  const [packSize, setPackSize] = useState(initialPack.size);
-  const [packUnit, setPackUnit] = useState<'ml' | 'l'>(initialPack.unit);
+  const initialPack = product ? packSizeInUnit(product.packSizeMl) : null;
+  const [packSize, setPackSize] = useState(initialPack ? String(initialPack.size) : '');
+  const [packUnit, setPackUnit] = useState<PackUnit>(initialPack?.unit ?? 'l');
   const [showGallons, setShowGallons] = useState(false);
   const [kind, setKind] = useState<string>(product?.kind ?? '');
   const [saved, setSaved] = useState<string | null>(null);
   const pending = create.isPending || update.isPending;
   const sizeNumber = Number(packSize);
-  const previewMl = packSize.trim() && Number.isFinite(sizeNumber) && sizeNumber > 0 ? Math.round(packUnit === 'l' ? sizeNumber * 1000 : sizeNumber) : null;
+  const previewMl = packSize.trim() && Number.isFinite(sizeNumber) && sizeNumber > 0 ? packSizeMl(sizeNumber, packUnit) : null;
 
   return (
     <form

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { receiptInputSchema, type Product } from '@heatfleet/domain';
+import { receiptInputSchema, type Product, type StockPlace } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
@@ -7,7 +7,6 @@ import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
-import type { StockPlace } from '@/features/stock/api/stock-queries';
 import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';
 

@@ -1,12 +1,13 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
+import type { RestockRunLine } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { formatCalendarDate } from '@/lib/format';
 import { useIdempotencyKey } from '@/lib/idempotency';
-import { stockQueries, type RestockRunLine } from '@/features/stock/api/stock-queries';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { useApplyRestockRun } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';
 

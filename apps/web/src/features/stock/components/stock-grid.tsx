@@ -1,9 +1,9 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { stockHealthLabels } from '@heatfleet/domain';
+import { stockHealthLabels, type StockCell } from '@heatfleet/domain';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
-import { stockQueries, type StockCell } from '@/features/stock/api/stock-queries';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { BatchList } from '@/features/stock/components/batch-list';
 import { HealthLegend, healthStyles } from '@/features/stock/components/stock-health';
 

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { stocktakeInputSchema } from '@heatfleet/domain';
+import { stocktakeInputSchema, type BatchStockRow, type StockPlace } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -10,7 +10,7 @@ import { TextField } from '@/components/ui/text-field';
 import { formatCalendarDate } from '@/lib/format';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
-import { stockQueries, type BatchStockRow, type StockPlace } from '@/features/stock/api/stock-queries';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
 import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 

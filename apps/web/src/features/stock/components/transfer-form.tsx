@@ -1,12 +1,11 @@
 import { useMemo, useState } from 'react';
-import { transferInputSchema, type Product } from '@heatfleet/domain';
+import { transferInputSchema, type Product, type StockPlace } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
-import type { StockPlace } from '@/features/stock/api/stock-queries';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
 import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { writeOffInputSchema, writeOffReasons } from '@heatfleet/domain';
+import { writeOffInputSchema, writeOffReasons, type StockPlace } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -9,7 +9,7 @@ import { TextField } from '@/components/ui/text-field';
 import { formatCalendarDate } from '@/lib/format';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
-import { stockQueries, type StockPlace } from '@/features/stock/api/stock-queries';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
 import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';
