@@ -1,16 +1,13 @@
-import { z } from 'zod';
-import { idParamSchema, itemKindInputSchema, itemKindSchema } from '@heatfleet/domain';
+import { idParamSchema, itemKindInputSchema, itemKindListResponseSchema, itemKindResponseSchema } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { createItemKind, listItemKinds, updateItemKind } from './item-kind-service.ts';
-
-const one = z.object({ itemKind: itemKindSchema });
 
 export const itemKindRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get', path: '/item-kinds', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Kinds of kit item and their inspection rules',
     request: {},
-    responses: { 200: { description: 'Kinds', schema: z.object({ itemKinds: z.array(itemKindSchema) }) } },
+    responses: { 200: { description: 'Kinds', schema: itemKindListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ itemKinds: await listItemKinds(deps, actor) });
     },
@@ -19,7 +16,7 @@ export const itemKindRoutes: RouteDefinition[] = [
     method: 'post', path: '/item-kinds', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Add a kind of item with its inspection rule (Owner, Admin, Stores)',
     request: { body: itemKindInputSchema },
-    responses: { 201: { description: 'Added', schema: one } },
+    responses: { 201: { description: 'Added', schema: itemKindResponseSchema } },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ itemKind: await createItemKind(deps, actor, body) });
     },
@@ -28,7 +25,7 @@ export const itemKindRoutes: RouteDefinition[] = [
     method: 'patch', path: '/item-kinds/:id', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Change a kind\u2019s name or inspection rule (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: itemKindInputSchema.partial() },
-    responses: { 200: { description: 'Changed', schema: one } },
+    responses: { 200: { description: 'Changed', schema: itemKindResponseSchema } },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ itemKind: await updateItemKind(deps, actor, params.id, body) });
     },

@@ -1,27 +1,23 @@
-import type { Knex } from 'knex';
 import type { ZodType } from 'zod';
 import { checkInInputSchema, checkOutInputSchema, idParamSchema, moveInputSchema } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
-import { withTransactionRetry } from '../../db/with-retry.ts';
-import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
+import { idempotencyKeyOf, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { defineRoute } from '../../routes/route-registry.ts';
-import { recordCustody, type CustodyTarget } from './custody-service.ts';
+import type { CustodyAction, CustodyAnswer, CustodyInput } from './custody-service.ts';
 
-type Action = 'check_out' | 'check_in' | 'move';
 const bodies = { check_out: checkOutInputSchema, check_in: checkInInputSchema, move: moveInputSchema } as const;
 
 /**
- * A check-out, check-in or move of a kit or of one item: idempotent by header, retried whole on a
- * deadlock, answering with the record as it now stands (read in the same transaction).
+ * A check-out, check-in or move route of a kit or of one item. Send an Idempotency-Key header: a
+ * retry with the same key replays the first answer.
  */
-export function custodyRoute<T>(spec: {
-  action: Action;
+export function custodyRoute(spec: {
+  action: CustodyAction;
   path: string;
   summary: string;
-  target: (id: number) => CustodyTarget;
   what: 'kit' | 'item';
   response: ZodType;
-  answer: (trx: Knex.Transaction, deps: AppDeps, actor: Actor, id: number) => Promise<T>;
+  run: (deps: AppDeps, actor: Actor, id: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined) => Promise<CustodyAnswer<unknown>>;
 }) {
   return defineRoute({
     method: 'post', path: spec.path, tag: 'Kits', access: 'member', tenantData: true,
@@ -32,13 +28,7 @@ export function custodyRoute<T>(spec: {
       409: { description: 'Already out (names who has it), overdue for inspection, or out of service' },
     },
     handle: async ({ params, body, req, res, deps, actor }) => {
-      const key = idempotencyKeyOf(req);
-      const out = await withTransactionRetry(() =>
-        runIdempotent(deps, actor, key, `${spec.action} ${spec.what} ${params.id}`, async (trx) => {
-          await recordCustody(trx, deps, actor, spec.target(params.id), spec.action, body as Parameters<typeof recordCustody>[5]);
-          return { status: 200, body: await spec.answer(trx, deps, actor, params.id) };
-        }),
-      );
+      const out = await spec.run(deps, actor, params.id, spec.action, body as CustodyInput, idempotencyKeyOf(req));
       res.status(out.status).json(out.body);
     },
   });

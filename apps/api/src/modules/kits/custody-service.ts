@@ -1,14 +1,26 @@
 import { subject } from '@casl/ability';
-import type { CheckInInput, CheckOutInput, KitItem, MoveInput } from '@heatfleet/domain';
+import type { CheckInInput, CheckOutInput, ItemCustodyResponse, KitDetailResponse, KitItem, MoveInput } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
+import { withTransactionRetry } from '../../db/with-retry.ts';
 import { conflict, HttpError, notAllowed, notFound } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { findLocation, firstDepot, type LocationRow } from '../locations/location-dal.ts';
-import { insertCustodyEvents, lockItems } from './kit-dal.ts';
-import { loadItems } from './kit-service.ts';
+import { attachPhotoToItem, photoExists } from '../photos/photo-dal.ts';
+import { insertCustodyEvents, listCustodyEvents } from './custody-dal.ts';
+import { findKit } from './kit-dal.ts';
+import { lockItems, updateItems } from './kit-item-dal.ts';
+import { getItem, loadItems } from './kit-item-service.ts';
+import { getKitDetail } from './kit-service.ts';
 
-export type CustodyTarget = { kitId: number } | { itemId: number };
-type Action = 'check_out' | 'check_in' | 'move';
+type CustodyTarget = { kitId: number } | { itemId: number };
+export type CustodyAction = 'check_out' | 'check_in' | 'move';
+export type CustodyInput = CheckOutInput | CheckInInput | MoveInput;
+/** An answer as runIdempotent gives it: the first answer's status and body, replayed for a retried key. */
+export interface CustodyAnswer<T> {
+  status: number;
+  body: T;
+}
 
 function describeWhere(loc: NonNullable<KitItem['location']>): string {
   if (loc.kind === 'depot') return `at ${loc.name}`;
@@ -23,7 +35,7 @@ function custodySubject(firmId: number, loc: LocationRow) {
   return subject('Custody', { firmId, kind: loc.kind, engineerMemberId: loc.engineer_member_id });
 }
 
-async function destination(trx: Knex.Transaction, actor: Actor, action: Action, toLocationId: number | undefined): Promise<LocationRow> {
+async function destination(trx: Knex.Transaction, actor: Actor, action: CustodyAction, toLocationId: number | undefined): Promise<LocationRow> {
   if (action === 'check_in') {
     const depot = toLocationId ? await findLocation(trx, actor.firmId, toLocationId) : await firstDepot(trx, actor.firmId);
     if (!depot || depot.kind !== 'depot' || !depot.active) throw notFound(toLocationId ? 'That depot' : 'A depot to check in to');
@@ -36,7 +48,7 @@ async function destination(trx: Knex.Transaction, actor: Actor, action: Action, 
 
 async function checkPhoto(trx: Knex.Transaction, firmId: number, photoId: number | undefined) {
   if (photoId === undefined) return;
-  if (!(await trx('photos').where({ firm_id: firmId, id: photoId }).first('id'))) throw notFound('That photo');
+  if (!(await photoExists(trx, firmId, photoId))) throw notFound('That photo');
 }
 
 /**
@@ -44,17 +56,10 @@ async function checkPhoto(trx: Knex.Transaction, firmId: number, photoId: number
  * are locked first, so of two engineers checking out the same kit at once exactly one succeeds;
  * the other then sees where it went and gets 409 naming the holder.
  */
-export async function recordCustody(
-  trx: Knex.Transaction,
-  deps: AppDeps,
-  actor: Actor,
-  target: CustodyTarget,
-  action: Action,
-  input: CheckOutInput | CheckInInput | MoveInput,
-): Promise<void> {
+async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor, target: CustodyTarget, action: CustodyAction, input: CustodyInput): Promise<void> {
   const now = deps.clock.now();
   const ids = await lockItems(trx, actor.firmId, 'kitId' in target ? { kitId: target.kitId } : { itemId: target.itemId });
-  if ('kitId' in target && !(await trx('kits').where({ firm_id: actor.firmId, id: target.kitId }).first('id'))) throw notFound('That kit');
+  if ('kitId' in target && !(await findKit(trx, actor.firmId, target.kitId))) throw notFound('That kit');
   if (ids.length === 0) throw 'kitId' in target ? new HttpError(400, 'That kit has no items to move yet.', 'RuleBroken') : notFound('That item');
   const items = await loadItems(trx, actor.firmId, now, { ids });
   const label = labelOf(target, items);
@@ -129,8 +134,29 @@ export async function recordCustody(
     })),
   );
   // The cached whereabouts follow the event just written, in the same transaction.
-  const update: Record<string, unknown> = { location_id: to.id };
-  if (checkIn) update.condition = checkIn.condition;
-  await trx('kit_items').where('firm_id', actor.firmId).whereIn('id', ids).update(update);
-  if (checkIn?.photoId) await trx('photos').where({ firm_id: actor.firmId, id: checkIn.photoId }).whereNull('item_id').update({ item_id: items[0]!.id });
+  await updateItems(trx, actor.firmId, ids, { location_id: to.id, ...(checkIn && { condition: checkIn.condition }) });
+  if (checkIn?.photoId) await attachPhotoToItem(trx, actor.firmId, checkIn.photoId, items[0]!.id);
+}
+
+/**
+ * A check-out, check-in or move of a whole kit: idempotent by key, retried whole on a deadlock,
+ * answering with the kit as it now stands (read in the same transaction).
+ */
+export function moveKit(deps: AppDeps, actor: Actor, kitId: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined): Promise<CustodyAnswer<KitDetailResponse>> {
+  return withTransactionRetry(() =>
+    runIdempotent(deps, actor, idempotencyKey, `${action} kit ${kitId}`, async (trx) => {
+      await recordCustody(trx, deps, actor, { kitId }, action, input);
+      return { status: 200, body: await getKitDetail(deps, actor, kitId, trx) };
+    }),
+  );
+}
+
+/** The same for one item, answering with the item and its custody timeline. */
+export function moveItem(deps: AppDeps, actor: Actor, itemId: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined): Promise<CustodyAnswer<ItemCustodyResponse>> {
+  return withTransactionRetry(() =>
+    runIdempotent(deps, actor, idempotencyKey, `${action} item ${itemId}`, async (trx) => {
+      await recordCustody(trx, deps, actor, { itemId }, action, input);
+      return { status: 200, body: { item: await getItem(deps, actor, itemId, trx), events: await listCustodyEvents(trx, actor.firmId, { itemId }) } };
+    }),
+  );
 }

@@ -1,20 +1,24 @@
 import { ForbiddenError } from '@casl/ability';
-import type { RecordInspectionInput } from '@heatfleet/domain';
+import type { InspectionRecordedResponse, RecordInspectionInput } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { notFound, ruleBroken } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { firmToday } from '../firms/firm-today.ts';
+import { attachPhotoToItem, photoExists } from '../photos/photo-dal.ts';
+import { insertInspection, listInspections } from './inspection-dal.ts';
+import { findItemId, updateItems } from './kit-item-dal.ts';
+import { getItem } from './kit-item-service.ts';
 
-/** Records an inspection; a failed one marks the item as needing attention. */
-export async function recordInspection(trx: Knex.Transaction, deps: AppDeps, actor: Actor, itemId: number, input: RecordInspectionInput): Promise<number> {
+/** Writes an inspection; a failed one marks the item as needing attention. */
+async function writeInspection(trx: Knex.Transaction, deps: AppDeps, actor: Actor, itemId: number, input: RecordInspectionInput): Promise<number> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Inspection');
-  const item = await trx('kit_items').where({ firm_id: actor.firmId, id: itemId }).forUpdate().first('id', 'in_service_since');
-  if (!item) throw notFound('That item');
+  if (!(await findItemId(trx, actor.firmId, itemId, { forUpdate: true }))) throw notFound('That item');
   const today = await firmToday(trx, actor.firmId, deps.clock.now());
   const on = input.inspectedOn ?? today;
   if (on > today) throw ruleBroken(`An inspection cannot be dated in the future (${on}).`, [{ path: 'inspectedOn', message: 'Use today or an earlier day.' }]);
-  if (input.photoId !== undefined && !(await trx('photos').where({ firm_id: actor.firmId, id: input.photoId }).first('id'))) throw notFound('That photo');
-  const [id] = await trx('inspections').insert({
+  if (input.photoId !== undefined && !(await photoExists(trx, actor.firmId, input.photoId))) throw notFound('That photo');
+  const id = await insertInspection(trx, {
     firm_id: actor.firmId,
     item_id: itemId,
     result: input.result,
@@ -24,7 +28,26 @@ export async function recordInspection(trx: Knex.Transaction, deps: AppDeps, act
     inspected_on: on,
     created_at: deps.clock.now(),
   });
-  if (input.result === 'failed') await trx('kit_items').where({ firm_id: actor.firmId, id: itemId }).update({ condition: 'needs_attention' });
-  if (input.photoId !== undefined) await trx('photos').where({ firm_id: actor.firmId, id: input.photoId }).whereNull('item_id').update({ item_id: itemId });
-  return id as number;
+  if (input.result === 'failed') await updateItems(trx, actor.firmId, [itemId], { condition: 'needs_attention' });
+  if (input.photoId !== undefined) await attachPhotoToItem(trx, actor.firmId, input.photoId, itemId);
+  return id;
+}
+
+/**
+ * Records an inspection, idempotent by key (a retry with the same key replays the first answer),
+ * answering with the inspection and the item as it now stands.
+ */
+export async function recordInspection(
+  deps: AppDeps,
+  actor: Actor,
+  itemId: number,
+  input: RecordInspectionInput,
+  idempotencyKey: IdempotencyKey | undefined,
+): Promise<{ status: number; body: InspectionRecordedResponse }> {
+  return runIdempotent(deps, actor, idempotencyKey, `inspect item ${itemId}`, async (trx) => {
+    const id = await writeInspection(trx, deps, actor, itemId, input);
+    const item = await getItem(deps, actor, itemId, trx);
+    const inspection = (await listInspections(trx, actor.firmId, [itemId])).find((i) => i.id === id)!;
+    return { status: 201, body: { inspection, item } };
+  });
 }

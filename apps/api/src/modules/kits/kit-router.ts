@@ -1,24 +1,22 @@
-import { z } from 'zod';
 import {
   createKitInputSchema,
-  custodyEventSchema,
   idParamSchema,
-  inspectionSchema,
-  kitItemSchema,
-  kitSchema,
+  kitDetailResponseSchema,
+  kitListResponseSchema,
+  kitResponseSchema,
   updateKitInputSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { custodyRoute } from './custody-route.ts';
+import { moveKit } from './custody-service.ts';
 import { createKit, getKitDetail, listKits, updateKit } from './kit-service.ts';
 
-const kitDetail = z.object({ kit: kitSchema, items: z.array(kitItemSchema), events: z.array(custodyEventSchema), inspections: z.array(inspectionSchema) });
 export const kitRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get', path: '/kits', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Kits with where they are and their worst inspection state',
     request: {},
-    responses: { 200: { description: 'Kits', schema: z.object({ kits: z.array(kitSchema) }) } },
+    responses: { 200: { description: 'Kits', schema: kitListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ kits: await listKits(deps, actor) });
     },
@@ -27,7 +25,7 @@ export const kitRoutes: RouteDefinition[] = [
     method: 'post', path: '/kits', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Add a kit (Owner, Admin, Stores)',
     request: { body: createKitInputSchema },
-    responses: { 201: { description: 'Added', schema: z.object({ kit: kitSchema }) } },
+    responses: { 201: { description: 'Added', schema: kitResponseSchema } },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ kit: await createKit(deps, actor, body) });
     },
@@ -36,7 +34,7 @@ export const kitRoutes: RouteDefinition[] = [
     method: 'get', path: '/kits/:id', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'A kit: items, custody timeline (newest first), inspections',
     request: { params: idParamSchema },
-    responses: { 200: { description: 'Kit', schema: kitDetail } },
+    responses: { 200: { description: 'Kit', schema: kitDetailResponseSchema } },
     handle: async ({ params, res, deps, actor }) => {
       res.json(await getKitDetail(deps, actor, params.id));
     },
@@ -45,7 +43,7 @@ export const kitRoutes: RouteDefinition[] = [
     method: 'patch', path: '/kits/:id', tag: 'Kits', access: 'member', tenantData: true,
     summary: 'Rename a kit or change its notes (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: updateKitInputSchema },
-    responses: { 200: { description: 'Changed', schema: z.object({ kit: kitSchema }) } },
+    responses: { 200: { description: 'Changed', schema: kitResponseSchema } },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ kit: await updateKit(deps, actor, params.id, body) });
     },
@@ -54,7 +52,5 @@ export const kitRoutes: RouteDefinition[] = [
     ['check_out', '/kits/:id/check-out', 'Check a kit out to a van: all its items go.'],
     ['check_in', '/kits/:id/check-in', 'Check a kit in to a depot with its condition.'],
     ['move', '/kits/:id/move', 'Move a kit from one van to another.'],
-  ] as const).map(([action, path, summary]) =>
-    custodyRoute({ action, path, summary, what: 'kit', target: (id) => ({ kitId: id }), response: kitDetail, answer: (trx, deps, actor, id) => getKitDetail(deps, actor, id, trx) }),
-  ),
+  ] as const).map(([action, path, summary]) => custodyRoute({ action, path, summary, what: 'kit', response: kitDetailResponseSchema, run: moveKit })),
 ];

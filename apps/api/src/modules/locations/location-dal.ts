@@ -51,6 +51,20 @@ export async function firstDepot(db: Db, firmId: number): Promise<LocationRow | 
   return locations(db, firmId).where('l.kind', 'depot').where('l.active', true).orderBy('l.id').first();
 }
 
+/** Another van or depot of the firm with this registration, if any. */
+export async function findLocationByRegistration(db: Db, firmId: number, registration: string, exceptId?: number): Promise<{ id: number; name: string } | undefined> {
+  const q = db('locations').where({ firm_id: firmId, registration }).first('id', 'name');
+  if (exceptId) q.whereNot('id', exceptId);
+  return (await q) as { id: number; name: string } | undefined;
+}
+
+/** Whether another van or depot of the firm has this name. */
+export async function locationNameTaken(db: Db, firmId: number, name: string, exceptId?: number): Promise<boolean> {
+  const q = db('locations').where({ firm_id: firmId, name }).first('id');
+  if (exceptId) q.whereNot('id', exceptId);
+  return Boolean(await q);
+}
+
 export async function insertLocation(trx: Knex.Transaction, firmId: number, row: Partial<Omit<LocationRow, 'id' | 'firm_id' | 'engineer_name'>>): Promise<number> {
   const [id] = await trx('locations').insert({ ...row, firm_id: firmId });
   return id as number;

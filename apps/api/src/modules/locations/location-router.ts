@@ -1,23 +1,24 @@
-import { z } from 'zod';
-import { createDepotInputSchema, createVanInputSchema, depotSchema, idParamSchema, kitItemSchema, kitSchema, updateVanInputSchema, vanSchema } from '@heatfleet/domain';
+import {
+  createDepotInputSchema,
+  createVanInputSchema,
+  depotListResponseSchema,
+  depotResponseSchema,
+  idParamSchema,
+  myVanResponseSchema,
+  updateVanInputSchema,
+  vanDetailResponseSchema,
+  vanListResponseSchema,
+  vanResponseSchema,
+} from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { listKits, loadItems } from '../kits/kit-service.ts';
-import { createDepot, createVan, getMyVan, getVan, listDepots, listVans, updateVan } from './location-service.ts';
-import type { Actor, AppDeps } from '../../app-deps.ts';
-
-const vanDetail = z.object({ van: vanSchema.nullable(), kits: z.array(kitSchema), items: z.array(kitItemSchema) });
-
-async function contentsOf(deps: AppDeps, actor: Actor, vanId: number) {
-  const [kits, items] = await Promise.all([listKits(deps, actor), loadItems(deps.db, actor.firmId, deps.clock.now(), { locationId: vanId })]);
-  return { kits: kits.filter((k) => k.location?.id === vanId), items };
-}
+import { createDepot, createVan, getMyVanDetail, getVanDetail, listDepots, listVans, updateVan } from './location-service.ts';
 
 export const locationRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get', path: '/vans', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'The firm\u2019s vans with engineer, kits on board and next MOT or service',
     request: {},
-    responses: { 200: { description: 'Vans', schema: z.object({ vans: z.array(vanSchema) }) } },
+    responses: { 200: { description: 'Vans', schema: vanListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ vans: await listVans(deps, actor) });
     },
@@ -26,7 +27,7 @@ export const locationRoutes: RouteDefinition[] = [
     method: 'post', path: '/vans', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'Add a van (Owner, Admin, Stores)',
     request: { body: createVanInputSchema },
-    responses: { 201: { description: 'Added', schema: z.object({ van: vanSchema }) }, 409: { description: 'Registration or name taken' } },
+    responses: { 201: { description: 'Added', schema: vanResponseSchema }, 409: { description: 'Registration or name taken' } },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ van: await createVan(deps, actor, body) });
     },
@@ -35,17 +36,16 @@ export const locationRoutes: RouteDefinition[] = [
     method: 'get', path: '/vans/:id', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'A van with its kits and items and what is due',
     request: { params: idParamSchema },
-    responses: { 200: { description: 'Van', schema: vanDetail } },
+    responses: { 200: { description: 'Van', schema: vanDetailResponseSchema } },
     handle: async ({ params, res, deps, actor }) => {
-      const van = await getVan(deps, actor, params.id);
-      res.json({ van, ...(await contentsOf(deps, actor, van.id)) });
+      res.json(await getVanDetail(deps, actor, params.id));
     },
   }),
   defineRoute({
     method: 'patch', path: '/vans/:id', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'Change a van (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: updateVanInputSchema },
-    responses: { 200: { description: 'Changed', schema: z.object({ van: vanSchema }) } },
+    responses: { 200: { description: 'Changed', schema: vanResponseSchema } },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ van: await updateVan(deps, actor, params.id, body) });
     },
@@ -54,7 +54,7 @@ export const locationRoutes: RouteDefinition[] = [
     method: 'get', path: '/depots', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'The firm\u2019s depots',
     request: {},
-    responses: { 200: { description: 'Depots', schema: z.object({ depots: z.array(depotSchema) }) } },
+    responses: { 200: { description: 'Depots', schema: depotListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ depots: await listDepots(deps, actor) });
     },
@@ -63,7 +63,7 @@ export const locationRoutes: RouteDefinition[] = [
     method: 'post', path: '/depots', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'Add a depot (Owner, Admin, Stores)',
     request: { body: createDepotInputSchema },
-    responses: { 201: { description: 'Added', schema: z.object({ depot: depotSchema }) } },
+    responses: { 201: { description: 'Added', schema: depotResponseSchema } },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ depot: await createDepot(deps, actor, body) });
     },
@@ -72,10 +72,9 @@ export const locationRoutes: RouteDefinition[] = [
     method: 'get', path: '/me/van', tag: 'Vans', access: 'member', tenantData: true,
     summary: 'The signed-in engineer\u2019s own van, its kits and items (van is null without one)',
     request: {},
-    responses: { 200: { description: 'My van', schema: vanDetail } },
+    responses: { 200: { description: 'My van', schema: myVanResponseSchema } },
     handle: async ({ res, deps, actor }) => {
-      const van = await getMyVan(deps, actor);
-      res.json(van ? { van, ...(await contentsOf(deps, actor, van.id)) } : { van: null, kits: [], items: [] });
+      res.json(await getMyVanDetail(deps, actor));
     },
   }),
 ];

@@ -1,10 +1,24 @@
 import { ForbiddenError } from '@casl/ability';
-import type { CreateDepotInput, CreateVanInput, Depot, UpdateVanInput, Van } from '@heatfleet/domain';
+import type { CreateDepotInput, CreateVanInput, Depot, MyVanResponse, UpdateVanInput, Van, VanDetailResponse } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound, ruleBroken } from '../../lib/http-error.ts';
+import { listKits } from '../kits/kit-service.ts';
+import { loadItems } from '../kits/kit-item-service.ts';
 import { findMember } from '../members/member-dal.ts';
-import { contentsByLocation, findLocation, findVanOfMember, insertLocation, listLocations, toDepot, toVan, updateLocation, type LocationRow } from './location-dal.ts';
+import {
+  contentsByLocation,
+  findLocation,
+  findLocationByRegistration,
+  findVanOfMember,
+  insertLocation,
+  listLocations,
+  locationNameTaken,
+  toDepot,
+  toVan,
+  updateLocation,
+  type LocationRow,
+} from './location-dal.ts';
 
 async function vansWithContents(db: Knex, firmId: number, rows: LocationRow[]): Promise<Van[]> {
   const contents = await contentsByLocation(db, firmId, rows.map((r) => r.id));
@@ -24,11 +38,29 @@ export async function getVan(deps: AppDeps, actor: Actor, id: number): Promise<V
   return van!;
 }
 
-export async function getMyVan(deps: AppDeps, actor: Actor): Promise<Van | null> {
+async function getMyVan(deps: AppDeps, actor: Actor): Promise<Van | null> {
   const row = await findVanOfMember(deps.db, actor.firmId, actor.memberId);
   if (!row) return null;
   const [van] = await vansWithContents(deps.db, actor.firmId, [row]);
   return van!;
+}
+
+/** The kits (placed where most of their items are) and the items on a van. */
+async function contentsOf(deps: AppDeps, actor: Actor, vanId: number) {
+  const [kits, items] = await Promise.all([listKits(deps, actor), loadItems(deps.db, actor.firmId, deps.clock.now(), { locationId: vanId })]);
+  return { kits: kits.filter((k) => k.location?.id === vanId), items };
+}
+
+/** A van with its kits and items. */
+export async function getVanDetail(deps: AppDeps, actor: Actor, id: number): Promise<VanDetailResponse> {
+  const van = await getVan(deps, actor, id);
+  return { van, ...(await contentsOf(deps, actor, van.id)) };
+}
+
+/** The signed-in engineer's own van with its kits and items; van is null without one. */
+export async function getMyVanDetail(deps: AppDeps, actor: Actor): Promise<MyVanResponse> {
+  const van = await getMyVan(deps, actor);
+  return van ? { van, ...(await contentsOf(deps, actor, van.id)) } : { van: null, kits: [], items: [] };
 }
 
 async function checkEngineer(trx: Knex.Transaction, firmId: number, memberId: number | null | undefined): Promise<void> {
@@ -38,16 +70,12 @@ async function checkEngineer(trx: Knex.Transaction, firmId: number, memberId: nu
 }
 
 async function checkRegistrationFree(trx: Knex.Transaction, firmId: number, registration: string, exceptId?: number) {
-  const q = trx('locations').where({ firm_id: firmId, registration }).first('id', 'name');
-  if (exceptId) q.whereNot('id', exceptId);
-  const clash: { id: number; name: string } | undefined = await q;
+  const clash = await findLocationByRegistration(trx, firmId, registration, exceptId);
   if (clash) throw conflict(`Registration ${registration} is already on ${clash.name}.`);
 }
 
 async function checkNameFree(trx: Knex.Transaction, firmId: number, name: string, exceptId?: number) {
-  const q = trx('locations').where({ firm_id: firmId, name }).first('id');
-  if (exceptId) q.whereNot('id', exceptId);
-  if (await q) throw conflict(`There is already a van or depot called "${name}".`);
+  if (await locationNameTaken(trx, firmId, name, exceptId)) throw conflict(`There is already a van or depot called "${name}".`);
 }
 
 export async function createVan(deps: AppDeps, actor: Actor, input: CreateVanInput): Promise<Van> {

@@ -1,5 +1,4 @@
-import { z } from 'zod';
-import { idParamSchema, memberSchema, updateMemberInputSchema } from '@heatfleet/domain';
+import { idParamSchema, memberListResponseSchema, memberResponseSchema, updateMemberInputSchema } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { listMembers, updateMember } from './member-service.ts';
 
@@ -8,7 +7,7 @@ export const memberRoutes: RouteDefinition[] = [
     method: 'get', path: '/members', tag: 'Team', access: 'member', tenantData: true,
     summary: 'Members of the active firm',
     request: {},
-    responses: { 200: { description: 'Members', schema: z.object({ members: z.array(memberSchema) }) } },
+    responses: { 200: { description: 'Members', schema: memberListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ members: await listMembers(deps, actor) });
     },
@@ -18,7 +17,7 @@ export const memberRoutes: RouteDefinition[] = [
     summary: 'Change a member\u2019s role, or deactivate or reactivate them (Owner, Admin)',
     request: { params: idParamSchema, body: updateMemberInputSchema },
     responses: {
-      200: { description: 'Updated', schema: z.object({ member: memberSchema }) },
+      200: { description: 'Updated', schema: memberResponseSchema },
       400: { description: 'Would leave the firm without an Owner' },
       404: { description: 'No such member in this firm' },
     },

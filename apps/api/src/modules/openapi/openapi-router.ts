@@ -1,3 +1,4 @@
+import { openApiDocumentSchema } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { buildOpenApiDocument } from './openapi.ts';
 
@@ -7,7 +8,7 @@ export function openApiRoute(allRoutes: () => RouteDefinition[]): RouteDefinitio
     method: 'get', path: '/openapi.json', tag: 'Meta', access: 'public', tenantData: false,
     summary: 'This document',
     request: {},
-    responses: { 200: { description: 'OpenAPI 3.1 document' } },
+    responses: { 200: { description: 'OpenAPI 3.1 document', schema: openApiDocumentSchema } },
     handle: async ({ res }) => {
       document ??= buildOpenApiDocument(allRoutes());
       res.json(document);

@@ -1,10 +1,9 @@
 import { z } from 'zod';
-import { idParamSchema, photoSchema } from '@heatfleet/domain';
+import { idParamSchema, photoResponseSchema } from '@heatfleet/domain';
 import { HttpError } from '../../lib/http-error.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { openPhoto, savePhoto } from './photo-service.ts';
 import { receivePhoto } from './receive-photo.ts';
-
 
 export const photoFieldsSchema = z.strictObject({
   itemId: z.coerce.number().int().positive().optional(),
@@ -17,7 +16,7 @@ export const photoRoutes: RouteDefinition[] = [
     summary: 'Upload a photo (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; optional itemId, caption)',
     request: {},
     multipart: { fileField: 'photo', fields: photoFieldsSchema },
-    responses: { 201: { description: 'Stored', schema: z.object({ photo: photoSchema }) }, 413: { description: 'Too large' }, 422: { description: 'Not a JPEG, PNG or WebP' } },
+    responses: { 201: { description: 'Stored', schema: photoResponseSchema }, 413: { description: 'Too large' }, 422: { description: 'Not a JPEG, PNG or WebP' } },
     before: () => [receivePhoto],
     handle: async ({ req, res, deps, actor }) => {
       const fields = photoFieldsSchema.parse(req.body ?? {});
@@ -35,7 +34,8 @@ export const photoRoutes: RouteDefinition[] = [
       res.setHeader('Content-Type', photo.contentType);
       res.setHeader('Content-Disposition', `inline; filename="photo-${photo.id}.${photo.contentType.split('/')[1]}"`);
       res.setHeader('X-Content-Type-Options', 'nosniff');
-      res.setHeader('Cache-Control', 'private, max-age=3600');
+      // no-store like every other signed-in answer: a shared browser keeps nothing after sign-out.
+      res.setHeader('Cache-Control', 'no-store');
       body.pipe(res);
     },
   }),

@@ -6,33 +6,11 @@ import type { Knex } from 'knex';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
+import { findItemId } from '../kits/kit-item-dal.ts';
+import { findPhoto, insertPhoto, toPhoto } from './photo-dal.ts';
 
 const extensionFor: Record<(typeof photoContentTypes)[number], string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
 
-interface PhotoRow {
-  id: number;
-  object_key: string;
-  content_type: Photo['contentType'];
-  byte_size: number;
-  caption: string | null;
-  created_at: Date;
-}
-
-const toPhoto = (r: PhotoRow): Photo => ({
-  id: r.id,
-  url: `/api/photos/${r.id}/content`,
-  contentType: r.content_type,
-  byteSize: r.byte_size,
-  caption: r.caption,
-  createdAt: r.created_at.toISOString(),
-});
-
-/**
- * Stores an uploaded photo. The type comes from the bytes (a renamed executable is refused
- * whatever its name or declared type); the key is ours, under the firm's prefix. The object is
- * written first and removed again if the row cannot be (or the guard refuses), so a failure leaves
- * neither behind.
- */
 export interface SavePhotoOptions {
   itemId?: number;
   /** A job's photo, tagged by what it shows; the caller has checked the job. */
@@ -43,6 +21,12 @@ export interface SavePhotoOptions {
   guard?: (trx: Knex.Transaction) => Promise<void>;
 }
 
+/**
+ * Stores an uploaded photo. The type comes from the bytes (a renamed executable is refused
+ * whatever its name or declared type); the key is ours, under the firm's prefix. The object is
+ * written first and removed again if the row cannot be (or the guard refuses), so a failure leaves
+ * neither behind.
+ */
 export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts: SavePhotoOptions): Promise<Photo> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Photo');
   const detected = await fileTypeFromBuffer(file);
@@ -52,14 +36,13 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
       { path: 'photo', message: 'Upload a JPEG, PNG or WebP photo.' },
     ]);
   }
-  if (opts.itemId !== undefined && !(await deps.db('kit_items').where({ firm_id: actor.firmId, id: opts.itemId }).first('id'))) throw notFound('That item');
+  if (opts.itemId !== undefined && !(await findItemId(deps.db, actor.firmId, opts.itemId))) throw notFound('That item');
   const key = `firms/${actor.firmId}/photos/${randomUUID()}.${extensionFor[type]}`;
   await deps.objectStore.put(key, file, type);
   try {
     return await deps.db.transaction(async (trx) => {
       await opts.guard?.(trx);
-      const [id] = await trx('photos').insert({
-        firm_id: actor.firmId,
+      const id = await insertPhoto(trx, actor.firmId, {
         item_id: opts.itemId ?? null,
         job_id: opts.jobId ?? null,
         tag: opts.tag ?? null,
@@ -69,7 +52,7 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
         caption: opts.caption ?? null,
         uploaded_by_user_id: actor.userId,
       });
-      return toPhoto((await trx('photos').where({ firm_id: actor.firmId, id }).first()) as PhotoRow);
+      return toPhoto((await findPhoto(trx, actor.firmId, id))!);
     });
   } catch (err) {
     await deps.objectStore.delete(key).catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
@@ -79,7 +62,7 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
 
 export async function openPhoto(deps: AppDeps, actor: Actor, id: number): Promise<{ photo: Photo; body: Readable }> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Photo');
-  const row = (await deps.db('photos').where({ firm_id: actor.firmId, id }).first()) as PhotoRow | undefined;
+  const row = await findPhoto(deps.db, actor.firmId, id);
   if (!row) throw notFound('That photo');
   return { photo: toPhoto(row), body: await deps.objectStore.get(row.object_key) };
 }

@@ -1,4 +1,4 @@
-import type { ReminderKind } from './reminder-dal.ts';
+import type { ReminderKind } from '@heatfleet/domain';
 
 export interface DigestLine {
   kind: ReminderKind;

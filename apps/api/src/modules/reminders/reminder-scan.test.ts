@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { defaultReminderSettings } from '@heatfleet/domain';
-import type { FirmToScan } from './reminder-dal.ts';
+import type { FirmToScan } from './reminder-settings-dal.ts';
 import { firmIsDueForScan, hourIn } from './reminder-scan.ts';
 
 const firm = (over: Partial<FirmToScan['settings']> = {}, timeZone = 'Europe/London'): FirmToScan => ({

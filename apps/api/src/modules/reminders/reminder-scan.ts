@@ -4,24 +4,18 @@ import { ANNUAL_CHECK_WINDOW_DAYS, calendarDateIn, daysBetween, inspectionDue, V
 import type { Env } from '../../config/env.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import type { MailQueue } from '../mail/mail-queue.ts';
+import { insertReminderDeliveries, insertReminderIfNew, type NewReminder } from './reminder-dal.ts';
 import {
-  ensureReminderSettingsRow,
-  insertReminderDeliveries,
-  insertReminderIfNew,
   listActiveMembers,
-  listFirmsToScan,
   listItemsForScan,
   listSitesForScan,
   listVansForScan,
-  lockFirmForScan,
-  markFirmScanned,
-  type FirmToScan,
   type ItemForScan,
-  type NewReminder,
   type Recipient,
   type SiteForScan,
   type VanForScan,
-} from './reminder-dal.ts';
+} from './reminder-scan-dal.ts';
+import { ensureReminderSettingsRow, listFirmsToScan, lockFirmForScan, markFirmScanned, type FirmToScan } from './reminder-settings-dal.ts';
 import { annualCheckCustomerEmail, reminderDigestEmail, type DigestLine } from './reminder-email.ts';
 import { stockCandidates } from './reminder-stock.ts';
 

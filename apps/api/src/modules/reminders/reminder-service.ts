@@ -1,7 +1,8 @@
 import { ForbiddenError } from '@casl/ability';
 import type { ReminderDelivery, ReminderSettings, ReminderSettingsView } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
-import { findReminderSettings, listReminderDeliveries, saveReminderSettings } from './reminder-dal.ts';
+import { listReminderDeliveries } from './reminder-dal.ts';
+import { findReminderSettings, saveReminderSettings } from './reminder-settings-dal.ts';
 import { runReminderScan } from './reminder-scan.ts';
 
 // The page shows recent history; older deliveries stay in the table for anyone who queries it.

@@ -2,16 +2,8 @@ import type { Knex } from 'knex';
 import { addDays, BATCH_EXPIRY_WINDOW_DAYS, daysBetween, planReorder, planRestock, type BatchStock, type CalendarDate, type ReorderLine } from '@heatfleet/domain';
 import { balancesAt } from '../stock/stock-ledger.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
-import {
-  latestArrivalId,
-  listActiveProducts,
-  listBatchesHeldExpiringBy,
-  listStockPlaces,
-  packsUsedSince,
-  type BatchHeld,
-  type NewReminder,
-  type StockPlace,
-} from './reminder-dal.ts';
+import type { NewReminder } from './reminder-dal.ts';
+import { latestArrivalId, listActiveProducts, listBatchesHeldExpiringBy, listStockPlaces, packsUsedSince, type BatchHeld, type StockPlace } from './reminder-stock-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
