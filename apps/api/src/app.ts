@@ -5,7 +5,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps.ts';
-import { csrfProtection, originCheck } from './middleware/csrf.ts';
+import { csrfProtection, hostCheck, originCheck } from './middleware/csrf.ts';
 import { errorHandler, notFoundHandler } from './middleware/error-handler.ts';
 import { requestId } from './middleware/request-id.ts';
 import { createSessionMiddleware } from './middleware/session.ts';
@@ -20,6 +20,7 @@ export function createApp(deps: AppDeps): Express {
   app.set('query parser', 'simple');
 
   app.use(requestId);
+  app.use(hostCheck(deps.env.APP_ORIGIN, deps.env.ALLOWED_HOSTS, deps.env.NODE_ENV));
   // gzip for the client's scripts and the API's JSON: a phone on a slow mobile link gets a third of the bytes.
   app.use(compression());
   app.use(pinoHttp({ logger: deps.logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
@@ -47,7 +48,7 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
   api.use(createSessionMiddleware(deps.env, deps.db, deps.logger));
-  api.use(originCheck(deps.env.APP_ORIGIN));
+  api.use(originCheck(deps.env.APP_ORIGIN, deps.env.NODE_ENV));
   api.use(csrfProtection);
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');

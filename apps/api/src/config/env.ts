@@ -6,6 +6,12 @@ const envSchema = z.object({
   PORT: z.coerce.number().int().min(1).max(65535).default(5173),
   APP_ORIGIN: z.url().default('http://localhost:5173'),
   TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
+  // Host names the app answers to besides APP_ORIGIN's and loopback (comma-separated), e.g. a balancer's
+  // own name for health checks. Any other Host gets 400 outside development (DNS rebinding).
+  ALLOWED_HOSTS: z
+    .string()
+    .default('')
+    .transform((s) => s.split(',').map((h) => h.trim().toLowerCase()).filter(Boolean)),
   DATABASE_HOST: z.string().default('127.0.0.1'),
   DATABASE_PORT: z.coerce.number().int().default(3406),
   DATABASE_USER: z.string().default('heatfleet'),

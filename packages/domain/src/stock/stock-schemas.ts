@@ -48,6 +48,8 @@ export const productInputSchema = z
       .optional(),
   })
   .refine((p) => p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000, { error: 'Pack size must be at most 25 litres.', path: ['packSize'] })
+  // Packs are kept in whole millilitres: a size that rounds to 0 ml would make every dose "Infinity packs".
+  .refine((p) => Math.round(p.packUnit === 'l' ? p.packSize * 1000 : p.packSize) >= 1, { error: 'Pack size must be at least 1 ml (0.001 litres).', path: ['packSize'] })
   .refine((p) => p.kind !== 'other' || !!p.ownKind, { error: 'Name your own kind of product.', path: ['ownKind'] })
   .refine((p) => p.targetMin == null || p.targetMax == null || p.targetMin <= p.targetMax, { error: 'The target range must run from low to high.', path: ['targetMax'] });
 export type ProductInput = z.infer<typeof productInputSchema>;

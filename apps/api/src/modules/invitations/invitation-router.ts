@@ -56,7 +56,7 @@ export const invitationRoutes: RouteDefinition[] = [
     summary: 'Accept an invitation (new account, or join with an existing one) and sign in',
     request: { params: invitationTokenParamSchema, body: acceptInvitationInputSchema },
     responses: { 200: { description: 'Joined', schema: invitationAcceptedResponseSchema }, 404: { description: 'Invalid link' } },
-    before: (deps) => [deps.signInLimiter.byAddress],
+    before: (deps) => [deps.limiters.linkByAddress, deps.limiters.linkByToken],
     handle: async ({ params, body, req, res, deps }) => {
       const { userId, firmId } = await acceptInvitation(deps, params.token, body);
       const csrfToken = await startSession(req, userId, firmId, deps.clock.now());

@@ -12,7 +12,7 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notFound } from '../../lib/http-error.ts';
 import { createToken, hashToken } from '../../lib/tokens.ts';
 import { findUserByEmail, findUserById, insertUser } from '../auth/user-dal.ts';
-import { hashPassword, verifyPassword } from '../auth/password.ts';
+import { assertPasswordAcceptable, hashPassword, verifyPassword } from '../auth/password.ts';
 import { findFirm } from '../firms/firm-dal.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import { invitationEmail } from '../mail/mail-templates.ts';
@@ -96,6 +96,7 @@ export async function acceptInvitation(deps: AppDeps, token: string, input: Acce
   } else {
     const parsed = z.object({ name: personNameSchema, password: passwordSchema }).safeParse(input);
     if (!parsed.success) throw parsed.error;
+    await assertPasswordAcceptable(parsed.data.password, preview.email);
     newAccount = { name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password) };
   }
   return deps.db.transaction(async (trx) => {
