@@ -2,6 +2,7 @@ import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
 import { jobSteps, surveySchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 
 // The API answers jobs without a shared response schema, so the client pins down the fields it reads.
 // Counts that come from SQL arithmetic may arrive as strings, hence the coercion.
@@ -181,7 +182,7 @@ export async function getCustomer(id: number) {
 }
 
 export const jobQueries = {
-  all: () => ['jobs'] as const,
+  all: () => queryRoots.jobs,
   lists: () => [...jobQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: jobQueries.lists(), queryFn: listJobs }),
   details: () => [...jobQueries.all(), 'detail'] as const,

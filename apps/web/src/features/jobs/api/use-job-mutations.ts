@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateJobInput, CustomerInput, SiteInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 import { customerEnvelopeSchema, customerQueries, jobDetailSchema, jobQueries, siteEnvelopeSchema } from '@/features/jobs/api/job-queries';
 
 export function useCompleteJob(id: number) {
@@ -12,8 +13,8 @@ export function useCompleteJob(id: number) {
       queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
       // The van's stock and the site's next check changed too.
       void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
-      void queryClient.invalidateQueries({ queryKey: ['stock'] });
-      void queryClient.invalidateQueries({ queryKey: ['vans'] });
+      void queryClient.invalidateQueries({ queryKey: queryRoots.stock });
+      void queryClient.invalidateQueries({ queryKey: queryRoots.vans });
     },
   });
 }

@@ -5,17 +5,11 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import type { FieldErrors } from '@/lib/form';
+import { firstErrorPerField, type FieldErrors } from '@/lib/form';
 import { customerQueries } from '@/features/jobs/api/job-queries';
 import { useCreateCustomer, useCreateSite } from '@/features/jobs/api/use-job-mutations';
 
 const NEW = 'new';
-
-function issuesByField(issues: ReadonlyArray<{ path: PropertyKey[]; message: string }>): FieldErrors {
-  const out: FieldErrors = {};
-  for (const issue of issues) out[issue.path.map(String).join('.')] ??= issue.message;
-  return out;
-}
 
 function NewCustomer({ onAdded }: { onAdded: (id: number) => void }) {
   const [draft, setDraft] = useState({ name: '', email: '', phone: '' });
@@ -23,7 +17,7 @@ function NewCustomer({ onAdded }: { onAdded: (id: number) => void }) {
   const create = useCreateCustomer();
   const add = () => {
     const parsed = customerInputSchema.safeParse(draft);
-    if (!parsed.success) return setErrors(issuesByField(parsed.error.issues));
+    if (!parsed.success) return setErrors(firstErrorPerField(parsed.error.issues));
     setErrors({});
     create.mutate(parsed.data, { onSuccess: (customer) => onAdded(customer.id) });
   };
@@ -46,7 +40,7 @@ function NewSite({ customerId, onAdded }: { customerId: number; onAdded: (id: nu
   const create = useCreateSite(customerId);
   const add = () => {
     const parsed = siteInputSchema.safeParse(draft);
-    if (!parsed.success) return setErrors(issuesByField(parsed.error.issues));
+    if (!parsed.success) return setErrors(firstErrorPerField(parsed.error.issues));
     setErrors({});
     create.mutate(parsed.data, { onSuccess: (site) => onAdded(site.id) });
   };

@@ -7,7 +7,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
-import type { FieldErrors } from '@/lib/form';
+import { firstErrorPerField, type FieldErrors } from '@/lib/form';
 import { useCreateJob } from '@/features/jobs/api/use-job-mutations';
 import { CustomerSitePicker } from '@/features/jobs/components/customer-site-picker';
 import { LivePlanPanel, type DoseProduct } from '@/features/jobs/components/live-plan-panel';
@@ -21,15 +21,6 @@ export interface EngineerChoice {
 }
 
 const boilerLabels: Record<(typeof boilerKinds)[number], string> = { combi: 'Combi', system: 'System', regular: 'Regular (heat only)' };
-
-function issuesByField(issues: ReadonlyArray<{ path: PropertyKey[] | string; message: string }>): FieldErrors {
-  const out: FieldErrors = {};
-  for (const issue of issues) {
-    const key = Array.isArray(issue.path) ? issue.path.map(String).join('.') : issue.path;
-    out[key] ??= issue.message;
-  }
-  return out;
-}
 
 function ProductChoices({ products, chosen, onChange }: { products: DoseProduct[]; chosen: number[]; onChange: (ids: number[]) => void }) {
   const id = useId();
@@ -93,7 +84,7 @@ export function NewJobForm({
       productIds,
     });
     if (!parsed.success) {
-      const byField = issuesByField(parsed.error.issues);
+      const byField = firstErrorPerField(parsed.error.issues);
       if (byField.siteId) byField.siteId = 'Choose or add the site.';
       setErrors(byField);
       setFormError('Some fields need attention: see the messages beside them.');
@@ -104,7 +95,7 @@ export function NewJobForm({
     create.mutate(parsed.data, {
       onSuccess: (detail) => navigate(paths.job.getHref(detail.job.id)),
       onError: (error) => {
-        if (isApiError(error) && error.details.length) setErrors(issuesByField(error.details));
+        if (isApiError(error) && error.details.length) setErrors(firstErrorPerField(error.details));
         setFormError(error.message);
       },
     });

@@ -4,7 +4,7 @@ import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import type { FieldErrors } from '@/lib/form';
+import { firstErrorPerField, type FieldErrors } from '@/lib/form';
 import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useSaveWaterTests } from '@/features/jobs/api/use-job-sheet-mutations';
 import { JudgementNote } from '@/features/jobs/components/job-cautions';
@@ -122,9 +122,7 @@ export function WaterTestsForm({
       ph: decimalOrNull(draft.ph),
     });
     if (!parsed.success) {
-      const out: FieldErrors = {};
-      for (const issue of parsed.error.issues) out[issue.path.map(String).join('.')] ??= issue.message;
-      setErrors(out);
+      setErrors(firstErrorPerField(parsed.error.issues));
       return;
     }
     setErrors({});

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SiteCheckInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 import { recordCheckAnswerSchema, siteQueries } from '@/features/sites/api/site-queries';
 
 export function useRecordSiteCheck(siteId: number) {
@@ -11,7 +12,7 @@ export function useRecordSiteCheck(siteId: number) {
       queryClient.setQueryData(siteQueries.detail(siteId).queryKey, answer.site);
       void queryClient.invalidateQueries({ queryKey: siteQueries.lists() });
       // The jobs list shows each site's next check date.
-      void queryClient.invalidateQueries({ queryKey: ['jobs'] });
+      void queryClient.invalidateQueries({ queryKey: queryRoots.jobs });
     },
   });
 }

@@ -11,6 +11,7 @@ import {
   type movementKinds,
 } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 
 // Each answer is parsed with the domain's schema, the one the API declares for that route.
 
@@ -54,7 +55,7 @@ export const productQueries = {
 };
 
 export const stockQueries = {
-  all: () => ['stock'] as const,
+  all: () => queryRoots.stock,
   grid: () => queryOptions({ queryKey: [...stockQueries.all(), 'grid'] as const, queryFn: () => apiClient.get('/api/stock', stockGridSchema) }),
   batches: (where: { locationId?: number; productId?: number }) =>
     queryOptions({

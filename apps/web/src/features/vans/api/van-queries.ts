@@ -2,6 +2,7 @@ import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
 import { depotSchema, kitItemSchema, kitSchema, vanSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 
 const vansEnvelopeSchema = z.object({ vans: z.array(vanSchema) });
 export const vanEnvelopeSchema = z.object({ van: vanSchema });
@@ -27,7 +28,7 @@ export async function listDepots() {
 }
 
 export const vanQueries = {
-  all: () => ['vans'] as const,
+  all: () => queryRoots.vans,
   lists: () => [...vanQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: vanQueries.lists(), queryFn: listVans }),
   details: () => [...vanQueries.all(), 'detail'] as const,
