@@ -2,11 +2,11 @@ import {
   acceptInvitationInputSchema,
   createInvitationInputSchema,
   idParamSchema,
-  invitationAcceptedResponseSchema,
   invitationListResponseSchema,
   invitationPreviewResponseSchema,
   invitationResponseSchema,
   invitationTokenParamSchema,
+  sessionEnvelopeSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { buildMe } from '../auth/auth-service.ts';
@@ -55,7 +55,7 @@ export const invitationRoutes: RouteDefinition[] = [
     method: 'post', path: '/invitations/by-token/:token/accept', tag: 'Team', access: 'public', tenantData: false,
     summary: 'Accept an invitation (new account, or join with an existing one) and sign in',
     request: { params: invitationTokenParamSchema, body: acceptInvitationInputSchema },
-    responses: { 200: { description: 'Joined', schema: invitationAcceptedResponseSchema }, 404: { description: 'Invalid link' } },
+    responses: { 200: { description: 'Joined', schema: sessionEnvelopeSchema }, 404: { description: 'Invalid link' } },
     before: (deps) => [deps.limiters.linkByAddress, deps.limiters.linkByToken],
     handle: async ({ params, body, req, res, deps }) => {
       const { userId, firmId } = await acceptInvitation(deps, params.token, body);
