@@ -1,16 +1,13 @@
 import { useMutation } from '@tanstack/react-query';
-import { z } from 'zod';
-import type { PasswordResetConfirmInput } from '@heatfleet/domain';
+import { messageResponseSchema, type PasswordResetConfirmInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const messageEnvelopeSchema = z.object({ message: z.string() });
-
 export function requestPasswordReset(input: { email: string }) {
-  return apiClient.post('/api/auth/password-reset', input, messageEnvelopeSchema);
+  return apiClient.post('/api/auth/password-reset', input, messageResponseSchema);
 }
 
 export function confirmPasswordReset(input: PasswordResetConfirmInput) {
-  return apiClient.post('/api/auth/password-reset/confirm', input, messageEnvelopeSchema);
+  return apiClient.post('/api/auth/password-reset/confirm', input, messageResponseSchema);
 }
 
 export function useRequestPasswordReset() {

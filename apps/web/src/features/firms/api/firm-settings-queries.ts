@@ -1,20 +1,14 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { volumeUnits, type FirmSettingsInput } from '@heatfleet/domain';
+import { firmSettingsResponseSchema, type FirmSettingsInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { sessionQueries } from '@/lib/auth';
 
-const firmEnvelopeSchema = z.object({
-  firm: z.object({ id: z.number(), name: z.string(), address: z.string().nullable(), timeZone: z.string(), volumeUnit: z.enum(volumeUnits), coldBottomThresholdK: z.number() }),
-});
-export type FirmSettingsView = z.infer<typeof firmEnvelopeSchema>['firm'];
-
 export async function getFirmSettings() {
-  return (await apiClient.get('/api/firm', firmEnvelopeSchema)).firm;
+  return (await apiClient.get('/api/firm', firmSettingsResponseSchema)).firm;
 }
 
 export async function saveFirmSettings(input: FirmSettingsInput) {
-  return (await apiClient.put('/api/firm', input, firmEnvelopeSchema)).firm;
+  return (await apiClient.put('/api/firm', input, firmSettingsResponseSchema)).firm;
 }
 
 export const firmSettingsQueries = {

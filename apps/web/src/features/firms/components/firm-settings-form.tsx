@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { COLD_BOTTOM_THRESHOLD_MAX_K, COLD_BOTTOM_THRESHOLD_MIN_K, firmSettingsInputSchema, volumeUnitLabels, volumeUnits } from '@heatfleet/domain';
+import { COLD_BOTTOM_THRESHOLD_MAX_K, COLD_BOTTOM_THRESHOLD_MIN_K, firmSettingsInputSchema, volumeUnitLabels, volumeUnits, type FirmSettings } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -9,7 +9,7 @@ import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { useSchemaForm } from '@/lib/form';
-import { firmSettingsQueries, useSaveFirmSettings, type FirmSettingsView } from '@/features/firms/api/firm-settings-queries';
+import { firmSettingsQueries, useSaveFirmSettings } from '@/features/firms/api/firm-settings-queries';
 
 const fields = ['name', 'address', 'timeZone', 'volumeUnit', 'coldBottomThresholdK'] as const;
 
@@ -26,7 +26,7 @@ function prepare(values: Record<string, string | undefined>) {
 // Every zone the browser knows, offered as suggestions; the API checks the same way with Intl.
 const zones: string[] = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : [];
 
-function Form({ firm }: { firm: FirmSettingsView }) {
+function Form({ firm }: { firm: FirmSettings }) {
   const save = useSaveFirmSettings();
   const form = useSchemaForm(firmSettingsInputSchema, fields, prepare);
   const listId = useId();

@@ -1,12 +1,9 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { invitationPreviewSchema } from '@heatfleet/domain';
+import { invitationPreviewResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const previewEnvelopeSchema = z.object({ invitation: invitationPreviewSchema });
-
 export async function getInvitationPreview(token: string) {
-  return (await apiClient.get(`/api/invitations/by-token/${encodeURIComponent(token)}`, previewEnvelopeSchema)).invitation;
+  return (await apiClient.get(`/api/invitations/by-token/${encodeURIComponent(token)}`, invitationPreviewResponseSchema)).invitation;
 }
 
 export const invitationPreviewQueries = {

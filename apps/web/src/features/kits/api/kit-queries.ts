@@ -1,34 +1,13 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
 import {
-  custodyEventSchema,
-  inspectionSchema,
-  itemKindSchema,
-  kitItemSchema,
-  kitSchema,
-  photoSchema,
+  itemKindListResponseSchema,
+  kitDetailResponseSchema,
+  kitItemDetailResponseSchema,
+  kitItemPageResponseSchema,
+  kitListResponseSchema,
   type KitItemListQuery,
 } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-
-const kitsEnvelopeSchema = z.object({ kits: z.array(kitSchema) });
-export const kitEnvelopeSchema = z.object({ kit: kitSchema });
-const kitDetailSchema = z.object({
-  kit: kitSchema,
-  items: z.array(kitItemSchema),
-  events: z.array(custodyEventSchema),
-  inspections: z.array(inspectionSchema),
-});
-export const kitItemEnvelopeSchema = z.object({ item: kitItemSchema });
-const kitItemPageSchema = z.object({ items: z.array(kitItemSchema), total: z.number(), page: z.number(), pageSize: z.number() });
-const kitItemDetailSchema = z.object({
-  item: kitItemSchema,
-  events: z.array(custodyEventSchema),
-  inspections: z.array(inspectionSchema),
-  photos: z.array(photoSchema),
-});
-const itemKindsEnvelopeSchema = z.object({ itemKinds: z.array(itemKindSchema) });
-export const itemKindEnvelopeSchema = z.object({ itemKind: itemKindSchema });
 
 /** The items list's filters as the URL query the API reads; page numbers start at 1. */
 export type KitItemFilters = Partial<Omit<KitItemListQuery, 'page' | 'pageSize'>> & { page: number; pageSize: number };
@@ -42,23 +21,23 @@ function toSearchParams(filters: KitItemFilters): string {
 }
 
 export async function listKits() {
-  return (await apiClient.get('/api/kits', kitsEnvelopeSchema)).kits;
+  return (await apiClient.get('/api/kits', kitListResponseSchema)).kits;
 }
 
 export function getKit(id: number) {
-  return apiClient.get(`/api/kits/${id}`, kitDetailSchema);
+  return apiClient.get(`/api/kits/${id}`, kitDetailResponseSchema);
 }
 
 export function listKitItems(filters: KitItemFilters) {
-  return apiClient.get(`/api/kit-items?${toSearchParams(filters)}`, kitItemPageSchema);
+  return apiClient.get(`/api/kit-items?${toSearchParams(filters)}`, kitItemPageResponseSchema);
 }
 
 export function getKitItem(id: number) {
-  return apiClient.get(`/api/kit-items/${id}`, kitItemDetailSchema);
+  return apiClient.get(`/api/kit-items/${id}`, kitItemDetailResponseSchema);
 }
 
 export async function listItemKinds() {
-  return (await apiClient.get('/api/item-kinds', itemKindsEnvelopeSchema)).itemKinds;
+  return (await apiClient.get('/api/item-kinds', itemKindListResponseSchema)).itemKinds;
 }
 
 export const kitQueries = {

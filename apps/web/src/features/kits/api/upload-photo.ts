@@ -1,9 +1,5 @@
-import { z } from 'zod';
-import { PHOTO_MAX_BYTES, photoContentTypes, photoSchema } from '@heatfleet/domain';
+import { PHOTO_MAX_BYTES, photoContentTypes, photoResponseSchema, type Photo } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-
-const uploadedPhotoSchema = z.object({ photo: photoSchema.pick({ id: true, url: true, contentType: true, byteSize: true }) });
-export type UploadedPhoto = z.infer<typeof uploadedPhotoSchema>['photo'];
 
 const megabytes = (bytes: number) => `${Math.round((bytes / 1024 / 1024) * 10) / 10} MB`;
 
@@ -18,9 +14,9 @@ export function photoProblem(file: File): string | null {
   return null;
 }
 
-export async function uploadPhoto(file: File, itemId?: number): Promise<UploadedPhoto> {
+export async function uploadPhoto(file: File, itemId?: number): Promise<Photo> {
   const form = new FormData();
   form.append('photo', file);
   if (itemId !== undefined) form.append('itemId', String(itemId));
-  return (await apiClient.upload('/api/photos', form, uploadedPhotoSchema)).photo;
+  return (await apiClient.upload('/api/photos', form, photoResponseSchema)).photo;
 }

@@ -1,6 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { custodyEventSchema, type CheckInInput, type CheckOutInput, type MoveInput } from '@heatfleet/domain';
+import { itemCustodyResponseSchema, kitDetailResponseSchema, type CheckInInput, type CheckOutInput, type MoveInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 
@@ -11,11 +10,10 @@ export type CustodyRequest =
   | { action: 'check-in'; input: CheckInInput }
   | { action: 'move'; input: MoveInput };
 
-const custodyAnswerSchema = z.object({ events: z.array(custodyEventSchema) });
-
+/** The kit or the item as it now stands, with its custody timeline. */
 export async function sendCustody(scope: CustodyScope, request: CustodyRequest, idempotencyKey: string) {
-  const base = scope.kind === 'kit' ? `/api/kits/${scope.id}` : `/api/kit-items/${scope.id}`;
-  return apiClient.post(`${base}/${request.action}`, request.input, custodyAnswerSchema, { idempotencyKey });
+  if (scope.kind === 'kit') return apiClient.post(`/api/kits/${scope.id}/${request.action}`, request.input, kitDetailResponseSchema, { idempotencyKey });
+  return apiClient.post(`/api/kit-items/${scope.id}/${request.action}`, request.input, itemCustodyResponseSchema, { idempotencyKey });
 }
 
 export function useCustody() {

@@ -1,13 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { inspectionSchema, kitItemSchema, type RecordInspectionInput } from '@heatfleet/domain';
+import { inspectionRecordedResponseSchema, type RecordInspectionInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 
-const inspectionAnswerSchema = z.object({ inspection: inspectionSchema, item: kitItemSchema });
-
 export function recordInspection(itemId: number, input: RecordInspectionInput, idempotencyKey: string) {
-  return apiClient.post(`/api/kit-items/${itemId}/inspections`, input, inspectionAnswerSchema, { idempotencyKey });
+  return apiClient.post(`/api/kit-items/${itemId}/inspections`, input, inspectionRecordedResponseSchema, { idempotencyKey });
 }
 
 export function useRecordInspection() {

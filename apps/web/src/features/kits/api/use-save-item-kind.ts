@@ -1,14 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ItemKindInput } from '@heatfleet/domain';
+import { itemKindResponseSchema, type ItemKindInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { itemKindEnvelopeSchema, itemKindQueries, kitItemQueries } from '@/features/kits/api/kit-queries';
+import { itemKindQueries, kitItemQueries } from '@/features/kits/api/kit-queries';
 
 export async function createItemKind(input: ItemKindInput) {
-  return (await apiClient.post('/api/item-kinds', input, itemKindEnvelopeSchema)).itemKind;
+  return (await apiClient.post('/api/item-kinds', input, itemKindResponseSchema)).itemKind;
 }
 
 export async function updateItemKind({ id, ...input }: ItemKindInput & { id: number }) {
-  return (await apiClient.patch(`/api/item-kinds/${id}`, input, itemKindEnvelopeSchema)).itemKind;
+  return (await apiClient.patch(`/api/item-kinds/${id}`, input, itemKindResponseSchema)).itemKind;
 }
 
 export function useSaveItemKind() {

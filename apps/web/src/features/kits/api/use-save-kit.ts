@@ -1,24 +1,23 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateKitInput, CreateKitItemInput, UpdateKitItemInput } from '@heatfleet/domain';
-import type { updateKitInputSchema } from '@heatfleet/domain';
+import { kitItemResponseSchema, kitResponseSchema, type CreateKitInput, type CreateKitItemInput, type UpdateKitItemInput, type updateKitInputSchema } from '@heatfleet/domain';
 import type { z } from 'zod';
 import { apiClient } from '@/lib/api-client';
-import { kitEnvelopeSchema, kitItemEnvelopeSchema, kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
+import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 
 export async function createKit(input: CreateKitInput) {
-  return (await apiClient.post('/api/kits', input, kitEnvelopeSchema)).kit;
+  return (await apiClient.post('/api/kits', input, kitResponseSchema)).kit;
 }
 
 export async function updateKit({ id, ...input }: z.infer<typeof updateKitInputSchema> & { id: number }) {
-  return (await apiClient.patch(`/api/kits/${id}`, input, kitEnvelopeSchema)).kit;
+  return (await apiClient.patch(`/api/kits/${id}`, input, kitResponseSchema)).kit;
 }
 
 export async function createKitItem(input: CreateKitItemInput) {
-  return (await apiClient.post('/api/kit-items', input, kitItemEnvelopeSchema)).item;
+  return (await apiClient.post('/api/kit-items', input, kitItemResponseSchema)).item;
 }
 
 export async function updateKitItem({ id, ...input }: UpdateKitItemInput & { id: number }) {
-  return (await apiClient.patch(`/api/kit-items/${id}`, input, kitItemEnvelopeSchema)).item;
+  return (await apiClient.patch(`/api/kit-items/${id}`, input, kitItemResponseSchema)).item;
 }
 
 export function useCreateKit() {

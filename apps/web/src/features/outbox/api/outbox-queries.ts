@@ -1,18 +1,14 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { outboxMessageSchema, outboxMessageSummarySchema } from '@heatfleet/domain';
+import { outboxListResponseSchema, outboxMessageResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const listEnvelopeSchema = z.object({ messages: z.array(outboxMessageSummarySchema) });
-const messageEnvelopeSchema = z.object({ message: outboxMessageSchema });
-
 export async function listOutboxMessages() {
-  const { messages } = await apiClient.get('/api/outbox', listEnvelopeSchema);
+  const { messages } = await apiClient.get('/api/outbox', outboxListResponseSchema);
   return [...messages].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt));
 }
 
 export async function getOutboxMessage(id: string) {
-  return (await apiClient.get(`/api/outbox/${encodeURIComponent(id)}`, messageEnvelopeSchema)).message;
+  return (await apiClient.get(`/api/outbox/${encodeURIComponent(id)}`, outboxMessageResponseSchema)).message;
 }
 
 export const outboxQueries = {

@@ -1,17 +1,13 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { reminderDeliverySchema, reminderSettingsViewSchema } from '@heatfleet/domain';
+import { reminderListResponseSchema, reminderSettingsResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const remindersEnvelopeSchema = z.object({ reminders: z.array(reminderDeliverySchema) });
-export const settingsEnvelopeSchema = z.object({ settings: reminderSettingsViewSchema });
-
 export async function listReminders() {
-  return (await apiClient.get('/api/reminders', remindersEnvelopeSchema)).reminders;
+  return (await apiClient.get('/api/reminders', reminderListResponseSchema)).reminders;
 }
 
 export async function getReminderSettings() {
-  return (await apiClient.get('/api/reminder-settings', settingsEnvelopeSchema)).settings;
+  return (await apiClient.get('/api/reminder-settings', reminderSettingsResponseSchema)).settings;
 }
 
 export const reminderQueries = {

@@ -1,17 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import type { ReminderSettings } from '@heatfleet/domain';
+import { reminderScanResponseSchema, reminderSettingsResponseSchema, type ReminderSettings } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { reminderQueries, settingsEnvelopeSchema } from '@/features/reminders/api/reminder-queries';
-
-const scanAnswerSchema = z.object({ sent: z.number() });
+import { reminderQueries } from '@/features/reminders/api/reminder-queries';
 
 export async function saveReminderSettings(settings: ReminderSettings) {
-  return (await apiClient.put('/api/reminder-settings', settings, settingsEnvelopeSchema)).settings;
+  return (await apiClient.put('/api/reminder-settings', settings, reminderSettingsResponseSchema)).settings;
 }
 
 export async function runReminderScan() {
-  return (await apiClient.post('/api/reminders/scan', {}, scanAnswerSchema)).sent;
+  return (await apiClient.post('/api/reminders/scan', {}, reminderScanResponseSchema)).sent;
 }
 
 export function useSaveReminderSettings() {

@@ -1,13 +1,9 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { invitationSchema } from '@heatfleet/domain';
+import { invitationListResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const invitationsEnvelopeSchema = z.object({ invitations: z.array(invitationSchema) });
-export const invitationEnvelopeSchema = z.object({ invitation: invitationSchema });
-
 export async function listPendingInvitations() {
-  return (await apiClient.get('/api/invitations', invitationsEnvelopeSchema)).invitations;
+  return (await apiClient.get('/api/invitations', invitationListResponseSchema)).invitations;
 }
 
 export const invitationQueries = {

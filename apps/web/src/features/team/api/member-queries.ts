@@ -1,13 +1,9 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { memberSchema } from '@heatfleet/domain';
+import { memberListResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
-const membersEnvelopeSchema = z.object({ members: z.array(memberSchema) });
-export const memberEnvelopeSchema = z.object({ member: memberSchema });
-
 export async function listMembers() {
-  return (await apiClient.get('/api/members', membersEnvelopeSchema)).members;
+  return (await apiClient.get('/api/members', memberListResponseSchema)).members;
 }
 
 export const memberQueries = {

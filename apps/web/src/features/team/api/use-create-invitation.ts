@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateInvitationInput } from '@heatfleet/domain';
+import { invitationResponseSchema, type CreateInvitationInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { invitationEnvelopeSchema, invitationQueries } from '@/features/team/api/invitation-queries';
+import { invitationQueries } from '@/features/team/api/invitation-queries';
 
 export async function createInvitation(input: CreateInvitationInput) {
-  return (await apiClient.post('/api/invitations', input, invitationEnvelopeSchema)).invitation;
+  return (await apiClient.post('/api/invitations', input, invitationResponseSchema)).invitation;
 }
 
 export function useCreateInvitation() {

@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { UpdateMemberInput } from '@heatfleet/domain';
+import { memberResponseSchema, type UpdateMemberInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { memberEnvelopeSchema, memberQueries } from '@/features/team/api/member-queries';
+import { memberQueries } from '@/features/team/api/member-queries';
 
 export async function updateMember({ id, ...input }: UpdateMemberInput & { id: number }) {
-  return (await apiClient.patch(`/api/members/${id}`, input, memberEnvelopeSchema)).member;
+  return (await apiClient.patch(`/api/members/${id}`, input, memberResponseSchema)).member;
 }
 
 export function useUpdateMember() {

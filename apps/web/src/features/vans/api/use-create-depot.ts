@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateDepotInput } from '@heatfleet/domain';
+import { depotResponseSchema, type CreateDepotInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { depotEnvelopeSchema, depotQueries } from '@/features/vans/api/van-queries';
+import { depotQueries } from '@/features/vans/api/van-queries';
 
 export async function createDepot(input: CreateDepotInput) {
-  return (await apiClient.post('/api/depots', input, depotEnvelopeSchema)).depot;
+  return (await apiClient.post('/api/depots', input, depotResponseSchema)).depot;
 }
 
 export function useCreateDepot() {

@@ -1,14 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateVanInput, UpdateVanInput } from '@heatfleet/domain';
+import { vanResponseSchema, type CreateVanInput, type UpdateVanInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { vanEnvelopeSchema, vanQueries } from '@/features/vans/api/van-queries';
+import { vanQueries } from '@/features/vans/api/van-queries';
 
 export async function createVan(input: CreateVanInput) {
-  return (await apiClient.post('/api/vans', input, vanEnvelopeSchema)).van;
+  return (await apiClient.post('/api/vans', input, vanResponseSchema)).van;
 }
 
 export async function updateVan({ id, ...input }: UpdateVanInput & { id: number }) {
-  return (await apiClient.patch(`/api/vans/${id}`, input, vanEnvelopeSchema)).van;
+  return (await apiClient.patch(`/api/vans/${id}`, input, vanResponseSchema)).van;
 }
 
 export function useCreateVan() {

@@ -1,30 +1,22 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { depotSchema, kitItemSchema, kitSchema, vanSchema } from '@heatfleet/domain';
+import { depotListResponseSchema, myVanResponseSchema, vanDetailResponseSchema, vanListResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-keys';
 
-const vansEnvelopeSchema = z.object({ vans: z.array(vanSchema) });
-export const vanEnvelopeSchema = z.object({ van: vanSchema });
-const vanDetailSchema = z.object({ van: vanSchema, kits: z.array(kitSchema), items: z.array(kitItemSchema) });
-const myVanSchema = z.object({ van: vanSchema.nullable(), kits: z.array(kitSchema), items: z.array(kitItemSchema) });
-const depotsEnvelopeSchema = z.object({ depots: z.array(depotSchema) });
-export const depotEnvelopeSchema = z.object({ depot: depotSchema });
-
 export async function listVans() {
-  return (await apiClient.get('/api/vans', vansEnvelopeSchema)).vans;
+  return (await apiClient.get('/api/vans', vanListResponseSchema)).vans;
 }
 
 export function getVan(id: number) {
-  return apiClient.get(`/api/vans/${id}`, vanDetailSchema);
+  return apiClient.get(`/api/vans/${id}`, vanDetailResponseSchema);
 }
 
 export function getMyVan() {
-  return apiClient.get('/api/me/van', myVanSchema);
+  return apiClient.get('/api/me/van', myVanResponseSchema);
 }
 
 export async function listDepots() {
-  return (await apiClient.get('/api/depots', depotsEnvelopeSchema)).depots;
+  return (await apiClient.get('/api/depots', depotListResponseSchema)).depots;
 }
 
 export const vanQueries = {
