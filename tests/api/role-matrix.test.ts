@@ -16,6 +16,7 @@ const fleetManagers: Role[] = ['owner', 'admin', 'stores'];
 const allowed: Record<string, Role[]> = {
   'GET /me': everyone,
   'PUT /me/active-firm': everyone,
+  'POST /me/firms': everyone,
   'PUT /me/password': everyone,
   'GET /members': everyone,
   'PATCH /members/:id': managers,

@@ -12,7 +12,9 @@ const notTenantData: Record<string, string> = {
   'GET /health': 'liveness only',
   'GET /openapi.json': 'the API description',
   'GET /auth/csrf': 'the caller\u2019s own session token',
-  'POST /auth/sign-up': 'creates a new firm',
+  'POST /auth/sign-up': 'e-mails a link; no firm exists until it is confirmed',
+  'POST /auth/sign-up/confirm': 'addressed by a secret token, not an id; creates a new firm',
+  'POST /me/firms': 'creates a new firm of the caller\u2019s own',
   'POST /auth/sign-in': 'the caller\u2019s own account',
   'POST /auth/sign-out': 'the caller\u2019s own session',
   'POST /auth/password-reset': 'answers the same for any e-mail',
@@ -26,7 +28,7 @@ const notTenantData: Record<string, string> = {
 };
 
 /** Tables that are not a firm's: people (who may belong to several firms) and plumbing. */
-const nonTenantTables = ['firms', 'users', 'password_resets', 'sessions', 'knex_migrations', 'knex_migrations_lock'];
+const nonTenantTables = ['firms', 'users', 'password_resets', 'sign_up_requests', 'sessions', 'knex_migrations', 'knex_migrations_lock'];
 
 let t: TestApp;
 let a: SeededFirm;

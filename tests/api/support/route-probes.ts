@@ -34,6 +34,8 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'POST /auth/sign-up': () => ({ firmName: 'Probe firm', name: 'Probe', email: uniqueEmail('probe'), password: 'probe password 123' }),
   'POST /auth/sign-in': (f) => ({ email: f.people.engineer.email, password: 'wrong password probe' }),
   'POST /auth/password-reset': (f) => ({ email: f.people.engineer.email }),
+  'POST /auth/sign-up/confirm': () => ({ token: 'y'.repeat(43) }),
+  'POST /me/firms': () => ({ firmName: 'Probe second firm' }),
   'POST /auth/password-reset/confirm': () => ({ token: 'x'.repeat(43), password: 'probe password 123' }),
   'PUT /me/active-firm': (f) => ({ firmId: f.firmId }),
   'PUT /me/password': () => ({ currentPassword: 'not the current one', newPassword: 'probe password 123' }),

@@ -21,7 +21,8 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
  */
 function bodyReadProblem(err: unknown): { status: 400 | 415; message: string } | null {
   const e = err as { type?: string; status?: number; expose?: boolean } | null;
-  if (!e || typeof e.status !== 'number' || e.status < 400 || e.status >= 500 || e.expose !== true) return null;
+  // Only 400 and 415: the parser's other failures (413) have their own branch, and a CSRF refusal is a 403.
+  if (!e || (e.status !== 400 && e.status !== 415) || e.expose !== true) return null;
   switch (e.type) {
     case 'charset.unsupported':
       return { status: 415, message: 'The request body must be sent as UTF-8 text.' };
