@@ -1,6 +1,7 @@
 import { authRoutes } from '../modules/auth/auth-router.ts';
 import { healthRoutes } from '../modules/health/health-router.ts';
 import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
+import { customerRoutes } from '../modules/jobs/customer-router.ts';
 import { jobRoutes } from '../modules/jobs/job-router.ts';
 import { jobSheetRoutes } from '../modules/jobs/job-sheet-router.ts';
 import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
@@ -39,6 +40,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...stockRoutes,
   ...stockMovementRoutes,
   ...restockRoutes,
+  ...customerRoutes,
   ...jobRoutes,
   ...jobSheetRoutes,
   ...reminderRoutes,

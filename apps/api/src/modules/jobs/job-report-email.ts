@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
+import type { JobDetail } from '@heatfleet/domain';
+import { findFirm } from '../firms/firm-dal.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
-import { renderReportFor } from './job-report.ts';
-import type { getJob } from './job-service.ts';
-
-type JobDetail = Awaited<ReturnType<typeof getJob>>;
+import { findSite } from '../sites/site-dal.ts';
+import { renderReportFor } from './job-report-service.ts';
 
 /**
  * Stores the completion report and writes the e-mail that carries it to the customer, in the
@@ -15,12 +15,9 @@ type JobDetail = Awaited<ReturnType<typeof getJob>>;
  * the job still completes and no e-mail is written.
  */
 export async function queueJobReportEmail(trx: Knex.Transaction, deps: AppDeps, actor: Actor, detail: JobDetail): Promise<number | null> {
-  const customer = (await trx('sites as s')
-    .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
-    .where({ 's.firm_id': actor.firmId, 's.id': detail.job.site?.id ?? 0 })
-    .first('c.name', 'c.email')) as { name: string; email: string | null } | undefined;
+  const customer = (await findSite(trx, actor.firmId, detail.job.site.id))?.customer;
   if (!customer?.email) return null;
-  const firm = (await trx('firms').where({ id: actor.firmId }).first('name')) as { name: string };
+  const firmName = (await findFirm(trx, actor.firmId))?.name ?? '';
   const pdf = await renderReportFor(deps, trx, actor.firmId, detail);
   const key = `firms/${actor.firmId}/reports/job-${detail.job.id}-${randomUUID()}.pdf`;
   try {
@@ -33,13 +30,13 @@ export async function queueJobReportEmail(trx: Knex.Transaction, deps: AppDeps, 
   }
   const lines = [
     `Dear ${customer.name},`,
-    `${firm.name} has completed the cleaning of your heating system at ${detail.job.site?.address ?? 'your property'}. The report is attached.`,
+    `${firmName} has completed the cleaning of your heating system at ${detail.job.site.address}. The report is attached.`,
     detail.job.nextCheckOn ? `The inhibitor should be checked again by ${detail.job.nextCheckOn}.` : '',
   ].filter(Boolean);
   return insertEmail(trx, {
     firmId: actor.firmId,
     to: customer.email,
-    subject: `Your heating system cleaning report from ${firm.name}`,
+    subject: `Your heating system cleaning report from ${firmName}`,
     text: `${lines.join('\n\n')}\n`,
     html: null,
     purpose: 'job-report',

@@ -1,52 +1,28 @@
 import { z } from 'zod';
-import { createJobInputSchema, customerInputSchema, idParamSchema, siteInputSchema } from '@heatfleet/domain';
-import { withTransactionRetry } from '../../db/with-retry.ts';
-import { idempotencyKeyOf, runIdempotent } from '../../lib/idempotency.ts';
+import { createJobInputSchema, idParamSchema, jobDetailSchema, jobListResponseSchema } from '@heatfleet/domain';
+import { idempotencyKeyOf } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { completeJob, createCustomer, createJob, createSite, getCustomer, getJob, listCustomers, listJobs } from './job-service.ts';
-import { renderReportFor } from './job-report.ts';
-import { queueJobReportEmail } from './job-report-email.ts';
+import { completeJob } from './job-completion-service.ts';
+import { jobReportPdf } from './job-report-service.ts';
+import { createJob, getJob, listJobs } from './job-service.ts';
 
 export const jobRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/customers', tag: 'Jobs', access: 'member', tenantData: true, summary: 'Customers', request: {},
-    responses: { 200: { description: 'Customers' } },
-    handle: async ({ res, deps, actor }) => {
-      res.json({ customers: await listCustomers(deps, actor) });
-    },
-  }),
-  defineRoute({
-    method: 'post', path: '/customers', tag: 'Jobs', access: 'member', tenantData: true, summary: 'Add a customer', request: { body: customerInputSchema },
-    responses: { 201: { description: 'Added' } },
-    handle: async ({ body, res, deps, actor }) => {
-      res.status(201).json({ customer: await createCustomer(deps, actor, body) });
-    },
-  }),
-  defineRoute({
-    method: 'get', path: '/customers/:id', tag: 'Jobs', access: 'member', tenantData: true, summary: 'A customer and their sites', request: { params: idParamSchema },
-    responses: { 200: { description: 'Customer' } },
-    handle: async ({ params, res, deps, actor }) => {
-      res.json({ customer: await getCustomer(deps, actor, params.id) });
-    },
-  }),
-  defineRoute({
-    method: 'post', path: '/customers/:id/sites', tag: 'Jobs', access: 'member', tenantData: true, summary: 'Add a site to a customer', request: { params: idParamSchema, body: siteInputSchema },
-    responses: { 201: { description: 'Added' } },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.status(201).json({ site: await createSite(deps, actor, params.id, body) });
-    },
-  }),
-  defineRoute({
     method: 'get', path: '/jobs', tag: 'Jobs', access: 'member', tenantData: true, summary: 'Cleaning jobs, newest first', request: {},
-    responses: { 200: { description: 'Jobs' } },
+    responses: { 200: { description: 'Jobs', schema: jobListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ jobs: await listJobs(deps, actor) });
     },
   }),
   defineRoute({
     method: 'post', path: '/jobs', tag: 'Jobs', access: 'member', tenantData: true,
-    summary: 'Book a job with its survey; the answer has the volume, dose plan and van check', request: { body: createJobInputSchema },
-    responses: { 201: { description: 'Booked' } },
+    summary: 'Book a job with its survey; the answer has the volume, dose plan and van check. An engineer books for themself; the office names any active engineer.',
+    request: { body: createJobInputSchema },
+    responses: {
+      201: { description: 'Booked', schema: jobDetailSchema },
+      400: { description: 'The member named is not an active engineer' },
+      403: { description: 'An engineer named someone else' },
+    },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json(await createJob(deps, actor, body));
     },
@@ -55,7 +31,7 @@ export const jobRoutes: RouteDefinition[] = [
     method: 'get', path: '/jobs/:id', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'A job: system volume and how it was reached, dose plan, batches to take from the van, chemicals used',
     request: { params: idParamSchema },
-    responses: { 200: { description: 'Job' } },
+    responses: { 200: { description: 'Job', schema: jobDetailSchema } },
     handle: async ({ params, res, deps, actor }) => {
       res.json(await getJob(deps, actor, params.id));
     },
@@ -64,20 +40,9 @@ export const jobRoutes: RouteDefinition[] = [
     method: 'post', path: '/jobs/:id/complete', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Complete a job: its chemicals come off the van by batch, exactly once (send an Idempotency-Key)',
     request: { params: idParamSchema, body: z.strictObject({}).optional() },
-    responses: { 200: { description: 'Completed' }, 409: { description: 'Already completed, or the van is short' } },
+    responses: { 200: { description: 'Completed', schema: jobDetailSchema }, 409: { description: 'Already completed, or the van is short' } },
     handle: async ({ params, req, res, deps, actor }) => {
-      const key = idempotencyKeyOf(req);
-      let emailId: number | null = null;
-      const out = await withTransactionRetry(() =>
-        runIdempotent(deps, actor, key, `complete job ${params.id}`, async (trx) => {
-          await completeJob(trx, deps, actor, params.id);
-          const detail = await getJob(deps, actor, params.id, trx);
-          // The report e-mail is written with the completion, so it exists exactly when the job is done.
-          emailId = await queueJobReportEmail(trx, deps, actor, detail);
-          return { status: 200, body: detail };
-        }),
-      );
-      if (emailId !== null) await deps.mailQueue.notify([emailId]);
+      const out = await completeJob(deps, actor, params.id, idempotencyKeyOf(req));
       res.status(out.status).json(out.body);
     },
   }),
@@ -87,8 +52,7 @@ export const jobRoutes: RouteDefinition[] = [
     request: { params: idParamSchema },
     responses: { 200: { description: 'PDF' } },
     handle: async ({ params, res, deps, actor }) => {
-      const detail = await getJob(deps, actor, params.id);
-      const pdf = await renderReportFor(deps, deps.db, actor.firmId, detail);
+      const pdf = await jobReportPdf(deps, actor, params.id);
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader('Content-Disposition', `attachment; filename="cleaning-report-${params.id}.pdf"`);
       res.send(pdf);

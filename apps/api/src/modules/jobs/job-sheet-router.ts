@@ -3,7 +3,9 @@ import {
   agitationInputSchema,
   jobKitInputSchema,
   jobNotesInputSchema,
+  jobPhotoResponseSchema,
   jobPhotoTags,
+  jobSheetResponseSchema,
   jobSteps,
   radiatorReadingInputSchema,
   readingPhases,
@@ -11,8 +13,8 @@ import {
 } from '@heatfleet/domain';
 import { HttpError } from '../../lib/http-error.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { addJobPhoto, recordAgitation, recordKit, recordNotes, recordReading, recordWaterTests, setFlushed, setStep } from './job-sheet-service.ts';
 import { receivePhoto } from '../photos/receive-photo.ts';
+import { addJobPhoto, recordAgitation, recordKit, recordNotes, recordReading, recordWaterTests, setFlushed, setStep } from './job-sheet-service.ts';
 
 const jobId = z.coerce.number({ error: 'The job id must be a number.' }).int().positive();
 const radiatorIndex = z.coerce.number({ error: 'The radiator must be its place in the survey (0, 1, ...).' }).int().min(0).max(999);
@@ -30,12 +32,11 @@ export const jobPhotoFieldsSchema = z.strictObject({
   caption: z.string().trim().max(200, { error: 'A caption must be at most 200 characters.' }).optional(),
 });
 
-
 export const jobSheetRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'put', path: '/jobs/:id/steps/:step', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Tick a step of the visit (the first tick\u2019s time stands) or clear it', request: { params: stepParams, body: stepInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await setStep(deps, actor, params.id, params.step, body.done) });
     },
@@ -44,7 +45,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
     method: 'put', path: '/jobs/:id/radiators/:index/readings/:phase', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Record a radiator\u2019s surface temperatures before or after the clean (index: its place in the survey, from 0)',
     request: { params: readingParams, body: radiatorReadingInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordReading(deps, actor, params.id, params.index, params.phase, body) });
     },
@@ -53,7 +54,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
     method: 'put', path: '/jobs/:id/radiators/:index/agitation', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Record a radiator\u2019s agitation time and the vibrating tool used (a kit item on the job\u2019s van)',
     request: { params: radiatorParams, body: agitationInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordAgitation(deps, actor, params.id, params.index, body) });
     },
@@ -62,7 +63,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
     method: 'put', path: '/jobs/:id/radiators/:index/flushed', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Tick a radiator flushed until clear (the first tick\u2019s time stands) or clear it',
     request: { params: radiatorParams, body: stepInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await setFlushed(deps, actor, params.id, params.index, body.done) });
     },
@@ -70,7 +71,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'put', path: '/jobs/:id/water-tests', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Record the water tests (the whole set: a field left out is cleared)', request: { params: jobParams, body: waterTestsInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordWaterTests(deps, actor, params.id, body) });
     },
@@ -78,7 +79,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'put', path: '/jobs/:id/kit', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Record the kit used, as a set chosen from the items on the job\u2019s van', request: { params: jobParams, body: jobKitInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordKit(deps, actor, params.id, body.kitItemIds) });
     },
@@ -86,7 +87,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'put', path: '/jobs/:id/notes', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'The engineer\u2019s notes on the visit', request: { params: jobParams, body: jobNotesInputSchema },
-    responses: { 200: { description: 'The job sheet' }, ...conflictResponse },
+    responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
     handle: async ({ params, body, res, deps, actor }) => {
       res.json({ sheet: await recordNotes(deps, actor, params.id, body.notes) });
     },
@@ -96,7 +97,7 @@ export const jobSheetRoutes: RouteDefinition[] = [
     summary: 'Add a photo to the job (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; tag; optional caption)',
     request: { params: jobParams },
     multipart: { fileField: 'photo', fields: jobPhotoFieldsSchema },
-    responses: { 201: { description: 'Stored' }, 413: { description: 'Too large' }, 422: { description: 'Not a JPEG, PNG or WebP, or no tag' }, ...conflictResponse },
+    responses: { 201: { description: 'Stored', schema: jobPhotoResponseSchema }, 413: { description: 'Too large' }, 422: { description: 'Not a JPEG, PNG or WebP, or no tag' }, ...conflictResponse },
     before: () => [receivePhoto],
     handle: async ({ params, req, res, deps, actor }) => {
       const fields = jobPhotoFieldsSchema.parse(req.body ?? {});

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { CustomerSite, SiteInput, SiteListRow } from '@heatfleet/domain';
 
 type Db = Knex | Knex.Transaction;
 
@@ -45,69 +46,12 @@ export async function listSiteJobs(db: Db, firmId: number, siteId: number) {
   }));
 }
 
-export async function listSiteChecks(db: Db, firmId: number, siteId: number) {
-  const rows = (await db('site_checks as k')
-    .join('products as p', (j) => j.on('p.id', '=', 'k.product_id').andOn('p.firm_id', '=', 'k.firm_id'))
-    .join('users as u', 'u.id', 'k.by_user_id')
-    .where({ 'k.firm_id': firmId, 'k.site_id': siteId })
-    .orderBy([{ column: 'k.checked_on', order: 'desc' }, { column: 'k.id', order: 'desc' }])
-    .select('k.*', 'p.name as product_name', 'u.name as by_name')) as Record<string, unknown>[];
-  return rows.map((r) => ({
-    id: r.id as number,
-    checkedOn: r.checked_on as string,
-    product: { id: r.product_id as number, name: r.product_name as string },
-    inhibitorReading: Number(r.reading),
-    target: { min: Number(r.target_min), max: Number(r.target_max), unit: (r.target_unit as string | null) ?? null },
-    systemTdsPpm: r.tds_ppm === null ? null : Number(r.tds_ppm),
-    result: r.result as 'pass' | 'fail',
-    notes: (r.notes as string | null) ?? null,
-    byName: r.by_name as string,
-    createdAt: new Date(r.created_at as Date).toISOString(),
-  }));
-}
-
-export interface InhibitorRow {
-  id: number;
-  name: string;
-  kind: string;
-  target_min: string | null;
-  target_max: string | null;
-  target_unit: string | null;
-  test_method: string | null;
-}
-
-export function findProduct(db: Db, firmId: number, productId: number): Promise<InhibitorRow | undefined> {
-  return db('products').where({ firm_id: firmId, id: productId }).first('id', 'name', 'kind', 'target_min', 'target_max', 'target_unit', 'test_method') as Promise<InhibitorRow | undefined>;
-}
-
-/** The firm's active inhibitors that have a target range: the ones a check can be recorded against. */
-export async function listCheckableInhibitors(db: Db, firmId: number) {
-  const rows = (await db('products')
-    .where({ firm_id: firmId, kind: 'inhibitor', active: true })
-    .whereNotNull('target_min')
-    .whereNotNull('target_max')
-    .orderBy('name')
-    .select('id', 'name', 'kind', 'target_min', 'target_max', 'target_unit', 'test_method')) as InhibitorRow[];
-  return rows.map((r) => ({ id: r.id, name: r.name, targetMin: Number(r.target_min), targetMax: Number(r.target_max), targetUnit: r.target_unit, testMethod: r.test_method }));
-}
-
-export async function insertSiteCheck(
-  trx: Knex.Transaction,
-  row: { firmId: number; siteId: number; checkedOn: string; productId: number; reading: number; min: number; max: number; unit: string | null; tdsPpm: number | null; result: 'pass' | 'fail'; notes: string | null; byUserId: number },
-): Promise<number> {
-  const [id] = await trx('site_checks').insert({
-    firm_id: row.firmId, site_id: row.siteId, checked_on: row.checkedOn, product_id: row.productId, reading: row.reading, target_min: row.min, target_max: row.max, target_unit: row.unit,
-    tds_ppm: row.tdsPpm, result: row.result, notes: row.notes, by_user_id: row.byUserId,
-  });
-  return id as number;
-}
-
-export async function setSiteNextCheck(trx: Knex.Transaction, firmId: number, siteId: number, nextCheckOn: string): Promise<void> {
+export async function setSiteNextCheck(trx: Db, firmId: number, siteId: number, nextCheckOn: string): Promise<void> {
   await trx('sites').where({ firm_id: firmId, id: siteId }).update({ next_check_on: nextCheckOn });
 }
 
 /** Every site of the firm with its customer, by customer then address (a firm has a few thousand at most). */
-export async function listSites(db: Db, firmId: number) {
+export async function listSites(db: Db, firmId: number): Promise<SiteListRow[]> {
   const rows = (await db('sites as s')
     .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
     .where('s.firm_id', firmId)
@@ -116,4 +60,33 @@ export async function listSites(db: Db, firmId: number) {
     id: number; address: string; postcode: string | null; next_check_on: string | null; customer_id: number; customer_name: string;
   }[];
   return rows.map((r) => ({ id: r.id, address: r.address, postcode: r.postcode, nextCheckOn: r.next_check_on, customer: { id: r.customer_id, name: r.customer_name } }));
+}
+
+/** A customer's sites, in the order they were added. */
+export async function listSitesOfCustomer(db: Db, firmId: number, customerId: number): Promise<CustomerSite[]> {
+  return (await db('sites')
+    .where({ firm_id: firmId, customer_id: customerId })
+    .orderBy('id')
+    .select('id', 'address', 'postcode', 'access_notes as accessNotes', 'system_notes as systemNotes', 'next_check_on as nextCheckOn')) as CustomerSite[];
+}
+
+export async function insertSite(db: Db, firmId: number, customerId: number, input: SiteInput): Promise<number> {
+  const [id] = await db('sites').insert({
+    firm_id: firmId, customer_id: customerId, address: input.address, postcode: input.postcode ?? null, access_notes: input.accessNotes ?? null, system_notes: input.systemNotes ?? null,
+  });
+  return id as number;
+}
+
+export async function siteExists(db: Db, firmId: number, siteId: number): Promise<boolean> {
+  return Boolean(await db('sites').where({ firm_id: firmId, id: siteId }).first('id'));
+}
+
+/** A job's site with its customer's name, as the job shows it. */
+export async function findJobSite(db: Db, firmId: number, siteId: number) {
+  return (await db('sites as s')
+    .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
+    .where({ 's.firm_id': firmId, 's.id': siteId })
+    .first('s.id', 's.address', 's.postcode', 'c.id as customerId', 'c.name as customerName')) as
+    | { id: number; address: string; postcode: string | null; customerId: number; customerName: string }
+    | undefined;
 }

@@ -1,13 +1,14 @@
-import { idParamSchema, siteCheckInputSchema } from '@heatfleet/domain';
+import { idParamSchema, siteCheckInputSchema, siteCheckResponseSchema, siteDetailSchema, siteListResponseSchema } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { getSite, listAllSites, recordSiteCheck } from './site-service.ts';
+import { recordSiteCheck } from './site-check-service.ts';
+import { getSite, listAllSites } from './site-service.ts';
 
 export const siteRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get', path: '/sites', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Every site with its customer and next check date, by customer',
     request: {},
-    responses: { 200: { description: 'Sites' } },
+    responses: { 200: { description: 'Sites', schema: siteListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ sites: await listAllSites(deps, actor) });
     },
@@ -16,7 +17,7 @@ export const siteRoutes: RouteDefinition[] = [
     method: 'get', path: '/sites/:id', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'A site with its customer, its jobs newest first, its inhibitor checks and the next check date',
     request: { params: idParamSchema },
-    responses: { 200: { description: 'Site' } },
+    responses: { 200: { description: 'Site', schema: siteDetailSchema } },
     handle: async ({ params, res, deps, actor }) => {
       res.json(await getSite(deps, actor, params.id));
     },
@@ -25,7 +26,7 @@ export const siteRoutes: RouteDefinition[] = [
     method: 'post', path: '/sites/:id/checks', tag: 'Jobs', access: 'member', tenantData: true,
     summary: 'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on',
     request: { params: idParamSchema, body: siteCheckInputSchema },
-    responses: { 201: { description: 'Recorded' }, 422: { description: 'Not an inhibitor with a target range, or bad input' } },
+    responses: { 201: { description: 'Recorded', schema: siteCheckResponseSchema }, 422: { description: 'Not an inhibitor with a target range, or bad input' } },
     handle: async ({ params, body, res, deps, actor }) => {
       res.status(201).json(await recordSiteCheck(deps, actor, params.id, body));
     },

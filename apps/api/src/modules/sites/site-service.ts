@@ -1,19 +1,17 @@
 import { ForbiddenError } from '@casl/ability';
-import { addMonths, inhibitorCheck, type SiteCheckInput } from '@heatfleet/domain';
+import type { NewSite, SiteDetail, SiteInput, SiteListRow } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
-import { HttpError, notFound } from '../../lib/http-error.ts';
-import { firmToday } from '../firms/firm-today.ts';
-import { findProduct, findSite, insertSiteCheck, listCheckableInhibitors, listSiteChecks, listSiteJobs, listSites, setSiteNextCheck } from './site-dal.ts';
+import { notFound } from '../../lib/http-error.ts';
+import { findCustomer } from '../jobs/customer-dal.ts';
+import { listCheckableInhibitors, listSiteChecks } from './site-check-dal.ts';
+import { findSite, insertSite, listSiteJobs, listSites } from './site-dal.ts';
 
-/** A year between inhibitor checks (PRODUCT.md, computation 7). */
-const CHECK_INTERVAL_MONTHS = 12;
-
-export async function listAllSites(deps: AppDeps, actor: Actor) {
+export async function listAllSites(deps: AppDeps, actor: Actor): Promise<SiteListRow[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Customer');
   return listSites(deps.db, actor.firmId);
 }
 
-export async function getSite(deps: AppDeps, actor: Actor, siteId: number) {
+export async function getSite(deps: AppDeps, actor: Actor, siteId: number): Promise<SiteDetail> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Customer');
   const site = await findSite(deps.db, actor.firmId, siteId);
   if (!site) throw notFound('That site');
@@ -26,34 +24,10 @@ export async function getSite(deps: AppDeps, actor: Actor, siteId: number) {
   return { site: rest, customer, jobs, checks, nextCheckOn: site.nextCheckOn, inhibitors };
 }
 
-/**
- * Records an inhibitor check visit: pass when the reading is within the product's target range,
- * and the site's next check a year on from the visit, in one transaction.
- */
-export async function recordSiteCheck(deps: AppDeps, actor: Actor, siteId: number, input: SiteCheckInput) {
+/** A new site of a customer; the answer is its id and what was sent. */
+export async function createSite(deps: AppDeps, actor: Actor, customerId: number, input: SiteInput): Promise<NewSite> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Customer');
-  const checkId = await deps.db.transaction(async (trx) => {
-    const site = await findSite(trx, actor.firmId, siteId, true);
-    if (!site) throw notFound('That site');
-    const today = await firmToday(trx, actor.firmId, deps.clock.now());
-    if (input.checkedOn > today) {
-      throw new HttpError(422, `A check cannot be dated after today (${input.checkedOn} is later than ${today}).`, undefined, [{ path: 'checkedOn', message: 'After today' }]);
-    }
-    const product = await findProduct(trx, actor.firmId, input.inhibitorProductId);
-    if (!product) throw notFound('That product');
-    if (product.kind !== 'inhibitor' || product.target_min === null || product.target_max === null) {
-      throw new HttpError(422, `${product.name} is not an inhibitor with a target range, so a check cannot be judged against it. Choose an inhibitor, or set its target range on the product.`, undefined, [
-        { path: 'inhibitorProductId', message: 'Not an inhibitor with a target range' },
-      ]);
-    }
-    const range = { min: Number(product.target_min), max: Number(product.target_max) };
-    const id = await insertSiteCheck(trx, {
-      firmId: actor.firmId, siteId, checkedOn: input.checkedOn, productId: product.id, reading: input.inhibitorReading, ...range, unit: product.target_unit,
-      tdsPpm: input.systemTdsPpm ?? null, result: inhibitorCheck(input.inhibitorReading, range) === 'pass' ? 'pass' : 'fail', notes: input.notes ?? null, byUserId: actor.userId,
-    });
-    await setSiteNextCheck(trx, actor.firmId, siteId, addMonths(input.checkedOn, CHECK_INTERVAL_MONTHS));
-    return id;
-  });
-  const detail = await getSite(deps, actor, siteId);
-  return { check: detail.checks.find((c) => c.id === checkId)!, site: detail };
+  if (!(await findCustomer(deps.db, actor.firmId, customerId))) throw notFound('That customer');
+  const id = await insertSite(deps.db, actor.firmId, customerId, input);
+  return { id, ...input };
 }
