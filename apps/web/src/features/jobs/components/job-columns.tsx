@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { Badge } from '@/components/ui/badge';
-import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/format';
 import type { JobListRow } from '@/features/jobs/api/job-queries';

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { inspectionStates, itemConditionLabels, type KitItem } from '@heatfleet/domain';
-import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { paths } from '@/config/paths';
 import { ItemDue } from '@/features/kits/components/inspection-state';
 import { locationText } from '@/features/kits/components/location-text';

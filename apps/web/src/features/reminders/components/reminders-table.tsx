@@ -1,7 +1,8 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { reminderKindLabels, type ReminderDelivery } from '@heatfleet/domain';
-import { createDataTableColumnHelper, DataTable } from '@/components/ui/data-table';
+import { DataTable } from '@/components/ui/data-table';
+import { createDataTableColumnHelper } from '@/components/ui/data-table-columns';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { formatDateTime } from '@/lib/format';

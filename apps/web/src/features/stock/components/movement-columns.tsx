@@ -1,5 +1,5 @@
 import { movementKindLabels, type Movement } from '@heatfleet/domain';
-import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { Button } from '@/components/ui/button';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
 

@@ -1,5 +1,5 @@
 import { roleLabels, type Member } from '@heatfleet/domain';
-import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { formatDate } from '@/lib/format';
 import { MemberRoleCell, MemberStatusAction } from '@/features/team/components/member-role-cell';
 

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { Van } from '@heatfleet/domain';
-import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table';
+import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { paths } from '@/config/paths';
 import { VanDueDate } from '@/features/vans/components/van-due';
 
