@@ -17,12 +17,14 @@ export function NewJobPage() {
   if (products.isPending) return <PageSpinner label="Loading products…" />;
   if (products.isError) return <QueryErrorNotice error={products.error} onRetry={() => void products.refetch()} />;
   const doseProducts = products.data.filter((p) => p.active && (p.kind === 'cleaner' || p.kind === 'inhibitor'));
-  const engineers: EngineerChoice[] = (members.data ?? [])
-    .filter((m) => m.active)
-    .sort((a, b) => Number(b.role === 'engineer') - Number(a.role === 'engineer') || a.name.localeCompare(b.name))
-    .map((m) => ({ memberId: m.id, name: m.name }));
-  // Someone who cannot see the team can still book a job for themself.
-  if (!engineers.some((e) => e.memberId === me.memberId)) engineers.unshift({ memberId: me.memberId, name: `${me.user.name} (me)` });
+  // An engineer books for themself only; the office names one of the firm's active engineers (the API holds the same rule).
+  const engineers: EngineerChoice[] =
+    me.role === 'engineer'
+      ? [{ memberId: me.memberId, name: `${me.user.name} (me)` }]
+      : (members.data ?? [])
+          .filter((m) => m.active && m.role === 'engineer')
+          .sort((a, b) => a.name.localeCompare(b.name))
+          .map((m) => ({ memberId: m.id, name: m.name }));
   return (
     <>
       <PageHeader title="Book a job">The survey, with the system volume and doses worked out as you type.</PageHeader>

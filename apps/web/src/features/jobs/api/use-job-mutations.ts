@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateJobInput, CustomerInput, SiteInput } from '@heatfleet/domain';
+import { customerResponseSchema, jobDetailSchema, newSiteResponseSchema, type CreateJobInput, type CustomerInput, type SiteInput } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-keys';
-import { customerEnvelopeSchema, customerQueries, jobDetailSchema, jobQueries, siteEnvelopeSchema } from '@/features/jobs/api/job-queries';
+import { customerQueries, jobQueries } from '@/features/jobs/api/job-queries';
 
 export function useCompleteJob(id: number) {
   const queryClient = useQueryClient();
@@ -33,7 +33,7 @@ export function useCreateJob() {
 export function useCreateCustomer() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: CustomerInput) => (await apiClient.post('/api/customers', input, customerEnvelopeSchema)).customer,
+    mutationFn: async (input: CustomerInput) => (await apiClient.post('/api/customers', input, customerResponseSchema)).customer,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
   });
 }
@@ -41,7 +41,7 @@ export function useCreateCustomer() {
 export function useCreateSite(customerId: number | null) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: SiteInput) => (await apiClient.post(`/api/customers/${customerId}/sites`, input, siteEnvelopeSchema)).site,
+    mutationFn: async (input: SiteInput) => (await apiClient.post(`/api/customers/${customerId}/sites`, input, newSiteResponseSchema)).site,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
   });
 }

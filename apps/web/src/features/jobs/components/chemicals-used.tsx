@@ -1,5 +1,5 @@
+import type { JobDetail } from '@heatfleet/domain';
 import { formatCalendarDate } from '@/lib/format';
-import type { JobDetail } from '@/features/jobs/api/job-queries';
 
 export function ChemicalsUsed({ used }: { used: JobDetail['chemicalsUsed'] }) {
   if (used.length === 0) return <p className="text-ink-muted">No chemicals were taken off the van for this job.</p>;

@@ -1,8 +1,8 @@
 import { useState } from 'react';
+import type { JobDetail } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useIdempotencyKey } from '@/lib/idempotency';
-import type { JobDetail } from '@/features/jobs/api/job-queries';
 import { useCompleteJob } from '@/features/jobs/api/use-job-mutations';
 
 /** Completing takes the chemicals off the van, so it asks once more before sending. */

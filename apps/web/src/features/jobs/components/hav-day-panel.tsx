@@ -1,6 +1,5 @@
-import { HAV_ACTION_POINTS, HAV_LIMIT_POINTS, type HavLevel } from '@heatfleet/domain';
+import { HAV_ACTION_POINTS, HAV_LIMIT_POINTS, type HavLevel, type JobSheet } from '@heatfleet/domain';
 import { formatCalendarDate } from '@/lib/format';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 
 // Past the action value the colour is strong enough to read across a loft; nearing it is amber.
 const looks: Record<HavLevel, { box: string; word: string }> = {

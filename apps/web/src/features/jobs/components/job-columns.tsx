@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
+import type { JobListRow } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/format';
-import type { JobListRow } from '@/features/jobs/api/job-queries';
 
 const helper = createDataTableColumnHelper<JobListRow>();
 

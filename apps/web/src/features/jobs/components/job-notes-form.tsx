@@ -1,8 +1,7 @@
 import { useState, type FormEvent } from 'react';
-import { jobNotesInputSchema } from '@heatfleet/domain';
+import { jobNotesInputSchema, type JobSheet } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import { TextareaField } from '@/components/ui/textarea-field';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useSaveNotes } from '@/features/jobs/api/use-job-sheet-mutations';
 import { SaveFeedback } from '@/features/jobs/components/save-feedback';
 

@@ -1,9 +1,8 @@
 import { useEffect, useRef, useState, type FormEvent } from 'react';
-import { jobPhotoTagLabels, jobPhotoTags } from '@heatfleet/domain';
+import { jobPhotoTagLabels, jobPhotoTags, type JobSheet } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useUploadJobPhoto } from '@/features/jobs/api/use-job-sheet-mutations';
 import { SaveFeedback } from '@/features/jobs/components/save-feedback';
 import { formatClock } from '@/features/jobs/components/sheet-format';
@@ -12,7 +11,8 @@ type PhotoTag = (typeof jobPhotoTags)[number];
 const MAX_BYTES = 8 * 1024 * 1024;
 const acceptedTypes = ['image/jpeg', 'image/png', 'image/webp'];
 
-function tagLabel(tag: string): string {
+function tagLabel(tag: string | null): string {
+  if (tag === null) return 'Photo';
   return tag in jobPhotoTagLabels ? jobPhotoTagLabels[tag as PhotoTag] : tag;
 }
 

@@ -1,5 +1,5 @@
+import type { JobDetail } from '@heatfleet/domain';
 import { formatCalendarDate } from '@/lib/format';
-import type { JobDetail } from '@/features/jobs/api/job-queries';
 import { SheetSection } from '@/features/jobs/components/sheet-section';
 import { DoseSummary, VolumeBreakdown, formatLitres, useGallonsToggle } from '@/features/jobs/components/volume-breakdown';
 

@@ -1,4 +1,4 @@
-import type { JobDetail } from '@/features/jobs/api/job-queries';
+import type { JobDetail } from '@heatfleet/domain';
 import { HavDayPanel, havSummary } from '@/features/jobs/components/hav-day-panel';
 import { JobNotesForm } from '@/features/jobs/components/job-notes-form';
 import { JobPhotos } from '@/features/jobs/components/job-photos';

@@ -1,9 +1,8 @@
 import { useEffect, useState } from 'react';
-import { stepCautions } from '@heatfleet/domain';
+import { circulationClock, stepCautions, type JobSheet } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useTickStep } from '@/features/jobs/api/use-job-sheet-mutations';
 import { StepCautions } from '@/features/jobs/components/job-cautions';
 import { formatClock } from '@/features/jobs/components/sheet-format';
@@ -38,8 +37,10 @@ function Circulation({ sheet }: { sheet: JobSheet }) {
       </p>
     );
   }
-  const elapsed = Math.max(0, Math.floor(((endedAt ? Date.parse(endedAt) : now) - Date.parse(startedAt)) / 60_000));
-  const met = minimumMinutes === null ? null : elapsed >= minimumMinutes;
+  // The API's rule, run live: the sheet's own figure is from when it was read.
+  const clock = circulationClock(minimumMinutes, new Date(startedAt), endedAt ? new Date(endedAt) : null, new Date(now));
+  const elapsed = clock.elapsedMinutes ?? 0;
+  const met = clock.met;
   return (
     <div role="status" aria-label="Circulation" className={`rounded-md border-2 px-3 py-2 ${met === false ? 'border-ember-500 bg-ember-100' : met ? 'border-ok-700 bg-ok-50' : 'border-line-strong'}`}>
       <p className="flex flex-wrap items-center gap-2 text-lg font-bold tabular-nums">

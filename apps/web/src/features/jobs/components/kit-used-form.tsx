@@ -1,6 +1,6 @@
 import { useId, useState, type FormEvent } from 'react';
+import type { JobSheet } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useSaveKitUsed } from '@/features/jobs/api/use-job-sheet-mutations';
 import { SaveFeedback } from '@/features/jobs/components/save-feedback';
 

@@ -1,11 +1,10 @@
 import { useState, type FormEvent } from 'react';
-import { waterTestFigures, waterTestsInputSchema, type WaterTestFigures } from '@heatfleet/domain';
+import { waterTestFigures, waterTestsInputSchema, type WaterTestFigures, type JobSheet } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { firstErrorPerField, type FieldErrors } from '@/lib/form';
-import type { JobSheet } from '@/features/jobs/api/job-queries';
 import { useSaveWaterTests } from '@/features/jobs/api/use-job-sheet-mutations';
 import { JudgementNote } from '@/features/jobs/components/job-cautions';
 import { SaveFeedback } from '@/features/jobs/components/save-feedback';

@@ -1,9 +1,8 @@
 import { Link } from 'react-router-dom';
-import { daysBetween } from '@heatfleet/domain';
+import { daysBetween, type Customer, type SiteListRow } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/format';
-import type { CustomerRow, SiteListRow } from '@/features/sites/api/site-queries';
 
 function NextCheck({ on, today }: { on: string | null; today: string }) {
   if (!on) return <span className="text-sm text-ink-muted">No check date yet</span>;
@@ -14,7 +13,7 @@ function NextCheck({ on, today }: { on: string | null; today: string }) {
 }
 
 /** Customers with their sites; each site links to its page of jobs and checks. */
-export function CustomerSitesList({ customers, sites, today, filter }: { customers: CustomerRow[]; sites: SiteListRow[]; today: string; filter: string }) {
+export function CustomerSitesList({ customers, sites, today, filter }: { customers: Customer[]; sites: SiteListRow[]; today: string; filter: string }) {
   const q = filter.trim().toLowerCase();
   const byCustomer = new Map<number, SiteListRow[]>();
   for (const s of sites) byCustomer.set(s.customer.id, [...(byCustomer.get(s.customer.id) ?? []), s]);

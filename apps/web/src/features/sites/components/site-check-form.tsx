@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { calendarDateIn, inhibitorCheck, siteCheckInputSchema } from '@heatfleet/domain';
+import { calendarDateIn, inhibitorCheck, siteCheckInputSchema, type CheckableInhibitor } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
@@ -7,7 +7,6 @@ import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { formatCalendarDate } from '@/lib/format';
 import { textOrNull, useSchemaForm } from '@/lib/form';
-import type { CheckableInhibitor } from '@/features/sites/api/site-queries';
 import { useRecordSiteCheck } from '@/features/sites/api/use-record-site-check';
 
 const fields = ['checkedOn', 'inhibitorProductId', 'inhibitorReading', 'systemTdsPpm', 'notes'] as const;

@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
+import type { SiteDetail } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { paths } from '@/config/paths';
 import { formatCalendarDate, formatDate } from '@/lib/format';
-import type { SiteDetail } from '@/features/sites/api/site-queries';
 
 export function SiteJobs({ jobs, timeZone }: { jobs: SiteDetail['jobs']; timeZone: string }) {
   if (jobs.length === 0) return <p className="text-ink-muted">No jobs at this site yet.</p>;
