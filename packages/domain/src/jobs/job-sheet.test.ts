@@ -2,13 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { cautionTexts, havDay, jobSteps, readingFigures, stepCautions, waterTestFigures } from './job-sheet.ts';
 
 describe('radiator readings on the sheet', () => {
-  // EN 442 rating point 75/65/20 is dT 50 K (PRODUCT.md computation 5): a rated 1200 W radiator gives its rating.
+  // EN 442 rates radiators at 75/65/20 °C, dT 50 K: a rated 1200 W radiator gives its rating there.
   it('uses flow and return when taken: 75/65 in a 20 °C room is the rating point', () => {
     const f = readingFigures({ topC: 74, bottomC: 66, flowC: 75, returnC: 65, roomC: 20 }, 1200, 10);
     expect(f).toMatchObject({ deltaTK: 50, deltaTFrom: 'flow_return', outputWatts: 1200, coldBottom: false, differenceK: 8 });
   });
 
-  // EN 442 factor at dT 30 K is 0.5148 (PRODUCT.md): surfaces 55 and 45 in a 20 °C room give dT 30.
+  // EN 442 factor at dT 30 K is (30/50)^1.3 = 0.5148: surfaces 55 and 45 in a 20 °C room give dT 30.
   it('falls back to the surface readings and the 20 °C rating room', () => {
     const f = readingFigures({ topC: 55, bottomC: 45 }, 1000, 10);
     expect(f.deltaTFrom).toBe('surfaces');
@@ -30,7 +30,7 @@ describe('radiator readings on the sheet', () => {
 });
 
 describe("an engineer's vibration day (HSE points system: 2 x a^2 x hours)", () => {
-  // HSE examples quoted in PRODUCT.md: 10 m/s^2 for 30 minutes is 100 points; 5 m/s^2 for 3 hours is 150.
+  // HSE points system (2 x a^2 x hours): 10 m/s^2 for 30 minutes is 100 points; 5 m/s^2 for 3 hours is 150.
   it('adds the points of each agitation', () => {
     expect(havDay([{ magnitudeMs2: 10, minutes: 30 }]).points).toBe(100);
     expect(havDay([{ magnitudeMs2: 5, minutes: 90 }, { magnitudeMs2: 5, minutes: 90 }]).points).toBe(150);

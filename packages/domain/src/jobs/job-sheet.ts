@@ -32,7 +32,7 @@ export const stepCautions: Partial<Record<JobStep, readonly CautionKey[]>> = {
 
 export const cautionKeys = ['hot_water', 'electrical', 'gas_oil', 'chemicals', 'drain', 'pressure', 'judgement'] as const;
 export type CautionKey = (typeof cautionKeys)[number];
-/** The cautions of PRODUCT.md, in our words; the web sheet and the PDF report both print these. */
+/** The visit's safety cautions, in our own words; the web sheet and the PDF report both print these. */
 export const cautionTexts: Record<CautionKey, string> = {
   hot_water: 'Hot water and surfaces scald: let the system cool before draining.',
   electrical: 'Isolate the boiler electrically and prove it dead before working on it.',
