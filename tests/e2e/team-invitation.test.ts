@@ -21,6 +21,17 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
     await page.getByLabel('Your name').fill('Wren Ashdown');
     await page.getByLabel('E-mail', { exact: true }).fill(ownerEmail);
     await page.getByLabel('Password', { exact: true }).fill(ownerPassword);
+    await page.getByRole('button', { name: 'E-mail me the link' }).click();
+    await expect(page.getByRole('status').filter({ hasText: 'Check your e-mail' })).toBeVisible();
+
+    // The link arrives by e-mail; the test stack's mail catcher shows it in the Outbox.
+    await page.getByRole('link', { name: /Open the Outbox/ }).click();
+    const mail = page.getByRole('list', { name: 'Caught e-mails' }).getByRole('link').filter({ hasText: ownerEmail });
+    await expect(mail.first()).toBeVisible({ timeout: 30_000 });
+    await mail.first().click();
+    const link = page.getByRole('link', { name: /\/sign-up\/confirm\/[A-Za-z0-9_-]+/ }).first();
+    await expect(link).toBeVisible();
+    await page.goto(new URL((await link.getAttribute('href')) ?? '', baseURL).pathname);
     await page.getByRole('button', { name: 'Create the firm' }).click();
 
     await expect(page.getByRole('heading', { level: 1, name: firmName })).toBeVisible();

@@ -14,6 +14,10 @@ export const router = createBrowserRouter([
       { path: paths.signIn.path, lazy: () => import('@/app/routes/auth/sign-in-page').then((m) => ({ Component: m.SignInPage })) },
       { path: paths.signUp.path, lazy: () => import('@/app/routes/auth/sign-up-page').then((m) => ({ Component: m.SignUpPage })) },
       {
+        path: paths.signUpConfirm.path,
+        lazy: () => import('@/app/routes/auth/confirm-sign-up-page').then((m) => ({ Component: m.ConfirmSignUpPage })),
+      },
+      {
         path: paths.resetPassword.path,
         lazy: () => import('@/app/routes/auth/reset-password-page').then((m) => ({ Component: m.ResetPasswordPage })),
       },

@@ -1,4 +1,4 @@
-/** Every client URL in one place; e-mails from the API link to `invitation` and `resetPasswordConfirm`. */
+/** Every client URL in one place; e-mails from the API link to `invitation`, `signUpConfirm` and `resetPasswordConfirm`. */
 export const paths = {
   home: { path: '/', getHref: () => '/' },
   signIn: {
@@ -6,6 +6,8 @@ export const paths = {
     getHref: (next?: string) => (next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
   },
   signUp: { path: '/sign-up', getHref: () => '/sign-up' },
+  /** The link in the sign-up e-mail (the API builds the same URL). */
+  signUpConfirm: { path: '/sign-up/confirm/:token', getHref: (token: string) => `/sign-up/confirm/${encodeURIComponent(token)}` },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   resetPasswordConfirm: {
     path: '/reset-password/:token',

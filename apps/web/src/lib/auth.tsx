@@ -1,17 +1,14 @@
 import type { ReactNode } from 'react';
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import { Navigate, useLocation } from 'react-router-dom';
-import { z } from 'zod';
-import { meResponseSchema, type Me } from '@heatfleet/domain';
+import { meEnvelopeSchema, type Me, type SessionEnvelope } from '@heatfleet/domain';
 import { apiClient, isApiError, setCsrfToken } from '@/lib/api-client';
 import { paths, safeNextPath } from '@/config/paths';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 
-export const meEnvelopeSchema = z.object({ me: meResponseSchema });
-/** What sign-in, sign-up, accepting an invitation and changing a password answer: a new session and its token. */
-export const sessionEnvelopeSchema = z.object({ me: meResponseSchema, csrfToken: z.string() });
-export type SessionEnvelope = z.infer<typeof sessionEnvelopeSchema>;
+// The answers' shapes are the domain's: `{ me }`, and `{ me, csrfToken }` for whatever starts a session.
+export { meEnvelopeSchema, sessionEnvelopeSchema, type SessionEnvelope } from '@heatfleet/domain';
 
 async function fetchMe(): Promise<Me | null> {
   try {

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -7,9 +8,27 @@ import { useSignUp } from '@/features/auth/api/use-sign-up';
 
 const fields = ['firmName', 'name', 'email', 'password'] as const;
 
-export function SignUpForm() {
+export function SignUpForm({ outboxLink }: { outboxLink?: ReactNode }) {
   const signUp = useSignUp();
   const form = useSchemaForm(signUpInputSchema, fields);
+
+  if (signUp.isSuccess) {
+    return (
+      <div className="space-y-4" role="status">
+        <Alert tone="success" title="Check your e-mail">
+          {signUp.data.message}
+        </Alert>
+        <p className="text-ink-muted">
+          Sent to <strong className="[overflow-wrap:anywhere]">{signUp.variables.email}</strong>. Nothing arrived after a few minutes? Look in
+          spam, or try again.
+        </p>
+        {outboxLink}
+        <Button variant="secondary" className="w-full" onClick={() => signUp.reset()}>
+          Use another address
+        </Button>
+      </div>
+    );
+  }
 
   return (
     <form
@@ -32,7 +51,7 @@ export function SignUpForm() {
         error={form.fieldErrors.password}
       />
       <Button type="submit" busy={signUp.isPending} className="w-full">
-        Create the firm
+        E-mail me the link
       </Button>
     </form>
   );

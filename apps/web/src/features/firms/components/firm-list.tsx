@@ -2,6 +2,7 @@ import { roleLabels, type Me } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useSetActiveFirm } from '@/features/firms/api/use-set-active-firm';
+import { CreateFirmForm } from '@/features/firms/components/create-firm-form';
 
 export function FirmList({ me }: { me: Me }) {
   const setActiveFirm = useSetActiveFirm();
@@ -32,6 +33,7 @@ export function FirmList({ me }: { me: Me }) {
           );
         })}
       </ul>
+      <CreateFirmForm />
     </div>
   );
 }
