@@ -1,5 +1,6 @@
 import { Queue, Worker } from 'bullmq';
 import { Redis } from 'ioredis';
+import { DEFAULT_TIME_ZONE } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { Env } from '../config/env.ts';
@@ -9,7 +10,7 @@ import { runDueScans } from '../modules/reminders/reminder-scan.ts';
 
 export const REMINDER_QUEUE = 'reminders';
 // On the hour, every hour: each firm's own scan hour (in its own zone) is checked by the sweep.
-export const REMINDER_SWEEP_CRON = { pattern: '0 * * * *', tz: 'Europe/London' };
+export const REMINDER_SWEEP_CRON = { pattern: '0 * * * *', tz: DEFAULT_TIME_ZONE };
 
 /**
  * The reminder sweep: a BullMQ job scheduler runs it hourly, and it is queued once at start, so a
