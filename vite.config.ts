@@ -32,6 +32,8 @@ export default defineConfig({
     projects: [
       { extends: true, test: { name: 'domain', include: ['packages/domain/**/*.test.ts'], environment: 'node' } },
       { extends: true, test: { name: 'devstack', include: ['packages/devstack/**/*.test.ts'], environment: 'node' } },
+      // The client's own logic (forms, drafts, formatting): plain functions, so no browser is needed.
+      { extends: true, test: { name: 'web', include: ['apps/web/**/*.test.ts'], environment: 'node' } },
       {
         extends: true,
         test: {
