@@ -4,7 +4,7 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
-import { runIdempotent } from '../../lib/idempotency.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { firstDepot, findLocation } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { findBatch, listProductNames } from './product-dal.ts';
@@ -87,7 +87,7 @@ export async function applyRestockRun(trx: Knex.Transaction, deps: AppDeps, acto
 }
 
 /** A reviewed restock run, applied at most once per Idempotency-Key and retried whole on deadlock. */
-export async function applyRestockRunOnce(deps: AppDeps, actor: Actor, idempotencyKey: string | undefined, input: RestockApplyInput, depotId?: number): Promise<{ status: number; applied: RestockApplied }> {
+export async function applyRestockRunOnce(deps: AppDeps, actor: Actor, idempotencyKey: IdempotencyKey | undefined, input: RestockApplyInput, depotId?: number): Promise<{ status: number; applied: RestockApplied }> {
   const out = await withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, 'restock-run', async (trx) => ({ status: 201, body: { groupId: await applyRestockRun(trx, deps, actor, input, depotId) } })),
   );

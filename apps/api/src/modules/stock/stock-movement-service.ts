@@ -2,7 +2,7 @@ import type { StockMoved } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
-import { runIdempotent } from '../../lib/idempotency.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { listMovementIdsOfGroup } from './stock-ledger-dal.ts';
 import { listMovementsByIds } from './stock-movement-dal.ts';
 
@@ -14,7 +14,7 @@ import { listMovementsByIds } from './stock-movement-dal.ts';
 export async function recordMovement(
   deps: AppDeps,
   actor: Actor,
-  idempotencyKey: string | undefined,
+  idempotencyKey: IdempotencyKey | undefined,
   request: string,
   work: (trx: Knex.Transaction) => Promise<string>,
 ): Promise<{ status: number; moved: StockMoved }> {
