@@ -1,12 +1,42 @@
+import { readdirSync } from 'node:fs';
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import globals from 'globals';
+import importX from 'eslint-plugin-import-x';
+import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
+import reactHooks from 'eslint-plugin-react-hooks';
+import checkFile from 'eslint-plugin-check-file';
 
 // Layer boundaries: the domain imports no framework; the apps never import each other.
 const frameworks = ['express', 'express-*', 'knex', 'mysql2', 'react', 'react-*', 'react-dom', '@tanstack/*', 'bullmq', 'ioredis', 'nodemailer', 'argon2', 'node:*', 'vite'];
 const restrict = (patterns: { group: string[]; message: string }[]) => ({
   'no-restricted-imports': ['error', { patterns }] as ['error', { patterns: typeof patterns }],
 });
+
+// bulletproof-react's zones: a feature never imports another; shared components/ and lib/ import no feature.
+const webFeatures = readdirSync(new URL('./apps/web/src/features', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map((d) => d.name);
+const featureZones = [
+  ...webFeatures.map((feature) => ({
+    target: `./apps/web/src/features/${feature}`,
+    from: './apps/web/src/features',
+    except: [`./${feature}`],
+    message: 'Features never import each other: compose them in a page under app/routes, or share through components/ or lib/.',
+  })),
+  {
+    target: ['./apps/web/src/components', './apps/web/src/lib'],
+    from: ['./apps/web/src/features', './apps/web/src/app'],
+    message: 'components/ and lib/ are shared by every feature, so they import none.',
+  },
+];
+
+// SQL lives only in *-dal.ts: a table call (db('jobs'), trx('jobs'), deps.db('jobs')) or a raw query anywhere else is refused.
+const sqlOutsideDal = [
+  { selector: "CallExpression[callee.type='Identifier'][callee.name=/^(db|trx|knex|tx)$/]", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
+  { selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='db']", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
+  { selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='raw']", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
+];
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**', 'bench/results/**'] },
@@ -18,6 +48,29 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/no-non-null-assertion': 'off',
     },
+  },
+  {
+    files: ['**/*.{ts,tsx}'],
+    plugins: { 'import-x': importX, 'check-file': checkFile },
+    settings: {
+      'import-x/resolver-next': [
+        createTypeScriptImportResolver({
+          project: ['apps/web/tsconfig.json', 'apps/api/tsconfig.json', 'packages/domain/tsconfig.json', 'tsconfig.tools.json'],
+          noWarnOnMultipleProjects: true,
+        }),
+      ],
+    },
+    rules: {
+      'import-x/no-cycle': ['error', { ignoreExternal: true }],
+      // Migrations keep Knex's timestamp_ prefix; everything else is kebab-case.
+      'check-file/filename-naming-convention': ['error', { '{apps,packages,tests}/**/*.{ts,tsx}': 'KEBAB_CASE' }, { ignoreMiddleExtensions: true }],
+      'check-file/folder-naming-convention': ['error', { '{apps,packages,tests}/**/': 'KEBAB_CASE' }],
+    },
+  },
+  {
+    files: ['apps/api/src/**/*.ts'],
+    ignores: ['**/*-dal.ts', 'apps/api/src/db/**'],
+    rules: { 'no-restricted-syntax': ['error', ...sqlOutsideDal] },
   },
   {
     files: ['packages/domain/**/*.ts'],
@@ -32,6 +85,15 @@ export default tseslint.config(
       { group: ['@heatfleet/web', '@heatfleet/web/*', '**/apps/web/**', '@/*'], message: 'The API never imports the web app.' },
       { group: ['../../../*'], message: 'Import from the module folder, not three levels up.' },
     ]),
+  },
+  {
+    files: ['apps/web/src/**/*.{ts,tsx}'],
+    plugins: { 'react-hooks': reactHooks },
+    rules: {
+      'import-x/no-restricted-paths': ['error', { zones: featureZones }],
+      'react-hooks/rules-of-hooks': 'error',
+      'react-hooks/exhaustive-deps': 'error',
+    },
   },
   {
     files: ['apps/web/**/*.{ts,tsx}'],

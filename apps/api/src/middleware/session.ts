@@ -82,10 +82,3 @@ export function createSessionMiddleware(env: Env, knex: Knex, logger: Logger) {
   };
   return session(options);
 }
-
-/** Ends every session of a person, except the one given (the one making the change). */
-export async function endSessionsOfUser(db: Knex, userId: number, exceptSid?: string): Promise<number> {
-  const query = db('sessions').whereRaw("JSON_VALUE(sess, '$.userId') = ?", [userId]);
-  if (exceptSid) query.whereNot('sid', exceptSid);
-  return query.del();
-}

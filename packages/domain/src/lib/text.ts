@@ -5,8 +5,10 @@ import { z } from 'zod';
  * line and paragraph separators, and the bidirectional overrides that can make text read backwards
  * (Unicode Technical Report #36, "Unicode Security Considerations", section 2.4).
  */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
 const NOT_IN_A_NAME = /[\u0000-\u001F\u007F-\u009F\u2028\u2029\u202A-\u202E\u2066-\u2069]/u;
 /** Controls other than line breaks and tabs: refused in multi-line text such as addresses and notes. */
+// eslint-disable-next-line no-control-regex -- as above
 const NOT_IN_TEXT = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F\u202A-\u202E\u2066-\u2069]/u;
 /** A web address in a name would become a link in an e-mail that quotes it. */
 const LINK = /(?:[a-z][a-z0-9+.-]*:\/\/|www\.)/i;

@@ -11,7 +11,7 @@ import type {
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound, ruleBroken, signedOut } from '../../lib/http-error.ts';
 import { createToken, hashToken } from '../../lib/tokens.ts';
-import { endSessionsOfUser } from '../../middleware/session.ts';
+import { endSessionsOfUser } from './session-dal.ts';
 import { findFirm, insertFirm, setUpNewFirm } from '../firms/firm-dal.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import { passwordResetEmail, signUpConfirmEmail, signUpExistingAccountEmail } from '../mail/mail-templates.ts';

@@ -2,7 +2,7 @@ import { ForbiddenError, subject } from '@casl/ability';
 import { roleLabels, type Member, type UpdateMemberInput } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { notFound, ruleBroken } from '../../lib/http-error.ts';
-import { endSessionsOfUser } from '../../middleware/session.ts';
+import { endSessionsOfUser } from '../auth/session-dal.ts';
 import { findMember, listMembers as listMemberRows, lockActiveOwnerIds, updateMembership } from './member-dal.ts';
 
 export async function listMembers(deps: AppDeps, actor: Actor): Promise<Member[]> {
