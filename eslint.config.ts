@@ -53,6 +53,9 @@ export default tseslint.config(
     files: ['**/*.{ts,tsx}'],
     plugins: { 'import-x': importX, 'check-file': checkFile },
     settings: {
+      // Without these, import-x reads no TypeScript file it follows, and no-cycle sees no cycle.
+      'import-x/extensions': ['.ts', '.tsx'],
+      'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
       'import-x/resolver-next': [
         createTypeScriptImportResolver({
           project: ['apps/web/tsconfig.json', 'apps/api/tsconfig.json', 'packages/domain/tsconfig.json', 'tsconfig.tools.json'],

@@ -14,7 +14,7 @@ export function SignUpForm({ outboxLink }: { outboxLink?: ReactNode }) {
 
   if (signUp.isSuccess) {
     return (
-      <div className="space-y-4" role="status">
+      <div className="space-y-4">
         <Alert tone="success" title="Check your e-mail">
           {signUp.data.message}
         </Alert>
