@@ -10,7 +10,7 @@ const managers: Role[] = ['owner', 'admin'];
 const fleetManagers: Role[] = ['owner', 'admin', 'stores'];
 
 /**
- * Who may call each member route, written out by hand from PRODUCT.md's role table (not derived
+ * Who may call each member route, written out by hand from the role table in DEVELOPERS.md, Product rules (not derived
  * from the rules under test). A route missing here fails the test.
  */
 const allowed: Record<string, Role[]> = {

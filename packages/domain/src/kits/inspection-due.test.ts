@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { inspectionDue, type InspectionRule } from './inspection-due.ts';
 
-// The rule of PRODUCT.md, computation 4: next due = last inspection + interval, or after N uses,
+// The rule of DEVELOPERS.md, Product rules (inspection due): next due = last inspection + interval, or after N uses,
 // whichever comes first; a due-soon window; overdue. The intervals below are example rules
 // (common practice (no source)), not figures from a standard.
 const everyNinetyDays: InspectionRule = { intervalDays: 90, intervalUses: null, dueSoonDays: 14 };

@@ -21,7 +21,7 @@ describe('units', () => {
   });
 });
 
-// First expiry, first out, as PRODUCT.md computation 2 and 3 ask; the cases are worked by hand.
+// First expiry, first out, as DEVELOPERS.md, Product rules, sets out; the cases are worked by hand.
 describe('allocateFefo', () => {
   const stock = [batch(1, '2027-06-30', 4), batch(2, '2027-01-31', 2), batch(3, '2026-11-30', 9), batch(4, '2027-01-31', 3, 'A0')];
   it.each([

@@ -12,7 +12,7 @@ export interface StockCandidate extends NewReminder {
   vanEngineerMemberId: number | null;
 }
 
-// The reorder list's usage window (PRODUCT.md: days of cover from the last 90 days' usage).
+// The reorder list's usage window (DEVELOPERS.md, Product rules: days of cover from the last 90 days' usage).
 const USAGE_WINDOW_MS = 90 * 86_400_000;
 
 const packs = (n: number) => `${n} pack${n === 1 ? '' : 's'}`;
