@@ -8,7 +8,22 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import checkFile from 'eslint-plugin-check-file';
 
 // Layer boundaries: the domain imports no framework; the apps never import each other.
-const frameworks = ['express', 'express-*', 'knex', 'mysql2', 'react', 'react-*', 'react-dom', '@tanstack/*', 'bullmq', 'ioredis', 'nodemailer', 'argon2', 'node:*', 'vite'];
+const frameworks = [
+  'express',
+  'express-*',
+  'knex',
+  'mysql2',
+  'react',
+  'react-*',
+  'react-dom',
+  '@tanstack/*',
+  'bullmq',
+  'ioredis',
+  'nodemailer',
+  'argon2',
+  'node:*',
+  'vite',
+];
 const restrict = (patterns: { group: string[]; message: string }[]) => ({
   'no-restricted-imports': ['error', { patterns }] as ['error', { patterns: typeof patterns }],
 });
@@ -22,7 +37,8 @@ const featureZones = [
     target: `./apps/web/src/features/${feature}`,
     from: './apps/web/src/features',
     except: [`./${feature}`],
-    message: 'Features never import each other: compose them in a page under app/routes, or share through components/ or lib/.',
+    message:
+      'Features never import each other: compose them in a page under app/routes, or share through components/ or lib/.',
   })),
   {
     target: ['./apps/web/src/components', './apps/web/src/lib'],
@@ -33,13 +49,24 @@ const featureZones = [
 
 // SQL lives only in *-dal.ts: a table call (db('jobs'), trx('jobs'), deps.db('jobs')) or a raw query anywhere else is refused.
 const sqlOutsideDal = [
-  { selector: "CallExpression[callee.type='Identifier'][callee.name=/^(db|trx|knex|tx)$/]", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
-  { selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='db']", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
-  { selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='raw']", message: 'SQL lives in *-dal.ts only: call a data-access function.' },
+  {
+    selector: "CallExpression[callee.type='Identifier'][callee.name=/^(db|trx|knex|tx)$/]",
+    message: 'SQL lives in *-dal.ts only: call a data-access function.',
+  },
+  {
+    selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='db']",
+    message: 'SQL lives in *-dal.ts only: call a data-access function.',
+  },
+  {
+    selector: "CallExpression[callee.type='MemberExpression'][callee.property.name='raw']",
+    message: 'SQL lives in *-dal.ts only: call a data-access function.',
+  },
 ];
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**', 'bench/results/**'] },
+  {
+    ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**', 'bench/results/**'],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -58,7 +85,12 @@ export default tseslint.config(
       'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
       'import-x/resolver-next': [
         createTypeScriptImportResolver({
-          project: ['apps/web/tsconfig.json', 'apps/api/tsconfig.json', 'packages/domain/tsconfig.json', 'tsconfig.tools.json'],
+          project: [
+            'apps/web/tsconfig.json',
+            'apps/api/tsconfig.json',
+            'packages/domain/tsconfig.json',
+            'tsconfig.tools.json',
+          ],
           noWarnOnMultipleProjects: true,
         }),
       ],
@@ -66,7 +98,11 @@ export default tseslint.config(
     rules: {
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
       // Migrations keep Knex's timestamp_ prefix; everything else is kebab-case.
-      'check-file/filename-naming-convention': ['error', { '{apps,packages,tests}/**/*.{ts,tsx}': 'KEBAB_CASE' }, { ignoreMiddleExtensions: true }],
+      'check-file/filename-naming-convention': [
+        'error',
+        { '{apps,packages,tests}/**/*.{ts,tsx}': 'KEBAB_CASE' },
+        { ignoreMiddleExtensions: true },
+      ],
       'check-file/folder-naming-convention': ['error', { '{apps,packages,tests}/**/': 'KEBAB_CASE' }],
     },
   },
@@ -78,14 +114,24 @@ export default tseslint.config(
   {
     files: ['packages/domain/**/*.ts'],
     rules: restrict([
-      { group: frameworks, message: 'packages/domain holds zod schemas, pure calculations and CASL rules only: no framework or Node imports.' },
-      { group: ['@heatfleet/api', '@heatfleet/api/*', '@heatfleet/web', '@heatfleet/web/*', '**/apps/**'], message: 'The domain never imports an app.' },
+      {
+        group: frameworks,
+        message:
+          'packages/domain holds zod schemas, pure calculations and CASL rules only: no framework or Node imports.',
+      },
+      {
+        group: ['@heatfleet/api', '@heatfleet/api/*', '@heatfleet/web', '@heatfleet/web/*', '**/apps/**'],
+        message: 'The domain never imports an app.',
+      },
     ]),
   },
   {
     files: ['apps/api/**/*.ts'],
     rules: restrict([
-      { group: ['@heatfleet/web', '@heatfleet/web/*', '**/apps/web/**', '@/*'], message: 'The API never imports the web app.' },
+      {
+        group: ['@heatfleet/web', '@heatfleet/web/*', '**/apps/web/**', '@/*'],
+        message: 'The API never imports the web app.',
+      },
       { group: ['../../../*'], message: 'Import from the module folder, not three levels up.' },
     ]),
   },
@@ -102,7 +148,19 @@ export default tseslint.config(
     files: ['apps/web/**/*.{ts,tsx}'],
     languageOptions: { globals: { ...globals.browser } },
     rules: restrict([
-      { group: ['@heatfleet/api', '@heatfleet/api/*', '**/apps/api/**', 'knex', 'express', 'mysql2', 'argon2', 'node:*'], message: 'The web app never imports the API or server-only packages; share through packages/domain.' },
+      {
+        group: [
+          '@heatfleet/api',
+          '@heatfleet/api/*',
+          '**/apps/api/**',
+          'knex',
+          'express',
+          'mysql2',
+          'argon2',
+          'node:*',
+        ],
+        message: 'The web app never imports the API or server-only packages; share through packages/domain.',
+      },
       { group: ['../../../*'], message: 'Use the @/ alias instead of long relative paths.' },
     ]),
   },

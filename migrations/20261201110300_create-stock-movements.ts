@@ -7,7 +7,15 @@ export async function up(knex: Knex): Promise<void> {
     t.bigIncrements('id').primary();
     t.integer('firm_id').unsigned().notNullable().references('firms.id').onDelete('CASCADE');
     t.string('group_id', 36).notNullable();
-    t.enum('kind', ['received', 'transfer_out', 'transfer_in', 'used', 'counted', 'written_off', 'reversal']).notNullable();
+    t.enum('kind', [
+      'received',
+      'transfer_out',
+      'transfer_in',
+      'used',
+      'counted',
+      'written_off',
+      'reversal',
+    ]).notNullable();
     t.integer('location_id').unsigned().notNullable().references('locations.id');
     t.integer('product_id').unsigned().notNullable().references('products.id');
     t.integer('batch_id').unsigned().notNullable().references('product_batches.id');

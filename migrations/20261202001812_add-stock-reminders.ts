@@ -8,7 +8,9 @@ const stockKinds = ['van_below_minimum', 'depot_reorder', 'batch_expiring'];
 // the same list is a no-op, and the column is only added when missing.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('reminders', (t) => {
-    t.enum('kind', [...fleetKinds, ...stockKinds]).notNullable().alter();
+    t.enum('kind', [...fleetKinds, ...stockKinds])
+      .notNullable()
+      .alter();
   });
   if (!(await knex.schema.hasColumn('reminder_settings', 'stock_reminders'))) {
     await knex.schema.alterTable('reminder_settings', (t) => {

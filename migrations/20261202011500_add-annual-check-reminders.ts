@@ -6,7 +6,9 @@ const before = ['inspection_due', 'mot_due', 'service_due', 'van_below_minimum',
 // half-finished attempt, since MariaDB commits DDL implicitly.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('reminders', (t) => {
-    t.enum('kind', [...before, 'annual_check_due']).notNullable().alter();
+    t.enum('kind', [...before, 'annual_check_due'])
+      .notNullable()
+      .alter();
   });
   if (!(await knex.schema.hasColumn('reminder_settings', 'annual_check_reminders'))) {
     await knex.schema.alterTable('reminder_settings', (t) => {

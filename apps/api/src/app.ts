@@ -23,7 +23,13 @@ export function createApp(deps: AppDeps): Express {
   app.use(hostCheck(deps.env.APP_ORIGIN, deps.env.ALLOWED_HOSTS, deps.env.NODE_ENV));
   // gzip for the client's scripts and the API's JSON: a phone on a slow mobile link gets a third of the bytes.
   app.use(compression());
-  app.use(pinoHttp({ logger: deps.logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    pinoHttp({
+      logger: deps.logger,
+      genReqId: (req) => (req as express.Request).id,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -61,9 +67,16 @@ export function createApp(deps: AppDeps): Express {
   // The built client, with the SPA's routes falling back to index.html.
   const dist = deps.env.WEB_DIST_DIR;
   if (dist && existsSync(path.join(dist, 'index.html'))) {
-    app.use(express.static(dist, { index: false, maxAge: '1h', setHeaders: (res, file) => {
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-    } }));
+    app.use(
+      express.static(dist, {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, file) => {
+          if (file.includes(`${path.sep}assets${path.sep}`))
+            res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
+      }),
+    );
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
       // root + relative name: sendFile refuses absolute paths that pass through a dot-folder (.data/).

@@ -28,7 +28,10 @@ function shutdown(signal: string) {
   });
   server.closeIdleConnections();
   setTimeout(() => {
-    deps.logger.warn({ deadlineMs: DRAIN_DEADLINE_MS }, 'requests still open at the shutdown deadline; closing their connections');
+    deps.logger.warn(
+      { deadlineMs: DRAIN_DEADLINE_MS },
+      'requests still open at the shutdown deadline; closing their connections',
+    );
     server.closeAllConnections();
   }, DRAIN_DEADLINE_MS).unref();
   // closeDeps gets a few seconds more after the cut; a hang past that exits with a failure.

@@ -27,10 +27,12 @@ export class BulkWriter {
   private async flushSome(): Promise<void> {
     const chunk = this.rows;
     this.rows = [];
-    const statement = this.pool.query(`INSERT INTO \`${this.table}\` (${this.columns.map((c) => `\`${c}\``).join(', ')}) VALUES ?`, [chunk]).then(() => {
-      this.written += chunk.length;
-      this.onProgress?.(this.written);
-    });
+    const statement = this.pool
+      .query(`INSERT INTO \`${this.table}\` (${this.columns.map((c) => `\`${c}\``).join(', ')}) VALUES ?`, [chunk])
+      .then(() => {
+        this.written += chunk.length;
+        this.onProgress?.(this.written);
+      });
     this.inFlight.push(statement);
     if (this.inFlight.length >= 2) await this.inFlight.shift();
   }
@@ -43,11 +45,19 @@ export class BulkWriter {
 }
 
 /** Inserts rows one statement at a time and returns their auto-increment ids, in order (InnoDB's consecutive ids). */
-export async function insertReturningIds(pool: Pool, table: string, columns: string[], rows: unknown[][]): Promise<number[]> {
+export async function insertReturningIds(
+  pool: Pool,
+  table: string,
+  columns: string[],
+  rows: unknown[][],
+): Promise<number[]> {
   const ids: number[] = [];
   for (let i = 0; i < rows.length; i += rowsPerInsert) {
     const chunk = rows.slice(i, i + rowsPerInsert);
-    const [result] = await pool.query(`INSERT INTO \`${table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) VALUES ?`, [chunk]);
+    const [result] = await pool.query(
+      `INSERT INTO \`${table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) VALUES ?`,
+      [chunk],
+    );
     const first = (result as { insertId: number }).insertId;
     for (let n = 0; n < chunk.length; n += 1) ids.push(first + n);
   }

@@ -22,7 +22,8 @@ export function initialBuildSizes(distDir: string): BuildSizes {
   const css = new Set<string>();
   for (const tag of tags) {
     if (tag.startsWith('<script') && attr(tag, 'type') === 'module' && attr(tag, 'src')) js.add(attr(tag, 'src')!);
-    if (tag.startsWith('<link') && attr(tag, 'rel') === 'modulepreload' && attr(tag, 'href')) js.add(attr(tag, 'href')!);
+    if (tag.startsWith('<link') && attr(tag, 'rel') === 'modulepreload' && attr(tag, 'href'))
+      js.add(attr(tag, 'href')!);
     if (tag.startsWith('<link') && attr(tag, 'rel') === 'stylesheet' && attr(tag, 'href')) css.add(attr(tag, 'href')!);
   }
   const bytes = (files: Set<string>, gzip: boolean) =>
@@ -39,7 +40,16 @@ export function initialBuildSizes(distDir: string): BuildSizes {
   };
 }
 
-export const chromiumFlags = ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+export const chromiumFlags = [
+  '--headless=new',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 
 export interface LighthouseScore {
   url: string;
@@ -53,7 +63,11 @@ export interface LighthouseScore {
 
 /** Lighthouse's default (mobile) profile, simulated throttling, on Debian's Chromium; one run per page. */
 export async function lighthouseScore(url: string, cookie?: string): Promise<LighthouseScore> {
-  const chrome = await chromeLauncher.launch({ chromePath: '/usr/bin/chromium', chromeFlags: chromiumFlags, logLevel: 'error' });
+  const chrome = await chromeLauncher.launch({
+    chromePath: '/usr/bin/chromium',
+    chromeFlags: chromiumFlags,
+    logLevel: 'error',
+  });
   try {
     const result = await lighthouse(url, {
       port: chrome.port,
@@ -64,7 +78,10 @@ export async function lighthouseScore(url: string, cookie?: string): Promise<Lig
     });
     const lhr = result?.lhr;
     if (!lhr) throw new Error('Lighthouse gave no result.');
-    const metric = (id: string) => (lhr.audits[id]?.numericValue === undefined ? null : round(lhr.audits[id].numericValue, id === 'cumulative-layout-shift' ? 3 : 0));
+    const metric = (id: string) =>
+      lhr.audits[id]?.numericValue === undefined
+        ? null
+        : round(lhr.audits[id].numericValue, id === 'cumulative-layout-shift' ? 3 : 0);
     const score = lhr.categories.performance?.score;
     return {
       url,
@@ -76,7 +93,15 @@ export async function lighthouseScore(url: string, cookie?: string): Promise<Lig
       ...(lhr.runtimeError && { error: lhr.runtimeError.message }),
     };
   } catch (error) {
-    return { url, performance: null, firstContentfulPaintMs: null, largestContentfulPaintMs: null, totalBlockingTimeMs: null, cumulativeLayoutShift: null, error: error instanceof Error ? error.message : String(error) };
+    return {
+      url,
+      performance: null,
+      firstContentfulPaintMs: null,
+      largestContentfulPaintMs: null,
+      totalBlockingTimeMs: null,
+      cumulativeLayoutShift: null,
+      error: error instanceof Error ? error.message : String(error),
+    };
   } finally {
     chrome.kill();
   }

@@ -15,9 +15,36 @@ export const benchPassword = 'heatfleet-bench-2026';
 
 // Same vans and products in all three, so the only thing that grows between them is the ledger.
 export const benchFirms: FirmSpec[] = [
-  { key: 'large', name: 'Quillmere Heating Group', domain: 'quillmere.example', vans: 200, products: 100, movements: 1_000_000, kitItems: 5_000, jobs: 20_000 },
-  { key: 'medium', name: 'Fernlow Heating Services', domain: 'fernlow.example', vans: 200, products: 100, movements: 100_000, kitItems: 500, jobs: 2_000 },
-  { key: 'small', name: 'Wrenbeck Heating', domain: 'wrenbeck.example', vans: 200, products: 100, movements: 10_000, kitItems: 500, jobs: 2_000 },
+  {
+    key: 'large',
+    name: 'Quillmere Heating Group',
+    domain: 'quillmere.example',
+    vans: 200,
+    products: 100,
+    movements: 1_000_000,
+    kitItems: 5_000,
+    jobs: 20_000,
+  },
+  {
+    key: 'medium',
+    name: 'Fernlow Heating Services',
+    domain: 'fernlow.example',
+    vans: 200,
+    products: 100,
+    movements: 100_000,
+    kitItems: 500,
+    jobs: 2_000,
+  },
+  {
+    key: 'small',
+    name: 'Wrenbeck Heating',
+    domain: 'wrenbeck.example',
+    vans: 200,
+    products: 100,
+    movements: 10_000,
+    kitItems: 500,
+    jobs: 2_000,
+  },
 ];
 
 export interface GeneratedDatabase {
@@ -44,7 +71,12 @@ export async function generateBenchDatabase(): Promise<GeneratedDatabase> {
     // BENCH_SCALE=0.01 builds a small copy quickly, for trying the bench itself out.
     const scale = Number(process.env.BENCH_SCALE ?? '1');
     for (const [n, spec] of benchFirms.entries()) {
-      const scaled = { ...spec, movements: Math.round(spec.movements * scale), kitItems: Math.round(spec.kitItems * scale), jobs: Math.round(spec.jobs * scale) };
+      const scaled = {
+        ...spec,
+        movements: Math.round(spec.movements * scale),
+        kitItems: Math.round(spec.kitItems * scale),
+        jobs: Math.round(spec.jobs * scale),
+      };
       firms.push(await generateFirm(db, pool, scaled, passwordHash, now, 101 + n));
     }
     process.stdout.write('Checking every balance against its ledger…\n');
@@ -52,8 +84,15 @@ export async function generateBenchDatabase(): Promise<GeneratedDatabase> {
       const wrong = await balancesDisagreeingWithLedger(pool, firm.firmId);
       if (wrong > 0) throw new Error(`${firm.name}: ${wrong} balances disagree with their ledger.`);
     }
-    await pool.query('ANALYZE TABLE stock_movements, stock_balances, custody_events, kit_items, inspections, jobs, par_levels');
-    const result: GeneratedDatabase = { generatedAt: now.toISOString(), seconds: (Date.now() - began) / 1000, password: benchPassword, firms };
+    await pool.query(
+      'ANALYZE TABLE stock_movements, stock_balances, custody_events, kit_items, inspections, jobs, par_levels',
+    );
+    const result: GeneratedDatabase = {
+      generatedAt: now.toISOString(),
+      seconds: (Date.now() - began) / 1000,
+      password: benchPassword,
+      firms,
+    };
     mkdirSync(dirname(benchStack.generatedMarker), { recursive: true });
     writeFileSync(benchStack.generatedMarker, `${JSON.stringify(result, null, 2)}\n`);
     process.stdout.write(`Bench database ready in ${result.seconds.toFixed(1)} s; every balance equals its ledger.\n`);

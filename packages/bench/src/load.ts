@@ -42,15 +42,28 @@ export async function signIn(base: string, email: string, password: string): Pro
 
 export async function getJson<T>(base: string, session: Session, path: string): Promise<{ status: number; body: T }> {
   // A read slower than this is reported as not measured rather than holding up the run.
-  const answer = await fetch(`${base}${path}`, { headers: { cookie: session.cookie }, signal: AbortSignal.timeout(30_000) });
+  const answer = await fetch(`${base}${path}`, {
+    headers: { cookie: session.cookie },
+    signal: AbortSignal.timeout(30_000),
+  });
   const text = await answer.text();
   return { status: answer.status, body: (text ? JSON.parse(text) : null) as T };
 }
 
-export async function postJson<T>(base: string, session: Session, path: string, body: unknown): Promise<{ status: number; body: T }> {
+export async function postJson<T>(
+  base: string,
+  session: Session,
+  path: string,
+  body: unknown,
+): Promise<{ status: number; body: T }> {
   const answer = await fetch(`${base}${path}`, {
     method: 'POST',
-    headers: { 'content-type': 'application/json', cookie: session.cookie, 'x-csrf-token': session.csrfToken, 'idempotency-key': randomUUID() },
+    headers: {
+      'content-type': 'application/json',
+      cookie: session.cookie,
+      'x-csrf-token': session.csrfToken,
+      'idempotency-key': randomUUID(),
+    },
     body: JSON.stringify(body),
   });
   const text = await answer.text();
@@ -58,7 +71,11 @@ export async function postJson<T>(base: string, session: Session, path: string, 
 }
 
 /** One request at a time, `count` times: the median and slowest milliseconds of one request alone. */
-export async function serialLatency(url: string, headers: Record<string, string>, count: number): Promise<{ medianMs: number; maxMs: number; status: number }> {
+export async function serialLatency(
+  url: string,
+  headers: Record<string, string>,
+  count: number,
+): Promise<{ medianMs: number; maxMs: number; status: number }> {
   const times: number[] = [];
   let status = 0;
   for (let n = 0; n < count; n += 1) {
@@ -100,7 +117,11 @@ export function load(options: LoadOptions): Promise<LoadResult> {
     ...(bodyFor && {
       requests: [
         {
-          setupRequest: (req: autocannon.Request) => ({ ...req, headers: { ...req.headers, 'idempotency-key': randomUUID() }, body: JSON.stringify(bodyFor(sent++)) }),
+          setupRequest: (req: autocannon.Request) => ({
+            ...req,
+            headers: { ...req.headers, 'idempotency-key': randomUUID() },
+            body: JSON.stringify(bodyFor(sent++)),
+          }),
         },
       ],
     }),

@@ -25,7 +25,10 @@ async function main(): Promise<number> {
   const onSignal = () => (interrupted = true);
   process.on('SIGINT', onSignal).on('SIGTERM', onSignal);
   try {
-    const code = await runStep(process.execPath, nodeTsArgs(apiFiles.dbCli, apiArgs), { env: childEnv(profile), cwd: repoRoot });
+    const code = await runStep(process.execPath, nodeTsArgs(apiFiles.dbCli, apiArgs), {
+      env: childEnv(profile),
+      cwd: repoRoot,
+    });
     return interrupted ? 130 : code;
   } finally {
     await services?.stop();

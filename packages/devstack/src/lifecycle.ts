@@ -55,7 +55,9 @@ export class Lifecycle {
    */
   handleSignals(signalCode: number, onSignal?: (signal: NodeJS.Signals) => void): void {
     const onBug = (error: unknown) => {
-      process.stderr.write(`Unexpected error in the orchestrator: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+      process.stderr.write(
+        `Unexpected error in the orchestrator: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`,
+      );
       void this.shutdown(1);
     };
     process.on('uncaughtException', onBug);

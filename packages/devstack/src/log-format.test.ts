@@ -15,7 +15,11 @@ describe('formatLogLine', () => {
   });
 
   it('shows the error type and message', () => {
-    const line = JSON.stringify({ level: 50, msg: 'database unavailable', err: { type: 'Error', message: 'connect ECONNREFUSED' } });
+    const line = JSON.stringify({
+      level: 50,
+      msg: 'database unavailable',
+      err: { type: 'Error', message: 'connect ECONNREFUSED' },
+    });
     expect(formatLogLine(line)).toBe('ERROR database unavailable (Error: connect ECONNREFUSED)');
   });
 

@@ -1,4 +1,11 @@
-const levelNames: Record<number, string> = { 10: 'TRACE', 20: 'DEBUG', 30: 'INFO', 40: 'WARN', 50: 'ERROR', 60: 'FATAL' };
+const levelNames: Record<number, string> = {
+  10: 'TRACE',
+  20: 'DEBUG',
+  30: 'INFO',
+  40: 'WARN',
+  50: 'ERROR',
+  60: 'FATAL',
+};
 
 function text(value: unknown): string | null {
   return typeof value === 'string' || typeof value === 'number' ? String(value) : null;

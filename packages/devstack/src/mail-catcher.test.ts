@@ -71,7 +71,12 @@ describe('startMailCatcher', () => {
       '<p><a href="http://localhost:5173/invitations/tok-1">Accept</a> <a href="https://heatfleet.example/help">Help</a></p>',
       '--b1--',
     ].join('\n');
-    const replies = await sendRaw(catcher.port, 'no-reply@heatfleet.example', ['dana@brackenford.example', 'bcc@tarnside.example'], message);
+    const replies = await sendRaw(
+      catcher.port,
+      'no-reply@heatfleet.example',
+      ['dana@brackenford.example', 'bcc@tarnside.example'],
+      message,
+    );
     expect(replies.some((reply) => reply.startsWith('250 Caught as'))).toBe(true);
 
     const added = readdirSync(outboxDir).filter((file) => !before.has(file));
@@ -98,7 +103,12 @@ describe('startMailCatcher', () => {
 
   it('gives html null for a plain-text message', async () => {
     const before = new Set(readdirSync(outboxDir));
-    await sendRaw(catcher.port, 'no-reply@heatfleet.example', ['e@brackenford.example'], 'Subject: Plain\n\nNo links here.');
+    await sendRaw(
+      catcher.port,
+      'no-reply@heatfleet.example',
+      ['e@brackenford.example'],
+      'Subject: Plain\n\nNo links here.',
+    );
     const jsonFile = readdirSync(outboxDir).find((file) => !before.has(file) && file.endsWith('.json')) ?? '';
     const caught = JSON.parse(readFileSync(join(outboxDir, jsonFile), 'utf8')) as CaughtMessage;
     expect(caught).toMatchObject({ html: null, links: [], subject: 'Plain' });

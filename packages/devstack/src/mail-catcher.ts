@@ -112,9 +112,7 @@ export function startMailCatcher(options: { port: number; outboxDir: string; hos
   return new Promise((resolve, reject) => {
     const onStartError = (error: NodeJS.ErrnoException) => {
       reject(
-        error.code === 'EADDRINUSE'
-          ? new Error(`Port ${options.port} (SMTP mail catcher) is already in use.`)
-          : error,
+        error.code === 'EADDRINUSE' ? new Error(`Port ${options.port} (SMTP mail catcher) is already in use.`) : error,
       );
     };
     server.once('error', onStartError);

@@ -4,7 +4,10 @@ import { extractLinks } from './mail-links.ts';
 describe('extractLinks', () => {
   it('finds links in the text body without the sentence punctuation around them', () => {
     const text = 'Join the team at http://localhost:5173/invitations/abc123. (Or see https://heatfleet.example/help.)';
-    expect(extractLinks(text, null)).toEqual(['http://localhost:5173/invitations/abc123', 'https://heatfleet.example/help']);
+    expect(extractLinks(text, null)).toEqual([
+      'http://localhost:5173/invitations/abc123',
+      'https://heatfleet.example/help',
+    ]);
   });
 
   it('reads hrefs from the HTML body, decoding entities, and skips mailto and relative links', () => {
@@ -14,7 +17,10 @@ describe('extractLinks', () => {
       '<a href=/relative>Here</a>',
       '<a HREF = "https://heatfleet.example/a">A</a>',
     ].join('');
-    expect(extractLinks('', html)).toEqual(['http://localhost:5173/reset-password/t0k?x=1&y=2', 'https://heatfleet.example/a']);
+    expect(extractLinks('', html)).toEqual([
+      'http://localhost:5173/reset-password/t0k?x=1&y=2',
+      'https://heatfleet.example/a',
+    ]);
   });
 
   it('lists a link found in both bodies once', () => {

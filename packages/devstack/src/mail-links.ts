@@ -5,7 +5,8 @@ const namedEntities: Record<string, string> = { amp: '&', quot: '"', apos: "'", 
 
 function decodeEntities(value: string): string {
   return value.replace(/&(#x[0-9a-f]+|#[0-9]+|[a-z]+);/gi, (whole, entity: string) => {
-    if (entity.startsWith('#x') || entity.startsWith('#X')) return String.fromCodePoint(Number.parseInt(entity.slice(2), 16));
+    if (entity.startsWith('#x') || entity.startsWith('#X'))
+      return String.fromCodePoint(Number.parseInt(entity.slice(2), 16));
     if (entity.startsWith('#')) return String.fromCodePoint(Number.parseInt(entity.slice(1), 10));
     return namedEntities[entity.toLowerCase()] ?? whole;
   });
@@ -14,7 +15,10 @@ function decodeEntities(value: string): string {
 // A sentence ending in a link ("... at https://x/y.") must not carry its full stop into the link.
 function trimTrailingPunctuation(url: string): string {
   let trimmed = url.replace(/[.,;:!?]+$/, '');
-  for (const [open, close] of [['(', ')'], ['[', ']']] as const) {
+  for (const [open, close] of [
+    ['(', ')'],
+    ['[', ']'],
+  ] as const) {
     while (trimmed.endsWith(close) && trimmed.split(close).length > trimmed.split(open).length) {
       trimmed = trimmed.slice(0, -1).replace(/[.,;:!?]+$/, '');
     }

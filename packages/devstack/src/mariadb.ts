@@ -142,9 +142,13 @@ async function initialise(target: MariadbTarget): Promise<number> {
   const staging = `${target.dataDir}.initialising`;
   // Never wipe a folder of someone else's: only one that is missing, empty or holds our own leftovers.
   const ownLeftovers = new Set(['mariadbd.err', 'mariadbd.pid', 'mariadb.sock']);
-  const foreign = existsSync(target.dataDir) ? readdirSync(target.dataDir).filter((name) => !ownLeftovers.has(name)) : [];
+  const foreign = existsSync(target.dataDir)
+    ? readdirSync(target.dataDir).filter((name) => !ownLeftovers.has(name))
+    : [];
   if (foreign.length > 0) {
-    throw new Error(`${target.dataDir} is not a MariaDB data folder (no mysql/ in it) but is not empty: move it away and try again.`);
+    throw new Error(
+      `${target.dataDir} is not a MariaDB data folder (no mysql/ in it) but is not empty: move it away and try again.`,
+    );
   }
   rmSync(staging, { recursive: true, force: true });
   mkdirSync(dirname(target.dataDir), { recursive: true });
@@ -174,7 +178,9 @@ async function initialise(target: MariadbTarget): Promise<number> {
 export async function startMariadb(options: MariadbOptions): Promise<MariadbInstance> {
   const socket = mariadbSocket(options);
   if (socket.length > maxSocketPathLength) {
-    throw new Error(`The MariaDB socket path is too long for Linux (${socket.length} > ${maxSocketPathLength}): ${socket}`);
+    throw new Error(
+      `The MariaDB socket path is too long for Linux (${socket.length} > ${maxSocketPathLength}): ${socket}`,
+    );
   }
   const timeoutMs = options.timeoutMs ?? 60_000;
   const instance: MariadbInstance = {
@@ -230,9 +236,12 @@ export async function startMariadb(options: MariadbOptions): Promise<MariadbInst
         failEarly: () => exitNote,
       });
     } catch (error) {
-      throw new Error(`${(error as Error).message}\nLast lines of ${mariadbErrorLog(options)}:\n${lastLines(mariadbErrorLog(options), 15)}`, {
-        cause: error,
-      });
+      throw new Error(
+        `${(error as Error).message}\nLast lines of ${mariadbErrorLog(options)}:\n${lastLines(mariadbErrorLog(options), 15)}`,
+        {
+          cause: error,
+        },
+      );
     }
     instance.startMs = Date.now() - began;
     instance.pid = child.pid ?? readPid(options);
@@ -267,7 +276,8 @@ export async function stopMariadb(target: MariadbTarget, timeoutMs = 30_000): Pr
       throw new Error(`mariadb-admin shutdown failed: ${result.stderr.trim()}`);
     }
   }
-  if (!(await waitForExit(pid, timeoutMs))) throw new Error(`MariaDB (pid ${pid}) did not stop within ${timeoutMs / 1000} s.`);
+  if (!(await waitForExit(pid, timeoutMs)))
+    throw new Error(`MariaDB (pid ${pid}) did not stop within ${timeoutMs / 1000} s.`);
 }
 
 /** Kills the server with SIGKILL, as a crash or an outage would; InnoDB recovers on the next start. */

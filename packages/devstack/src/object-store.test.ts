@@ -26,7 +26,14 @@ describe('startObjectStore', () => {
     const first = await startObjectStore({ port, dataDir, bucket });
     const client = clientFor(first.endpoint);
     try {
-      await client.send(new PutObjectCommand({ Bucket: bucket, Key: 'firm-1/photo.png', Body: 'not really a png', ContentType: 'image/png' }));
+      await client.send(
+        new PutObjectCommand({
+          Bucket: bucket,
+          Key: 'firm-1/photo.png',
+          Body: 'not really a png',
+          ContentType: 'image/png',
+        }),
+      );
     } finally {
       await first.close();
     }
@@ -45,7 +52,9 @@ describe('startObjectStore', () => {
   it('says which port is taken', async () => {
     const store = await startObjectStore({ port, dataDir, bucket });
     try {
-      await expect(startObjectStore({ port, dataDir, bucket })).rejects.toThrow(/4579 \(S3 object store\) is already in use/);
+      await expect(startObjectStore({ port, dataDir, bucket })).rejects.toThrow(
+        /4579 \(S3 object store\) is already in use/,
+      );
     } finally {
       await store.close();
     }

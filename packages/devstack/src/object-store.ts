@@ -37,7 +37,9 @@ export async function startObjectStore(options: ObjectStoreOptions): Promise<Obj
   const server = createServer(s3rver.callback());
   await new Promise<void>((resolve, reject) => {
     server.once('error', (error: NodeJS.ErrnoException) => {
-      reject(error.code === 'EADDRINUSE' ? new Error(`Port ${options.port} (S3 object store) is already in use.`) : error);
+      reject(
+        error.code === 'EADDRINUSE' ? new Error(`Port ${options.port} (S3 object store) is already in use.`) : error,
+      );
     });
     server.listen(options.port, host, () => resolve());
   });

@@ -20,7 +20,9 @@ export function findExecutable(name: string): string {
       // not in this folder
     }
   }
-  throw new Error(`${name} is not installed (looked in PATH and ${extraBinDirs.join(', ')}). Run: bash packages/devstack/bin/prepare.sh`);
+  throw new Error(
+    `${name} is not installed (looked in PATH and ${extraBinDirs.join(', ')}). Run: bash packages/devstack/bin/prepare.sh`,
+  );
 }
 
 // Children still up, and whether each leads its own process group.
@@ -252,7 +254,9 @@ export async function assertPortsFree(ports: { port: number; what: string }[]): 
     // A server bound to :: also takes 127.0.0.1, but one bound to ::1 only would not show there.
     const free = (await portIsFree(port, '127.0.0.1')) && (await portIsFree(port, '::1'));
     if (!free) {
-      throw new Error(`Port ${port} (${what}) is already in use. Stop whatever holds it (ss -ltnp 'sport = :${port}') and try again.`);
+      throw new Error(
+        `Port ${port} (${what}) is already in use. Stop whatever holds it (ss -ltnp 'sport = :${port}') and try again.`,
+      );
     }
   }
 }

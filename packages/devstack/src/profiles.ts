@@ -40,7 +40,12 @@ export function getProfile(name: ProfileName): Profile {
     outboxDir: join(dataDir, 'outbox'),
     logDir: join(dataDir, 'logs'),
   };
-  const s3 = (port: number) => ({ dataDir: join(dataDir, 's3'), port, bucket: 'heatfleet-photos', region: 'eu-west-2' });
+  const s3 = (port: number) => ({
+    dataDir: join(dataDir, 's3'),
+    port,
+    bucket: 'heatfleet-photos',
+    region: 'eu-west-2',
+  });
   if (name === 'dev') {
     return {
       ...common,

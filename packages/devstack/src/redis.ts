@@ -49,7 +49,13 @@ export async function redisIsUp(target: { port: number }): Promise<boolean> {
 
 /** Starts a private redis-server (AOF on, no eviction, as BullMQ needs), or reuses one already on the port. */
 export async function startRedis(options: RedisOptions): Promise<RedisInstance> {
-  const instance: RedisInstance = { dataDir: options.dataDir, port: options.port, pid: null, startedHere: false, startMs: 0 };
+  const instance: RedisInstance = {
+    dataDir: options.dataDir,
+    port: options.port,
+    pid: null,
+    startedHere: false,
+    startMs: 0,
+  };
   if (await redisIsUp(options)) {
     instance.pid = readPid(options.dataDir);
     return instance;
@@ -61,14 +67,22 @@ export async function startRedis(options: RedisOptions): Promise<RedisInstance> 
   mkdirSync(options.dataDir, { recursive: true });
   const began = Date.now();
   const result = await capture(findExecutable('redis-server'), [
-    '--bind', '127.0.0.1',
-    '--port', String(options.port),
-    '--dir', options.dataDir,
-    '--appendonly', 'yes',
-    '--maxmemory-policy', 'noeviction',
-    '--daemonize', 'yes',
-    '--pidfile', pidFile(options.dataDir),
-    '--logfile', redisLogFile(options.dataDir),
+    '--bind',
+    '127.0.0.1',
+    '--port',
+    String(options.port),
+    '--dir',
+    options.dataDir,
+    '--appendonly',
+    'yes',
+    '--maxmemory-policy',
+    'noeviction',
+    '--daemonize',
+    'yes',
+    '--pidfile',
+    pidFile(options.dataDir),
+    '--logfile',
+    redisLogFile(options.dataDir),
   ]);
   if (result.code !== 0) {
     throw new Error(`redis-server failed to start (exit ${result.code}): ${result.stdout}${result.stderr}`.trim());
@@ -96,7 +110,8 @@ export async function stopRedis(target: { port: number; dataDir: string }, timeo
   await redisCli(target.port, ['shutdown']);
   const deadline = Date.now() + timeoutMs;
   while ((pid !== null && isAlive(pid)) || (await redisIsUp(target))) {
-    if (Date.now() > deadline) throw new Error(`Redis on port ${target.port} did not stop within ${timeoutMs / 1000} s.`);
+    if (Date.now() > deadline)
+      throw new Error(`Redis on port ${target.port} did not stop within ${timeoutMs / 1000} s.`);
     await sleep(50);
   }
 }

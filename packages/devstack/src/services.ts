@@ -52,13 +52,21 @@ export async function startServices(
 
     const redis = await startRedis({ dataDir: profile.redis.dataDir, port: profile.redis.port });
     if (redis.startedHere) stops.push(() => stopRedis(redis));
-    log(redis.startedHere ? `Redis on ${redis.port}: started in ${seconds(redis.startMs)}` : `Redis already up on ${redis.port}, reusing it`);
+    log(
+      redis.startedHere
+        ? `Redis on ${redis.port}: started in ${seconds(redis.startMs)}`
+        : `Redis already up on ${redis.port}, reusing it`,
+    );
 
     const mail = await startMailCatcher({ port: profile.smtpPort, outboxDir: profile.outboxDir });
     stops.push(() => mail.close());
     log(`Mail catcher on ${mail.port}: writing to ${profile.outboxDir}`);
 
-    const objectStore = await startObjectStore({ port: profile.s3.port, dataDir: profile.s3.dataDir, bucket: profile.s3.bucket });
+    const objectStore = await startObjectStore({
+      port: profile.s3.port,
+      dataDir: profile.s3.dataDir,
+      bucket: profile.s3.bucket,
+    });
     stops.push(() => objectStore.close());
     log(`Object store (S3) on ${objectStore.port}: bucket ${objectStore.bucket} in ${profile.s3.dataDir}`);
     return { mariadb, redis, mail, objectStore, stop: stopAll };

@@ -2,7 +2,15 @@ import { join, relative } from 'node:path';
 import { apiFiles, assertFilesExist, toolFiles } from './api-files.ts';
 import { demoAccounts, demoPassword } from './demo-accounts.ts';
 import { Lifecycle } from './lifecycle.ts';
-import { assertPortsFree, httpAnswers200, nodeTsArgs, runStep, startService, waitUntil, type Service } from './processes.ts';
+import {
+  assertPortsFree,
+  httpAnswers200,
+  nodeTsArgs,
+  runStep,
+  startService,
+  waitUntil,
+  type Service,
+} from './processes.ts';
 import { databasePassword, databaseUser, getProfile } from './profiles.ts';
 import { repoRoot } from './repo-root.ts';
 import { startServices } from './services.ts';
@@ -28,7 +36,13 @@ async function step(title: string, args: string[], env: NodeJS.ProcessEnv): Prom
 
 function launch(name: string, args: string[], env: NodeJS.ProcessEnv): Service {
   life.assertRunning();
-  const service = startService({ name, command: process.execPath, args, env, logFile: join(profile.logDir, `${name}.log`) });
+  const service = startService({
+    name,
+    command: process.execPath,
+    args,
+    env,
+    logFile: join(profile.logDir, `${name}.log`),
+  });
   life.watch(service);
   return service;
 }
@@ -83,7 +97,11 @@ async function main(): Promise<void> {
     // A development NODE_ENV would make Vite bundle React's development build.
     const buildEnv = { ...process.env, NODE_ENV: 'production' };
     const buildBegan = Date.now();
-    await step('Building the client', [toolFiles.vite, 'build', '--outDir', profile.distDir, '--emptyOutDir', '--logLevel', 'warn'], buildEnv);
+    await step(
+      'Building the client',
+      [toolFiles.vite, 'build', '--outDir', profile.distDir, '--emptyOutDir', '--logLevel', 'warn'],
+      buildEnv,
+    );
     say(`Built in ${((Date.now() - buildBegan) / 1000).toFixed(1)} s (npm run build shows the bundle sizes).`);
   }
 

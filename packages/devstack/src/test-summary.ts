@@ -55,11 +55,14 @@ export function readReport(file: string, count: (report: unknown) => Counts): Co
 }
 
 export function addCounts(...all: Counts[]): Counts {
-  return all.reduce((sum, next) => ({
-    passed: sum.passed + next.passed,
-    failed: sum.failed + next.failed,
-    skipped: sum.skipped + next.skipped,
-  }), noCounts);
+  return all.reduce(
+    (sum, next) => ({
+      passed: sum.passed + next.passed,
+      failed: sum.failed + next.failed,
+      skipped: sum.skipped + next.skipped,
+    }),
+    noCounts,
+  );
 }
 
 export function summaryLine(counts: Counts): string {

@@ -16,7 +16,8 @@ const ownFlags = new Set(['--e2e', '--e2e-only', '--no-e2e']);
 const argv = process.argv.slice(2);
 const vitestArgs = argv.filter((arg) => !ownFlags.has(arg));
 const runVitest = !argv.includes('--e2e-only');
-const wantE2e = argv.includes('--e2e-only') || argv.includes('--e2e') || (!argv.includes('--no-e2e') && vitestArgs.length === 0);
+const wantE2e =
+  argv.includes('--e2e-only') || argv.includes('--e2e') || (!argv.includes('--no-e2e') && vitestArgs.length === 0);
 
 const profile = getProfile('test');
 const vitestJson = join(profile.dataDir, 'vitest.json');
@@ -84,7 +85,8 @@ async function vitestPhase(env: NodeJS.ProcessEnv): Promise<void> {
   if (counts === null) problems.push(`vitest wrote no report (${vitestJson}); it exited with code ${code}`);
   else {
     results.push(counts);
-    if (code !== 0 && counts.failed === 0) problems.push(`vitest exited with code ${code} although no test failed: see its errors above`);
+    if (code !== 0 && counts.failed === 0)
+      problems.push(`vitest exited with code ${code} although no test failed: see its errors above`);
   }
   if (code !== 0 && counts === null) results.push({ passed: 0, failed: 1, skipped: 0 });
 }
@@ -130,7 +132,9 @@ async function e2ePhase(env: NodeJS.ProcessEnv): Promise<void> {
   life.assertRunning();
   const counts = readReport(playwrightJson, countPlaywright);
   if (counts === null) {
-    problems.push(`Playwright wrote no json report at ${playwrightJson} (exit ${code}); does playwright.config.ts use PLAYWRIGHT_JSON?`);
+    problems.push(
+      `Playwright wrote no json report at ${playwrightJson} (exit ${code}); does playwright.config.ts use PLAYWRIGHT_JSON?`,
+    );
     results.push({ passed: 0, failed: 1, skipped: 0 });
   } else {
     results.push(counts);
@@ -141,7 +145,11 @@ async function e2ePhase(env: NodeJS.ProcessEnv): Promise<void> {
 }
 
 async function main(): Promise<void> {
-  assertFilesExist([apiFiles.dbCli, toolFiles.vitest, ...(wantE2e ? [apiFiles.server, apiFiles.worker, toolFiles.vite, toolFiles.playwright] : [])]);
+  assertFilesExist([
+    apiFiles.dbCli,
+    toolFiles.vitest,
+    ...(wantE2e ? [apiFiles.server, apiFiles.worker, toolFiles.vite, toolFiles.playwright] : []),
+  ]);
   await assertPortsFree([
     ...(wantE2e ? [{ port: profile.appPort, what: 'the test app' }] : []),
     { port: profile.smtpPort, what: 'the test mail catcher' },
@@ -159,10 +167,14 @@ async function main(): Promise<void> {
 
   await freshDatabase(env, false);
   if (wantE2e) {
-    await step('Building the client', [toolFiles.vite, 'build', '--outDir', profile.distDir, '--emptyOutDir', '--logLevel', 'warn'], {
-      ...process.env,
-      NODE_ENV: 'production',
-    });
+    await step(
+      'Building the client',
+      [toolFiles.vite, 'build', '--outDir', profile.distDir, '--emptyOutDir', '--logLevel', 'warn'],
+      {
+        ...process.env,
+        NODE_ENV: 'production',
+      },
+    );
   }
   if (runVitest) await vitestPhase(env);
   else say('--e2e-only: vitest skipped.');

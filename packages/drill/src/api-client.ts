@@ -25,7 +25,11 @@ export class ApiClient {
     }
   }
 
-  async send(method: string, path: string, options: { json?: unknown; form?: FormData; headers?: Record<string, string> } = {}): Promise<Answer> {
+  async send(
+    method: string,
+    path: string,
+    options: { json?: unknown; form?: FormData; headers?: Record<string, string> } = {},
+  ): Promise<Answer> {
     const headers: Record<string, string> = { ...options.headers };
     if (this.cookie !== '') headers.cookie = this.cookie;
     if (method !== 'GET') headers['x-csrf-token'] = this.csrfToken;
@@ -38,7 +42,12 @@ export class ApiClient {
     }
     const began = Date.now();
     try {
-      const response = await fetch(`${this.baseUrl}${path}`, { method, headers, body, signal: AbortSignal.timeout(requestTimeoutMs) });
+      const response = await fetch(`${this.baseUrl}${path}`, {
+        method,
+        headers,
+        body,
+        signal: AbortSignal.timeout(requestTimeoutMs),
+      });
       this.remember(response);
       const text = await response.text();
       let parsed: unknown = text;
@@ -51,7 +60,13 @@ export class ApiClient {
       if (typeof fresh === 'string') this.csrfToken = fresh;
       return { status: response.status, body: parsed, ms: Date.now() - began };
     } catch (error) {
-      return { status: 0, body: null, ms: Date.now() - began, error: error instanceof Error ? (error.cause instanceof Error ? error.cause.message : error.message) : String(error) };
+      return {
+        status: 0,
+        body: null,
+        ms: Date.now() - began,
+        error:
+          error instanceof Error ? (error.cause instanceof Error ? error.cause.message : error.message) : String(error),
+      };
     }
   }
 
@@ -67,6 +82,7 @@ export class ApiClient {
     const csrf = await this.get('/api/auth/csrf');
     if (csrf.status !== 200) throw new Error(`${this.label}: GET /api/auth/csrf answered ${csrf.status}`);
     const res = await this.post('/api/auth/sign-in', { email, password });
-    if (res.status !== 200) throw new Error(`${this.label}: sign-in as ${email} answered ${res.status} ${JSON.stringify(res.body)}`);
+    if (res.status !== 200)
+      throw new Error(`${this.label}: sign-in as ${email} answered ${res.status} ${JSON.stringify(res.body)}`);
   }
 }

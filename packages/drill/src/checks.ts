@@ -37,7 +37,12 @@ export async function checkAcks(db: Knex, firmId: number, acks: Ack[], keysTried
   const rows = (await db('stock_movements')
     .where({ firm_id: firmId })
     .andWhere((q) => q.where('reason', 'like', 'drill:%').orWhere('reference', 'like', 'drill:%'))
-    .select('id', 'group_id', 'reason', 'reference')) as { id: number; group_id: string; reason: string | null; reference: string | null }[];
+    .select('id', 'group_id', 'reason', 'reference')) as {
+    id: number;
+    group_id: string;
+    reason: string | null;
+    reference: string | null;
+  }[];
   const groupsByTag = new Map<string, Set<string>>();
   const idsByGroup = new Map<string, Set<number>>();
   for (const row of rows) {
@@ -53,10 +58,17 @@ export async function checkAcks(db: Knex, firmId: number, acks: Ack[], keysTried
   for (const ack of acks) {
     const groups = groupsByTag.get(writeTag(ack.key));
     const ids = idsByGroup.get(ack.groupId);
-    if (!groups?.has(ack.groupId) || !ids || ack.movementIds.some((id) => !ids.has(id))) missing.push(`${ack.kind} ${ack.key}`);
+    if (!groups?.has(ack.groupId) || !ids || ack.movementIds.some((id) => !ids.has(id)))
+      missing.push(`${ack.kind} ${ack.key}`);
   }
   const duplicated = [...keysTried].filter((key) => (groupsByTag.get(writeTag(key))?.size ?? 0) > 1);
-  return { acknowledged: acks.length, keysTried: keysTried.size, missing, duplicated, replayed: acks.filter((a) => a.attempt > 1).length };
+  return {
+    acknowledged: acks.length,
+    keysTried: keysTried.size,
+    missing,
+    duplicated,
+    replayed: acks.filter((a) => a.attempt > 1).length,
+  };
 }
 
 export interface BalanceCheck {
@@ -66,12 +78,23 @@ export interface BalanceCheck {
 
 /** Every balance row against the sum of its ledger, for every firm. */
 export async function checkBalances(db: Knex): Promise<BalanceCheck> {
-  const balances = (await db('stock_balances').select('firm_id', 'location_id', 'batch_id', 'quantity')) as { firm_id: number; location_id: number; batch_id: number; quantity: number }[];
+  const balances = (await db('stock_balances').select('firm_id', 'location_id', 'batch_id', 'quantity')) as {
+    firm_id: number;
+    location_id: number;
+    batch_id: number;
+    quantity: number;
+  }[];
   const sums = (await db('stock_movements')
     .groupBy('firm_id', 'location_id', 'batch_id')
     .select('firm_id', 'location_id', 'batch_id')
-    .sum({ total: 'quantity_delta' })) as { firm_id: number; location_id: number; batch_id: number; total: string | number }[];
-  const key = (r: { firm_id: number; location_id: number; batch_id: number }) => `${r.firm_id}/${r.location_id}/${r.batch_id}`;
+    .sum({ total: 'quantity_delta' })) as {
+    firm_id: number;
+    location_id: number;
+    batch_id: number;
+    total: string | number;
+  }[];
+  const key = (r: { firm_id: number; location_id: number; batch_id: number }) =>
+    `${r.firm_id}/${r.location_id}/${r.batch_id}`;
   const ledger = new Map(sums.map((s) => [key(s), Number(s.total)]));
   const mismatched: string[] = [];
   for (const b of balances) {
@@ -108,11 +131,22 @@ export interface EmailState {
   caught: number;
 }
 
-export async function emailStates(db: Knex, outboxDir: string, where: (q: Knex.QueryBuilder) => void = () => undefined): Promise<EmailState[]> {
+export async function emailStates(
+  db: Knex,
+  outboxDir: string,
+  where: (q: Knex.QueryBuilder) => void = () => undefined,
+): Promise<EmailState[]> {
   const counts = outboxCounts(outboxDir);
   const query = db('emails').select('id', 'purpose', 'to_address', 'attempts', 'created_at', 'sent_at').orderBy('id');
   where(query);
-  const rows = (await query) as { id: number; purpose: string; to_address: string; attempts: number; created_at: Date; sent_at: Date | null }[];
+  const rows = (await query) as {
+    id: number;
+    purpose: string;
+    to_address: string;
+    attempts: number;
+    created_at: Date;
+    sent_at: Date | null;
+  }[];
   return rows.map((r) => ({
     id: r.id,
     purpose: r.purpose,
@@ -138,7 +172,9 @@ export async function checkStoredFiles(db: Knex, env: Record<string, string>): P
     credentials: { accessKeyId: env.S3_ACCESS_KEY_ID ?? '', secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? '' },
   });
   const photoKeys = ((await db('photos').select('object_key')) as { object_key: string }[]).map((r) => r.object_key);
-  const sdsKeys = ((await db('products').whereNotNull('sds_object_key').select('sds_object_key')) as { sds_object_key: string }[]).map((r) => r.sds_object_key);
+  const sdsKeys = (
+    (await db('products').whereNotNull('sds_object_key').select('sds_object_key')) as { sds_object_key: string }[]
+  ).map((r) => r.sds_object_key);
   const missing: string[] = [];
   for (const key of [...photoKeys, ...sdsKeys]) {
     try {

@@ -42,7 +42,9 @@ export function renderTable(results: DrillResult[]): string {
   ];
   for (const result of results) {
     result.checks.forEach((c, i) => {
-      lines.push(`${pad(i === 0 ? result.drill : '', widths.drill)} ${pad(c.what, widths.what)} ${pad(c.expected, widths.expected)} ${c.pass ? 'pass  ' : 'FAIL  '}  ${c.seen}`);
+      lines.push(
+        `${pad(i === 0 ? result.drill : '', widths.drill)} ${pad(c.what, widths.what)} ${pad(c.expected, widths.expected)} ${c.pass ? 'pass  ' : 'FAIL  '}  ${c.seen}`,
+      );
     });
     lines.push('');
   }

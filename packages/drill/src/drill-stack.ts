@@ -5,7 +5,17 @@ import type { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import { startMailCatcher, type MailCatcher } from '@heatfleet/devstack/src/mail-catcher.ts';
 import { ensureDatabase, killMariadb, startMariadb, stopMariadb } from '@heatfleet/devstack/src/mariadb.ts';
 import { startObjectStore, type ObjectStore } from '@heatfleet/devstack/src/object-store.ts';
-import { assertPortsFree, httpAnswers200, isAlive, nodeTsArgs, portIsFree, runStep, startService, waitUntil, type Service } from '@heatfleet/devstack/src/processes.ts';
+import {
+  assertPortsFree,
+  httpAnswers200,
+  isAlive,
+  nodeTsArgs,
+  portIsFree,
+  runStep,
+  startService,
+  waitUntil,
+  type Service,
+} from '@heatfleet/devstack/src/processes.ts';
 import { getProfile } from '@heatfleet/devstack/src/profiles.ts';
 import { flushRedis, redisIsUp, startRedis, stopRedis } from '@heatfleet/devstack/src/redis.ts';
 import { repoRoot } from '@heatfleet/devstack/src/repo-root.ts';
@@ -47,7 +57,9 @@ export class DrillStack {
     ]);
     // The drill empties its Redis and database: never do that to a server that is not the drill's own.
     if (!(await portIsFree(profile.redis.port)) && !ownRedisIsRunning()) {
-      throw new Error(`Port ${profile.redis.port} (the drill's Redis) is held by a server that is not the drill's: stop it and try again.`);
+      throw new Error(
+        `Port ${profile.redis.port} (the drill's Redis) is held by a server that is not the drill's: stop it and try again.`,
+      );
     }
     // Each run starts from nothing, so every count in the report is this run's.
     for (const dir of [profile.outboxDir, profile.s3.dataDir]) {
@@ -81,9 +93,23 @@ export class DrillStack {
 
   async startApp(): Promise<void> {
     const env = childEnv(profile);
-    this.api = startService({ name: 'api', command: process.execPath, args: nodeTsArgs(apiFiles.server), env, logFile: join(profile.logDir, 'api.log'), quiet: true });
+    this.api = startService({
+      name: 'api',
+      command: process.execPath,
+      args: nodeTsArgs(apiFiles.server),
+      env,
+      logFile: join(profile.logDir, 'api.log'),
+      quiet: true,
+    });
     await this.life.add('the API', () => this.api?.stop() ?? Promise.resolve());
-    this.worker = startService({ name: 'worker', command: process.execPath, args: nodeTsArgs(apiFiles.worker), env, logFile: join(profile.logDir, 'worker.log'), quiet: true });
+    this.worker = startService({
+      name: 'worker',
+      command: process.execPath,
+      args: nodeTsArgs(apiFiles.worker),
+      env,
+      logFile: join(profile.logDir, 'worker.log'),
+      quiet: true,
+    });
     await this.life.add('the worker', () => this.worker?.stop() ?? Promise.resolve());
     const api = this.api;
     await waitUntil(`${this.baseUrl}/api/health`, () => httpAnswers200(`${this.baseUrl}/api/health`), {
@@ -95,7 +121,11 @@ export class DrillStack {
   }
 
   async startMariadb(): Promise<void> {
-    await startMariadb({ dataDir: profile.mariadb.dataDir, port: profile.mariadb.port, extraArgs: profile.mariadb.extraArgs });
+    await startMariadb({
+      dataDir: profile.mariadb.dataDir,
+      port: profile.mariadb.port,
+      extraArgs: profile.mariadb.extraArgs,
+    });
   }
 
   killMariadb(): Promise<void> {
@@ -125,7 +155,11 @@ export class DrillStack {
   }
 
   async startObjectStore(): Promise<void> {
-    this.objectStore = await startObjectStore({ port: profile.s3.port, dataDir: profile.s3.dataDir, bucket: profile.s3.bucket });
+    this.objectStore = await startObjectStore({
+      port: profile.s3.port,
+      dataDir: profile.s3.dataDir,
+      bucket: profile.s3.bucket,
+    });
   }
 
   async stopObjectStore(): Promise<void> {

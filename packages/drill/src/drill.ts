@@ -8,7 +8,14 @@ import { ApiClient } from './api-client.ts';
 import { checkAcks, checkBalances, connectDatabase, emailStates } from './checks.ts';
 import { check, renderTable, type DrillResult } from './drill-report.ts';
 import { DrillStack, profile } from './drill-stack.ts';
-import { fullDurations, mariadbDrill, objectStoreDrill, quickDurations, smtpAndRedisDrills, type DrillContext } from './drills.ts';
+import {
+  fullDurations,
+  mariadbDrill,
+  objectStoreDrill,
+  quickDurations,
+  smtpAndRedisDrills,
+  type DrillContext,
+} from './drills.ts';
 import { answered, SteadyLoad } from './steady-load.ts';
 
 // npm run drill [-- --quick]: the full outages of issue 6, or short ones for development.
@@ -42,7 +49,9 @@ function machine() {
 }
 
 async function main(): Promise<void> {
-  say(`Mode: ${mode}${mode === 'quick' ? ' (short outages, for development; the figures are not the issue\'s)' : ' (the outages of issue 6)'}`);
+  say(
+    `Mode: ${mode}${mode === 'quick' ? " (short outages, for development; the figures are not the issue's)" : ' (the outages of issue 6)'}`,
+  );
   const stack = new DrillStack(life, say);
   await stack.prepare();
   life.assertRunning();
@@ -52,13 +61,17 @@ async function main(): Promise<void> {
   await life.add('the drill\u2019s database connection', () => db.destroy());
   const firm = (await db('firms').where({ name: 'Brackenford Heating Co.' }).first('id')) as { id: number } | undefined;
   if (!firm) throw new Error('The demo firm is missing after seeding.');
-  const depot = (await db('locations').where({ firm_id: firm.id, kind: 'depot' }).orderBy('id').first('id')) as { id: number };
+  const depot = (await db('locations').where({ firm_id: firm.id, kind: 'depot' }).orderBy('id').first('id')) as {
+    id: number;
+  };
   const van = (await db('locations as l')
     .join('memberships as m', 'm.id', 'l.engineer_member_id')
     .join('users as u', 'u.id', 'm.user_id')
     .where({ 'l.firm_id': firm.id, 'u.email': 'engineer@brackenford.example' })
     .first('l.id')) as { id: number };
-  const products = ((await db('products').where({ firm_id: firm.id }).orderBy('id').limit(3).select('id')) as { id: number }[]).map((p) => p.id);
+  const products = (
+    (await db('products').where({ firm_id: firm.id }).orderBy('id').limit(3).select('id')) as { id: number }[]
+  ).map((p) => p.id);
 
   const people = {
     owner: new ApiClient(stack.baseUrl, 'owner'),
@@ -72,10 +85,22 @@ async function main(): Promise<void> {
   const acksFile = join(profile.dataDir, 'acknowledged-writes.jsonl');
   const load = new SteadyLoad({ depotId: depot.id, vanId: van.id, productIds: products }, acksFile);
   load.start(people);
-  say(`Steady load: stores (receipts, transfers, reads), engineer (use one pack, reads), owner (reads); acknowledged writes logged to ${relative(repoRoot, acksFile)}`);
+  say(
+    `Steady load: stores (receipts, transfers, reads), engineer (use one pack, reads), owner (reads); acknowledged writes logged to ${relative(repoRoot, acksFile)}`,
+  );
   await new Promise((r) => setTimeout(r, 15_000));
 
-  const ctx: DrillContext = { stack, load, db, firmId: firm.id, depotId: depot.id, owner: people.owner, stores: people.stores, durations, say };
+  const ctx: DrillContext = {
+    stack,
+    load,
+    db,
+    firmId: firm.id,
+    depotId: depot.id,
+    owner: people.owner,
+    stores: people.stores,
+    durations,
+    say,
+  };
   const results: DrillResult[] = [];
   results.push(await mariadbDrill(ctx));
   results.push(await objectStoreDrill(ctx, products[0]!));
@@ -93,12 +118,37 @@ async function main(): Promise<void> {
     startedAt: new Date(began).toISOString(),
     seconds: Math.round((Date.now() - began) / 1000),
     checks: [
-      check('steady load answered', 'most of it', `${ok} of ${load.samples.length} requests answered (the rest fell in outages)`, load.samples.length > 0),
-      check('acknowledged writes are in the database', 'all', `${acks.acknowledged - acks.missing.length} of ${acks.acknowledged}; ${acks.duplicated.length} applied twice`, acks.missing.length === 0 && acks.duplicated.length === 0),
-      check('every balance equals its ledger', '0 mismatches', `${balances.mismatched.length} of ${balances.balances}`, balances.mismatched.length === 0),
-      check('every e-mail sent, once', 'all sent, none twice', `${emails.filter((e) => e.sentAt !== null).length} of ${emails.length} sent; ${emails.filter((e) => e.caught > 1).length} caught twice`, emails.every((e) => e.sentAt !== null && e.caught === 1)),
+      check(
+        'steady load answered',
+        'most of it',
+        `${ok} of ${load.samples.length} requests answered (the rest fell in outages)`,
+        load.samples.length > 0,
+      ),
+      check(
+        'acknowledged writes are in the database',
+        'all',
+        `${acks.acknowledged - acks.missing.length} of ${acks.acknowledged}; ${acks.duplicated.length} applied twice`,
+        acks.missing.length === 0 && acks.duplicated.length === 0,
+      ),
+      check(
+        'every balance equals its ledger',
+        '0 mismatches',
+        `${balances.mismatched.length} of ${balances.balances}`,
+        balances.mismatched.length === 0,
+      ),
+      check(
+        'every e-mail sent, once',
+        'all sent, none twice',
+        `${emails.filter((e) => e.sentAt !== null).length} of ${emails.length} sent; ${emails.filter((e) => e.caught > 1).length} caught twice`,
+        emails.every((e) => e.sentAt !== null && e.caught === 1),
+      ),
     ],
-    figures: { requests: load.samples.length, answered: ok, acknowledgedWrites: acks.acknowledged, emails: emails.length },
+    figures: {
+      requests: load.samples.length,
+      answered: ok,
+      acknowledgedWrites: acks.acknowledged,
+      emails: emails.length,
+    },
   });
 
   const date = new Date().toISOString().slice(0, 10);
@@ -111,11 +161,16 @@ async function main(): Promise<void> {
     `${JSON.stringify({ mode, durations, date: new Date().toISOString(), machine: machine(), passed: failed.length === 0, failed, results }, null, 2)}\n`,
   );
   process.stdout.write(`\n${renderTable(results)}\n`);
-  say(`Mode ${mode}; ${failed.length === 0 ? 'every check passed' : `${failed.length} check(s) failed`}. JSON: ${relative(repoRoot, outFile)}`);
+  say(
+    `Mode ${mode}; ${failed.length === 0 ? 'every check passed' : `${failed.length} check(s) failed`}. JSON: ${relative(repoRoot, outFile)}`,
+  );
   await life.shutdown(failed.length === 0 ? 0 : 1);
 }
 
 main().catch((error: unknown) => {
   if (life.stopping) return;
-  void life.shutdown(1, `npm run drill stopped: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+  void life.shutdown(
+    1,
+    `npm run drill stopped: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`,
+  );
 });

@@ -87,8 +87,18 @@ function processChecks(ctx: DrillContext, apiPid: number, workerPid: number): Ch
   const api = ctx.stack.api!;
   const worker = ctx.stack.worker!;
   return [
-    check('API process stays up', `pid ${apiPid} running`, api.hasExited() ? 'the API exited' : `pid ${api.pid} running`, !api.hasExited() && api.pid === apiPid),
-    check('worker process stays up', `pid ${workerPid} running`, worker.hasExited() ? 'the worker exited' : `pid ${worker.pid} running`, !worker.hasExited() && worker.pid === workerPid),
+    check(
+      'API process stays up',
+      `pid ${apiPid} running`,
+      api.hasExited() ? 'the API exited' : `pid ${api.pid} running`,
+      !api.hasExited() && api.pid === apiPid,
+    ),
+    check(
+      'worker process stays up',
+      `pid ${workerPid} running`,
+      worker.hasExited() ? 'the worker exited' : `pid ${worker.pid} running`,
+      !worker.hasExited() && worker.pid === workerPid,
+    ),
   ];
 }
 
@@ -104,8 +114,18 @@ async function ledgerChecks(ctx: DrillContext): Promise<{ checks: Check[]; figur
         `${acks.acknowledged - acks.missing.length} of ${acks.acknowledged} (${acks.replayed} answered by an idempotent replay)${acks.missing.length ? `; missing: ${acks.missing.slice(0, 3).join(', ')}` : ''}`,
         acks.missing.length === 0 && acks.acknowledged > 0,
       ),
-      check('no write applied twice', '0 keys with two groups', `${acks.duplicated.length} of ${acks.keysTried} keys`, acks.duplicated.length === 0),
-      check('every balance equals its ledger', '0 mismatches', `${balances.mismatched.length} of ${balances.balances} balances${balances.mismatched.length ? `: ${balances.mismatched.slice(0, 3).join('; ')}` : ''}`, balances.mismatched.length === 0),
+      check(
+        'no write applied twice',
+        '0 keys with two groups',
+        `${acks.duplicated.length} of ${acks.keysTried} keys`,
+        acks.duplicated.length === 0,
+      ),
+      check(
+        'every balance equals its ledger',
+        '0 mismatches',
+        `${balances.mismatched.length} of ${balances.balances} balances${balances.mismatched.length ? `: ${balances.mismatched.slice(0, 3).join('; ')}` : ''}`,
+        balances.mismatched.length === 0,
+      ),
     ],
     figures: { acks, balances },
   };
@@ -123,7 +143,9 @@ export async function mariadbDrill(ctx: DrillContext): Promise<DrillResult> {
   const restartAt = Date.now();
   await ctx.stack.startMariadb();
   const backAt = Date.now();
-  ctx.say(`MariaDB: back after ${seconds(backAt - killedAt)} (restart and crash recovery took ${seconds(backAt - restartAt)}); measuring ${seconds(d.recoveryWindowMs)}…`);
+  ctx.say(
+    `MariaDB: back after ${seconds(backAt - killedAt)} (restart and crash recovery took ${seconds(backAt - restartAt)}); measuring ${seconds(d.recoveryWindowMs)}…`,
+  );
   await sleep(d.recoveryWindowMs);
   // Requests still open at the end of the window are counted once they answer.
   await sleep(5_000);
@@ -144,9 +166,24 @@ export async function mariadbDrill(ctx: DrillContext): Promise<DrillResult> {
     seconds: Math.round((Date.now() - startedAt) / 1000),
     checks: [
       ...processChecks(ctx, apiPid, workerPid),
-      check('requests while down answer 503', 'every one answered while down', `${answeredWhileDown.length - non503WhileDown.length} of ${answeredWhileDown.length} were 503 (${describeCounts(statusCounts(answeredWhileDown))})`, answeredWhileDown.length > 0 && non503WhileDown.length === 0),
-      check('... and within 5 s', 'slowest under 5 s', `slowest ${seconds(Math.max(0, ...latencies))}, p50 ${seconds(quantile(latencies, 0.5))}; ${slow.length} over 5 s`, slow.length === 0),
-      check(`succeed within ${seconds(d.recoveryWindowMs)} of its return`, '>= 99%', `${percent(afterOk.length, after.length)} of ${after.length} (${describeCounts(statusCounts(after))}); first 2xx ${firstOk ? seconds(firstOk.end - backAt) : 'never'} after`, after.length > 0 && afterOk.length / after.length >= 0.99),
+      check(
+        'requests while down answer 503',
+        'every one answered while down',
+        `${answeredWhileDown.length - non503WhileDown.length} of ${answeredWhileDown.length} were 503 (${describeCounts(statusCounts(answeredWhileDown))})`,
+        answeredWhileDown.length > 0 && non503WhileDown.length === 0,
+      ),
+      check(
+        '... and within 5 s',
+        'slowest under 5 s',
+        `slowest ${seconds(Math.max(0, ...latencies))}, p50 ${seconds(quantile(latencies, 0.5))}; ${slow.length} over 5 s`,
+        slow.length === 0,
+      ),
+      check(
+        `succeed within ${seconds(d.recoveryWindowMs)} of its return`,
+        '>= 99%',
+        `${percent(afterOk.length, after.length)} of ${after.length} (${describeCounts(statusCounts(after))}); first 2xx ${firstOk ? seconds(firstOk.end - backAt) : 'never'} after`,
+        after.length > 0 && afterOk.length / after.length >= 0.99,
+      ),
       ...ledger.checks,
     ],
     figures: {
@@ -164,7 +201,10 @@ export async function mariadbDrill(ctx: DrillContext): Promise<DrillResult> {
 }
 
 // A 1x1 PNG and the smallest file file-type takes for a PDF: invented content, only the bytes' type matters.
-const tinyPng = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
+const tinyPng = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
 const tinyPdf = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n');
 
 function uploadPhoto(client: ApiClient): Promise<Answer> {
@@ -205,7 +245,11 @@ export async function objectStoreDrill(ctx: DrillContext, productId: number): Pr
   const message = (refused[0]?.answer.body as { message?: string } | undefined)?.message ?? '(none)';
   const plain = refused.every((u) => {
     const body = u.answer.body as { error?: string; message?: string } | null;
-    return body?.error === 'ServiceUnavailable' && /file storage/.test(body.message ?? '') && !/ECONN|S3|stack|Error:/.test(body.message ?? '');
+    return (
+      body?.error === 'ServiceUnavailable' &&
+      /file storage/.test(body.message ?? '') &&
+      !/ECONN|S3|stack|Error:/.test(body.message ?? '')
+    );
   });
   const retryAfter = refused.length > 0;
   const slowest = Math.max(0, ...during.map((u) => u.answer.ms));
@@ -216,14 +260,44 @@ export async function objectStoreDrill(ctx: DrillContext, productId: number): Pr
     seconds: Math.round((Date.now() - startedAt) / 1000),
     checks: [
       ...processChecks(ctx, apiPid, workerPid),
-      check('uploads before the outage', '2 stored', before.map((a) => a.status).join(', '), before.every((a) => a.status === 200 || a.status === 201)),
-      check('uploads while down answer 503', 'every one', `${refused.length} of ${during.length} (${during.map((u) => u.answer.status).filter((s, i, all) => all.indexOf(s) === i).join(', ')}), slowest ${seconds(slowest)}`, retryAfter && refused.length === during.length),
+      check(
+        'uploads before the outage',
+        '2 stored',
+        before.map((a) => a.status).join(', '),
+        before.every((a) => a.status === 200 || a.status === 201),
+      ),
+      check(
+        'uploads while down answer 503',
+        'every one',
+        `${refused.length} of ${during.length} (${during
+          .map((u) => u.answer.status)
+          .filter((s, i, all) => all.indexOf(s) === i)
+          .join(', ')}), slowest ${seconds(slowest)}`,
+        retryAfter && refused.length === during.length,
+      ),
       check('... in plain words', 'error body, no internals', `"${message}"`, plain && refused.length > 0),
       check('no row written while down', `${rowsBefore} photo rows`, `${rowsDuring}`, rowsDuring === rowsBefore),
-      check('uploads after its return', '2 stored', after.map((a) => a.status).join(', '), after.every((a) => a.status === 200 || a.status === 201)),
-      check('no row points at a missing file', '0 missing', `${files.missing.length} of ${files.rows} photo and data-sheet rows`, files.missing.length === 0),
+      check(
+        'uploads after its return',
+        '2 stored',
+        after.map((a) => a.status).join(', '),
+        after.every((a) => a.status === 200 || a.status === 201),
+      ),
+      check(
+        'no row points at a missing file',
+        '0 missing',
+        `${files.missing.length} of ${files.rows} photo and data-sheet rows`,
+        files.missing.length === 0,
+      ),
     ],
-    figures: { uploadsWhileDown: during.length, refused: refused.length, slowestMs: slowest, message, storedFileRows: files.rows, missingFiles: files.missing },
+    figures: {
+      uploadsWhileDown: during.length,
+      refused: refused.length,
+      slowestMs: slowest,
+      message,
+      storedFileRows: files.rows,
+      missingFiles: files.missing,
+    },
   };
 }
 
@@ -245,7 +319,9 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
   const workerPid = ctx.stack.worker!.pid;
   const lastEmailId = Number(((await ctx.db('emails').max({ id: 'id' }).first()) as { id: number | null }).id ?? 0);
 
-  ctx.say(`SMTP: down for ${seconds(d.smtpDownMs)}; Redis goes down ${seconds(d.redisAfterSmtpMs)} in, for ${seconds(d.redisDownMs)}…`);
+  ctx.say(
+    `SMTP: down for ${seconds(d.smtpDownMs)}; Redis goes down ${seconds(d.redisAfterSmtpMs)} in, for ${seconds(d.redisDownMs)}…`,
+  );
   await ctx.stack.stopMail();
   const smtpDownAt = Date.now();
   const invitations: Invitation[] = [];
@@ -267,11 +343,21 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
   const redisDownAt = Date.now();
   ctx.say('Redis: stopped; making kit items due and scanning…');
   await sleep(3_000);
-  const kind = (await ctx.db('item_kinds').where({ firm_id: ctx.firmId }).whereNotNull('interval_days').orderBy('id').first('id', 'name')) as { id: number; name: string } | undefined;
+  const kind = (await ctx
+    .db('item_kinds')
+    .where({ firm_id: ctx.firmId })
+    .whereNotNull('interval_days')
+    .orderBy('id')
+    .first('id', 'name')) as { id: number; name: string } | undefined;
   if (!kind) throw new Error('The demo firm has no item kind with an inspection interval.');
   const tag = `D${(startedAt % 1_000_000).toString(36).toUpperCase()}`;
   const makeItem = async (label: string) => {
-    const answer = await ctx.owner.post('/api/kit-items', { assetTag: `${tag}-${label}`, kindId: kind.id, locationId: ctx.depotId, inServiceSince: '2024-01-02' });
+    const answer = await ctx.owner.post('/api/kit-items', {
+      assetTag: `${tag}-${label}`,
+      kindId: kind.id,
+      locationId: ctx.depotId,
+      inServiceSince: '2024-01-02',
+    });
     return { label, status: answer.status, id: (answer.body as { item?: { id: number } } | null)?.item?.id ?? null };
   };
   const scannedNow = [await makeItem('S1'), await makeItem('S2'), await makeItem('S3')];
@@ -294,7 +380,9 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
   const smtpBackAt = Date.now();
   inviting = false;
   await invitingLoop;
-  ctx.say(`SMTP: back after ${seconds(smtpBackAt - smtpDownAt)}; waiting for every e-mail to go (up to ${seconds(d.deliveryWaitMs)})…`);
+  ctx.say(
+    `SMTP: back after ${seconds(smtpBackAt - smtpDownAt)}; waiting for every e-mail to go (up to ${seconds(d.deliveryWaitMs)})…`,
+  );
   const newer = (q: Knex.QueryBuilder) => void q.where('id', '>', lastEmailId);
   let states = await emailStates(ctx.db, profile.outboxDir, newer);
   while (Date.now() < smtpBackAt + d.deliveryWaitMs && states.some((s) => s.sentAt === null || s.caught === 0)) {
@@ -314,22 +402,52 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
   const retries = retryRun(smtpDownAt);
   const smtpChecks = [
     ...processChecks(ctx, apiPid, workerPid),
-    check('invitations accepted while SMTP down', 'all 201', `${invitesOk.length} of ${invitations.length}`, invitations.length > 0 && invitesOk.length === invitations.length),
-    check('no e-mail lost', 'all written are sent', `${sent.length} of ${written.length} sent (${written.filter((s) => s.purpose === 'invitation').length} invitations, ${written.filter((s) => s.purpose === 'reminder').length} reminders)`, written.length > 0 && sent.length === written.length),
+    check(
+      'invitations accepted while SMTP down',
+      'all 201',
+      `${invitesOk.length} of ${invitations.length}`,
+      invitations.length > 0 && invitesOk.length === invitations.length,
+    ),
+    check(
+      'no e-mail lost',
+      'all written are sent',
+      `${sent.length} of ${written.length} sent (${written.filter((s) => s.purpose === 'invitation').length} invitations, ${written.filter((s) => s.purpose === 'reminder').length} reminders)`,
+      written.length > 0 && sent.length === written.length,
+    ),
     check(
       'retried with backoff meanwhile',
       'gaps 5, 10, 20, 40, 80, 120 s...',
       `${retries.jobs} jobs failed and waited; one job's gaps: ${retries.gapsS.join(', ')} s (${retries.onSchedule} on schedule; one spanning the Redis outage is longer); failed attempts per e-mail up to ${Math.max(0, ...attempts)}`,
       retries.onSchedule >= 3,
     ),
-    check('delivered after it returns', 'within 2 min 30 s', `all within ${seconds(Math.max(0, ...delays))} (median ${seconds(quantile(delays, 0.5))})`, delays.length === written.length && Math.max(0, ...delays) <= 150_000),
-    check('each received once', 'once each, none twice', `${caughtOnce.length} of ${written.length} once; ${twice.length} e-mails caught twice or more`, caughtOnce.length === written.length && twice.length === 0),
+    check(
+      'delivered after it returns',
+      'within 2 min 30 s',
+      `all within ${seconds(Math.max(0, ...delays))} (median ${seconds(quantile(delays, 0.5))})`,
+      delays.length === written.length && Math.max(0, ...delays) <= 150_000,
+    ),
+    check(
+      'each received once',
+      'once each, none twice',
+      `${caughtOnce.length} of ${written.length} once; ${twice.length} e-mails caught twice or more`,
+      caughtOnce.length === written.length && twice.length === 0,
+    ),
   ];
 
   // The Redis drill: the reminders that fell due while it was down.
   const itemIds = items.map((i) => i.id).filter((id): id is number => id !== null);
-  const reminders = (await ctx.db('reminders').where({ firm_id: ctx.firmId, subject_type: 'kit_item' }).whereIn('subject_id', itemIds).select('id', 'subject_id', 'created_at')) as { id: number; subject_id: number; created_at: Date }[];
-  const deliveries = (await ctx.db('reminder_deliveries').whereIn('reminder_id', reminders.map((r) => r.id)).select('reminder_id', 'email_id', 'recipient')) as { reminder_id: number; email_id: number; recipient: string }[];
+  const reminders = (await ctx
+    .db('reminders')
+    .where({ firm_id: ctx.firmId, subject_type: 'kit_item' })
+    .whereIn('subject_id', itemIds)
+    .select('id', 'subject_id', 'created_at')) as { id: number; subject_id: number; created_at: Date }[];
+  const deliveries = (await ctx
+    .db('reminder_deliveries')
+    .whereIn(
+      'reminder_id',
+      reminders.map((r) => r.id),
+    )
+    .select('reminder_id', 'email_id', 'recipient')) as { reminder_id: number; email_id: number; recipient: string }[];
   const reminderEmailIds = [...new Set(deliveries.map((r) => r.email_id))];
   const reminderEmails = states.filter((s) => reminderEmailIds.includes(s.id));
   const perItem = itemIds.map((id) => reminders.filter((r) => r.subject_id === id).length);
@@ -342,12 +460,47 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
   const sweptIds = forTheSweep.map((i) => i.id).filter((id): id is number => id !== null);
   const redisChecks = [
     ...processChecks(ctx, apiPid, workerPid),
-    check('routes without Redis keep working', '>= 99% of the steady load', `${percent(redisWindowOk.length, redisWindow.length)} of ${redisWindow.length} (${describeCounts(statusCounts(redisWindow))})`, redisWindow.length > 0 && redisWindowOk.length / redisWindow.length >= 0.99),
-    check('kit items made due while down', '5 created (201)', items.map((i) => i.status).join(', '), items.every((i) => i.status === 201)),
-    check('"scan now" while down', "200, the 3 items' reminders recorded", `${scan.status}, ${scanBody?.sent ?? '?'} new in the firm; ${scannedIds.filter((id) => reminderBefore(id)).length} of 3 items`, scan.status === 200 && scannedIds.length === 3 && scannedIds.every(reminderBefore)),
-    check('scheduler sweep after its return', 'the other 2 items, then nothing new', `items reminded by the sweep: ${sweptIds.filter(reminderAfter).length} of 2; sweeps: ${sweeps.map((w) => `${w.state} (${w.reminders ?? '?'} new)`).join(', ')}`, sweptIds.length === 2 && sweptIds.every(reminderAfter) && sweeps.length === 2 && sweeps.every((w) => w.state === 'completed') && sweeps[1]?.reminders === 0),
-    check('one reminder per item and period', '1 each', perItem.join(', '), perItem.length === 5 && perItem.every((n) => n === 1)),
-    check('reminder e-mails all sent after it returns', 'all sent, none twice', `${reminderEmails.filter((s) => s.sentAt !== null).length} of ${reminderEmails.length} sent, ${deliveries.length} deliveries; caught ${reminderEmails.map((s) => s.caught).join(',')} times; first ${seconds(Math.min(...reminderDelays))} after Redis returned (SMTP was down until ${seconds(smtpBackAt - redisBackAt)} after)`, reminderEmails.length > 0 && reminderEmails.every((s) => s.sentAt !== null && s.sentAt >= redisBackAt && s.caught === 1)),
+    check(
+      'routes without Redis keep working',
+      '>= 99% of the steady load',
+      `${percent(redisWindowOk.length, redisWindow.length)} of ${redisWindow.length} (${describeCounts(statusCounts(redisWindow))})`,
+      redisWindow.length > 0 && redisWindowOk.length / redisWindow.length >= 0.99,
+    ),
+    check(
+      'kit items made due while down',
+      '5 created (201)',
+      items.map((i) => i.status).join(', '),
+      items.every((i) => i.status === 201),
+    ),
+    check(
+      '"scan now" while down',
+      "200, the 3 items' reminders recorded",
+      `${scan.status}, ${scanBody?.sent ?? '?'} new in the firm; ${scannedIds.filter((id) => reminderBefore(id)).length} of 3 items`,
+      scan.status === 200 && scannedIds.length === 3 && scannedIds.every(reminderBefore),
+    ),
+    check(
+      'scheduler sweep after its return',
+      'the other 2 items, then nothing new',
+      `items reminded by the sweep: ${sweptIds.filter(reminderAfter).length} of 2; sweeps: ${sweeps.map((w) => `${w.state} (${w.reminders ?? '?'} new)`).join(', ')}`,
+      sweptIds.length === 2 &&
+        sweptIds.every(reminderAfter) &&
+        sweeps.length === 2 &&
+        sweeps.every((w) => w.state === 'completed') &&
+        sweeps[1]?.reminders === 0,
+    ),
+    check(
+      'one reminder per item and period',
+      '1 each',
+      perItem.join(', '),
+      perItem.length === 5 && perItem.every((n) => n === 1),
+    ),
+    check(
+      'reminder e-mails all sent after it returns',
+      'all sent, none twice',
+      `${reminderEmails.filter((s) => s.sentAt !== null).length} of ${reminderEmails.length} sent, ${deliveries.length} deliveries; caught ${reminderEmails.map((s) => s.caught).join(',')} times; first ${seconds(Math.min(...reminderDelays))} after Redis returned (SMTP was down until ${seconds(smtpBackAt - redisBackAt)} after)`,
+      reminderEmails.length > 0 &&
+        reminderEmails.every((s) => s.sentAt !== null && s.sentAt >= redisBackAt && s.caught === 1),
+    ),
   ];
 
   const finished = new Date(settledAt).toISOString();
@@ -358,7 +511,15 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
       startedAt: new Date(smtpDownAt).toISOString(),
       seconds: Math.round((settledAt - smtpDownAt) / 1000),
       checks: smtpChecks,
-      figures: { emailsWritten: written.length, sent: sent.length, invitations: invitations.length, attempts, retries, deliveryAfterReturnMs: delays, settledAt: finished },
+      figures: {
+        emailsWritten: written.length,
+        sent: sent.length,
+        invitations: invitations.length,
+        attempts,
+        retries,
+        deliveryAfterReturnMs: delays,
+        settledAt: finished,
+      },
     },
     {
       drill: 'Redis stopped',
@@ -366,7 +527,16 @@ export async function smtpAndRedisDrills(ctx: DrillContext): Promise<[DrillResul
       startedAt: new Date(redisDownAt).toISOString(),
       seconds: Math.round((settledAt - redisDownAt) / 1000),
       checks: redisChecks,
-      figures: { requestsWhileDown: redisWindow.length, statusesWhileDown: statusCounts(redisWindow), items, scan: { status: scan.status, body: scan.body }, sweeps, reminders: reminders.length, deliveries: deliveries.length, reminderEmailDelaysAfterRedisMs: reminderDelays },
+      figures: {
+        requestsWhileDown: redisWindow.length,
+        statusesWhileDown: statusCounts(redisWindow),
+        items,
+        scan: { status: scan.status, body: scan.body },
+        sweeps,
+        reminders: reminders.length,
+        deliveries: deliveries.length,
+        reminderEmailDelaysAfterRedisMs: reminderDelays,
+      },
     },
   ];
 }
@@ -399,7 +569,8 @@ function retryRun(since: number): { jobs: number; gapsS: number[]; expectedS: nu
     const gapsS = times.slice(1).map((t, i) => Math.round((t - times[i]!) / 100) / 10);
     const expectedS = gapsS.map((_, i) => emailRetryDelayMs(i + 1) / 1000);
     const onSchedule = gapsS.filter((gap, i) => Math.abs(gap - expectedS[i]!) < 2).length;
-    if (onSchedule > best.onSchedule || (onSchedule === best.onSchedule && gapsS.length > best.gapsS.length)) best = { jobs: byJob.size, gapsS, expectedS, onSchedule };
+    if (onSchedule > best.onSchedule || (onSchedule === best.onSchedule && gapsS.length > best.gapsS.length))
+      best = { jobs: byJob.size, gapsS, expectedS, onSchedule };
   }
   return best;
 }

@@ -76,25 +76,39 @@ export class SteadyLoad {
     this.loops = [
       this.loop(stores, [
         (c) => this.read(c, '/api/stock'),
-        (c, n) => this.write(c, 'receipt', '/api/stock/receipts', (key) => ({
-          locationId: this.places.depotId,
-          reference: writeTag(key),
-          lines: [{ productId: product(n), lotNumber: `DRILL-${++this.lotCounter}`, expiresOn: '2029-06-30', quantity: 4 }],
-        })),
+        (c, n) =>
+          this.write(c, 'receipt', '/api/stock/receipts', (key) => ({
+            locationId: this.places.depotId,
+            reference: writeTag(key),
+            lines: [
+              { productId: product(n), lotNumber: `DRILL-${++this.lotCounter}`, expiresOn: '2029-06-30', quantity: 4 },
+            ],
+          })),
         (c) => this.read(c, '/api/stock/movements'),
-        (c, n) => this.write(c, 'transfer', '/api/stock/transfers', (key) => ({
-          fromLocationId: this.places.depotId,
-          toLocationId: this.places.vanId,
-          lines: [{ productId: product(n), quantity: 2 }],
-          note: writeTag(key),
-        })),
+        (c, n) =>
+          this.write(c, 'transfer', '/api/stock/transfers', (key) => ({
+            fromLocationId: this.places.depotId,
+            toLocationId: this.places.vanId,
+            lines: [{ productId: product(n), quantity: 2 }],
+            note: writeTag(key),
+          })),
       ]),
       this.loop(engineer, [
         (c) => this.read(c, '/api/me/van/stock'),
-        (c, n) => this.write(c, 'usage', '/api/stock/usages', (key) => ({ locationId: this.places.vanId, productId: product(n), quantity: 1, reason: writeTag(key) })),
+        (c, n) =>
+          this.write(c, 'usage', '/api/stock/usages', (key) => ({
+            locationId: this.places.vanId,
+            productId: product(n),
+            quantity: 1,
+            reason: writeTag(key),
+          })),
         (c) => this.read(c, '/api/kits'),
       ]),
-      this.loop(owner, [(c) => this.read(c, '/api/me'), (c) => this.read(c, '/api/kit-items'), (c) => this.read(c, '/api/stock')]),
+      this.loop(owner, [
+        (c) => this.read(c, '/api/me'),
+        (c) => this.read(c, '/api/kit-items'),
+        (c) => this.read(c, '/api/stock'),
+      ]),
     ];
   }
 
@@ -114,7 +128,14 @@ export class SteadyLoad {
   }
 
   private record(client: ApiClient, op: string, start: number, answer: Answer): void {
-    this.samples.push({ client: client.label, op, start, end: start + answer.ms, status: answer.status, ...(answer.error !== undefined && { error: answer.error }) });
+    this.samples.push({
+      client: client.label,
+      op,
+      start,
+      end: start + answer.ms,
+      status: answer.status,
+      ...(answer.error !== undefined && { error: answer.error }),
+    });
   }
 
   private async read(client: ApiClient, path: string): Promise<Answer> {
@@ -126,7 +147,12 @@ export class SteadyLoad {
 
   private readonly pending = new Map<string, PendingWrite>();
 
-  private async write(client: ApiClient, kind: WriteKind, path: string, body: (key: string) => unknown): Promise<Answer> {
+  private async write(
+    client: ApiClient,
+    kind: WriteKind,
+    path: string,
+    body: (key: string) => unknown,
+  ): Promise<Answer> {
     const slot = `${client.label} ${kind}`;
     // The same key and the same body again after a lost answer: a new body under an old key would be refused.
     const pending = this.pending.get(slot) ?? { key: randomUUID(), attempt: 0 };
@@ -139,7 +165,14 @@ export class SteadyLoad {
     this.record(client, `POST ${path}`, start, answer);
     if (answer.status === 201) {
       const out = answer.body as { groupId: string; movements: { id: number }[] };
-      const ack: Ack = { kind, key: pending.key, groupId: out.groupId, movementIds: out.movements.map((m) => Number(m.id)), at: Date.now(), attempt: pending.attempt };
+      const ack: Ack = {
+        kind,
+        key: pending.key,
+        groupId: out.groupId,
+        movementIds: out.movements.map((m) => Number(m.id)),
+        at: Date.now(),
+        attempt: pending.attempt,
+      };
       this.acks.push(ack);
       appendFileSync(this.acksFile, `${JSON.stringify(ack)}\n`);
       this.pending.delete(slot);

@@ -11,7 +11,12 @@ const envSchema = z.object({
   ALLOWED_HOSTS: z
     .string()
     .default('')
-    .transform((s) => s.split(',').map((h) => h.trim().toLowerCase()).filter(Boolean)),
+    .transform((s) =>
+      s
+        .split(',')
+        .map((h) => h.trim().toLowerCase())
+        .filter(Boolean),
+    ),
   DATABASE_HOST: z.string().default('127.0.0.1'),
   DATABASE_PORT: z.coerce.number().int().default(3406),
   DATABASE_USER: z.string().default('heatfleet'),
@@ -25,8 +30,18 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Heatfleet <no-reply@heatfleet.example>'),
   SESSION_SECRET: z.string().min(32, { error: 'SESSION_SECRET must be at least 32 characters.' }),
-  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(120),
-  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(120),
+  SESSION_ABSOLUTE_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 30)
+    .default(12),
   // S3-compatible object storage for photos; the defaults point at the local stand-in of `npm start`.
   S3_ENDPOINT: z.url().optional().default('http://127.0.0.1:4569'),
   S3_REGION: z.string().default('eu-west-2'),

@@ -22,7 +22,8 @@ function timestamp(d = new Date()): string {
 async function main(): Promise<void> {
   const [command, name] = process.argv.slice(2);
   if (command === 'make') {
-    if (!name || !/^[a-z0-9-]+$/.test(name)) throw new Error('Usage: npm run db:make -- NAME (kebab-case, e.g. create-vans)');
+    if (!name || !/^[a-z0-9-]+$/.test(name))
+      throw new Error('Usage: npm run db:make -- NAME (kebab-case, e.g. create-vans)');
     await mkdir(migrationsDir, { recursive: true });
     const file = path.join(migrationsDir, `${timestamp()}_${name}.ts`);
     await writeFile(file, migrationTemplate, { flag: 'wx' });

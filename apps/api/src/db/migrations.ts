@@ -25,7 +25,9 @@ export async function migrateLatest(db: Knex): Promise<string[]> {
 
 /** Drops every table of the connected database; for db:reset and the tests' fresh start. */
 export async function dropAllTables(db: Knex): Promise<void> {
-  const rows: { name: string }[] = (await db.raw('SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()'))[0];
+  const rows: { name: string }[] = (
+    await db.raw('SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE()')
+  )[0];
   if (rows.length === 0) return;
   await db.raw('SET FOREIGN_KEY_CHECKS = 0');
   try {

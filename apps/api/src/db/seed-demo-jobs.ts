@@ -1,14 +1,105 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import { addDays, addMonths, calendarDateIn, dosePlan, inhibitorCheck, surveySchema, surveyVolume, type Survey } from '@heatfleet/domain';
+import {
+  addDays,
+  addMonths,
+  calendarDateIn,
+  dosePlan,
+  inhibitorCheck,
+  surveySchema,
+  surveyVolume,
+  type Survey,
+} from '@heatfleet/domain';
 
 type Trx = Knex.Transaction;
 
 // Invented customers, streets and visits for the demo; no real person or address.
-const firstNames = ['Odile', 'Harlan', 'Tamsin', 'Bram', 'Elowen', 'Corin', 'Ysolde', 'Fenn', 'Marit', 'Osric', 'Liesl', 'Teodor', 'Wynne', 'Anouk', 'Caspian', 'Reva', 'Idris', 'Solvei', 'Jago', 'Perpetua', 'Lorcan', 'Maelle', 'Tobiah', 'Ondine'];
-const surnames = ['Farrant', 'Strood', 'Vell', 'Quillby', 'Marchbank', 'Trevennor', 'Ashgrove', 'Pellow', 'Hartwick', 'Dunmore', 'Corbell', 'Elsworth', 'Faircloth', 'Gorrell', 'Kestle', 'Lanyon', 'Mabbott', 'Nancarrow', 'Orchardson', 'Penhallow', 'Rosewarne', 'Stannard', 'Tregear', 'Wetherall'];
-const streets = ['Weir Cottages', 'Sluice Row', 'Mill Hill', 'Tanners Lane', 'Copse Road', 'Bridgefoot', 'Lockkeeper Close', 'Orchard Rise', 'Fuller Street', 'Kiln Lane', 'Ropewalk', 'Heron Way', 'Chapel Steps', 'Furnace Road', 'Wharf Terrace', 'Beacon View'];
-const rooms = ['Lounge', 'Kitchen', 'Hall', 'Dining room', 'Bedroom 1', 'Bedroom 2', 'Bedroom 3', 'Bedroom 4', 'Bathroom', 'Landing', 'Study', 'En suite', 'Utility', 'Conservatory'];
+const firstNames = [
+  'Odile',
+  'Harlan',
+  'Tamsin',
+  'Bram',
+  'Elowen',
+  'Corin',
+  'Ysolde',
+  'Fenn',
+  'Marit',
+  'Osric',
+  'Liesl',
+  'Teodor',
+  'Wynne',
+  'Anouk',
+  'Caspian',
+  'Reva',
+  'Idris',
+  'Solvei',
+  'Jago',
+  'Perpetua',
+  'Lorcan',
+  'Maelle',
+  'Tobiah',
+  'Ondine',
+];
+const surnames = [
+  'Farrant',
+  'Strood',
+  'Vell',
+  'Quillby',
+  'Marchbank',
+  'Trevennor',
+  'Ashgrove',
+  'Pellow',
+  'Hartwick',
+  'Dunmore',
+  'Corbell',
+  'Elsworth',
+  'Faircloth',
+  'Gorrell',
+  'Kestle',
+  'Lanyon',
+  'Mabbott',
+  'Nancarrow',
+  'Orchardson',
+  'Penhallow',
+  'Rosewarne',
+  'Stannard',
+  'Tregear',
+  'Wetherall',
+];
+const streets = [
+  'Weir Cottages',
+  'Sluice Row',
+  'Mill Hill',
+  'Tanners Lane',
+  'Copse Road',
+  'Bridgefoot',
+  'Lockkeeper Close',
+  'Orchard Rise',
+  'Fuller Street',
+  'Kiln Lane',
+  'Ropewalk',
+  'Heron Way',
+  'Chapel Steps',
+  'Furnace Road',
+  'Wharf Terrace',
+  'Beacon View',
+];
+const rooms = [
+  'Lounge',
+  'Kitchen',
+  'Hall',
+  'Dining room',
+  'Bedroom 1',
+  'Bedroom 2',
+  'Bedroom 3',
+  'Bedroom 4',
+  'Bathroom',
+  'Landing',
+  'Study',
+  'En suite',
+  'Utility',
+  'Conservatory',
+];
 const panels = ['single', 'single_fins', 'double', 'double_fins', 'double', 'single_fins'] as const;
 
 /** A small deterministic generator, so every demo seed tells the same story. */
@@ -21,7 +112,11 @@ function randomFrom(seed: number) {
     t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
     return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
   };
-  return { next, int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1)), pick: <T>(xs: readonly T[]) => xs[Math.floor(next() * xs.length)]! };
+  return {
+    next,
+    int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1)),
+    pick: <T>(xs: readonly T[]) => xs[Math.floor(next() * xs.length)]!,
+  };
 }
 
 /** A survey as an engineer would enter it, checked by the same schema the API uses. */
@@ -32,7 +127,13 @@ function surveyFor(r: ReturnType<typeof randomFrom>): Survey {
     const panel = r.pick(panels);
     return rail
       ? { room: 'Bathroom', panel: 'towel_rail' as const, litres: 3 }
-      : { room: rooms[i % rooms.length]!, panel, heightMm: r.pick([450, 600, 600, 700]), lengthMm: r.pick([600, 800, 1000, 1200, 1400, 1600]), ratedWatts: r.int(6, 24) * 100 };
+      : {
+          room: rooms[i % rooms.length]!,
+          panel,
+          heightMm: r.pick([450, 600, 600, 700]),
+          lengthMm: r.pick([600, 800, 1000, 1200, 1400, 1600]),
+          ratedWatts: r.int(6, 24) * 100,
+        };
   });
   const boilerKind = r.pick(['combi', 'combi', 'system', 'regular'] as const);
   return surveySchema.parse({
@@ -58,7 +159,11 @@ const at = (day: string, hourUtc: number) => new Date(`${day}T${String(hourUtc).
  * months ago fall due their annual check; a few have had their check visit already. Then the three
  * booked visits of engineer@ that the browser tests use.
  */
-export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tarnside: number }, now: Date): Promise<void> {
+export async function seedDemoJobs(
+  trx: Trx,
+  firmIds: { brackenford: number; tarnside: number },
+  now: Date,
+): Promise<void> {
   const today = calendarDateIn(now, 'Europe/London');
   const firmId = firmIds.brackenford;
   const r = randomFrom(20261202);
@@ -68,15 +173,47 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
     .join('memberships as m', (j) => j.on('m.id', '=', 'l.engineer_member_id').andOn('m.firm_id', '=', 'l.firm_id'))
     .where({ 'l.firm_id': firmId, 'l.kind': 'van' })
     .orderBy('l.id')
-    .select('l.id as van_id', 'm.id as member_id', 'm.user_id')) as { van_id: number; member_id: number; user_id: number }[];
-  const productRows = (await trx('products').where({ firm_id: firmId }).whereIn('name', ['HFL System Cleaner', 'HFL Rapid Cleaner', 'HFL Inhibitor']).select('id', 'name', 'kind', 'pack_size_ml', 'dose_litres_per_100l', 'radiators_per_pack', 'target_min', 'target_max', 'target_unit')) as {
-    id: number; name: string; kind: string; pack_size_ml: number; dose_litres_per_100l: string | null; radiators_per_pack: number | null; target_min: string | null; target_max: string | null; target_unit: string | null;
+    .select('l.id as van_id', 'm.id as member_id', 'm.user_id')) as {
+    van_id: number;
+    member_id: number;
+    user_id: number;
+  }[];
+  const productRows = (await trx('products')
+    .where({ firm_id: firmId })
+    .whereIn('name', ['HFL System Cleaner', 'HFL Rapid Cleaner', 'HFL Inhibitor'])
+    .select(
+      'id',
+      'name',
+      'kind',
+      'pack_size_ml',
+      'dose_litres_per_100l',
+      'radiators_per_pack',
+      'target_min',
+      'target_max',
+      'target_unit',
+    )) as {
+    id: number;
+    name: string;
+    kind: string;
+    pack_size_ml: number;
+    dose_litres_per_100l: string | null;
+    radiators_per_pack: number | null;
+    target_min: string | null;
+    target_max: string | null;
+    target_unit: string | null;
   }[];
   const byName = new Map(productRows.map((p) => [p.name, p]));
   const inhibitor = byName.get('HFL Inhibitor')!;
 
   // The visits: working days over the last 52 weeks, two to four a week, none today or later.
-  type Visit = { day: string; crew: (typeof crews)[number]; survey: Survey; cleaner: (typeof productRows)[number]; customer: string; address: string };
+  type Visit = {
+    day: string;
+    crew: (typeof crews)[number];
+    survey: Survey;
+    cleaner: (typeof productRows)[number];
+    customer: string;
+    address: string;
+  };
   const visits: Visit[] = [];
   const start = addDays(today, -364);
   const firstMonday = addDays(start, -((new Date(`${start}T00:00:00Z`).getUTCDay() + 6) % 7));
@@ -99,19 +236,38 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
     }
   }
 
-  const customerRows = visits.map((v) => ({ firm_id: firmId, name: v.customer, email: `${v.customer.toLowerCase().replace(/[^a-z]+/g, '.')}@customer.example`, phone: `01632 ${String(r.int(100000, 999999))}` }));
+  const customerRows = visits.map((v) => ({
+    firm_id: firmId,
+    name: v.customer,
+    email: `${v.customer.toLowerCase().replace(/[^a-z]+/g, '.')}@customer.example`,
+    phone: `01632 ${String(r.int(100000, 999999))}`,
+  }));
   const firstCustomerId = ((await trx('customers').insert(customerRows)) as number[])[0]!;
   // MariaDB hands out consecutive ids to one multi-row insert (innodb_autoinc_lock_mode 1 or 2 without concurrent inserts).
   const customerIds = await consecutiveIds(trx, 'customers', firmId, firstCustomerId, visits.length);
-  const siteRows = visits.map((v, i) => ({ firm_id: firmId, customer_id: customerIds[i]!, address: v.address, access_notes: r.next() < 0.3 ? 'Key with the neighbour at number 2.' : null, system_notes: null }));
+  const siteRows = visits.map((v, i) => ({
+    firm_id: firmId,
+    customer_id: customerIds[i]!,
+    address: v.address,
+    access_notes: r.next() < 0.3 ? 'Key with the neighbour at number 2.' : null,
+    system_notes: null,
+  }));
   const firstSiteId = ((await trx('sites').insert(siteRows)) as number[])[0]!;
   const siteIds = await consecutiveIds(trx, 'sites', firmId, firstSiteId, visits.length);
 
   const jobRows = visits.map((v, i) => {
     const completedOn = v.day;
     return {
-      firm_id: firmId, site_id: siteIds[i]!, engineer_member_id: v.crew.member_id, van_location_id: v.crew.van_id, scheduled_on: v.day, status: 'completed',
-      survey: JSON.stringify(v.survey), completed_at: at(completedOn, 15), completed_by_user_id: v.crew.user_id, next_check_on: addMonths(completedOn, 12),
+      firm_id: firmId,
+      site_id: siteIds[i]!,
+      engineer_member_id: v.crew.member_id,
+      van_location_id: v.crew.van_id,
+      scheduled_on: v.day,
+      status: 'completed',
+      survey: JSON.stringify(v.survey),
+      completed_at: at(completedOn, 15),
+      completed_by_user_id: v.crew.user_id,
+      next_check_on: addMonths(completedOn, 12),
     };
   });
   const firstJobId = ((await trx('jobs').insert(jobRows)) as number[])[0]!;
@@ -122,24 +278,61 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
   visits.forEach((v, i) => {
     const volume = surveyVolume(v.survey).totalLitres;
     for (const product of [v.cleaner, inhibitor]) {
-      const plan = dosePlan(volume, v.survey.radiators.length, { packSizeMl: product.pack_size_ml, doseLitresPer100L: product.dose_litres_per_100l === null ? null : Number(product.dose_litres_per_100l), radiatorsPerPack: product.radiators_per_pack });
+      const plan = dosePlan(volume, v.survey.radiators.length, {
+        packSizeMl: product.pack_size_ml,
+        doseLitresPer100L: product.dose_litres_per_100l === null ? null : Number(product.dose_litres_per_100l),
+        radiatorsPerPack: product.radiators_per_pack,
+      });
       used.push({ jobIndex: i, product, packs: Math.max(1, plan.packs) });
     }
   });
-  await trx('job_products').insert(used.map((u) => ({ firm_id: firmId, job_id: jobIds[u.jobIndex]!, product_id: u.product.id })));
+  await trx('job_products').insert(
+    used.map((u) => ({ firm_id: firmId, job_id: jobIds[u.jobIndex]!, product_id: u.product.id })),
+  );
 
   const months = [...new Set(visits.map((v) => v.day.slice(0, 7)))].sort();
   const batchRows = months.flatMap((m, mi) =>
-    productRows.map((p, pi) => ({ firm_id: firmId, product_id: p.id, lot_number: `H${m.replace('-', '')}${pi}`, expires_on: addMonths(`${m}-01`, 30), _key: `${m}:${p.id}`, _order: mi })),
+    productRows.map((p, pi) => ({
+      firm_id: firmId,
+      product_id: p.id,
+      lot_number: `H${m.replace('-', '')}${pi}`,
+      expires_on: addMonths(`${m}-01`, 30),
+      _key: `${m}:${p.id}`,
+      _order: mi,
+    })),
   );
-  const firstBatchId = ((await trx('product_batches').insert(batchRows.map(({ _key, _order, ...row }) => row))) as number[])[0]!;
+  const firstBatchId = (
+    (await trx('product_batches').insert(batchRows.map(({ _key, _order, ...row }) => row))) as number[]
+  )[0]!;
   const batchIds = await consecutiveIds(trx, 'product_batches', firmId, firstBatchId, batchRows.length);
   const batchOf = new Map(batchRows.map((b, i) => [b._key, batchIds[i]!]));
 
   const movements: Record<string, unknown>[] = [];
   const balances = new Map<string, { location_id: number; batch_id: number; product_id: number; quantity: number }>();
-  const move = (kind: string, locationId: number, productId: number, batchId: number, delta: number, by: number, when: Date, extra: { job_id?: number; reason?: string; reference?: string; group_id?: string } = {}) => {
-    movements.push({ firm_id: firmId, group_id: extra.group_id ?? randomUUID(), kind, location_id: locationId, product_id: productId, batch_id: batchId, quantity_delta: delta, reason: extra.reason ?? null, reference: extra.reference ?? null, job_id: extra.job_id ?? null, by_user_id: by, created_at: when });
+  const move = (
+    kind: string,
+    locationId: number,
+    productId: number,
+    batchId: number,
+    delta: number,
+    by: number,
+    when: Date,
+    extra: { job_id?: number; reason?: string; reference?: string; group_id?: string } = {},
+  ) => {
+    movements.push({
+      firm_id: firmId,
+      group_id: extra.group_id ?? randomUUID(),
+      kind,
+      location_id: locationId,
+      product_id: productId,
+      batch_id: batchId,
+      quantity_delta: delta,
+      reason: extra.reason ?? null,
+      reference: extra.reference ?? null,
+      job_id: extra.job_id ?? null,
+      by_user_id: by,
+      created_at: when,
+    });
     const key = `${locationId}:${batchId}`;
     const b = balances.get(key) ?? { location_id: locationId, batch_id: batchId, product_id: productId, quantity: 0 };
     b.quantity += delta;
@@ -152,17 +345,28 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
       const lines = used.filter((u) => u.product.id === p.id && visits[u.jobIndex]!.day.startsWith(m));
       const total = lines.reduce((n, u) => n + u.packs, 0);
       if (total === 0) continue;
-      move('received', depot.id, p.id, batchId, total, stores, at(addDays(monthStart, -3), 9), { reference: `DEL-${m.replace('-', '')}-${p.id}` });
+      move('received', depot.id, p.id, batchId, total, stores, at(addDays(monthStart, -3), 9), {
+        reference: `DEL-${m.replace('-', '')}-${p.id}`,
+      });
       for (const crew of crews) {
-        const packs = lines.filter((u) => visits[u.jobIndex]!.crew.van_id === crew.van_id).reduce((n, u) => n + u.packs, 0);
+        const packs = lines
+          .filter((u) => visits[u.jobIndex]!.crew.van_id === crew.van_id)
+          .reduce((n, u) => n + u.packs, 0);
         if (packs === 0) continue;
         const group = randomUUID();
-        move('transfer_out', depot.id, p.id, batchId, -packs, stores, at(addDays(monthStart, -2), 8), { group_id: group });
-        move('transfer_in', crew.van_id, p.id, batchId, packs, stores, at(addDays(monthStart, -2), 8), { group_id: group });
+        move('transfer_out', depot.id, p.id, batchId, -packs, stores, at(addDays(monthStart, -2), 8), {
+          group_id: group,
+        });
+        move('transfer_in', crew.van_id, p.id, batchId, packs, stores, at(addDays(monthStart, -2), 8), {
+          group_id: group,
+        });
       }
       for (const u of lines) {
         const v = visits[u.jobIndex]!;
-        move('used', v.crew.van_id, p.id, batchId, -u.packs, v.crew.user_id, at(v.day, 15), { job_id: jobIds[u.jobIndex]!, reason: `Job ${jobIds[u.jobIndex]!}` });
+        move('used', v.crew.van_id, p.id, batchId, -u.packs, v.crew.user_id, at(v.day, 15), {
+          job_id: jobIds[u.jobIndex]!,
+          reason: `Job ${jobIds[u.jobIndex]!}`,
+        });
       }
     }
   }
@@ -174,13 +378,28 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
   const nextCheck = visits.map((v) => addMonths(v.day, 12));
   const checkRows: Record<string, unknown>[] = [];
   const range = { min: Number(inhibitor.target_min), max: Number(inhibitor.target_max) };
-  const candidates = visits.map((v, i) => ({ v, i })).filter(({ v }) => v.day <= addDays(today, -320) && v.day >= addDays(today, -364));
-  for (const [n, { v, i }] of candidates.filter((_, k) => k % 3 === 0).slice(0, 5).entries()) {
+  const candidates = visits
+    .map((v, i) => ({ v, i }))
+    .filter(({ v }) => v.day <= addDays(today, -320) && v.day >= addDays(today, -364));
+  for (const [n, { v, i }] of candidates
+    .filter((_, k) => k % 3 === 0)
+    .slice(0, 5)
+    .entries()) {
     const checkedOn = addDays(v.day, 310 + n * 3) < today ? addDays(v.day, 310 + n * 3) : addDays(today, -1);
     const reading = n === 2 ? 0.8 : 1.2;
     checkRows.push({
-      firm_id: firmId, site_id: siteIds[i]!, checked_on: checkedOn, product_id: inhibitor.id, reading, target_min: range.min, target_max: range.max, target_unit: inhibitor.target_unit,
-      tds_ppm: r.int(150, 260), result: inhibitorCheck(reading, range) === 'pass' ? 'pass' : 'fail', notes: n === 2 ? 'Low reading: topped up with half a pack and retested.' : 'Water clear; no cold spots.', by_user_id: v.crew.user_id,
+      firm_id: firmId,
+      site_id: siteIds[i]!,
+      checked_on: checkedOn,
+      product_id: inhibitor.id,
+      reading,
+      target_min: range.min,
+      target_max: range.max,
+      target_unit: inhibitor.target_unit,
+      tds_ppm: r.int(150, 260),
+      result: inhibitorCheck(reading, range) === 'pass' ? 'pass' : 'fail',
+      notes: n === 2 ? 'Low reading: topped up with half a pack and retested.' : 'Water clear; no cold spots.',
+      by_user_id: v.crew.user_id,
       created_at: at(checkedOn, 11),
     });
     nextCheck[i] = addMonths(checkedOn, 12);
@@ -188,11 +407,10 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
   if (checkRows.length) await trx('site_checks').insert(checkRows);
   // One UPDATE per site would be 150 round trips: a CASE sets them all at once.
   const cases = siteIds.map(() => 'WHEN ? THEN ?').join(' ');
-  await trx.raw(`UPDATE sites SET next_check_on = CASE id ${cases} END WHERE firm_id = ? AND id IN (${siteIds.map(() => '?').join(',')})`, [
-    ...siteIds.flatMap((id, i) => [id, nextCheck[i]!]),
-    firmId,
-    ...siteIds,
-  ]);
+  await trx.raw(
+    `UPDATE sites SET next_check_on = CASE id ${cases} END WHERE firm_id = ? AND id IN (${siteIds.map(() => '?').join(',')})`,
+    [...siteIds.flatMap((id, i) => [id, nextCheck[i]!]), firmId, ...siteIds],
+  );
 
   // Agitation on the latest completed job, so the overview's vibration card has a figure for that day.
   const last = visits.length - 1;
@@ -200,7 +418,15 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
     const v = visits[last]!;
     await trx('job_agitations').insert(
       v.survey.radiators.map((_, index) => ({
-        firm_id: firmId, job_id: jobIds[last]!, radiator_index: index, minutes: 5, magnitude_ms2: 6.5, engineer_member_id: v.crew.member_id, recorded_on: v.day, recorded_by_user_id: v.crew.user_id, recorded_at: at(v.day, 13),
+        firm_id: firmId,
+        job_id: jobIds[last]!,
+        radiator_index: index,
+        minutes: 5,
+        magnitude_ms2: 6.5,
+        engineer_member_id: v.crew.member_id,
+        recorded_on: v.day,
+        recorded_by_user_id: v.crew.user_id,
+        recorded_at: at(v.day, 13),
       })),
     );
   }
@@ -209,31 +435,71 @@ export async function seedDemoJobs(trx: Trx, firmIds: { brackenford: number; tar
 }
 
 /** The ids of rows just inserted in one statement, read back rather than assumed. */
-async function consecutiveIds(trx: Trx, table: string, firmId: number, firstId: number, count: number): Promise<number[]> {
-  const rows = (await trx(table).where('firm_id', firmId).where('id', '>=', firstId).orderBy('id').limit(count).select('id')) as { id: number }[];
+async function consecutiveIds(
+  trx: Trx,
+  table: string,
+  firmId: number,
+  firstId: number,
+  count: number,
+): Promise<number[]> {
+  const rows = (await trx(table)
+    .where('firm_id', firmId)
+    .where('id', '>=', firstId)
+    .orderBy('id')
+    .limit(count)
+    .select('id')) as { id: number }[];
   if (rows.length !== count) throw new Error(`Expected ${count} new ${table} rows, found ${rows.length}.`);
   return rows.map((row) => row.id);
 }
 
 // Three booked visits for engineer@ (the browser tests use them), so the jobs list and a plan have something to show.
 async function seedBookedVisits(trx: Trx, firmId: number, today: string): Promise<void> {
-  const engineer = (await trx('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.firm_id': firmId, 'u.email': 'engineer@brackenford.example' }).first('m.id')) as { id: number };
-  const van = (await trx('locations').where({ firm_id: firmId, engineer_member_id: engineer.id }).first('id')) as { id: number };
-  const products = (await trx('products').where({ firm_id: firmId }).whereIn('name', ['HFL System Cleaner', 'HFL Inhibitor']).select('id')) as { id: number }[];
+  const engineer = (await trx('memberships as m')
+    .join('users as u', 'u.id', 'm.user_id')
+    .where({ 'm.firm_id': firmId, 'u.email': 'engineer@brackenford.example' })
+    .first('m.id')) as { id: number };
+  const van = (await trx('locations').where({ firm_id: firmId, engineer_member_id: engineer.id }).first('id')) as {
+    id: number;
+  };
+  const products = (await trx('products')
+    .where({ firm_id: firmId })
+    .whereIn('name', ['HFL System Cleaner', 'HFL Inhibitor'])
+    .select('id')) as { id: number }[];
   const visits = [
     { name: 'Odile Farrant', address: '14 Weir Cottages, Brackenford BF2 4LN', in: 2, rads: 9 },
     { name: 'Harlan Strood', address: '3 Sluice Row, Brackenford BF1 8QD', in: 5, rads: 14 },
     { name: 'Tamsin Vell', address: 'Flat 2, 40 Mill Hill, Brackenford BF3 1AX', in: 9, rads: 6 },
   ];
   for (const v of visits) {
-    const [customerId] = (await trx('customers').insert({ firm_id: firmId, name: v.name, email: `${v.name.split(' ')[0]!.toLowerCase()}@customer.example` })) as number[];
-    const [siteId] = (await trx('sites').insert({ firm_id: firmId, customer_id: customerId, address: v.address, access_notes: 'Ring ahead; parking on the street.' })) as number[];
+    const [customerId] = (await trx('customers').insert({
+      firm_id: firmId,
+      name: v.name,
+      email: `${v.name.split(' ')[0]!.toLowerCase()}@customer.example`,
+    })) as number[];
+    const [siteId] = (await trx('sites').insert({
+      firm_id: firmId,
+      customer_id: customerId,
+      address: v.address,
+      access_notes: 'Ring ahead; parking on the street.',
+    })) as number[];
     const survey = {
-      systemType: 'sealed', boilerKind: 'combi', fuel: 'gas',
-      radiators: Array.from({ length: v.rads }, (_, i) => ({ room: `Room ${i + 1}`, panel: i % 3 === 0 ? 'double' : 'single' })),
+      systemType: 'sealed',
+      boilerKind: 'combi',
+      fuel: 'gas',
+      radiators: Array.from({ length: v.rads }, (_, i) => ({
+        room: `Room ${i + 1}`,
+        panel: i % 3 === 0 ? 'double' : 'single',
+      })),
       pipeRuns: [],
     };
-    const [jobId] = (await trx('jobs').insert({ firm_id: firmId, site_id: siteId, engineer_member_id: engineer.id, van_location_id: van.id, scheduled_on: addDays(today, v.in), survey: JSON.stringify(survey) })) as number[];
+    const [jobId] = (await trx('jobs').insert({
+      firm_id: firmId,
+      site_id: siteId,
+      engineer_member_id: engineer.id,
+      van_location_id: van.id,
+      scheduled_on: addDays(today, v.in),
+      survey: JSON.stringify(survey),
+    })) as number[];
     await trx('job_products').insert(products.map((p) => ({ firm_id: firmId, job_id: jobId, product_id: p.id })));
   }
 }

@@ -25,9 +25,21 @@ const demoPeople: DemoPerson[] = [
   { email: 'admin@brackenford.example', name: 'Priya Halloran', roles: [{ firm: 'brackenford', role: 'admin' }] },
   { email: 'stores@brackenford.example', name: 'Wes Tillbury', roles: [{ firm: 'brackenford', role: 'stores' }] },
   { email: 'engineer@brackenford.example', name: 'Jory Pennock', roles: [{ firm: 'brackenford', role: 'engineer' }] },
-  { email: 'aled.fenwright@brackenford.example', name: 'Aled Fenwright', roles: [{ firm: 'brackenford', role: 'engineer' }] },
-  { email: 'kit.marrable@brackenford.example', name: 'Kit Marrable', roles: [{ firm: 'brackenford', role: 'engineer' }] },
-  { email: 'sol.haverick@brackenford.example', name: 'Sol Haverick', roles: [{ firm: 'brackenford', role: 'engineer' }] },
+  {
+    email: 'aled.fenwright@brackenford.example',
+    name: 'Aled Fenwright',
+    roles: [{ firm: 'brackenford', role: 'engineer' }],
+  },
+  {
+    email: 'kit.marrable@brackenford.example',
+    name: 'Kit Marrable',
+    roles: [{ firm: 'brackenford', role: 'engineer' }],
+  },
+  {
+    email: 'sol.haverick@brackenford.example',
+    name: 'Sol Haverick',
+    roles: [{ firm: 'brackenford', role: 'engineer' }],
+  },
   { email: 'owner@tarnside.example', name: 'Bryony Castell', roles: [{ firm: 'tarnside', role: 'owner' }] },
   { email: 'ned.quarrie@tarnside.example', name: 'Ned Quarrie', roles: [{ firm: 'tarnside', role: 'engineer' }] },
   {
@@ -48,12 +60,20 @@ export async function seedDemoFirms(db: Knex, now = new Date()): Promise<'seeded
   await db.transaction(async (trx) => {
     const firmIds: Record<keyof typeof demoFirms, number> = { brackenford: 0, tarnside: 0 };
     for (const key of Object.keys(demoFirms) as (keyof typeof demoFirms)[]) {
-      const [id] = await trx('firms').insert({ name: demoFirms[key].name, address: demoFirms[key].address, time_zone: 'Europe/London' });
+      const [id] = await trx('firms').insert({
+        name: demoFirms[key].name,
+        address: demoFirms[key].address,
+        time_zone: 'Europe/London',
+      });
       firmIds[key] = id as number;
       await setUpNewFirm(trx, id as number);
     }
     for (const person of demoPeople) {
-      const [userId] = await trx('users').insert({ email: person.email, name: person.name, password_hash: passwordHash });
+      const [userId] = await trx('users').insert({
+        email: person.email,
+        name: person.name,
+        password_hash: passwordHash,
+      });
       for (const { firm, role } of person.roles) {
         await trx('memberships').insert({ firm_id: firmIds[firm], user_id: userId, role, active: true });
       }

@@ -21,7 +21,7 @@ export type CsvCell = string | number | null | undefined;
  */
 export function toCsv(columns: string[], rows: CsvCell[][]): string {
   return stringify(
-    rows.map((row) => row.map((cell) => (typeof cell === 'string' ? neutraliseFormula(cell) : cell ?? ''))),
+    rows.map((row) => row.map((cell) => (typeof cell === 'string' ? neutraliseFormula(cell) : (cell ?? '')))),
     { header: true, columns, quoted_string: true },
   );
 }

@@ -16,7 +16,8 @@ export class HttpError extends Error {
 }
 
 export const notFound = (what: string) => new HttpError(404, `${what} was not found.`);
-export const ruleBroken = (message: string, details?: ApiErrorDetail[]) => new HttpError(400, message, 'RuleBroken', details);
+export const ruleBroken = (message: string, details?: ApiErrorDetail[]) =>
+  new HttpError(400, message, 'RuleBroken', details);
 export const conflict = (message: string) => new HttpError(409, message);
 export const notAllowed = (message = 'Your role in this firm does not allow that.') => new HttpError(403, message);
 export const signedOut = (message = 'Please sign in.') => new HttpError(401, message);

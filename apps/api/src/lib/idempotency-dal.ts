@@ -25,7 +25,9 @@ export async function insertKey(
 }
 
 export async function storeAnswer(trx: Knex.Transaction, id: number, status: number, body: unknown): Promise<void> {
-  await trx('idempotency_keys').where({ id }).update({ status_code: status, response_body: JSON.stringify(body) });
+  await trx('idempotency_keys')
+    .where({ id })
+    .update({ status_code: status, response_body: JSON.stringify(body) });
 }
 
 export function findStored(db: Knex, firmId: number, userId: number, key: string): Promise<StoredRow | undefined> {

@@ -18,9 +18,12 @@ export function idempotencyKeyOf(req: Request): IdempotencyKey | undefined {
   const key = req.get('idempotency-key');
   if (key === undefined) return undefined;
   if (!keyPattern.test(key)) {
-    throw new HttpError(422, 'The Idempotency-Key header must be 8 to 100 letters, digits or - _ . :', 'ValidationFailed', [
-      { path: 'Idempotency-Key', message: 'Use a UUID.' },
-    ]);
+    throw new HttpError(
+      422,
+      'The Idempotency-Key header must be 8 to 100 letters, digits or - _ . :',
+      'ValidationFailed',
+      [{ path: 'Idempotency-Key', message: 'Use a UUID.' }],
+    );
   }
   const fingerprint = JSON.stringify([req.method, req.baseUrl + req.path, req.body ?? null]);
   return { key, requestHash: createHash('sha256').update(fingerprint).digest('hex') };

@@ -10,7 +10,13 @@ export interface ObjectStore {
 }
 
 const unavailable = () =>
-  new HttpError(503, 'Heatfleet cannot reach its file storage (photos and data sheets) just now. Nothing was saved; try again in a minute.', 'ServiceUnavailable', undefined, { 'Retry-After': '30' });
+  new HttpError(
+    503,
+    'Heatfleet cannot reach its file storage (photos and data sheets) just now. Nothing was saved; try again in a minute.',
+    'ServiceUnavailable',
+    undefined,
+    { 'Retry-After': '30' },
+  );
 
 function isUnreachable(err: unknown): boolean {
   const e = err as { code?: string; name?: string; $metadata?: { httpStatusCode?: number } };
@@ -26,7 +32,8 @@ async function guard<T>(work: () => Promise<T>): Promise<T> {
     return await work();
   } catch (err) {
     if (isUnreachable(err)) throw unavailable();
-    if ((err as { name?: string }).name === 'NoSuchKey') throw new HttpError(404, 'That photo\u2019s file is missing from storage.');
+    if ((err as { name?: string }).name === 'NoSuchKey')
+      throw new HttpError(404, 'That photo\u2019s file is missing from storage.');
     throw err;
   }
 }
@@ -42,7 +49,11 @@ export function createObjectStore(env: Env): ObjectStore {
   });
   const Bucket = env.S3_BUCKET;
   return {
-    put: (key, body, contentType) => guard(async () => void (await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType })))),
+    put: (key, body, contentType) =>
+      guard(
+        async () =>
+          void (await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType }))),
+      ),
     get: (key) => guard(async () => (await client.send(new GetObjectCommand({ Bucket, Key: key }))).Body as Readable),
     delete: (key) => guard(async () => void (await client.send(new DeleteObjectCommand({ Bucket, Key: key })))),
   };

@@ -27,7 +27,10 @@ function bodyReadProblem(err: unknown): { status: 400 | 415; message: string } |
     case 'charset.unsupported':
       return { status: 415, message: 'The request body must be sent as UTF-8 text.' };
     case 'encoding.unsupported':
-      return { status: 415, message: 'The request body is compressed in a way Heatfleet does not read (send it plain, gzip or deflate).' };
+      return {
+        status: 415,
+        message: 'The request body is compressed in a way Heatfleet does not read (send it plain, gzip or deflate).',
+      };
     case 'request.aborted':
     case 'request.size.invalid':
       return { status: 400, message: 'The request body arrived incomplete. Check your connection and try again.' };
@@ -50,18 +53,31 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     send(res, {
       statusCode: 422,
       error: apiErrorNames[422],
-      message: first ? (first.path === '(body)' ? first.message : `${first.path}: ${first.message}`) : 'The request is not valid.',
+      message: first
+        ? first.path === '(body)'
+          ? first.message
+          : `${first.path}: ${first.message}`
+        : 'The request is not valid.',
       details,
       requestId,
     });
     return;
   }
   if (err instanceof HttpError) {
-    send(res, { statusCode: err.statusCode, error: err.error, message: err.message, details: err.details, requestId }, err.headers);
+    send(
+      res,
+      { statusCode: err.statusCode, error: err.error, message: err.message, details: err.details, requestId },
+      err.headers,
+    );
     return;
   }
   if (err instanceof ForbiddenError) {
-    send(res, { statusCode: 403, error: apiErrorNames[403], message: 'Your role in this firm does not allow that.', requestId });
+    send(res, {
+      statusCode: 403,
+      error: apiErrorNames[403],
+      message: 'Your role in this firm does not allow that.',
+      requestId,
+    });
     return;
   }
   const e = err as { type?: string; code?: string; status?: number };
@@ -75,7 +91,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   const bodyProblem = bodyReadProblem(err);
   if (bodyProblem) {
-    send(res, { statusCode: bodyProblem.status, error: bodyProblem.status === 415 ? apiErrorNames[415] : 'UnreadableBody', message: bodyProblem.message, requestId });
+    send(res, {
+      statusCode: bodyProblem.status,
+      error: bodyProblem.status === 415 ? apiErrorNames[415] : 'UnreadableBody',
+      message: bodyProblem.message,
+      requestId,
+    });
     return;
   }
   if (e.code === 'EBADCSRFTOKEN') {
@@ -89,12 +110,16 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (isDatabaseUnavailable(err)) {
     req.log?.warn({ err }, 'database unavailable');
-    send(res, {
-      statusCode: 503,
-      error: apiErrorNames[503],
-      message: 'Heatfleet cannot reach its database just now. Nothing was changed; try again in a minute.',
-      requestId,
-    }, { 'Retry-After': '10' });
+    send(
+      res,
+      {
+        statusCode: 503,
+        error: apiErrorNames[503],
+        message: 'Heatfleet cannot reach its database just now. Nothing was changed; try again in a minute.',
+        requestId,
+      },
+      { 'Retry-After': '10' },
+    );
     return;
   }
   if (e.code === 'ER_DUP_ENTRY') {

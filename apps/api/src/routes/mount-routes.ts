@@ -39,7 +39,9 @@ function checkAnswers(route: RouteDefinition, res: Response): void {
     if (res.statusCode < 300 && declared?.schema) {
       const parsed = declared.schema.safeParse(payload);
       if (!parsed.success) {
-        throw new Error(`${route.method.toUpperCase()} /api${route.path} answered ${res.statusCode} off its schema: ${parsed.error.message}`);
+        throw new Error(
+          `${route.method.toUpperCase()} /api${route.path} answered ${res.statusCode} off its schema: ${parsed.error.message}`,
+        );
       }
     }
     return json(payload);

@@ -38,11 +38,17 @@ export interface RouteContext<P, Q, B> {
 
 type Infer<T> = T extends ZodType ? z.infer<T> : undefined;
 
-export interface RouteSpec<P extends ZodType | undefined, Q extends ZodType | undefined, B extends ZodType | undefined, A extends 'public' | 'member'>
-  extends Omit<RouteDefinition, 'handle' | 'request' | 'access'> {
+export interface RouteSpec<
+  P extends ZodType | undefined,
+  Q extends ZodType | undefined,
+  B extends ZodType | undefined,
+  A extends 'public' | 'member',
+> extends Omit<RouteDefinition, 'handle' | 'request' | 'access'> {
   access: A;
   request: { params?: P; query?: Q; body?: B };
-  handle: (ctx: RouteContext<Infer<P>, Infer<Q>, Infer<B>> & { actor: A extends 'member' ? Actor : Actor | null }) => Promise<void>;
+  handle: (
+    ctx: RouteContext<Infer<P>, Infer<Q>, Infer<B>> & { actor: A extends 'member' ? Actor : Actor | null },
+  ) => Promise<void>;
 }
 
 export function defineRoute<

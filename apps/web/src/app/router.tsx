@@ -11,8 +11,14 @@ export const router = createBrowserRouter([
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <PageSpinner />,
     children: [
-      { path: paths.signIn.path, lazy: () => import('@/app/routes/auth/sign-in-page').then((m) => ({ Component: m.SignInPage })) },
-      { path: paths.signUp.path, lazy: () => import('@/app/routes/auth/sign-up-page').then((m) => ({ Component: m.SignUpPage })) },
+      {
+        path: paths.signIn.path,
+        lazy: () => import('@/app/routes/auth/sign-in-page').then((m) => ({ Component: m.SignInPage })),
+      },
+      {
+        path: paths.signUp.path,
+        lazy: () => import('@/app/routes/auth/sign-up-page').then((m) => ({ Component: m.SignUpPage })),
+      },
       {
         path: paths.signUpConfirm.path,
         lazy: () => import('@/app/routes/auth/confirm-sign-up-page').then((m) => ({ Component: m.ConfirmSignUpPage })),
@@ -29,48 +35,110 @@ export const router = createBrowserRouter([
       {
         path: paths.invitation.path,
         lazy: () =>
-          import('@/app/routes/invitations/accept-invitation-page').then((m) => ({ Component: m.AcceptInvitationPage })),
+          import('@/app/routes/invitations/accept-invitation-page').then((m) => ({
+            Component: m.AcceptInvitationPage,
+          })),
       },
       {
         element: <AppLayout />,
         children: [
           { index: true, lazy: () => import('@/app/routes/home/home-page').then((m) => ({ Component: m.HomePage })) },
-          { path: paths.team.path, lazy: () => import('@/app/routes/team/team-page').then((m) => ({ Component: m.TeamPage })) },
-          { path: paths.vans.path, lazy: () => import('@/app/routes/vans/vans-page').then((m) => ({ Component: m.VansPage })) },
-          { path: paths.van.path, lazy: () => import('@/app/routes/vans/van-page').then((m) => ({ Component: m.VanPage })) },
-          { path: paths.myVan.path, lazy: () => import('@/app/routes/vans/my-van-page').then((m) => ({ Component: m.MyVanPage })) },
-          { path: paths.kits.path, lazy: () => import('@/app/routes/kits/kits-page').then((m) => ({ Component: m.KitsPage })) },
-          { path: paths.kit.path, lazy: () => import('@/app/routes/kits/kit-page').then((m) => ({ Component: m.KitPage })) },
+          {
+            path: paths.team.path,
+            lazy: () => import('@/app/routes/team/team-page').then((m) => ({ Component: m.TeamPage })),
+          },
+          {
+            path: paths.vans.path,
+            lazy: () => import('@/app/routes/vans/vans-page').then((m) => ({ Component: m.VansPage })),
+          },
+          {
+            path: paths.van.path,
+            lazy: () => import('@/app/routes/vans/van-page').then((m) => ({ Component: m.VanPage })),
+          },
+          {
+            path: paths.myVan.path,
+            lazy: () => import('@/app/routes/vans/my-van-page').then((m) => ({ Component: m.MyVanPage })),
+          },
+          {
+            path: paths.kits.path,
+            lazy: () => import('@/app/routes/kits/kits-page').then((m) => ({ Component: m.KitsPage })),
+          },
+          {
+            path: paths.kit.path,
+            lazy: () => import('@/app/routes/kits/kit-page').then((m) => ({ Component: m.KitPage })),
+          },
           {
             path: paths.kitItem.path,
             lazy: () => import('@/app/routes/kits/kit-item-page').then((m) => ({ Component: m.KitItemPage })),
           },
-          { path: paths.labels.path, lazy: () => import('@/app/routes/labels/labels-page').then((m) => ({ Component: m.LabelsPage })) },
+          {
+            path: paths.labels.path,
+            lazy: () => import('@/app/routes/labels/labels-page').then((m) => ({ Component: m.LabelsPage })),
+          },
           {
             path: paths.reminders.path,
             lazy: () => import('@/app/routes/reminders/reminders-page').then((m) => ({ Component: m.RemindersPage })),
           },
-          { path: paths.jobs.path, lazy: () => import('@/app/routes/jobs/jobs-page').then((m) => ({ Component: m.JobsPage })) },
-          { path: paths.newJob.path, lazy: () => import('@/app/routes/jobs/new-job-page').then((m) => ({ Component: m.NewJobPage })) },
-          { path: paths.job.path, lazy: () => import('@/app/routes/jobs/job-page').then((m) => ({ Component: m.JobPage })) },
+          {
+            path: paths.jobs.path,
+            lazy: () => import('@/app/routes/jobs/jobs-page').then((m) => ({ Component: m.JobsPage })),
+          },
+          {
+            path: paths.newJob.path,
+            lazy: () => import('@/app/routes/jobs/new-job-page').then((m) => ({ Component: m.NewJobPage })),
+          },
+          {
+            path: paths.job.path,
+            lazy: () => import('@/app/routes/jobs/job-page').then((m) => ({ Component: m.JobPage })),
+          },
           {
             path: paths.customers.path,
             lazy: () => import('@/app/routes/customers/customers-page').then((m) => ({ Component: m.CustomersPage })),
           },
-          { path: paths.site.path, lazy: () => import('@/app/routes/sites/site-page').then((m) => ({ Component: m.SitePage })) },
+          {
+            path: paths.site.path,
+            lazy: () => import('@/app/routes/sites/site-page').then((m) => ({ Component: m.SitePage })),
+          },
           {
             path: paths.settings.path,
             lazy: () => import('@/app/routes/settings/settings-page').then((m) => ({ Component: m.SettingsPage })),
           },
-          { path: paths.stock.path, lazy: () => import('@/app/routes/stock/stock-page').then((m) => ({ Component: m.StockPage })) },
-          { path: paths.products.path, lazy: () => import('@/app/routes/stock/products-page').then((m) => ({ Component: m.ProductsPage })) },
-          { path: paths.product.path, lazy: () => import('@/app/routes/stock/product-page').then((m) => ({ Component: m.ProductPage })) },
-          { path: paths.stockLedger.path, lazy: () => import('@/app/routes/stock/ledger-page').then((m) => ({ Component: m.LedgerPage })) },
-          { path: paths.stockReceive.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.ReceivePage })) },
-          { path: paths.stockTransfer.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.TransferPage })) },
-          { path: paths.stockUse.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.UsePage })) },
-          { path: paths.stockStocktake.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.StocktakePage })) },
-          { path: paths.stockWriteOff.path, lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.WriteOffPage })) },
+          {
+            path: paths.stock.path,
+            lazy: () => import('@/app/routes/stock/stock-page').then((m) => ({ Component: m.StockPage })),
+          },
+          {
+            path: paths.products.path,
+            lazy: () => import('@/app/routes/stock/products-page').then((m) => ({ Component: m.ProductsPage })),
+          },
+          {
+            path: paths.product.path,
+            lazy: () => import('@/app/routes/stock/product-page').then((m) => ({ Component: m.ProductPage })),
+          },
+          {
+            path: paths.stockLedger.path,
+            lazy: () => import('@/app/routes/stock/ledger-page').then((m) => ({ Component: m.LedgerPage })),
+          },
+          {
+            path: paths.stockReceive.path,
+            lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.ReceivePage })),
+          },
+          {
+            path: paths.stockTransfer.path,
+            lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.TransferPage })),
+          },
+          {
+            path: paths.stockUse.path,
+            lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.UsePage })),
+          },
+          {
+            path: paths.stockStocktake.path,
+            lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.StocktakePage })),
+          },
+          {
+            path: paths.stockWriteOff.path,
+            lazy: () => import('@/app/routes/stock/stock-form-pages').then((m) => ({ Component: m.WriteOffPage })),
+          },
           {
             path: paths.restockRun.path,
             lazy: () => import('@/app/routes/stock/restock-run-page').then((m) => ({ Component: m.RestockRunPage })),
@@ -84,10 +152,14 @@ export const router = createBrowserRouter([
       {
         element: <OutboxLayout />,
         children: [
-          { path: paths.outbox.path, lazy: () => import('@/app/routes/outbox/outbox-page').then((m) => ({ Component: m.OutboxPage })) },
+          {
+            path: paths.outbox.path,
+            lazy: () => import('@/app/routes/outbox/outbox-page').then((m) => ({ Component: m.OutboxPage })),
+          },
           {
             path: paths.outboxMessage.path,
-            lazy: () => import('@/app/routes/outbox/outbox-message-page').then((m) => ({ Component: m.OutboxMessagePage })),
+            lazy: () =>
+              import('@/app/routes/outbox/outbox-message-page').then((m) => ({ Component: m.OutboxMessagePage })),
           },
         ],
       },

@@ -7,7 +7,10 @@ export const paths = {
   },
   signUp: { path: '/sign-up', getHref: () => '/sign-up' },
   /** The link in the sign-up e-mail (the API builds the same URL). */
-  signUpConfirm: { path: '/sign-up/confirm/:token', getHref: (token: string) => `/sign-up/confirm/${encodeURIComponent(token)}` },
+  signUpConfirm: {
+    path: '/sign-up/confirm/:token',
+    getHref: (token: string) => `/sign-up/confirm/${encodeURIComponent(token)}`,
+  },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   resetPasswordConfirm: {
     path: '/reset-password/:token',

@@ -6,7 +6,9 @@ describe('firstErrorPerField', () => {
   it('keys zod issues by dotted path and keeps the first message of each field', () => {
     const schema = z.object({
       name: z.string().min(1, { error: 'Name is required.' }),
-      radiators: z.array(z.object({ lengthMm: z.number().min(100, { error: 'Too short.' }).max(4000, { error: 'Too long.' }) })),
+      radiators: z.array(
+        z.object({ lengthMm: z.number().min(100, { error: 'Too short.' }).max(4000, { error: 'Too long.' }) }),
+      ),
     });
     const result = schema.safeParse({ name: '', radiators: [{ lengthMm: 50 }, { lengthMm: 9000 }] });
     expect(result.success).toBe(false);

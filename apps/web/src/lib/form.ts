@@ -8,7 +8,9 @@ export type FieldErrors = Partial<Record<string, string>>;
  * The first message for each field, keyed by its dotted path ("radiators.0.widthMm"), from zod's
  * issues or the API's 422 details alike.
  */
-export function firstErrorPerField(issues: ReadonlyArray<{ path: PropertyKey[] | string; message: string }>): FieldErrors {
+export function firstErrorPerField(
+  issues: ReadonlyArray<{ path: PropertyKey[] | string; message: string }>,
+): FieldErrors {
   const errors: FieldErrors = {};
   for (const issue of issues) {
     const key = Array.isArray(issue.path) ? issue.path.map(String).join('.') : issue.path;

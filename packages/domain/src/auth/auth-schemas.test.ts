@@ -31,7 +31,18 @@ describe('emailSchema', () => {
 
 describe('signUpInputSchema', () => {
   it('refuses unknown fields and objects in place of strings', () => {
-    expect(signUpInputSchema.safeParse({ firmName: 'Ab', name: 'A', email: 'a@b.example', password: 'x'.repeat(12), role: 'owner' }).success).toBe(false);
-    expect(signUpInputSchema.safeParse({ firmName: { $ne: 1 }, name: 'A', email: 'a@b.example', password: 'x'.repeat(12) }).success).toBe(false);
+    expect(
+      signUpInputSchema.safeParse({
+        firmName: 'Ab',
+        name: 'A',
+        email: 'a@b.example',
+        password: 'x'.repeat(12),
+        role: 'owner',
+      }).success,
+    ).toBe(false);
+    expect(
+      signUpInputSchema.safeParse({ firmName: { $ne: 1 }, name: 'A', email: 'a@b.example', password: 'x'.repeat(12) })
+        .success,
+    ).toBe(false);
   });
 });

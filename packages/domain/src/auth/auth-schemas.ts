@@ -33,7 +33,8 @@ export function passwordContextProblem(password: string, email: string | null): 
   if (email) {
     const address = email.trim().toLowerCase();
     const local = address.split('@')[0] ?? '';
-    if (lower === address || (local.length > 0 && lower === local)) return 'Password must not be your e-mail address or its first part.';
+    if (lower === address || (local.length > 0 && lower === local))
+      return 'Password must not be your e-mail address or its first part.';
   }
   if (lower === 'heatfleet' || /^heatfleet\d*$/u.test(lower)) return 'Password must not be the name of this service.';
   return null;
@@ -55,7 +56,10 @@ export type SignUpInput = z.infer<typeof signUpInputSchema>;
 export const signInInputSchema = z.strictObject({
   email: emailSchema,
   // Any length is accepted at sign-in so an old password is still checked, but bounded to keep hashing cheap.
-  password: z.string({ error: 'Password is required.' }).min(1, { error: 'Password is required.' }).max(PASSWORD_MAX_LENGTH * 4),
+  password: z
+    .string({ error: 'Password is required.' })
+    .min(1, { error: 'Password is required.' })
+    .max(PASSWORD_MAX_LENGTH * 4),
 });
 export type SignInInput = z.infer<typeof signInInputSchema>;
 
@@ -69,7 +73,10 @@ export const passwordResetConfirmSchema = z.strictObject({ token: tokenSchema, p
 export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>;
 
 export const changePasswordInputSchema = z.strictObject({
-  currentPassword: z.string({ error: 'Current password is required.' }).min(1).max(PASSWORD_MAX_LENGTH * 4),
+  currentPassword: z
+    .string({ error: 'Current password is required.' })
+    .min(1)
+    .max(PASSWORD_MAX_LENGTH * 4),
   newPassword: passwordSchema,
 });
 export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;

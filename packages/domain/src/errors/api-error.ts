@@ -5,9 +5,7 @@ export const apiErrorBodySchema = z.object({
   statusCode: z.number().int(),
   error: z.string(),
   message: z.string(),
-  details: z
-    .array(z.object({ path: z.string(), message: z.string() }))
-    .optional(),
+  details: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
   requestId: z.string(),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;

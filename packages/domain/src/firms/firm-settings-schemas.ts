@@ -3,7 +3,10 @@ import { singleLineName } from '../lib/text.ts';
 
 export const volumeUnits = ['litres', 'imperial_gallons'] as const;
 export type VolumeUnit = (typeof volumeUnits)[number];
-export const volumeUnitLabels: Record<VolumeUnit, string> = { litres: 'Litres', imperial_gallons: 'Litres, with imperial gallons alongside' };
+export const volumeUnitLabels: Record<VolumeUnit, string> = {
+  litres: 'Litres',
+  imperial_gallons: 'Litres, with imperial gallons alongside',
+};
 
 /** The cold-bottom threshold a firm may set, kelvin top to bottom. */
 export const COLD_BOTTOM_THRESHOLD_MIN_K = 2;
@@ -22,17 +25,29 @@ export function isKnownTimeZone(zone: string): boolean {
 /** The firm's own settings, changed by an Owner or an Admin. */
 export const firmSettingsInputSchema = z.strictObject({
   name: singleLineName('The firm name', { max: 120 }),
-  address: z.string().trim().max(500, { error: 'The address must be at most 500 characters.' }).transform((s) => (s === '' ? null : s)).nullable().optional(),
+  address: z
+    .string()
+    .trim()
+    .max(500, { error: 'The address must be at most 500 characters.' })
+    .transform((s) => (s === '' ? null : s))
+    .nullable()
+    .optional(),
   timeZone: z
     .string({ error: 'A time zone is required.' })
     .trim()
     .max(64)
-    .refine(isKnownTimeZone, { error: (iss) => `"${String(iss.input)}" is not a time zone this system knows (use a name such as Europe/London).` }),
+    .refine(isKnownTimeZone, {
+      error: (iss) => `"${String(iss.input)}" is not a time zone this system knows (use a name such as Europe/London).`,
+    }),
   volumeUnit: z.enum(volumeUnits, { error: 'Volume unit must be litres or imperial gallons.' }),
   coldBottomThresholdK: z
     .number({ error: 'The cold-bottom threshold must be a number of kelvin.' })
-    .min(COLD_BOTTOM_THRESHOLD_MIN_K, { error: `The cold-bottom threshold must be between ${COLD_BOTTOM_THRESHOLD_MIN_K} and ${COLD_BOTTOM_THRESHOLD_MAX_K} K.` })
-    .max(COLD_BOTTOM_THRESHOLD_MAX_K, { error: `The cold-bottom threshold must be between ${COLD_BOTTOM_THRESHOLD_MIN_K} and ${COLD_BOTTOM_THRESHOLD_MAX_K} K.` }),
+    .min(COLD_BOTTOM_THRESHOLD_MIN_K, {
+      error: `The cold-bottom threshold must be between ${COLD_BOTTOM_THRESHOLD_MIN_K} and ${COLD_BOTTOM_THRESHOLD_MAX_K} K.`,
+    })
+    .max(COLD_BOTTOM_THRESHOLD_MAX_K, {
+      error: `The cold-bottom threshold must be between ${COLD_BOTTOM_THRESHOLD_MIN_K} and ${COLD_BOTTOM_THRESHOLD_MAX_K} K.`,
+    }),
 });
 export type FirmSettingsInput = z.infer<typeof firmSettingsInputSchema>;
 export type FirmSettings = Omit<FirmSettingsInput, 'address'> & { id: number; address: string | null };

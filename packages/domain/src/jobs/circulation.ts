@@ -11,13 +11,22 @@ export interface Circulation {
   met: boolean | null;
 }
 
-export function circulationMinimumMinutes(products: readonly { kind: string; minCirculationMinutes: number | null }[]): number | null {
-  const minimums = products.filter((p) => p.kind === 'cleaner' && p.minCirculationMinutes !== null).map((p) => p.minCirculationMinutes!);
+export function circulationMinimumMinutes(
+  products: readonly { kind: string; minCirculationMinutes: number | null }[],
+): number | null {
+  const minimums = products
+    .filter((p) => p.kind === 'cleaner' && p.minCirculationMinutes !== null)
+    .map((p) => p.minCirculationMinutes!);
   return minimums.length ? Math.max(...minimums) : null;
 }
 
 /** Whole minutes circulated, and whether the minimum is met; `now` stands in for a stop not yet ticked. */
-export function circulationClock(minimumMinutes: number | null, startedAt: Date | null, endedAt: Date | null, now: Date): Circulation {
+export function circulationClock(
+  minimumMinutes: number | null,
+  startedAt: Date | null,
+  endedAt: Date | null,
+  now: Date,
+): Circulation {
   const ended = endedAt ?? now;
   const elapsedMinutes = startedAt ? Math.max(0, Math.floor((ended.getTime() - startedAt.getTime()) / 60_000)) : null;
   return {

@@ -22,8 +22,14 @@ export function dosePlan(volumeLitres: number, radiators: number, rule: DoseRule
   const litres = rule.doseLitresPer100L === null ? null : (volumeLitres * rule.doseLitresPer100L) / 100;
   // A hair of tolerance so 2.0000000001 packs of floating point does not become 3. A pack size or
   // radiators-per-pack of 0 (never accepted, but guarded) gives no figure rather than Infinity.
-  const packsByVolume = litres === null || !(rule.packSizeMl > 0) ? null : finiteOrNull(Math.ceil(litres / (rule.packSizeMl / 1000) - 1e-9));
-  const packsByRadiators = rule.radiatorsPerPack === null || !(rule.radiatorsPerPack > 0) ? null : finiteOrNull(Math.ceil(radiators / rule.radiatorsPerPack));
+  const packsByVolume =
+    litres === null || !(rule.packSizeMl > 0)
+      ? null
+      : finiteOrNull(Math.ceil(litres / (rule.packSizeMl / 1000) - 1e-9));
+  const packsByRadiators =
+    rule.radiatorsPerPack === null || !(rule.radiatorsPerPack > 0)
+      ? null
+      : finiteOrNull(Math.ceil(radiators / rule.radiatorsPerPack));
   const v = packsByVolume ?? 0;
   const r = packsByRadiators ?? 0;
   const packs = Math.max(v, r);

@@ -2,7 +2,13 @@ import type { HavLevel } from './job-sheet.ts';
 import { vibrationPoints } from './water-tests.ts';
 
 /** The levels of an engineer's vibration day, lowest first (see `havDay`). */
-export const havLevels = ['low', 'nearing_action', 'above_action', 'nearing_limit', 'above_limit'] as const satisfies readonly HavLevel[];
+export const havLevels = [
+  'low',
+  'nearing_action',
+  'above_action',
+  'nearing_limit',
+  'above_limit',
+] as const satisfies readonly HavLevel[];
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
 

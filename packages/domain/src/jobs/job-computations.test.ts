@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { dosePlan } from './dose-plan.ts';
-import { boreLitresPerMetre, pipeWaterContentLitresPerMetre, quickEstimateLitres, radiatorLitres, singlePanelEquivalents, systemVolumeLitres } from './system-volume.ts';
+import {
+  boreLitresPerMetre,
+  pipeWaterContentLitresPerMetre,
+  quickEstimateLitres,
+  radiatorLitres,
+  singlePanelEquivalents,
+  systemVolumeLitres,
+} from './system-volume.ts';
 import {
   coldBottom,
   flushComplete,
@@ -38,17 +45,37 @@ describe('system volume', () => {
     expect(quickEstimateLitres(['single', 'double', 'double_fins', 'towel_rail'])).toBe(60);
   });
   it('is the sum of its parts', () => {
-    expect(systemVolumeLitres({ radiatorsLitres: 48.5, pipeworkLitres: 12.25, heatExchangerLitres: 1.5, cylinderCoilLitres: 4, otherLitres: 0.75 })).toBeCloseTo(67, 9);
+    expect(
+      systemVolumeLitres({
+        radiatorsLitres: 48.5,
+        pipeworkLitres: 12.25,
+        heatExchangerLitres: 1.5,
+        cylinderCoilLitres: 4,
+        otherLitres: 0.75,
+      }),
+    ).toBeCloseTo(67, 9);
   });
 });
 
 describe('dose plan (litres = volume x rate / 100, whole packs; packs per radiators; the larger wins)', () => {
   const rule = { packSizeMl: 1000, doseLitresPer100L: 1, radiatorsPerPack: 10 };
   it('18 radiators need 2 packs by the rule of thumb (about one pack per 10 radiators: common trade practice)', () => {
-    expect(dosePlan(100, 18, rule)).toEqual({ litres: 1, packsByVolume: 1, packsByRadiators: 2, packs: 2, decidedBy: 'radiators' });
+    expect(dosePlan(100, 18, rule)).toEqual({
+      litres: 1,
+      packsByVolume: 1,
+      packsByRadiators: 2,
+      packs: 2,
+      decidedBy: 'radiators',
+    });
   });
   it('volume wins when larger; rounding is up to whole packs', () => {
-    expect(dosePlan(250, 8, rule)).toEqual({ litres: 2.5, packsByVolume: 3, packsByRadiators: 1, packs: 3, decidedBy: 'volume' });
+    expect(dosePlan(250, 8, rule)).toEqual({
+      litres: 2.5,
+      packsByVolume: 3,
+      packsByRadiators: 1,
+      packs: 3,
+      decidedBy: 'volume',
+    });
   });
   it('exactly two packs stay two packs', () => {
     expect(dosePlan(200, 0, { ...rule, radiatorsPerPack: null }).packs).toBe(2);

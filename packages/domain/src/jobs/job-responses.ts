@@ -32,7 +32,12 @@ export const volumeBreakdownSchema = z.object({
   howReached: z.string(),
 });
 
-export const batchAllocationSchema = z.object({ batchId: z.number(), lotNumber: z.string(), expiresOn: z.string(), quantity: z.number() });
+export const batchAllocationSchema = z.object({
+  batchId: z.number(),
+  lotNumber: z.string(),
+  expiresOn: z.string(),
+  quantity: z.number(),
+});
 
 /** One product's dose (see `dosePlan`) with the van's batches to take it from, first expiry first. */
 export const jobDoseSchema = z.object({
@@ -63,7 +68,12 @@ export const savedReadingSchema = z.object({
 });
 export type SavedReading = z.infer<typeof savedReadingSchema>;
 
-export const sheetKitItemSchema = z.object({ id: z.number(), assetTag: z.string(), kindName: z.string(), kitName: z.string().nullable() });
+export const sheetKitItemSchema = z.object({
+  id: z.number(),
+  assetTag: z.string(),
+  kindName: z.string(),
+  kitName: z.string().nullable(),
+});
 
 export const jobPhotoSchema = z.object({
   id: z.number(),
@@ -84,7 +94,13 @@ export const sheetRadiatorSchema = z.object({
   after: savedReadingSchema.nullable(),
   flushedAt: z.string().nullable(),
   agitation: z
-    .object({ minutes: z.number(), kitItemId: z.number().nullable(), kitItemTag: z.string().nullable(), magnitudeMs2: z.number().nullable(), points: z.number() })
+    .object({
+      minutes: z.number(),
+      kitItemId: z.number().nullable(),
+      kitItemTag: z.string().nullable(),
+      magnitudeMs2: z.number().nullable(),
+      points: z.number(),
+    })
     .nullable(),
 });
 export type SheetRadiator = z.infer<typeof sheetRadiatorSchema>;
@@ -92,11 +108,29 @@ export type SheetRadiator = z.infer<typeof sheetRadiatorSchema>;
 /** The on-site record of a visit (see job-sheet.ts): what was ticked, read, tested and used, with its figures. */
 export const jobSheetSchema = z.object({
   editable: z.boolean(),
-  steps: z.array(z.object({ step: z.enum(jobSteps), label: z.string(), doneAt: z.string().nullable(), doneByName: z.string().nullable() })),
-  circulation: z.object({ minimumMinutes: z.number().nullable(), startedAt: z.string().nullable(), elapsedMinutes: z.number().nullable(), met: z.boolean().nullable() }),
+  steps: z.array(
+    z.object({
+      step: z.enum(jobSteps),
+      label: z.string(),
+      doneAt: z.string().nullable(),
+      doneByName: z.string().nullable(),
+    }),
+  ),
+  circulation: z.object({
+    minimumMinutes: z.number().nullable(),
+    startedAt: z.string().nullable(),
+    elapsedMinutes: z.number().nullable(),
+    met: z.boolean().nullable(),
+  }),
   coldBottomThresholdK: z.number(),
   radiators: z.array(sheetRadiatorSchema),
-  hav: z.object({ engineerName: z.string().nullable(), day: z.string(), points: z.number(), level: z.enum(havLevels), message: z.string() }),
+  hav: z.object({
+    engineerName: z.string().nullable(),
+    day: z.string(),
+    points: z.number(),
+    level: z.enum(havLevels),
+    message: z.string(),
+  }),
   water: z.object({
     mainsTdsPpm: z.number().nullable(),
     systemTdsPpm: z.number().nullable(),
@@ -106,7 +140,14 @@ export const jobSheetSchema = z.object({
     ph: z.number().nullable(),
     figures: z.object({
       flush: z.object({ complete: z.boolean(), withinPercent: z.number() }).nullable(),
-      inhibitor: z.object({ result: z.enum(['pass', 'low', 'high']), min: z.number(), max: z.number(), unit: z.string().nullable() }).nullable(),
+      inhibitor: z
+        .object({
+          result: z.enum(['pass', 'low', 'high']),
+          min: z.number(),
+          max: z.number(),
+          unit: z.string().nullable(),
+        })
+        .nullable(),
     }),
   }),
   kitUsed: z.array(sheetKitItemSchema),
@@ -121,7 +162,13 @@ export type SheetKitItem = JobSheet['kitOnVan'][number];
 export const jobSheetResponseSchema = z.object({ sheet: jobSheetSchema });
 export const jobPhotoResponseSchema = z.object({ photo: jobPhotoSchema });
 
-export const jobSiteSchema = z.object({ id: z.number(), address: z.string(), postcode: z.string().nullable(), customerId: z.number(), customerName: z.string() });
+export const jobSiteSchema = z.object({
+  id: z.number(),
+  address: z.string(),
+  postcode: z.string().nullable(),
+  customerId: z.number(),
+  customerName: z.string(),
+});
 
 /** A job with its plan (volume, doses, batches from the van), the chemicals used and the sheet; also the answer to booking and completing. */
 export const jobDetailSchema = z.object({
@@ -140,7 +187,9 @@ export const jobDetailSchema = z.object({
   doses: z.array(jobDoseSchema),
   /** The firm's calendar day the plan was made for (batches past their expiry day are not taken). */
   today: z.string(),
-  chemicalsUsed: z.array(z.object({ product: z.string(), lotNumber: z.string(), expiresOn: z.string(), packs: z.number() })),
+  chemicalsUsed: z.array(
+    z.object({ product: z.string(), lotNumber: z.string(), expiresOn: z.string(), packs: z.number() }),
+  ),
   sheet: jobSheetSchema,
 });
 export type JobDetail = z.infer<typeof jobDetailSchema>;

@@ -1,14 +1,26 @@
 import { z } from 'zod';
 import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
-import { copperTubes, pipeWaterContentLitresPerMetre, boreLitresPerMetre, quickEstimateLitres, radiatorLitres, systemVolumeLitres, type PanelType } from './system-volume.ts';
+import {
+  copperTubes,
+  pipeWaterContentLitresPerMetre,
+  boreLitresPerMetre,
+  quickEstimateLitres,
+  radiatorLitres,
+  systemVolumeLitres,
+  type PanelType,
+} from './system-volume.ts';
 
 const text = optionalPlainText;
 const name = (label: string, max = 120) => singleLineName(label, { max });
 
 export const customerInputSchema = z.strictObject({
   name: name('Customer name'),
-  email: z.union([z.literal(''), z.email({ error: 'That is not an e-mail address.' })]).transform((s) => (s === '' ? null : s.toLowerCase())).nullable().optional(),
+  email: z
+    .union([z.literal(''), z.email({ error: 'That is not an e-mail address.' })])
+    .transform((s) => (s === '' ? null : s.toLowerCase()))
+    .nullable()
+    .optional(),
   phone: text('Phone', 40),
   contact: text('Contact', 120),
 });
@@ -38,12 +50,23 @@ export const surveyRadiatorSchema = z.strictObject({
 });
 
 export const surveyPipeRunSchema = z
-  .strictObject({ tube: z.enum(tubeSizes), boreMm: z.number().min(5).max(60).nullable().optional(), lengthM: z.number().min(0).max(2000) })
-  .refine((r) => r.tube !== 'plastic' || (r.boreMm ?? 0) > 0, { error: 'A plastic pipe needs its bore in mm.', path: ['boreMm'] });
+  .strictObject({
+    tube: z.enum(tubeSizes),
+    boreMm: z.number().min(5).max(60).nullable().optional(),
+    lengthM: z.number().min(0).max(2000),
+  })
+  .refine((r) => r.tube !== 'plastic' || (r.boreMm ?? 0) > 0, {
+    error: 'A plastic pipe needs its bore in mm.',
+    path: ['boreMm'],
+  });
 
 export const boilerKinds = ['combi', 'system', 'regular'] as const;
 /** Heat exchanger water content by boiler kind, litres: defaults to edit (from memory, not a standard). */
-export const defaultHeatExchangerLitres: Record<(typeof boilerKinds)[number], number> = { combi: 1, system: 2, regular: 3 };
+export const defaultHeatExchangerLitres: Record<(typeof boilerKinds)[number], number> = {
+  combi: 1,
+  system: 2,
+  regular: 3,
+};
 
 export const surveySchema = z.strictObject({
   systemType: z.enum(['open_vented', 'sealed']),
@@ -92,10 +115,23 @@ export function surveyVolume(survey: Survey): VolumeBreakdown {
       howReached: `Estimate: about 10 L per single-panel equivalent, pipework included (${survey.radiators.length} radiators), plus the boiler and other parts.`,
     };
   }
-  const radiatorsLitres = survey.radiators.reduce((n, r) => n + (r.litres ?? radiatorLitres(r.panel as PanelType, r.heightMm!, r.lengthMm!)), 0);
-  const pipeworkLitres = survey.pipeRuns.reduce((n, p) => n + p.lengthM * (p.tube === 'plastic' ? boreLitresPerMetre(p.boreMm!) : pipeWaterContentLitresPerMetre(p.tube)), 0);
+  const radiatorsLitres = survey.radiators.reduce(
+    (n, r) => n + (r.litres ?? radiatorLitres(r.panel as PanelType, r.heightMm!, r.lengthMm!)),
+    0,
+  );
+  const pipeworkLitres = survey.pipeRuns.reduce(
+    (n, p) =>
+      n + p.lengthM * (p.tube === 'plastic' ? boreLitresPerMetre(p.boreMm!) : pipeWaterContentLitresPerMetre(p.tube)),
+    0,
+  );
   const parts = { radiatorsLitres, pipeworkLitres, heatExchangerLitres, cylinderCoilLitres, otherLitres };
-  return { ...parts, totalLitres: systemVolumeLitres(parts), estimate: false, howReached: 'Measured: radiators by size or stated litres, pipework by tube size and length, plus the boiler, cylinder coil and other parts.' };
+  return {
+    ...parts,
+    totalLitres: systemVolumeLitres(parts),
+    estimate: false,
+    howReached:
+      'Measured: radiators by size or stated litres, pipework by tube size and length, plus the boiler, cylinder coil and other parts.',
+  };
 }
 
 export const createJobInputSchema = z.strictObject({

@@ -5,7 +5,13 @@ describe('radiator readings on the sheet', () => {
   // EN 442 rates radiators at 75/65/20 °C, dT 50 K: a rated 1200 W radiator gives its rating there.
   it('uses flow and return when taken: 75/65 in a 20 °C room is the rating point', () => {
     const f = readingFigures({ topC: 74, bottomC: 66, flowC: 75, returnC: 65, roomC: 20 }, 1200, 10);
-    expect(f).toMatchObject({ deltaTK: 50, deltaTFrom: 'flow_return', outputWatts: 1200, coldBottom: false, differenceK: 8 });
+    expect(f).toMatchObject({
+      deltaTK: 50,
+      deltaTFrom: 'flow_return',
+      outputWatts: 1200,
+      coldBottom: false,
+      differenceK: 8,
+    });
   });
 
   // EN 442 factor at dT 30 K is (30/50)^1.3 = 0.5148: surfaces 55 and 45 in a 20 °C room give dT 30.
@@ -19,7 +25,11 @@ describe('radiator readings on the sheet', () => {
 
   // A cold bottom is a top-to-bottom difference over the firm's threshold (common practice (no source)).
   it('flags a cold bottom past the firm threshold, and not at it', () => {
-    expect(readingFigures({ topC: 65, bottomC: 42 }, null, 10)).toMatchObject({ coldBottom: true, differenceK: 23, outputWatts: null });
+    expect(readingFigures({ topC: 65, bottomC: 42 }, null, 10)).toMatchObject({
+      coldBottom: true,
+      differenceK: 23,
+      outputWatts: null,
+    });
     expect(readingFigures({ topC: 60, bottomC: 50 }, null, 10).coldBottom).toBe(false);
     expect(readingFigures({ topC: 60, bottomC: 50 }, null, 8).coldBottom).toBe(true);
   });
@@ -33,7 +43,12 @@ describe("an engineer's vibration day (HSE points system: 2 x a^2 x hours)", () 
   // HSE points system (2 x a^2 x hours): 10 m/s^2 for 30 minutes is 100 points; 5 m/s^2 for 3 hours is 150.
   it('adds the points of each agitation', () => {
     expect(havDay([{ magnitudeMs2: 10, minutes: 30 }]).points).toBe(100);
-    expect(havDay([{ magnitudeMs2: 5, minutes: 90 }, { magnitudeMs2: 5, minutes: 90 }]).points).toBe(150);
+    expect(
+      havDay([
+        { magnitudeMs2: 5, minutes: 90 },
+        { magnitudeMs2: 5, minutes: 90 },
+      ]).points,
+    ).toBe(150);
   });
 
   it('warns as the day nears the action value (100) and the limit (400)', () => {
@@ -55,9 +70,17 @@ describe('water tests on the sheet', () => {
   // BS 7593 guidance as commonly quoted (the standard's own text was not seen): within 10% of mains TDS, and clear.
   it('judges the flush only when both TDS readings are in, and needs clear water', () => {
     expect(waterTestFigures({ mainsTdsPpm: 180 }, null).flush).toBeNull();
-    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 195, waterClear: true }, null).flush).toEqual({ complete: true, withinPercent: 8.3 });
-    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 195, waterClear: false }, null).flush?.complete).toBe(false);
-    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 240, waterClear: true }, null).flush).toEqual({ complete: false, withinPercent: 33.3 });
+    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 195, waterClear: true }, null).flush).toEqual({
+      complete: true,
+      withinPercent: 8.3,
+    });
+    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 195, waterClear: false }, null).flush?.complete).toBe(
+      false,
+    );
+    expect(waterTestFigures({ mainsTdsPpm: 180, systemTdsPpm: 240, waterClear: true }, null).flush).toEqual({
+      complete: false,
+      withinPercent: 33.3,
+    });
   });
 
   it("checks the inhibitor reading against the product's own range", () => {

@@ -1,6 +1,15 @@
 import { z } from 'zod';
 import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
-import { coldBottom, flushComplete, HAV_ACTION_POINTS, HAV_LIMIT_POINTS, inhibitorCheck, meanWaterToRoomKelvin, radiatorOutputWatts, vibrationPoints } from './water-tests.ts';
+import {
+  coldBottom,
+  flushComplete,
+  HAV_ACTION_POINTS,
+  HAV_LIMIT_POINTS,
+  inhibitorCheck,
+  meanWaterToRoomKelvin,
+  radiatorOutputWatts,
+  vibrationPoints,
+} from './water-tests.ts';
 
 /**
  * The on-site record of a cleaning visit (the job sheet): the steps ticked with a time, the
@@ -9,7 +18,15 @@ import { coldBottom, flushComplete, HAV_ACTION_POINTS, HAV_LIMIT_POINTS, inhibit
  */
 
 /** The steps of a visit, in the order they are usually done. Labels are ours. */
-export const jobSteps = ['isolate_connect', 'dose_cleaner', 'circulate_hot', 'agitate', 'flush', 'dose_inhibitor', 'reinstate'] as const;
+export const jobSteps = [
+  'isolate_connect',
+  'dose_cleaner',
+  'circulate_hot',
+  'agitate',
+  'flush',
+  'dose_inhibitor',
+  'reinstate',
+] as const;
 export type JobStep = (typeof jobSteps)[number];
 export const jobStepLabels: Record<JobStep, string> = {
   isolate_connect: 'Isolate the boiler and connect the flushing rig',
@@ -30,21 +47,34 @@ export const stepCautions: Partial<Record<JobStep, readonly CautionKey[]>> = {
   reinstate: ['pressure'],
 };
 
-export const cautionKeys = ['hot_water', 'electrical', 'gas_oil', 'chemicals', 'drain', 'pressure', 'judgement'] as const;
+export const cautionKeys = [
+  'hot_water',
+  'electrical',
+  'gas_oil',
+  'chemicals',
+  'drain',
+  'pressure',
+  'judgement',
+] as const;
 export type CautionKey = (typeof cautionKeys)[number];
 /** The visit's safety cautions, in our own words; the web sheet and the PDF report both print these. */
 export const cautionTexts: Record<CautionKey, string> = {
   hot_water: 'Hot water and surfaces scald: let the system cool before draining.',
   electrical: 'Isolate the boiler electrically and prove it dead before working on it.',
-  gas_oil: 'Work on gas appliances only by a business on the Gas Safe Register; oil appliances only by a competent, registered person.',
+  gas_oil:
+    'Work on gas appliances only by a business on the Gas Safe Register; oil appliances only by a competent, registered person.',
   chemicals: 'Read the product’s safety data sheet; wear gloves and eye protection; never mix cleaners.',
   drain: 'Flushing water and sludge go to a foul drain, never a surface-water drain.',
   pressure: 'Do not over-pressurise old open-vented pipework; sealed systems relieve at about 3 bar.',
-  judgement: 'These figures support your judgement; they do not replace it. Follow local codes, the manufacturers’ instructions and licensed practice.',
+  judgement:
+    'These figures support your judgement; they do not replace it. Follow local codes, the manufacturers’ instructions and licensed practice.',
 };
 
 const celsius = (label: string) =>
-  z.number({ error: `${label} must be a temperature in °C.` }).min(-10, { error: `${label} must be between -10 and 110 °C.` }).max(110, { error: `${label} must be between -10 and 110 °C.` });
+  z
+    .number({ error: `${label} must be a temperature in °C.` })
+    .min(-10, { error: `${label} must be between -10 and 110 °C.` })
+    .max(110, { error: `${label} must be between -10 and 110 °C.` });
 
 /** One set of surface readings on a radiator, before or after the clean. */
 export const radiatorReadingInputSchema = z.strictObject({
@@ -60,7 +90,11 @@ export const readingPhases = ['before', 'after'] as const;
 export type ReadingPhase = (typeof readingPhases)[number];
 
 export const agitationInputSchema = z.strictObject({
-  minutes: z.number({ error: 'Agitation time must be a number of minutes.' }).int({ error: 'Agitation time is whole minutes.' }).min(0).max(240, { error: 'Agitation time must be at most 240 minutes per radiator.' }),
+  minutes: z
+    .number({ error: 'Agitation time must be a number of minutes.' })
+    .int({ error: 'Agitation time is whole minutes.' })
+    .min(0)
+    .max(240, { error: 'Agitation time must be at most 240 minutes per radiator.' }),
   /** The vibrating tool used (a kit item whose vibration magnitude is set on the kit). */
   kitItemId: z.number().int().positive().nullable().optional(),
 });
@@ -78,7 +112,9 @@ export const waterTestsInputSchema = z.strictObject({
 export type WaterTestsInput = z.infer<typeof waterTestsInputSchema>;
 
 export const jobKitInputSchema = z.strictObject({ kitItemIds: z.array(z.number().int().positive()).max(60) });
-export const jobNotesInputSchema = z.strictObject({ notes: z.string().trim().max(4000, { error: 'Notes must be at most 4,000 characters.' }) });
+export const jobNotesInputSchema = z.strictObject({
+  notes: z.string().trim().max(4000, { error: 'Notes must be at most 4,000 characters.' }),
+});
 export const jobPhotoTags = ['magnet_before', 'magnet_after', 'system', 'test_result', 'other'] as const;
 export const jobPhotoTagLabels: Record<(typeof jobPhotoTags)[number], string> = {
   magnet_before: 'Filter magnet before',
@@ -115,10 +151,17 @@ export interface ReadingFigures {
   outputWatts: number | null;
 }
 
-export function readingFigures(r: RadiatorReadingInput, ratedWatts: number | null | undefined, thresholdK: number, exponent = 1.3): ReadingFigures {
+export function readingFigures(
+  r: RadiatorReadingInput,
+  ratedWatts: number | null | undefined,
+  thresholdK: number,
+  exponent = 1.3,
+): ReadingFigures {
   const roomC = r.roomC ?? RATING_ROOM_C;
   const fromFlow = r.flowC != null && r.returnC != null;
-  const deltaTK = fromFlow ? meanWaterToRoomKelvin(r.flowC!, r.returnC!, roomC) : meanWaterToRoomKelvin(r.topC, r.bottomC, roomC);
+  const deltaTK = fromFlow
+    ? meanWaterToRoomKelvin(r.flowC!, r.returnC!, roomC)
+    : meanWaterToRoomKelvin(r.topC, r.bottomC, roomC);
   return {
     differenceK: round1(r.topC - r.bottomC),
     coldBottom: coldBottom(r.topC, r.bottomC, thresholdK),
@@ -134,14 +177,25 @@ export const HAV_APPROACH_SHARE = 0.8;
 export type HavLevel = 'low' | 'nearing_action' | 'above_action' | 'nearing_limit' | 'above_limit';
 
 /** An engineer's hand-arm vibration points for a day, from each agitation's magnitude and minutes. */
-export function havDay(agitations: { magnitudeMs2: number | null; minutes: number }[]): { points: number; level: HavLevel; message: string } {
-  const points = Math.round(agitations.reduce((n, a) => n + (a.magnitudeMs2 ? vibrationPoints(a.magnitudeMs2, a.minutes / 60) : 0), 0) * 10) / 10;
+export function havDay(agitations: { magnitudeMs2: number | null; minutes: number }[]): {
+  points: number;
+  level: HavLevel;
+  message: string;
+} {
+  const points =
+    Math.round(
+      agitations.reduce((n, a) => n + (a.magnitudeMs2 ? vibrationPoints(a.magnitudeMs2, a.minutes / 60) : 0), 0) * 10,
+    ) / 10;
   const level: HavLevel =
-    points > HAV_LIMIT_POINTS ? 'above_limit'
-    : points >= HAV_LIMIT_POINTS * HAV_APPROACH_SHARE ? 'nearing_limit'
-    : points >= HAV_ACTION_POINTS ? 'above_action'
-    : points >= HAV_ACTION_POINTS * HAV_APPROACH_SHARE ? 'nearing_action'
-    : 'low';
+    points > HAV_LIMIT_POINTS
+      ? 'above_limit'
+      : points >= HAV_LIMIT_POINTS * HAV_APPROACH_SHARE
+        ? 'nearing_limit'
+        : points >= HAV_ACTION_POINTS
+          ? 'above_action'
+          : points >= HAV_ACTION_POINTS * HAV_APPROACH_SHARE
+            ? 'nearing_action'
+            : 'low';
   const messages: Record<HavLevel, string> = {
     low: `${points} vibration points today, below the exposure action value of ${HAV_ACTION_POINTS}.`,
     nearing_action: `${points} vibration points today: nearing the exposure action value of ${HAV_ACTION_POINTS}. Plan breaks and share the agitation.`,
@@ -157,10 +211,22 @@ export interface WaterTestFigures {
   inhibitor: { result: 'pass' | 'low' | 'high'; min: number; max: number; unit: string | null } | null;
 }
 
-export function waterTestFigures(t: WaterTestsInput, inhibitorRange: { min: number; max: number; unit: string | null } | null): WaterTestFigures {
-  const flush = t.mainsTdsPpm != null && t.systemTdsPpm != null ? flushComplete(t.mainsTdsPpm, t.systemTdsPpm, t.waterClear === true) : null;
-  const inhibitor = t.inhibitorReading != null && inhibitorRange ? { result: inhibitorCheck(t.inhibitorReading, inhibitorRange), ...inhibitorRange } : null;
-  return { flush: flush && { complete: flush.complete, withinPercent: Math.round(flush.withinPercent * 10) / 10 }, inhibitor };
+export function waterTestFigures(
+  t: WaterTestsInput,
+  inhibitorRange: { min: number; max: number; unit: string | null } | null,
+): WaterTestFigures {
+  const flush =
+    t.mainsTdsPpm != null && t.systemTdsPpm != null
+      ? flushComplete(t.mainsTdsPpm, t.systemTdsPpm, t.waterClear === true)
+      : null;
+  const inhibitor =
+    t.inhibitorReading != null && inhibitorRange
+      ? { result: inhibitorCheck(t.inhibitorReading, inhibitorRange), ...inhibitorRange }
+      : null;
+  return {
+    flush: flush && { complete: flush.complete, withinPercent: Math.round(flush.withinPercent * 10) / 10 },
+    inhibitor,
+  };
 }
 
 function round1(n: number) {

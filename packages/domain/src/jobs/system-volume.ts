@@ -12,7 +12,7 @@ export const copperTubes = {
 export type CopperTubeSize = keyof typeof copperTubes;
 
 export function boreLitresPerMetre(insideDiameterMm: number): number {
-  return (Math.PI / 4) * insideDiameterMm ** 2 / 1000;
+  return ((Math.PI / 4) * insideDiameterMm ** 2) / 1000;
 }
 
 export function pipeWaterContentLitresPerMetre(tube: CopperTubeSize): number {
@@ -37,7 +37,12 @@ export const defaultRadiatorLitresPerMetreAt600: Record<PanelType, number> = {
 };
 
 /** Content scales with height: a 300 mm panel holds about half a 600 mm one (from memory). */
-export function radiatorLitres(panel: PanelType, heightMm: number, lengthMm: number, perMetreAt600 = defaultRadiatorLitresPerMetreAt600): number {
+export function radiatorLitres(
+  panel: PanelType,
+  heightMm: number,
+  lengthMm: number,
+  perMetreAt600 = defaultRadiatorLitresPerMetreAt600,
+): number {
   return perMetreAt600[panel] * (lengthMm / 1000) * (heightMm / 600);
 }
 
@@ -60,5 +65,11 @@ export interface VolumeParts {
 }
 
 export function systemVolumeLitres(parts: VolumeParts): number {
-  return parts.radiatorsLitres + parts.pipeworkLitres + parts.heatExchangerLitres + parts.cylinderCoilLitres + parts.otherLitres;
+  return (
+    parts.radiatorsLitres +
+    parts.pipeworkLitres +
+    parts.heatExchangerLitres +
+    parts.cylinderCoilLitres +
+    parts.otherLitres
+  );
 }

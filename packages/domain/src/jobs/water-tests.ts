@@ -24,7 +24,11 @@ export function coldBottom(topC: number, bottomC: number, thresholdKelvin: numbe
  * Flush complete: system water TDS within 10% of mains TDS, measured before the inhibitor goes in,
  * and the water visibly clear (as BS 7593 guidance is commonly quoted).
  */
-export function flushComplete(mainsTdsPpm: number, systemTdsPpm: number, waterClear: boolean): { complete: boolean; withinPercent: number } {
+export function flushComplete(
+  mainsTdsPpm: number,
+  systemTdsPpm: number,
+  waterClear: boolean,
+): { complete: boolean; withinPercent: number } {
   const withinPercent = mainsTdsPpm > 0 ? (Math.abs(systemTdsPpm - mainsTdsPpm) / mainsTdsPpm) * 100 : Infinity;
   return { complete: waterClear && withinPercent <= 10, withinPercent };
 }

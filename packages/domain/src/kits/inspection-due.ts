@@ -45,7 +45,18 @@ export function inspectionDue(
   const soonByUses = usesLeft !== null && usesLeft <= 1;
 
   // Whichever comes first: uses when they have run out (or will on the next use), else days.
-  const reason: InspectionDue['reason'] = overdueByUses ? 'uses' : overdueByDays ? 'days' : soonByUses ? 'uses' : soonByDays ? 'days' : dueOn ? 'days' : 'uses';
-  const state: InspectionState = overdueByDays || overdueByUses ? 'overdue' : soonByDays || soonByUses ? 'due_soon' : 'ok';
+  const reason: InspectionDue['reason'] = overdueByUses
+    ? 'uses'
+    : overdueByDays
+      ? 'days'
+      : soonByUses
+        ? 'uses'
+        : soonByDays
+          ? 'days'
+          : dueOn
+            ? 'days'
+            : 'uses';
+  const state: InspectionState =
+    overdueByDays || overdueByUses ? 'overdue' : soonByDays || soonByUses ? 'due_soon' : 'ok';
   return { state, dueOn, usesLeft, reason };
 }

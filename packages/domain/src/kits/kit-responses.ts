@@ -1,6 +1,13 @@
 import { z } from 'zod';
 import { photoSchema } from '../photos/photo-schemas.ts';
-import { custodyEventSchema, inspectionSchema, itemKindSchema, kitItemSchema, kitLabelSchema, kitSchema } from './kit-schemas.ts';
+import {
+  custodyEventSchema,
+  inspectionSchema,
+  itemKindSchema,
+  kitItemSchema,
+  kitLabelSchema,
+  kitSchema,
+} from './kit-schemas.ts';
 
 // The success bodies of the kit, item, item-kind and label routes: the API declares them, the
 // client's queries parse with them.
@@ -17,7 +24,12 @@ export const kitDetailResponseSchema = z.object({
 });
 export type KitDetailResponse = z.infer<typeof kitDetailResponseSchema>;
 
-export const kitItemPageResponseSchema = z.object({ items: z.array(kitItemSchema), total: z.number(), page: z.number(), pageSize: z.number() });
+export const kitItemPageResponseSchema = z.object({
+  items: z.array(kitItemSchema),
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+});
 export type KitItemPageResponse = z.infer<typeof kitItemPageResponseSchema>;
 export const kitItemResponseSchema = z.object({ item: kitItemSchema });
 

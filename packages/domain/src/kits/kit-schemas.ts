@@ -4,7 +4,9 @@ import { optionalPlainText, singleLineName } from '../lib/text.ts';
 import { locationRefSchema } from '../locations/location-schemas.ts';
 
 export const itemConditions = ['in_service', 'needs_attention', 'out_of_service'] as const;
-export const itemConditionSchema = z.enum(itemConditions, { error: () => ({ message: 'Condition must be in service, needs attention or out of service.' }) });
+export const itemConditionSchema = z.enum(itemConditions, {
+  error: () => ({ message: 'Condition must be in service, needs attention or out of service.' }),
+});
 export type ItemCondition = z.infer<typeof itemConditionSchema>;
 export const itemConditionLabels: Record<ItemCondition, string> = {
   in_service: 'In service',
@@ -20,19 +22,31 @@ export const overduePolicyLabels: Record<(typeof overduePolicies)[number], strin
 
 const text = optionalPlainText;
 const name = (label: string, max = 80) => singleLineName(label, { max });
-const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
+const id = (label: string) =>
+  z
+    .number({ error: `${label} is required.` })
+    .int()
+    .positive();
 const interval = (label: string, max: number) =>
-  z.number().int({ error: `${label} must be a whole number.` }).min(1, { error: `${label} must be at least 1.` }).max(max, { error: `${label} must be at most ${max}.` }).nullable();
+  z
+    .number()
+    .int({ error: `${label} must be a whole number.` })
+    .min(1, { error: `${label} must be at least 1.` })
+    .max(max, { error: `${label} must be at most ${max}.` })
+    .nullable();
 
-export const itemKindInputSchema = z
-  .strictObject({
-    name: name('Kind name'),
-    intervalDays: interval('Days between inspections', 3650),
-    intervalUses: interval('Uses between inspections', 1000),
-    dueSoonDays: z.number().int().min(0, { error: 'Due-soon window cannot be negative.' }).max(365, { error: 'Due-soon window must be at most 365 days.' }),
-    overduePolicy: z.enum(overduePolicies),
-    electrical: z.boolean().default(false),
-  });
+export const itemKindInputSchema = z.strictObject({
+  name: name('Kind name'),
+  intervalDays: interval('Days between inspections', 3650),
+  intervalUses: interval('Uses between inspections', 1000),
+  dueSoonDays: z
+    .number()
+    .int()
+    .min(0, { error: 'Due-soon window cannot be negative.' })
+    .max(365, { error: 'Due-soon window must be at most 365 days.' }),
+  overduePolicy: z.enum(overduePolicies),
+  electrical: z.boolean().default(false),
+});
 export type ItemKindInput = z.infer<typeof itemKindInputSchema>;
 
 export const itemKindSchema = z.object({
@@ -50,7 +64,13 @@ export const assetTagSchema = z
   .string({ error: 'Asset tag is required.' })
   .trim()
   .toUpperCase()
-  .pipe(z.string().regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, { error: (iss) => `Asset tag "${String(iss.input)}" may use letters, digits and dashes, up to 32.` }));
+  .pipe(
+    z
+      .string()
+      .regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, {
+        error: (iss) => `Asset tag "${String(iss.input)}" may use letters, digits and dashes, up to 32.`,
+      }),
+  );
 
 export const createKitInputSchema = z.strictObject({ name: name('Kit name'), notes: text('Notes', 1000) });
 export type CreateKitInput = z.infer<typeof createKitInputSchema>;
@@ -151,7 +171,12 @@ export type CustodyEvent = z.infer<typeof custodyEventSchema>;
 
 export const checkOutInputSchema = z.strictObject({
   toLocationId: id('Van'),
-  overdueReason: z.string().trim().min(3, { error: 'Say why it goes out before inspection (at least 3 characters).' }).max(500).optional(),
+  overdueReason: z
+    .string()
+    .trim()
+    .min(3, { error: 'Say why it goes out before inspection (at least 3 characters).' })
+    .max(500)
+    .optional(),
   note: text('Note', 1000),
 });
 export type CheckOutInput = z.infer<typeof checkOutInputSchema>;
@@ -169,7 +194,9 @@ export type CheckInInput = z.infer<typeof checkInInputSchema>;
 export const moveInputSchema = z.strictObject({ toLocationId: id('Van'), note: text('Note', 1000) });
 export type MoveInput = z.infer<typeof moveInputSchema>;
 
-export const inspectionResultSchema = z.enum(['passed', 'failed'], { error: () => ({ message: 'Result must be passed or failed.' }) });
+export const inspectionResultSchema = z.enum(['passed', 'failed'], {
+  error: () => ({ message: 'Result must be passed or failed.' }),
+});
 export const recordInspectionInputSchema = z.strictObject({
   result: inspectionResultSchema,
   notes: text('Notes', 1000),
@@ -213,4 +240,11 @@ export const labelsQuerySchema = z.strictObject({
   kitId: z.coerce.number().int().positive().optional(),
 });
 
-export const kitLabelSchema = z.object({ itemId: z.number(), assetTag: z.string(), kindName: z.string(), kitName: z.string().nullable(), url: z.string(), qrSvgDataUrl: z.string() });
+export const kitLabelSchema = z.object({
+  itemId: z.number(),
+  assetTag: z.string(),
+  kindName: z.string(),
+  kitName: z.string().nullable(),
+  url: z.string(),
+  qrSvgDataUrl: z.string(),
+});

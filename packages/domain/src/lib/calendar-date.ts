@@ -7,9 +7,12 @@ export const calendarDateSchema = z
   .string({ error: 'A date is required.' })
   .trim()
   .regex(/^\d{4}-\d{2}-\d{2}$/, { error: (iss) => `"${String(iss.input)}" is not a date (use YYYY-MM-DD).` })
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), {
-    error: (iss) => `"${String(iss.input)}" is not a real date.`,
-  });
+  .refine(
+    (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+    {
+      error: (iss) => `"${String(iss.input)}" is not a real date.`,
+    },
+  );
 
 const DAY_MS = 86_400_000;
 
@@ -24,7 +27,12 @@ export function daysBetween(from: CalendarDate, to: CalendarDate): number {
 
 /** The calendar day an instant falls on in a time zone (Intl, so it follows clock changes). */
 export function calendarDateIn(instant: Date, timeZone: string): CalendarDate {
-  const parts = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(instant);
+  const parts = new Intl.DateTimeFormat('en-CA', {
+    timeZone,
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+  }).formatToParts(instant);
   const get = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
   return `${get('year')}-${get('month')}-${get('day')}`;
 }
@@ -47,11 +55,21 @@ export function addMonths(date: CalendarDate, months: number): CalendarDate {
  * slips, and a date that far out would sort, remind and print wrongly everywhere it is used.
  * `notAfterToday` refuses dates that have not happened yet (a day's slack covers time zones).
  */
-export function calendarDateWithin(label: string, range: { from: CalendarDate; to: CalendarDate; notAfterToday?: boolean }) {
-  const readable = (d: CalendarDate) => new Date(`${d}T00:00:00Z`).toLocaleDateString('en-GB', { timeZone: 'UTC', day: 'numeric', month: 'long', year: 'numeric' });
+export function calendarDateWithin(
+  label: string,
+  range: { from: CalendarDate; to: CalendarDate; notAfterToday?: boolean },
+) {
+  const readable = (d: CalendarDate) =>
+    new Date(`${d}T00:00:00Z`).toLocaleDateString('en-GB', {
+      timeZone: 'UTC',
+      day: 'numeric',
+      month: 'long',
+      year: 'numeric',
+    });
   return calendarDateSchema
     .refine((d) => d >= range.from && d <= range.to, {
-      error: (iss) => `${label} must be between ${readable(range.from)} and ${readable(range.to)} (you gave ${String(iss.input)}).`,
+      error: (iss) =>
+        `${label} must be between ${readable(range.from)} and ${readable(range.to)} (you gave ${String(iss.input)}).`,
     })
     .refine((d) => !range.notAfterToday || d <= addDays(new Date().toISOString().slice(0, 10), 1), {
       error: `${label} cannot be in the future.`,

@@ -28,7 +28,9 @@ export function singleLineName(label: string, opts: { min?: number; max: number 
     .trim()
     .min(min, { error: min <= 1 ? `${label} is required.` : `${label} must be at least ${min} characters.` })
     .max(opts.max, { error: `${label} must be at most ${opts.max} characters.` })
-    .refine((s) => !NOT_IN_A_NAME.test(s), { error: `${label} must be one line of plain text (no line breaks or control characters).` })
+    .refine((s) => !NOT_IN_A_NAME.test(s), {
+      error: `${label} must be one line of plain text (no line breaks or control characters).`,
+    })
     .refine((s) => !LINK.test(s), { error: `${label} cannot contain a web address.` });
 }
 
@@ -38,7 +40,9 @@ export function plainText(label: string, max: number) {
     .string({ error: `${label} must be text.` })
     .trim()
     .max(max, { error: `${label} must be at most ${max} characters.` })
-    .refine((s) => !NOT_IN_TEXT.test(s), { error: `${label} contains control characters; type it again as plain text.` });
+    .refine((s) => !NOT_IN_TEXT.test(s), {
+      error: `${label} contains control characters; type it again as plain text.`,
+    });
 }
 
 /** Optional free text: empty becomes null. */

@@ -8,7 +8,11 @@ export const vanListResponseSchema = z.object({ vans: z.array(vanSchema) });
 export const vanResponseSchema = z.object({ van: vanSchema });
 
 /** A van with the kits and items on board. */
-export const vanDetailResponseSchema = z.object({ van: vanSchema, kits: z.array(kitSchema), items: z.array(kitItemSchema) });
+export const vanDetailResponseSchema = z.object({
+  van: vanSchema,
+  kits: z.array(kitSchema),
+  items: z.array(kitItemSchema),
+});
 export type VanDetailResponse = z.infer<typeof vanDetailResponseSchema>;
 
 /** The signed-in engineer's own van; van is null (and the lists empty) without one. */

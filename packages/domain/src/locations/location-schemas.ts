@@ -16,8 +16,12 @@ export const registrationSchema = z
   .pipe(
     z
       .string()
-      .regex(/^(?=.*[A-Z])(?=.*\d)[A-Z0-9]{1,7} ?[A-Z0-9]{0,7}$/, { error: (iss) => `"${String(iss.input)}" does not look like a UK registration.` })
-      .refine((s) => s.replace(' ', '').length >= 2 && s.replace(' ', '').length <= 8, { error: 'A registration has 2 to 8 letters and digits.' }),
+      .regex(/^(?=.*[A-Z])(?=.*\d)[A-Z0-9]{1,7} ?[A-Z0-9]{0,7}$/, {
+        error: (iss) => `"${String(iss.input)}" does not look like a UK registration.`,
+      })
+      .refine((s) => s.replace(' ', '').length >= 2 && s.replace(' ', '').length <= 8, {
+        error: 'A registration has 2 to 8 letters and digits.',
+      }),
   );
 
 export const locationNameSchema = singleLineName('Name', { max: 80 });
@@ -65,5 +69,10 @@ export const vanSchema = z.object({
 });
 export type Van = z.infer<typeof vanSchema>;
 
-export const depotSchema = z.object({ id: z.number(), kind: z.literal('depot'), name: z.string(), notes: z.string().nullable() });
+export const depotSchema = z.object({
+  id: z.number(),
+  kind: z.literal('depot'),
+  name: z.string(),
+  notes: z.string().nullable(),
+});
 export type Depot = z.infer<typeof depotSchema>;

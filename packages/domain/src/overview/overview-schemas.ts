@@ -13,7 +13,14 @@ export const overviewVanSchema = z.object({
   stock: z.object({ belowMinimum: z.number(), outOfStock: z.number(), usablePacks: z.number() }),
   motDueOn: z.string().nullable(),
   serviceDueOn: z.string().nullable(),
-  nextDue: z.object({ what: z.enum(['MOT', 'service']), on: z.string(), daysLeft: z.number(), state: z.enum(overviewDueStates) }).nullable(),
+  nextDue: z
+    .object({
+      what: z.enum(['MOT', 'service']),
+      on: z.string(),
+      daysLeft: z.number(),
+      state: z.enum(overviewDueStates),
+    })
+    .nullable(),
 });
 export type OverviewVan = z.infer<typeof overviewVanSchema>;
 
@@ -29,7 +36,13 @@ export const overviewDueItemSchema = z.object({
 });
 export type OverviewDueItem = z.infer<typeof overviewDueItemSchema>;
 
-const havLevels = ['low', 'nearing_action', 'above_action', 'nearing_limit', 'above_limit'] as const satisfies readonly HavLevel[];
+const havLevels = [
+  'low',
+  'nearing_action',
+  'above_action',
+  'nearing_limit',
+  'above_limit',
+] as const satisfies readonly HavLevel[];
 
 export const havEngineerSchema = z.object({
   memberId: z.number(),
@@ -45,7 +58,12 @@ export const overviewSchema = z.object({
   timeZone: z.string(),
   vans: z.array(overviewVanSchema),
   vansDue: z.number(),
-  kit: z.object({ overdueCount: z.number(), dueSoonCount: z.number(), overdue: z.array(overviewDueItemSchema), dueSoon: z.array(overviewDueItemSchema) }),
+  kit: z.object({
+    overdueCount: z.number(),
+    dueSoonCount: z.number(),
+    overdue: z.array(overviewDueItemSchema),
+    dueSoon: z.array(overviewDueItemSchema),
+  }),
   expiringBatches: z.object({
     withinDays: z.number(),
     count: z.number(),
@@ -64,8 +82,25 @@ export const overviewSchema = z.object({
   }),
   jobsThisMonth: z.object({ month: z.string(), planned: z.number(), completed: z.number() }),
   // A list of kinds rather than a record: z.record would add its code to the client's first download, where zod lives.
-  usageByMonth: z.array(z.object({ month: z.string(), byKind: z.array(z.object({ kind: z.string(), litres: z.number() })), totalLitres: z.number() })),
-  reminders: z.array(z.object({ id: z.number(), kind: z.string(), subjectType: z.string(), subjectId: z.number(), summary: z.string(), createdAt: z.string() })).nullable(),
+  usageByMonth: z.array(
+    z.object({
+      month: z.string(),
+      byKind: z.array(z.object({ kind: z.string(), litres: z.number() })),
+      totalLitres: z.number(),
+    }),
+  ),
+  reminders: z
+    .array(
+      z.object({
+        id: z.number(),
+        kind: z.string(),
+        subjectType: z.string(),
+        subjectId: z.number(),
+        summary: z.string(),
+        createdAt: z.string(),
+      }),
+    )
+    .nullable(),
   hav: z.object({ day: z.string(), engineers: z.array(havEngineerSchema) }).nullable(),
 });
 export type Overview = z.infer<typeof overviewSchema>;

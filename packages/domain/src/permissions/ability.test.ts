@@ -49,22 +49,61 @@ describe('defineAbilityFor', () => {
  * Per subject and action, the roles allowed on a record of their own firm (tagged with the subject and
  * firmId, no owner or van fields). Records of another firm are refused to every role (checked below).
  */
-const firmRecordTable: Record<Exclude<SubjectName, 'Firm' | 'Member' | 'Invitation'>, Partial<Record<Action, Role[]>>> = {
-  Location: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'], update: ['owner', 'admin', 'stores'] },
-  ItemKind: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'], update: ['owner', 'admin', 'stores'] },
-  Kit: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'], update: ['owner', 'admin', 'stores'] },
-  KitItem: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'], delete: ['owner', 'admin', 'stores'] },
+const firmRecordTable: Record<
+  Exclude<SubjectName, 'Firm' | 'Member' | 'Invitation'>,
+  Partial<Record<Action, Role[]>>
+> = {
+  Location: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores'],
+    update: ['owner', 'admin', 'stores'],
+  },
+  ItemKind: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores'],
+    update: ['owner', 'admin', 'stores'],
+  },
+  Kit: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores'],
+    update: ['owner', 'admin', 'stores'],
+  },
+  KitItem: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores'],
+    delete: ['owner', 'admin', 'stores'],
+  },
   Custody: { read: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin', 'stores'] },
-  Inspection: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin', 'stores'] },
-  Photo: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores', 'engineer'], delete: ['owner', 'admin', 'stores'] },
+  Inspection: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores', 'engineer'],
+    update: ['owner', 'admin', 'stores'],
+  },
+  Photo: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores', 'engineer'],
+    delete: ['owner', 'admin', 'stores'],
+  },
   Reminder: { read: ['owner', 'admin', 'stores'], create: ['owner', 'admin'] },
   ReminderSettings: { read: ['owner', 'admin'], update: ['owner', 'admin'] },
-  Product: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'], update: ['owner', 'admin', 'stores'] },
+  Product: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores'],
+    update: ['owner', 'admin', 'stores'],
+  },
   Stock: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores'] },
   StockUse: { create: ['owner', 'admin', 'stores'] },
   ParLevel: { read: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin', 'stores'] },
-  Customer: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin', 'stores'] },
-  Job: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'stores', 'engineer'], delete: ['owner', 'admin', 'stores'] },
+  Customer: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores', 'engineer'],
+    update: ['owner', 'admin', 'stores'],
+  },
+  Job: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores', 'engineer'],
+    delete: ['owner', 'admin', 'stores'],
+  },
 };
 
 describe('each subject, each role, in their own firm and another', () => {
@@ -73,7 +112,11 @@ describe('each subject, each role, in their own firm and another', () => {
       it(`${action} ${name}: ${allowed.join(', ')}`, () => {
         const own = subject(name as 'Location', { firmId, kind: 'depot' as const, engineerMemberId: null });
         expect(roles.filter((r) => ability(r).can(action, own))).toEqual(allowed);
-        const foreign = subject(name as 'Location', { firmId: otherFirm, kind: 'depot' as const, engineerMemberId: null });
+        const foreign = subject(name as 'Location', {
+          firmId: otherFirm,
+          kind: 'depot' as const,
+          engineerMemberId: null,
+        });
         expect(roles.filter((r) => ability(r).can(action, foreign))).toEqual([]);
       });
     }
@@ -81,24 +124,36 @@ describe('each subject, each role, in their own firm and another', () => {
 });
 
 describe('an engineer\u2019s own van and own jobs', () => {
-  const van = (engineerMemberId: number | null, inFirm = firmId) => ({ firmId: inFirm, kind: 'van' as const, engineerMemberId });
+  const van = (engineerMemberId: number | null, inFirm = firmId) => ({
+    firmId: inFirm,
+    kind: 'van' as const,
+    engineerMemberId,
+  });
 
   it('moves kit (custody) to, from or on from their own van only', () => {
     expect(ability('engineer').can('create', subject('Custody', van(ownMemberId)))).toBe(true);
     expect(ability('engineer').can('create', subject('Custody', van(ownMemberId + 1)))).toBe(false);
     expect(ability('engineer').can('create', subject('Custody', van(null)))).toBe(false);
-    expect(ability('engineer').can('create', subject('Custody', { firmId, kind: 'depot' as const, engineerMemberId: null }))).toBe(false);
+    expect(
+      ability('engineer').can('create', subject('Custody', { firmId, kind: 'depot' as const, engineerMemberId: null })),
+    ).toBe(false);
     expect(ability('engineer').can('create', subject('Custody', van(ownMemberId, otherFirm)))).toBe(false);
   });
 
   it('uses stock by hand from their own van only', () => {
     expect(ability('engineer').can('create', subject('StockUse', van(ownMemberId)))).toBe(true);
     expect(ability('engineer').can('create', subject('StockUse', van(ownMemberId + 1)))).toBe(false);
-    expect(ability('engineer').can('create', subject('StockUse', { firmId, kind: 'depot' as const, engineerMemberId: null }))).toBe(false);
+    expect(
+      ability('engineer').can(
+        'create',
+        subject('StockUse', { firmId, kind: 'depot' as const, engineerMemberId: null }),
+      ),
+    ).toBe(false);
   });
 
   it('updates their own jobs only; stores, admin and owner update any job of the firm', () => {
-    const job = (engineerMemberId: number | null, inFirm = firmId) => subject('Job', { firmId: inFirm, engineerMemberId });
+    const job = (engineerMemberId: number | null, inFirm = firmId) =>
+      subject('Job', { firmId: inFirm, engineerMemberId });
     expect(ability('engineer').can('update', job(ownMemberId))).toBe(true);
     expect(ability('engineer').can('update', job(ownMemberId + 1))).toBe(false);
     expect(ability('engineer').can('update', job(null))).toBe(false);

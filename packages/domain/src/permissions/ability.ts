@@ -4,12 +4,24 @@ import type { Role } from './roles.ts';
 export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete';
 
 /** The fields rules look at, per subject; tag a record with `subject('Member', row)`. */
-export interface FirmRecord { firmId: number }
-export interface MemberRecord { firmId: number; role: Role }
-export interface InvitationRecord { firmId: number; role: Role }
+export interface FirmRecord {
+  firmId: number;
+}
+export interface MemberRecord {
+  firmId: number;
+  role: Role;
+}
+export interface InvitationRecord {
+  firmId: number;
+  role: Role;
+}
 
 /** A van or depot; engineerMemberId is the van's engineer. */
-export interface LocationRecord { firmId: number; kind: 'depot' | 'van'; engineerMemberId: number | null }
+export interface LocationRecord {
+  firmId: number;
+  kind: 'depot' | 'van';
+  engineerMemberId: number | null;
+}
 
 export type SubjectName =
   | 'Firm'
@@ -62,7 +74,24 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
   // Every member may see who else is in the firm (names and roles), e.g. to hand a kit over.
   can('read', 'Member', inFirm);
   // Everyone may look up where any kit is, and see the firm's vans and depots.
-  can('read', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'ParLevel', 'Customer', 'Job'], inFirm);
+  can(
+    'read',
+    [
+      'Location',
+      'ItemKind',
+      'Kit',
+      'KitItem',
+      'Custody',
+      'Inspection',
+      'Photo',
+      'Product',
+      'Stock',
+      'ParLevel',
+      'Customer',
+      'Job',
+    ],
+    inFirm,
+  );
 
   switch (member.role) {
     case 'owner':
@@ -75,10 +104,48 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
       // An Admin neither makes, changes nor removes an Owner.
       cannot('update', 'Member', { role: 'owner' });
       cannot('create', 'Invitation', { role: 'owner' });
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Reminder', 'ReminderSettings', 'Product', 'Stock', 'StockUse', 'ParLevel', 'Customer', 'Job'], inFirm);
+      can(
+        'manage',
+        [
+          'Location',
+          'ItemKind',
+          'Kit',
+          'KitItem',
+          'Custody',
+          'Inspection',
+          'Photo',
+          'Reminder',
+          'ReminderSettings',
+          'Product',
+          'Stock',
+          'StockUse',
+          'ParLevel',
+          'Customer',
+          'Job',
+        ],
+        inFirm,
+      );
       break;
     case 'stores':
-      can('manage', ['Location', 'ItemKind', 'Kit', 'KitItem', 'Custody', 'Inspection', 'Photo', 'Product', 'Stock', 'StockUse', 'ParLevel', 'Customer', 'Job'], inFirm);
+      can(
+        'manage',
+        [
+          'Location',
+          'ItemKind',
+          'Kit',
+          'KitItem',
+          'Custody',
+          'Inspection',
+          'Photo',
+          'Product',
+          'Stock',
+          'StockUse',
+          'ParLevel',
+          'Customer',
+          'Job',
+        ],
+        inFirm,
+      );
       can('read', 'Reminder', inFirm);
       break;
     case 'engineer':
@@ -89,7 +156,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
         can('create', 'StockUse', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
       }
       can('create', ['Inspection', 'Photo', 'Customer', 'Job'], inFirm);
-      if (member.memberId !== undefined) can('update', 'Job', { firmId: member.firmId, engineerMemberId: member.memberId });
+      if (member.memberId !== undefined)
+        can('update', 'Job', { firmId: member.firmId, engineerMemberId: member.memberId });
       break;
   }
   return build();

@@ -1,6 +1,14 @@
 import { z } from 'zod';
 
-export const reminderKinds = ['inspection_due', 'mot_due', 'service_due', 'van_below_minimum', 'depot_reorder', 'batch_expiring', 'annual_check_due'] as const;
+export const reminderKinds = [
+  'inspection_due',
+  'mot_due',
+  'service_due',
+  'van_below_minimum',
+  'depot_reorder',
+  'batch_expiring',
+  'annual_check_due',
+] as const;
 export type ReminderKind = (typeof reminderKinds)[number];
 export const reminderKindLabels: Record<ReminderKind, string> = {
   inspection_due: 'Inspection due',

@@ -3,7 +3,13 @@ import { jobStatusSchema } from '../jobs/job-responses.ts';
 
 // The success bodies of the customer and site routes: the API declares them, the client's queries parse with them.
 
-export const customerSchema = z.object({ id: z.number(), name: z.string(), email: z.string().nullable(), phone: z.string().nullable(), contact: z.string().nullable() });
+export const customerSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  email: z.string().nullable(),
+  phone: z.string().nullable(),
+  contact: z.string().nullable(),
+});
 export type Customer = z.infer<typeof customerSchema>;
 export const customerListResponseSchema = z.object({ customers: z.array(customerSchema) });
 

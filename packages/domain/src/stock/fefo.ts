@@ -28,7 +28,11 @@ export function usableQuantity(batches: BatchStock[], today: CalendarDate): numb
  * First expiry, first out: takes `wanted` packs from the usable batches, soonest expiry first
  * (ties by lot number, so the plan is the same every time), never from an expired batch.
  */
-export function allocateFefo(batches: BatchStock[], wanted: number, today: CalendarDate): { allocations: Allocation[]; shortfall: number } {
+export function allocateFefo(
+  batches: BatchStock[],
+  wanted: number,
+  today: CalendarDate,
+): { allocations: Allocation[]; shortfall: number } {
   const usable = batches
     .filter((b) => !isExpired(b, today) && b.quantity > 0)
     .sort((a, b) => a.expiresOn.localeCompare(b.expiresOn) || a.lotNumber.localeCompare(b.lotNumber));

@@ -29,19 +29,41 @@ export interface RestockLine {
  * depot's batches first expiry first, while the depot lasts. Vans below their minimum are served
  * first (then the lowest relative to target, then by id), so scarce stock goes where it is needed.
  */
-export function planRestock(vans: VanNeed[], depotBatches: Map<number, BatchStock[]>, today: CalendarDate): RestockLine[] {
+export function planRestock(
+  vans: VanNeed[],
+  depotBatches: Map<number, BatchStock[]>,
+  today: CalendarDate,
+): RestockLine[] {
   const remaining = new Map<number, BatchStock[]>();
-  for (const [productId, batches] of depotBatches) remaining.set(productId, batches.map((b) => ({ ...b })));
+  for (const [productId, batches] of depotBatches)
+    remaining.set(
+      productId,
+      batches.map((b) => ({ ...b })),
+    );
   const urgency = (v: VanNeed) => (v.usable < v.par.minimum ? 0 : 1);
   const order = vans
     .filter((v) => v.usable < v.par.target)
-    .sort((a, b) => urgency(a) - urgency(b) || a.usable / a.par.target - b.usable / b.par.target || a.locationId - b.locationId || a.productId - b.productId);
+    .sort(
+      (a, b) =>
+        urgency(a) - urgency(b) ||
+        a.usable / a.par.target - b.usable / b.par.target ||
+        a.locationId - b.locationId ||
+        a.productId - b.productId,
+    );
   return order.map((v) => {
     const wanted = v.par.target - v.usable;
     const stock = remaining.get(v.productId) ?? [];
     const { allocations, shortfall } = allocateFefo(stock, wanted, today);
     for (const a of allocations) stock.find((b) => b.batchId === a.batchId)!.quantity -= a.quantity;
-    return { locationId: v.locationId, productId: v.productId, usable: v.usable, par: v.par, wanted, allocations, shortfall };
+    return {
+      locationId: v.locationId,
+      productId: v.productId,
+      usable: v.usable,
+      par: v.par,
+      wanted,
+      allocations,
+      shortfall,
+    };
   });
 }
 
@@ -64,7 +86,11 @@ export function planReorder(
   today: CalendarDate,
 ): ReorderLine[] {
   const planned = new Map<number, number>();
-  for (const line of restock) planned.set(line.productId, (planned.get(line.productId) ?? 0) + line.allocations.reduce((n, a) => n + a.quantity, 0));
+  for (const line of restock)
+    planned.set(
+      line.productId,
+      (planned.get(line.productId) ?? 0) + line.allocations.reduce((n, a) => n + a.quantity, 0),
+    );
   const lines: ReorderLine[] = [];
   for (const p of products) {
     if (!p.par) continue;

@@ -20,7 +20,12 @@ export const stockCellSchema = z.object({
 });
 export type StockCell = z.infer<typeof stockCellSchema>;
 
-export const stockPlaceSchema = z.object({ id: z.number(), kind: z.enum(['depot', 'van']), name: z.string(), registration: z.string().nullable() });
+export const stockPlaceSchema = z.object({
+  id: z.number(),
+  kind: z.enum(['depot', 'van']),
+  name: z.string(),
+  registration: z.string().nullable(),
+});
 export type StockPlace = z.infer<typeof stockPlaceSchema>;
 
 export const stockGridSchema = z.object({
@@ -48,12 +53,22 @@ export type LedgerPage = z.infer<typeof ledgerPageSchema>;
 export const stockMovedSchema = z.object({ groupId: z.string(), movements: z.array(movementSchema) });
 export type StockMoved = z.infer<typeof stockMovedSchema>;
 
-export const parLevelRowSchema = z.object({ locationId: z.number(), productId: z.number(), minimum: z.number(), target: z.number() });
+export const parLevelRowSchema = z.object({
+  locationId: z.number(),
+  productId: z.number(),
+  minimum: z.number(),
+  target: z.number(),
+});
 export type ParLevelRow = z.infer<typeof parLevelRowSchema>;
 export const parLevelListResponseSchema = z.object({ parLevels: z.array(parLevelRowSchema) });
 export const parLevelResponseSchema = z.object({ parLevel: parLevelRowSchema });
 
-const allocationSchema = z.object({ batchId: z.number(), lotNumber: z.string(), expiresOn: z.string(), quantity: z.number() });
+const allocationSchema = z.object({
+  batchId: z.number(),
+  lotNumber: z.string(),
+  expiresOn: z.string(),
+  quantity: z.number(),
+});
 
 export const restockRunSchema = z.object({
   today: z.string(),

@@ -13,9 +13,17 @@ export const productKindLabels: Record<(typeof productKinds)[number], string> = 
 };
 
 const text = optionalPlainText;
-const id = (label: string) => z.number({ error: `${label} is required.` }).int().positive();
+const id = (label: string) =>
+  z
+    .number({ error: `${label} is required.` })
+    .int()
+    .positive();
 const packs = (label: string) =>
-  z.number({ error: `${label} is required.` }).int({ error: `${label} must be whole packs.` }).min(1, { error: `${label} must be at least 1 pack.` }).max(100_000, { error: `${label} must be at most 100000 packs.` });
+  z
+    .number({ error: `${label} is required.` })
+    .int({ error: `${label} must be whole packs.` })
+    .min(1, { error: `${label} must be at least 1 pack.` })
+    .max(100_000, { error: `${label} must be at most 100000 packs.` });
 
 /** What to call a product's kind on screen: the firm's own name for "other". */
 export function productKindLabel(product: { kind: (typeof productKinds)[number]; ownKind?: string | null }): string {
@@ -28,9 +36,17 @@ export const productInputSchema = z
     kind: z.enum(productKinds, { error: () => ({ message: `Kind must be one of: ${productKinds.join(', ')}.` }) }),
     /** The firm's own kind, named when the kind is "other". */
     ownKind: text('Your own kind', 40),
-    packSize: z.number({ error: 'Pack size is required.' }).positive({ error: 'Pack size must be more than 0.' }).max(25_000, { error: 'Pack size must be at most 25000.' }),
+    packSize: z
+      .number({ error: 'Pack size is required.' })
+      .positive({ error: 'Pack size must be more than 0.' })
+      .max(25_000, { error: 'Pack size must be at most 25000.' }),
     packUnit: z.enum(['ml', 'l'], { error: () => ({ message: 'Pack unit must be ml or l.' }) }),
-    doseLitresPer100L: z.number().min(0.001, { error: 'Dose must be more than 0.' }).max(100, { error: 'Dose must be at most 100 litres per 100 litres.' }).nullable().optional(),
+    doseLitresPer100L: z
+      .number()
+      .min(0.001, { error: 'Dose must be more than 0.' })
+      .max(100, { error: 'Dose must be at most 100 litres per 100 litres.' })
+      .nullable()
+      .optional(),
     radiatorsPerPack: z.number().int().min(1).max(100).nullable().optional(),
     targetMin: z.number().min(0).max(1_000_000).nullable().optional(),
     targetMax: z.number().min(0).max(1_000_000).nullable().optional(),
@@ -47,11 +63,20 @@ export const productInputSchema = z
       .nullable()
       .optional(),
   })
-  .refine((p) => p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000, { error: 'Pack size must be at most 25 litres.', path: ['packSize'] })
+  .refine((p) => (p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000), {
+    error: 'Pack size must be at most 25 litres.',
+    path: ['packSize'],
+  })
   // Packs are kept in whole millilitres: a size that rounds to 0 ml would make every dose "Infinity packs".
-  .refine((p) => Math.round(p.packUnit === 'l' ? p.packSize * 1000 : p.packSize) >= 1, { error: 'Pack size must be at least 1 ml (0.001 litres).', path: ['packSize'] })
+  .refine((p) => Math.round(p.packUnit === 'l' ? p.packSize * 1000 : p.packSize) >= 1, {
+    error: 'Pack size must be at least 1 ml (0.001 litres).',
+    path: ['packSize'],
+  })
   .refine((p) => p.kind !== 'other' || !!p.ownKind, { error: 'Name your own kind of product.', path: ['ownKind'] })
-  .refine((p) => p.targetMin == null || p.targetMax == null || p.targetMin <= p.targetMax, { error: 'The target range must run from low to high.', path: ['targetMax'] });
+  .refine((p) => p.targetMin == null || p.targetMax == null || p.targetMin <= p.targetMax, {
+    error: 'The target range must run from low to high.',
+    path: ['targetMax'],
+  });
 export type ProductInput = z.infer<typeof productInputSchema>;
 
 export const productSchema = z.object({
@@ -80,16 +105,36 @@ export const receiptInputSchema = z.strictObject({
   locationId: id('Depot'),
   reference: text('Delivery reference', 100),
   lines: z
-    .array(z.strictObject({ productId: id('Product'), lotNumber: lotNumberSchema, expiresOn: calendarDateWithin('Expiry date', dateRanges.planned), quantity: packs('Quantity') }), { error: 'Add at least one line.' })
+    .array(
+      z.strictObject({
+        productId: id('Product'),
+        lotNumber: lotNumberSchema,
+        expiresOn: calendarDateWithin('Expiry date', dateRanges.planned),
+        quantity: packs('Quantity'),
+      }),
+      { error: 'Add at least one line.' },
+    )
     .min(1, { error: 'Add at least one line.' })
     .max(100),
 });
 export type ReceiptInput = z.infer<typeof receiptInputSchema>;
 
-const transferLine = z.strictObject({ productId: id('Product'), batchId: id('Batch').optional(), quantity: packs('Quantity') });
+const transferLine = z.strictObject({
+  productId: id('Product'),
+  batchId: id('Batch').optional(),
+  quantity: packs('Quantity'),
+});
 export const transferInputSchema = z
-  .strictObject({ fromLocationId: id('From'), toLocationId: id('To'), lines: z.array(transferLine).min(1, { error: 'Add at least one line.' }).max(200), note: text('Note', 300) })
-  .refine((t) => t.fromLocationId !== t.toLocationId, { error: 'From and to must be different places.', path: ['toLocationId'] });
+  .strictObject({
+    fromLocationId: id('From'),
+    toLocationId: id('To'),
+    lines: z.array(transferLine).min(1, { error: 'Add at least one line.' }).max(200),
+    note: text('Note', 300),
+  })
+  .refine((t) => t.fromLocationId !== t.toLocationId, {
+    error: 'From and to must be different places.',
+    path: ['toLocationId'],
+  });
 export type TransferInput = z.infer<typeof transferInputSchema>;
 
 export const usageInputSchema = z.strictObject({
@@ -104,7 +149,12 @@ export type UsageInput = z.infer<typeof usageInputSchema>;
 export const stocktakeInputSchema = z.strictObject({
   locationId: id('Location'),
   counts: z
-    .array(z.strictObject({ batchId: id('Batch'), counted: z.number().int().min(0, { error: 'A count cannot be negative.' }).max(100_000) }))
+    .array(
+      z.strictObject({
+        batchId: id('Batch'),
+        counted: z.number().int().min(0, { error: 'A count cannot be negative.' }).max(100_000),
+      }),
+    )
     .min(1, { error: 'Count at least one batch.' })
     .max(500),
   note: text('Note', 300),
@@ -121,7 +171,9 @@ export const writeOffInputSchema = z.strictObject({
 });
 export type WriteOffInput = z.infer<typeof writeOffInputSchema>;
 
-export const reversalInputSchema = z.strictObject({ reason: z.string().trim().min(3, { error: 'Say why it is being reversed.' }).max(300) });
+export const reversalInputSchema = z.strictObject({
+  reason: z.string().trim().min(3, { error: 'Say why it is being reversed.' }).max(300),
+});
 
 export const parLevelInputSchema = z
   .strictObject({
@@ -133,7 +185,15 @@ export const parLevelInputSchema = z
   .refine((p) => p.target >= p.minimum, { error: 'The target must be at least the minimum.', path: ['target'] });
 export type ParLevelInput = z.infer<typeof parLevelInputSchema>;
 
-export const movementKinds = ['received', 'transfer_out', 'transfer_in', 'used', 'counted', 'written_off', 'reversal'] as const;
+export const movementKinds = [
+  'received',
+  'transfer_out',
+  'transfer_in',
+  'used',
+  'counted',
+  'written_off',
+  'reversal',
+] as const;
 export const movementKindLabels: Record<(typeof movementKinds)[number], string> = {
   received: 'Received',
   transfer_out: 'Sent',
@@ -181,7 +241,10 @@ export const stockHealthLabels: Record<(typeof stockHealth)[number], string> = {
   empty: 'None usable',
 };
 
-export function stockHealthOf(usable: number, par: { minimum: number; target: number } | null): (typeof stockHealth)[number] {
+export function stockHealthOf(
+  usable: number,
+  par: { minimum: number; target: number } | null,
+): (typeof stockHealth)[number] {
   if (!par) return 'no_par';
   if (usable <= 0 && par.minimum > 0) return 'empty';
   if (usable < par.minimum) return 'below_minimum';
@@ -191,7 +254,14 @@ export function stockHealthOf(usable: number, par: { minimum: number; target: nu
 
 export const restockApplyInputSchema = z.strictObject({
   lines: z
-    .array(z.strictObject({ toLocationId: id('Van'), productId: id('Product'), batchId: id('Batch'), quantity: packs('Quantity') }))
+    .array(
+      z.strictObject({
+        toLocationId: id('Van'),
+        productId: id('Product'),
+        batchId: id('Batch'),
+        quantity: packs('Quantity'),
+      }),
+    )
     .min(1, { error: 'Nothing to apply.' })
     .max(5000),
 });

@@ -32,11 +32,16 @@ const meSchema = meEnvelopeSchema;
 const messageSchema = messageResponseSchema;
 const SIGN_UP_ANSWER =
   'Check your e-mail: we have sent a link to that address. Open it to finish creating your firm. It works once, for 24 hours.';
-const RESET_ANSWER = 'If that e-mail belongs to a Heatfleet account, a link to choose a new password is on its way. It works once, for one hour.';
+const RESET_ANSWER =
+  'If that e-mail belongs to a Heatfleet account, a link to choose a new password is on its way. It works once, for one hour.';
 
 export const authRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/auth/csrf', tag: 'Auth', access: 'public', tenantData: false,
+    method: 'get',
+    path: '/auth/csrf',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
     summary: 'The CSRF token of this session, to send back in X-CSRF-Token',
     request: {},
     responses: { 200: { description: 'Token', schema: csrfResponseSchema } },
@@ -48,10 +53,18 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/sign-up', tag: 'Auth', access: 'public', tenantData: false,
-    summary: 'Ask to create a firm: a link to finish is e-mailed (same answer whether or not the address has an account)',
+    method: 'post',
+    path: '/auth/sign-up',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
+    summary:
+      'Ask to create a firm: a link to finish is e-mailed (same answer whether or not the address has an account)',
     request: { body: signUpInputSchema },
-    responses: { 202: { description: 'Accepted: the e-mail is on its way', schema: messageSchema }, 429: { description: 'Too many sign-ups' } },
+    responses: {
+      202: { description: 'Accepted: the e-mail is on its way', schema: messageSchema },
+      429: { description: 'Too many sign-ups' },
+    },
     before: (deps) => [deps.limiters.signUpByAddress, deps.limiters.signUpByAccount],
     handle: async ({ body, res, deps }) => {
       await requestSignUp(deps, body);
@@ -59,10 +72,19 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/sign-up/confirm', tag: 'Auth', access: 'public', tenantData: false,
-    summary: 'Finish a sign-up with the link from its e-mail: the account and the firm are created, and the person is signed in as its Owner',
+    method: 'post',
+    path: '/auth/sign-up/confirm',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
+    summary:
+      'Finish a sign-up with the link from its e-mail: the account and the firm are created, and the person is signed in as its Owner',
     request: { body: signUpConfirmSchema },
-    responses: { 201: { description: 'Signed in', schema: signedInSchema }, 400: { description: 'Link expired or used' }, 429: { description: 'Too many failed tries' } },
+    responses: {
+      201: { description: 'Signed in', schema: signedInSchema },
+      400: { description: 'Link expired or used' },
+      429: { description: 'Too many failed tries' },
+    },
     before: (deps) => [deps.limiters.linkByAddress, deps.limiters.linkByToken],
     handle: async ({ body, req, res, deps }) => {
       const { userId, firmId } = await confirmSignUp(deps, body);
@@ -71,10 +93,18 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/sign-in', tag: 'Auth', access: 'public', tenantData: false,
+    method: 'post',
+    path: '/auth/sign-in',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
     summary: 'Sign in with e-mail and password',
     request: { body: signInInputSchema },
-    responses: { 200: { description: 'Signed in', schema: signedInSchema }, 401: { description: 'Wrong e-mail or password' }, 429: { description: 'Too many failures' } },
+    responses: {
+      200: { description: 'Signed in', schema: signedInSchema },
+      401: { description: 'Wrong e-mail or password' },
+      429: { description: 'Too many failures' },
+    },
     before: (deps) => [deps.limiters.signInByAddress, deps.limiters.signInByAccount],
     handle: async ({ body, req, res, deps }) => {
       const { userId, firmId } = await signIn(deps, body);
@@ -83,7 +113,11 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/sign-out', tag: 'Auth', access: 'public', tenantData: false,
+    method: 'post',
+    path: '/auth/sign-out',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
     summary: 'Sign out: the session ends on the server',
     request: {},
     responses: { 204: { description: 'Signed out' } },
@@ -94,7 +128,11 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/password-reset', tag: 'Auth', access: 'public', tenantData: false,
+    method: 'post',
+    path: '/auth/password-reset',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
     summary: 'E-mail a single-use link to choose a new password (same answer for any e-mail)',
     request: { body: passwordResetRequestSchema },
     responses: { 202: { description: 'Accepted', schema: messageSchema } },
@@ -105,7 +143,11 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/auth/password-reset/confirm', tag: 'Auth', access: 'public', tenantData: false,
+    method: 'post',
+    path: '/auth/password-reset/confirm',
+    tag: 'Auth',
+    access: 'public',
+    tenantData: false,
     summary: 'Choose a new password with the link from the e-mail; every session of the account ends',
     request: { body: passwordResetConfirmSchema },
     responses: { 200: { description: 'Changed', schema: messageSchema }, 400: { description: 'Link expired or used' } },
@@ -116,7 +158,11 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/me', tag: 'Me', access: 'member', tenantData: false,
+    method: 'get',
+    path: '/me',
+    tag: 'Me',
+    access: 'member',
+    tenantData: false,
     summary: 'The signed-in person, their firms, the active firm and their role in it',
     request: {},
     responses: { 200: { description: 'Me', schema: meSchema } },
@@ -125,10 +171,17 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'put', path: '/me/active-firm', tag: 'Me', access: 'member', tenantData: true,
+    method: 'put',
+    path: '/me/active-firm',
+    tag: 'Me',
+    access: 'member',
+    tenantData: true,
     summary: 'Switch the active firm to another of the person\u2019s firms',
     request: { body: setActiveFirmInputSchema },
-    responses: { 200: { description: 'Switched', schema: meSchema }, 404: { description: 'Not a member of that firm' } },
+    responses: {
+      200: { description: 'Switched', schema: meSchema },
+      404: { description: 'Not a member of that firm' },
+    },
     handle: async ({ body, req, res, deps, actor }) => {
       await setActiveFirm(deps, actor.userId, body.firmId);
       req.session.firmId = body.firmId;
@@ -136,7 +189,11 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/me/firms', tag: 'Me', access: 'member', tenantData: false,
+    method: 'post',
+    path: '/me/firms',
+    tag: 'Me',
+    access: 'member',
+    tenantData: false,
     summary: 'Create a further firm from this account, as its Owner, and switch to it',
     request: { body: createFirmInputSchema },
     responses: { 201: { description: 'Created and switched to', schema: meSchema } },
@@ -147,10 +204,17 @@ export const authRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'put', path: '/me/password', tag: 'Me', access: 'member', tenantData: false,
+    method: 'put',
+    path: '/me/password',
+    tag: 'Me',
+    access: 'member',
+    tenantData: false,
     summary: 'Change password; every other session of the person ends',
     request: { body: changePasswordInputSchema },
-    responses: { 200: { description: 'Changed', schema: signedInSchema }, 429: { description: 'Too many wrong current passwords' } },
+    responses: {
+      200: { description: 'Changed', schema: signedInSchema },
+      429: { description: 'Too many wrong current passwords' },
+    },
     before: (deps) => [deps.limiters.passwordChangeByAddress, deps.limiters.passwordChangeByAccount],
     handle: async ({ body, req, res, deps, actor }) => {
       await changePassword(deps, actor, body, req.sessionID);

@@ -26,7 +26,11 @@ const SIGN_UP_LIFETIME_MS = 24 * 60 * 60 * 1000;
 const SIGN_IN_FAILED = 'E-mail or password is not right.';
 
 export async function buildMe(db: Knex, userId: number, firmId: number): Promise<Me> {
-  const [user, memberships, firm] = await Promise.all([findUserById(db, userId), listMembershipsOfUser(db, userId), findFirm(db, firmId)]);
+  const [user, memberships, firm] = await Promise.all([
+    findUserById(db, userId),
+    listMembershipsOfUser(db, userId),
+    findFirm(db, firmId),
+  ]);
   const active = memberships.find((m) => m.firmId === firmId);
   if (!user || !firm || !active) throw signedOut();
   return {
@@ -52,7 +56,12 @@ export async function requestSignUp(deps: AppDeps, input: SignUpInput): Promise<
   const emailId = await deps.db.transaction(async (trx) => {
     if (existing) {
       const link = new URL('/sign-in', deps.env.APP_ORIGIN).toString();
-      return insertEmail(trx, { firmId: null, to: existing.email, purpose: 'sign-up', ...signUpExistingAccountEmail({ name: existing.name, link }) });
+      return insertEmail(trx, {
+        firmId: null,
+        to: existing.email,
+        purpose: 'sign-up',
+        ...signUpExistingAccountEmail({ name: existing.name, link }),
+      });
     }
     const { token, tokenHash } = createToken();
     await insertSignUpRequest(trx, {
@@ -64,13 +73,21 @@ export async function requestSignUp(deps: AppDeps, input: SignUpInput): Promise<
       expiresAt: new Date(now.getTime() + SIGN_UP_LIFETIME_MS),
     });
     const link = new URL(`/sign-up/confirm/${token}`, deps.env.APP_ORIGIN).toString();
-    return insertEmail(trx, { firmId: null, to: input.email, purpose: 'sign-up', ...signUpConfirmEmail({ name: input.name, firmName: input.firmName, link }) });
+    return insertEmail(trx, {
+      firmId: null,
+      to: input.email,
+      purpose: 'sign-up',
+      ...signUpConfirmEmail({ name: input.name, firmName: input.firmName, link }),
+    });
   });
   await deps.mailQueue.notify([emailId]);
 }
 
 /** Creates the account and its firm from a confirmed sign-up; the person becomes the firm's Owner. */
-export async function confirmSignUp(deps: AppDeps, input: SignUpConfirmInput): Promise<{ userId: number; firmId: number }> {
+export async function confirmSignUp(
+  deps: AppDeps,
+  input: SignUpConfirmInput,
+): Promise<{ userId: number; firmId: number }> {
   const now = deps.clock.now();
   return deps.db.transaction(async (trx) => {
     const request = await findSignUpRequestForUpdate(trx, hashToken(input.token));
@@ -81,7 +98,11 @@ export async function confirmSignUp(deps: AppDeps, input: SignUpConfirmInput): P
     if (await findUserByEmail(trx, request.email)) {
       throw ruleBroken('This e-mail address already has an account. Sign in, then create the firm from your account.');
     }
-    const userId = await insertUser(trx, { email: request.email, name: request.name, passwordHash: request.password_hash });
+    const userId = await insertUser(trx, {
+      email: request.email,
+      name: request.name,
+      passwordHash: request.password_hash,
+    });
     const firmId = await createFirmFor(trx, userId, request.firm_name);
     return { userId, firmId };
   });
@@ -105,7 +126,12 @@ export async function signIn(deps: AppDeps, input: SignInInput): Promise<{ userI
   if (!user || !ok) throw new HttpError(401, SIGN_IN_FAILED, 'SignInFailed');
   const memberships = await listMembershipsOfUser(deps.db, user.id);
   const first = memberships[0];
-  if (!first) throw new HttpError(403, 'Your account is not an active member of any firm. Ask your firm\u2019s admin to invite you again.', 'NoActiveFirm');
+  if (!first)
+    throw new HttpError(
+      403,
+      'Your account is not an active member of any firm. Ask your firm\u2019s admin to invite you again.',
+      'NoActiveFirm',
+    );
   return { userId: user.id, firmId: first.firmId };
 }
 
@@ -114,7 +140,12 @@ export async function setActiveFirm(deps: AppDeps, userId: number, firmId: numbe
 }
 
 /** Changes the password and ends every other session of the person. */
-export async function changePassword(deps: AppDeps, actor: Actor, input: ChangePasswordInput, currentSid: string): Promise<void> {
+export async function changePassword(
+  deps: AppDeps,
+  actor: Actor,
+  input: ChangePasswordInput,
+  currentSid: string,
+): Promise<void> {
   const user = await findUserById(deps.db, actor.userId);
   if (!user || !(await verifyPassword(user.password_hash, input.currentPassword))) {
     throw new HttpError(422, 'Your current password is not right.', 'ValidationFailed', [
@@ -140,8 +171,17 @@ export async function requestPasswordReset(deps: AppDeps, email: string): Promis
   const link = new URL(`/reset-password/${token}`, deps.env.APP_ORIGIN).toString();
   const emailId = await deps.db.transaction(async (trx) => {
     await endOpenPasswordResets(trx, user.id, now);
-    await insertPasswordReset(trx, { userId: user.id, tokenHash, expiresAt: new Date(now.getTime() + PASSWORD_RESET_LIFETIME_MS) });
-    return insertEmail(trx, { firmId: null, to: user.email, purpose: 'password-reset', ...passwordResetEmail({ name: user.name, link }) });
+    await insertPasswordReset(trx, {
+      userId: user.id,
+      tokenHash,
+      expiresAt: new Date(now.getTime() + PASSWORD_RESET_LIFETIME_MS),
+    });
+    return insertEmail(trx, {
+      firmId: null,
+      to: user.email,
+      purpose: 'password-reset',
+      ...passwordResetEmail({ name: user.name, link }),
+    });
   });
   await deps.mailQueue.notify([emailId]);
 }

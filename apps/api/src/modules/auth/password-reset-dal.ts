@@ -8,12 +8,21 @@ export interface PasswordResetRow {
   used_at: Date | null;
 }
 
-export async function insertPasswordReset(trx: Knex.Transaction, row: { userId: number; tokenHash: string; expiresAt: Date }): Promise<void> {
+export async function insertPasswordReset(
+  trx: Knex.Transaction,
+  row: { userId: number; tokenHash: string; expiresAt: Date },
+): Promise<void> {
   await trx('password_resets').insert({ user_id: row.userId, token_hash: row.tokenHash, expires_at: row.expiresAt });
 }
 
-export function findPasswordResetForUpdate(trx: Knex.Transaction, tokenHash: string): Promise<PasswordResetRow | undefined> {
-  return trx('password_resets').where({ token_hash: tokenHash }).forUpdate().first<PasswordResetRow | undefined>('id', 'user_id', 'expires_at', 'used_at');
+export function findPasswordResetForUpdate(
+  trx: Knex.Transaction,
+  tokenHash: string,
+): Promise<PasswordResetRow | undefined> {
+  return trx('password_resets')
+    .where({ token_hash: tokenHash })
+    .forUpdate()
+    .first<PasswordResetRow | undefined>('id', 'user_id', 'expires_at', 'used_at');
 }
 
 /** Ends every link of the account still open: a new link, a reset or a password change makes them stale. */

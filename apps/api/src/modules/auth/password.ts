@@ -48,9 +48,15 @@ async function isCommonPassword(password: string): Promise<boolean> {
  * Refuses a new password that is easy to guess: on the common list, or built from the person's own
  * e-mail (the domain's passwordContextProblem). `field` names the form field for the error.
  */
-export async function assertPasswordAcceptable(password: string, email: string | null, field = 'password'): Promise<void> {
+export async function assertPasswordAcceptable(
+  password: string,
+  email: string | null,
+  field = 'password',
+): Promise<void> {
   const problem =
     passwordContextProblem(password, email) ??
-    ((await isCommonPassword(password)) ? 'That password is on a published list of common or breached passwords. Choose another.' : null);
+    ((await isCommonPassword(password))
+      ? 'That password is on a published list of common or breached passwords. Choose another.'
+      : null);
   if (problem) throw new HttpError(422, problem, 'ValidationFailed', [{ path: field, message: problem }]);
 }

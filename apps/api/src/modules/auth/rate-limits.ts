@@ -87,13 +87,27 @@ function tooMany(message: string): Options['handler'] {
   return (req, _res, next) => {
     const resetTime = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
     const seconds = resetTime ? Math.max(1, Math.ceil((resetTime.getTime() - Date.now()) / 1000)) : 60;
-    next(new HttpError(429, `${message} Try again in ${Math.ceil(seconds / 60)} minute(s).`, 'TooManyRequests', undefined, {
-      'Retry-After': String(seconds),
-    }));
+    next(
+      new HttpError(
+        429,
+        `${message} Try again in ${Math.ceil(seconds / 60)} minute(s).`,
+        'TooManyRequests',
+        undefined,
+        {
+          'Retry-After': String(seconds),
+        },
+      ),
+    );
   };
 }
 
-function limiter(opts: { windowMs: number; limit: number; key: (req: Request, res: Response) => string; message: string; failuresOnly: boolean }): RequestHandler {
+function limiter(opts: {
+  windowMs: number;
+  limit: number;
+  key: (req: Request, res: Response) => string;
+  message: string;
+  failuresOnly: boolean;
+}): RequestHandler {
   return rateLimit({
     windowMs: opts.windowMs,
     limit: opts.limit,
@@ -111,15 +125,75 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
   const l = { ...defaultRateLimits, ...overrides };
   const w = l.windowMs;
   return {
-    signInByAccount: limiter({ windowMs: w, limit: l.perAccount, key: emailKey, failuresOnly: true, message: 'Too many failed sign-ins for this account.' }),
-    signInByAddress: limiter({ windowMs: w, limit: l.perAddress, key: addressKey, failuresOnly: true, message: 'Too many failed sign-ins from this network.' }),
-    signUpByAccount: limiter({ windowMs: HOUR_MS, limit: l.signUpsPerAccount, key: emailKey, failuresOnly: false, message: 'Too many sign-ups for this e-mail address.' }),
-    signUpByAddress: limiter({ windowMs: HOUR_MS, limit: l.signUpsPerAddress, key: addressKey, failuresOnly: false, message: 'Too many sign-ups from this network.' }),
-    resetRequestByAccount: limiter({ windowMs: HOUR_MS, limit: l.resetsPerAccount, key: emailKey, failuresOnly: false, message: 'Too many password-reset e-mails asked for this address.' }),
-    resetRequestByAddress: limiter({ windowMs: HOUR_MS, limit: l.resetsPerAddress, key: addressKey, failuresOnly: false, message: 'Too many password-reset e-mails asked from this network.' }),
-    linkByToken: limiter({ windowMs: w, limit: l.linkFailuresPerLink, key: tokenKey, failuresOnly: true, message: 'Too many failed tries with this link.' }),
-    linkByAddress: limiter({ windowMs: w, limit: l.linkFailuresPerAddress, key: addressKey, failuresOnly: true, message: 'Too many failed tries with links from this network.' }),
-    passwordChangeByAccount: limiter({ windowMs: w, limit: l.passwordChangeFailuresPerAccount, key: signedInUserKey, failuresOnly: true, message: 'Too many wrong current passwords.' }),
-    passwordChangeByAddress: limiter({ windowMs: w, limit: l.passwordChangeFailuresPerAddress, key: addressKey, failuresOnly: true, message: 'Too many wrong current passwords from this network.' }),
+    signInByAccount: limiter({
+      windowMs: w,
+      limit: l.perAccount,
+      key: emailKey,
+      failuresOnly: true,
+      message: 'Too many failed sign-ins for this account.',
+    }),
+    signInByAddress: limiter({
+      windowMs: w,
+      limit: l.perAddress,
+      key: addressKey,
+      failuresOnly: true,
+      message: 'Too many failed sign-ins from this network.',
+    }),
+    signUpByAccount: limiter({
+      windowMs: HOUR_MS,
+      limit: l.signUpsPerAccount,
+      key: emailKey,
+      failuresOnly: false,
+      message: 'Too many sign-ups for this e-mail address.',
+    }),
+    signUpByAddress: limiter({
+      windowMs: HOUR_MS,
+      limit: l.signUpsPerAddress,
+      key: addressKey,
+      failuresOnly: false,
+      message: 'Too many sign-ups from this network.',
+    }),
+    resetRequestByAccount: limiter({
+      windowMs: HOUR_MS,
+      limit: l.resetsPerAccount,
+      key: emailKey,
+      failuresOnly: false,
+      message: 'Too many password-reset e-mails asked for this address.',
+    }),
+    resetRequestByAddress: limiter({
+      windowMs: HOUR_MS,
+      limit: l.resetsPerAddress,
+      key: addressKey,
+      failuresOnly: false,
+      message: 'Too many password-reset e-mails asked from this network.',
+    }),
+    linkByToken: limiter({
+      windowMs: w,
+      limit: l.linkFailuresPerLink,
+      key: tokenKey,
+      failuresOnly: true,
+      message: 'Too many failed tries with this link.',
+    }),
+    linkByAddress: limiter({
+      windowMs: w,
+      limit: l.linkFailuresPerAddress,
+      key: addressKey,
+      failuresOnly: true,
+      message: 'Too many failed tries with links from this network.',
+    }),
+    passwordChangeByAccount: limiter({
+      windowMs: w,
+      limit: l.passwordChangeFailuresPerAccount,
+      key: signedInUserKey,
+      failuresOnly: true,
+      message: 'Too many wrong current passwords.',
+    }),
+    passwordChangeByAddress: limiter({
+      windowMs: w,
+      limit: l.passwordChangeFailuresPerAddress,
+      key: addressKey,
+      failuresOnly: true,
+      message: 'Too many wrong current passwords from this network.',
+    }),
   };
 }

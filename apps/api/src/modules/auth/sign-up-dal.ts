@@ -25,7 +25,10 @@ export async function insertSignUpRequest(
   });
 }
 
-export function findSignUpRequestForUpdate(trx: Knex.Transaction, tokenHash: string): Promise<SignUpRequestRow | undefined> {
+export function findSignUpRequestForUpdate(
+  trx: Knex.Transaction,
+  tokenHash: string,
+): Promise<SignUpRequestRow | undefined> {
   return trx('sign_up_requests')
     .where({ token_hash: tokenHash })
     .forUpdate()

@@ -16,11 +16,19 @@ export function findUserById(db: Knex | Knex.Transaction, id: number): Promise<U
   return db<UserRow>('users').where({ id }).first();
 }
 
-export async function insertUser(trx: Knex.Transaction, user: { email: string; name: string; passwordHash: string }): Promise<number> {
+export async function insertUser(
+  trx: Knex.Transaction,
+  user: { email: string; name: string; passwordHash: string },
+): Promise<number> {
   const [id] = await trx('users').insert({ email: user.email, name: user.name, password_hash: user.passwordHash });
   return id as number;
 }
 
-export async function updatePasswordHash(trx: Knex | Knex.Transaction, userId: number, passwordHash: string, at: Date): Promise<void> {
+export async function updatePasswordHash(
+  trx: Knex | Knex.Transaction,
+  userId: number,
+  passwordHash: string,
+  at: Date,
+): Promise<void> {
   await trx('users').where({ id: userId }).update({ password_hash: passwordHash, password_changed_at: at });
 }

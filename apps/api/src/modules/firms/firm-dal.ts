@@ -1,5 +1,11 @@
 import type { Knex } from 'knex';
-import { DEFAULT_COLD_BOTTOM_THRESHOLD_K, DEFAULT_TIME_ZONE, defaultItemKinds, type FirmSettings, type FirmSettingsInput } from '@heatfleet/domain';
+import {
+  DEFAULT_COLD_BOTTOM_THRESHOLD_K,
+  DEFAULT_TIME_ZONE,
+  defaultItemKinds,
+  type FirmSettings,
+  type FirmSettingsInput,
+} from '@heatfleet/domain';
 
 export interface FirmRow {
   id: number;
@@ -42,7 +48,10 @@ interface FirmSettingsRow {
 }
 
 export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: number): Promise<FirmSettings | undefined> {
-  const row = (await db('firms').where({ id: firmId }).first('id', 'name', 'address', 'time_zone', 'volume_unit', 'cold_bottom_threshold_k')) as FirmSettingsRow | undefined;
+  const row = (await db('firms')
+    .where({ id: firmId })
+    .first('id', 'name', 'address', 'time_zone', 'volume_unit', 'cold_bottom_threshold_k')) as
+    FirmSettingsRow | undefined;
   return (
     row && {
       id: row.id,
@@ -50,17 +59,24 @@ export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: numb
       address: row.address,
       timeZone: row.time_zone,
       volumeUnit: row.volume_unit,
-      coldBottomThresholdK: row.cold_bottom_threshold_k === null ? DEFAULT_COLD_BOTTOM_THRESHOLD_K : Number(row.cold_bottom_threshold_k),
+      coldBottomThresholdK:
+        row.cold_bottom_threshold_k === null ? DEFAULT_COLD_BOTTOM_THRESHOLD_K : Number(row.cold_bottom_threshold_k),
     }
   );
 }
 
-export async function updateFirmSettings(db: Knex | Knex.Transaction, firmId: number, input: FirmSettingsInput): Promise<void> {
-  await db('firms').where({ id: firmId }).update({
-    name: input.name,
-    address: input.address ?? null,
-    time_zone: input.timeZone,
-    volume_unit: input.volumeUnit,
-    cold_bottom_threshold_k: input.coldBottomThresholdK,
-  });
+export async function updateFirmSettings(
+  db: Knex | Knex.Transaction,
+  firmId: number,
+  input: FirmSettingsInput,
+): Promise<void> {
+  await db('firms')
+    .where({ id: firmId })
+    .update({
+      name: input.name,
+      address: input.address ?? null,
+      time_zone: input.timeZone,
+      volume_unit: input.volumeUnit,
+      cold_bottom_threshold_k: input.coldBottomThresholdK,
+    });
 }

@@ -4,7 +4,11 @@ import { getFirmSettings, saveFirmSettings } from './firm-service.ts';
 
 export const firmRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/firm', tag: 'Firm', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/firm',
+    tag: 'Firm',
+    access: 'member',
+    tenantData: true,
     summary: 'The active firm\u2019s settings: name, address, time zone, volume unit, cold-bottom threshold',
     request: {},
     responses: { 200: { description: 'Settings', schema: firmSettingsResponseSchema } },
@@ -13,7 +17,11 @@ export const firmRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'put', path: '/firm', tag: 'Firm', access: 'member', tenantData: true,
+    method: 'put',
+    path: '/firm',
+    tag: 'Firm',
+    access: 'member',
+    tenantData: true,
     summary: 'Change the firm\u2019s settings (Owner, Admin)',
     request: { body: firmSettingsInputSchema },
     responses: { 200: { description: 'Saved', schema: firmSettingsResponseSchema } },

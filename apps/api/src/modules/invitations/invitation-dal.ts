@@ -36,7 +36,12 @@ function pending(db: Knex | Knex.Transaction, firmId: number, now: Date) {
     .where('i.expires_at', '>', now);
 }
 
-export async function listPendingInvitations(db: Knex | Knex.Transaction, firmId: number, now: Date, id?: number): Promise<Invitation[]> {
+export async function listPendingInvitations(
+  db: Knex | Knex.Transaction,
+  firmId: number,
+  now: Date,
+  id?: number,
+): Promise<Invitation[]> {
   const query = pending(db, firmId, now)
     .join('users as u', 'u.id', 'i.invited_by_user_id')
     .orderBy('i.id', 'desc')
@@ -55,16 +60,31 @@ export async function listPendingInvitations(db: Knex | Knex.Transaction, firmId
 }
 
 /** Withdraws the firm's other open invitations to the same address, so only the newest link works. */
-export async function withdrawPendingFor(trx: Knex.Transaction, firmId: number, email: string, now: Date): Promise<void> {
+export async function withdrawPendingFor(
+  trx: Knex.Transaction,
+  firmId: number,
+  email: string,
+  now: Date,
+): Promise<void> {
   await pending(trx, firmId, now).where('i.email', email).update({ withdrawn_at: now });
 }
 
-export async function withdrawInvitation(trx: Knex.Transaction, firmId: number, id: number, now: Date): Promise<number> {
+export async function withdrawInvitation(
+  trx: Knex.Transaction,
+  firmId: number,
+  id: number,
+  now: Date,
+): Promise<number> {
   return pending(trx, firmId, now).where('i.id', id).update({ withdrawn_at: now });
 }
 
 /** Found by its token alone (the invitee has no firm yet); locked when accepting. */
-export async function findUsableInvitationByTokenHash(db: Knex | Knex.Transaction, tokenHash: string, now: Date, opts: { forUpdate?: boolean } = {}) {
+export async function findUsableInvitationByTokenHash(
+  db: Knex | Knex.Transaction,
+  tokenHash: string,
+  now: Date,
+  opts: { forUpdate?: boolean } = {},
+) {
   const query = db('invitations as i')
     .join('firms as f', 'f.id', 'i.firm_id')
     .where('i.token_hash', tokenHash)
@@ -77,6 +97,11 @@ export async function findUsableInvitationByTokenHash(db: Knex | Knex.Transactio
   return row;
 }
 
-export async function markInvitationAccepted(trx: Knex.Transaction, firmId: number, id: number, now: Date): Promise<void> {
+export async function markInvitationAccepted(
+  trx: Knex.Transaction,
+  firmId: number,
+  id: number,
+  now: Date,
+): Promise<void> {
   await trx('invitations').where({ firm_id: firmId, id }).update({ accepted_at: now });
 }

@@ -27,7 +27,8 @@ import {
 } from './invitation-dal.ts';
 
 export const INVITATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
-const INVALID_LINK = 'This invitation link is not valid: it may have expired, been used or withdrawn. Ask for a new one.';
+const INVALID_LINK =
+  'This invitation link is not valid: it may have expired, been used or withdrawn. Ask for a new one.';
 
 export async function listInvitations(deps: AppDeps, actor: Actor): Promise<Invitation[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Invitation');
@@ -35,7 +36,10 @@ export async function listInvitations(deps: AppDeps, actor: Actor): Promise<Invi
 }
 
 export async function createInvitation(deps: AppDeps, actor: Actor, input: CreateInvitationInput): Promise<Invitation> {
-  ForbiddenError.from(actor.ability).throwUnlessCan('create', subject('Invitation', { firmId: actor.firmId, role: input.role }));
+  ForbiddenError.from(actor.ability).throwUnlessCan(
+    'create',
+    subject('Invitation', { firmId: actor.firmId, role: input.role }),
+  );
   const now = deps.clock.now();
   const existingUser = await findUserByEmail(deps.db, input.email);
   if (existingUser) {
@@ -48,7 +52,14 @@ export async function createInvitation(deps: AppDeps, actor: Actor, input: Creat
   const link = new URL(`/invitations/${token}`, deps.env.APP_ORIGIN).toString();
   const { invitation, emailId } = await deps.db.transaction(async (trx) => {
     await withdrawPendingFor(trx, actor.firmId, input.email, now);
-    const id = await insertInvitation(trx, { firmId: actor.firmId, email: input.email, role: input.role, tokenHash, invitedBy: actor.userId, expiresAt });
+    const id = await insertInvitation(trx, {
+      firmId: actor.firmId,
+      email: input.email,
+      role: input.role,
+      tokenHash,
+      invitedBy: actor.userId,
+      expiresAt,
+    });
     const emailId = await insertEmail(trx, {
       firmId: actor.firmId,
       to: input.email,
@@ -83,7 +94,11 @@ function fieldError(path: string, message: string): HttpError {
  * Accepts an invitation once: a new person sets a name and password; someone who already has
  * an account proves it with their password. Either way they join the firm and are signed in there.
  */
-export async function acceptInvitation(deps: AppDeps, token: string, input: AcceptInvitationInput): Promise<{ userId: number; firmId: number }> {
+export async function acceptInvitation(
+  deps: AppDeps,
+  token: string,
+  input: AcceptInvitationInput,
+): Promise<{ userId: number; firmId: number }> {
   const now = deps.clock.now();
   const preview = await findUsableInvitationByTokenHash(deps.db, hashToken(token), now);
   if (!preview) throw new HttpError(404, INVALID_LINK);

@@ -51,7 +51,12 @@ export async function insertItemKind(trx: Knex.Transaction, firmId: number, kind
   return id as number;
 }
 
-export async function updateItemKind(trx: Knex.Transaction, firmId: number, id: number, patch: Partial<ItemKindInput>): Promise<void> {
+export async function updateItemKind(
+  trx: Knex.Transaction,
+  firmId: number,
+  id: number,
+  patch: Partial<ItemKindInput>,
+): Promise<void> {
   const row = toRow(patch);
   if (Object.keys(row).length) await trx('item_kinds').where({ firm_id: firmId, id }).update(row);
 }

@@ -1,10 +1,19 @@
-import { idParamSchema, itemKindInputSchema, itemKindListResponseSchema, itemKindResponseSchema } from '@heatfleet/domain';
+import {
+  idParamSchema,
+  itemKindInputSchema,
+  itemKindListResponseSchema,
+  itemKindResponseSchema,
+} from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { createItemKind, listItemKinds, updateItemKind } from './item-kind-service.ts';
 
 export const itemKindRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/item-kinds', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/item-kinds',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Kinds of kit item and their inspection rules',
     request: {},
     responses: { 200: { description: 'Kinds', schema: itemKindListResponseSchema } },
@@ -13,7 +22,11 @@ export const itemKindRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/item-kinds', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'post',
+    path: '/item-kinds',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Add a kind of item with its inspection rule (Owner, Admin, Stores)',
     request: { body: itemKindInputSchema },
     responses: { 201: { description: 'Added', schema: itemKindResponseSchema } },
@@ -22,7 +35,11 @@ export const itemKindRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'patch', path: '/item-kinds/:id', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'patch',
+    path: '/item-kinds/:id',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Change a kind\u2019s name or inspection rule (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: itemKindInputSchema.partial() },
     responses: { 200: { description: 'Changed', schema: itemKindResponseSchema } },

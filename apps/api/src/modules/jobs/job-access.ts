@@ -9,7 +9,12 @@ import { findJobRow, type JobRow } from './job-dal.ts';
 
 export const COMPLETED_MESSAGE = 'This job is completed; its record can no longer change.';
 
-export async function requireJob(db: Knex | Knex.Transaction, firmId: number, id: number, opts: { forUpdate?: boolean } = {}): Promise<JobRow> {
+export async function requireJob(
+  db: Knex | Knex.Transaction,
+  firmId: number,
+  id: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<JobRow> {
   const row = await findJobRow(db, firmId, id, opts);
   if (!row) throw notFound('That job');
   return row;

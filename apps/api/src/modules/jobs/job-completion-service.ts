@@ -20,7 +20,12 @@ const NEXT_CHECK_MONTHS = 12;
  * takes the chemicals off the van, completes the job and writes the report e-mail; the e-mail is
  * queued after commit. The answer is the job as completed (a retry with the key replays it).
  */
-export async function completeJob(deps: AppDeps, actor: Actor, id: number, idempotencyKey: IdempotencyKey | undefined): Promise<{ status: number; body: JobDetail }> {
+export async function completeJob(
+  deps: AppDeps,
+  actor: Actor,
+  id: number,
+  idempotencyKey: IdempotencyKey | undefined,
+): Promise<{ status: number; body: JobDetail }> {
   let emailId: number | null = null;
   const out = await withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `complete job ${id}`, async (trx) => {
@@ -44,7 +49,8 @@ export async function completeJob(deps: AppDeps, actor: Actor, id: number, idemp
 async function takeChemicalsAndComplete(trx: Knex.Transaction, deps: AppDeps, actor: Actor, id: number): Promise<void> {
   const row = await requireJob(trx, actor.firmId, id, { forUpdate: true });
   throwUnlessMayUpdateJob(actor, row);
-  if (row.status === 'completed') throw conflict('This job is already completed; its chemicals were taken off the van then.');
+  if (row.status === 'completed')
+    throw conflict('This job is already completed; its chemicals were taken off the van then.');
   const plan = await planJob(trx, deps, actor.firmId, row);
   const short = plan.doses.filter((d) => d.shortfall > 0);
   if (short.length || (plan.doses.length && !row.van_location_id)) {
@@ -58,7 +64,17 @@ async function takeChemicalsAndComplete(trx: Knex.Transaction, deps: AppDeps, ac
     trx,
     actor.firmId,
     actor.userId,
-    plan.doses.flatMap((d) => d.takeFromVan.map((a) => ({ kind: 'used' as const, locationId: row.van_location_id!, productId: d.product.id, batchId: a.batchId, quantityDelta: -a.quantity, jobId: id, reason: `Job ${id}` }))),
+    plan.doses.flatMap((d) =>
+      d.takeFromVan.map((a) => ({
+        kind: 'used' as const,
+        locationId: row.van_location_id!,
+        productId: d.product.id,
+        batchId: a.batchId,
+        quantityDelta: -a.quantity,
+        jobId: id,
+        reason: `Job ${id}`,
+      })),
+    ),
     deps.clock.now(),
   );
   const nextCheckOn = addMonths(plan.today, NEXT_CHECK_MONTHS);

@@ -1,4 +1,11 @@
-import { allocateFefo, dosePlan, surveyVolume, type JobDose, type Survey, type VolumeBreakdown } from '@heatfleet/domain';
+import {
+  allocateFefo,
+  dosePlan,
+  surveyVolume,
+  type JobDose,
+  type Survey,
+  type VolumeBreakdown,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { AppDeps } from '../../app-deps.ts';
 import { firmToday } from '../firms/firm-today.ts';
@@ -17,7 +24,12 @@ export interface JobPlan {
  * The plan for a job: the volume and how it was reached, each product's dose (the larger of the
  * volume rule and the radiators rule), and for the van the batches to take first and any shortfall.
  */
-export async function planJob(db: Knex | Knex.Transaction, deps: AppDeps, firmId: number, row: JobRow): Promise<JobPlan> {
+export async function planJob(
+  db: Knex | Knex.Transaction,
+  deps: AppDeps,
+  firmId: number,
+  row: JobRow,
+): Promise<JobPlan> {
   const survey = parseSurvey(row);
   const volume = surveyVolume(survey);
   const today = await firmToday(db, firmId, deps.clock.now());
@@ -29,9 +41,16 @@ export async function planJob(db: Knex | Knex.Transaction, deps: AppDeps, firmId
       doseLitresPer100L: p.dose_litres_per_100l === null ? null : Number(p.dose_litres_per_100l),
       radiatorsPerPack: p.radiators_per_pack,
     });
-    const batches = vanStock.filter((b) => b.product_id === p.id).map((b) => ({ batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity }));
+    const batches = vanStock
+      .filter((b) => b.product_id === p.id)
+      .map((b) => ({ batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity }));
     const fromVan = allocateFefo(batches, plan.packs, today);
-    return { product: { id: p.id, name: p.name, kind: p.kind, packSizeMl: p.pack_size_ml }, ...plan, takeFromVan: fromVan.allocations, shortfall: fromVan.shortfall };
+    return {
+      product: { id: p.id, name: p.name, kind: p.kind, packSizeMl: p.pack_size_ml },
+      ...plan,
+      takeFromVan: fromVan.allocations,
+      shortfall: fromVan.shortfall,
+    };
   });
   return { survey, volume, doses, today };
 }

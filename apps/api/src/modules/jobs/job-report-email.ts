@@ -14,7 +14,12 @@ import { renderReportFor } from './job-report-service.ts';
  * missing file; a completion rolled back leaves at most an unreferenced object. With storage down
  * the job still completes and no e-mail is written.
  */
-export async function queueJobReportEmail(trx: Knex.Transaction, deps: AppDeps, actor: Actor, detail: JobDetail): Promise<number | null> {
+export async function queueJobReportEmail(
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  detail: JobDetail,
+): Promise<number | null> {
   const customer = (await findSite(trx, actor.firmId, detail.job.site.id))?.customer;
   if (!customer?.email) return null;
   const firmName = (await findFirm(trx, actor.firmId))?.name ?? '';

@@ -15,7 +15,12 @@ async function readAll(stream: Readable): Promise<Buffer> {
 }
 
 /** The report with the firm, the job's engineer and its photos looked up, read through `db` (the completion's transaction, if any). */
-export async function renderReportFor(deps: AppDeps, db: Knex | Knex.Transaction, firmId: number, detail: JobDetail): Promise<Buffer> {
+export async function renderReportFor(
+  deps: AppDeps,
+  db: Knex | Knex.Transaction,
+  firmId: number,
+  detail: JobDetail,
+): Promise<Buffer> {
   const [firm, engineerName, rows] = await Promise.all([
     findFirm(db, firmId),
     detail.job.engineerMemberId ? memberName(db, firmId, detail.job.engineerMemberId) : null,
@@ -30,13 +35,21 @@ export async function renderReportFor(deps: AppDeps, db: Knex | Knex.Transaction
         try {
           image = await readAll(await deps.objectStore.get(r.object_key));
         } catch (err) {
-          deps.logger.warn({ err, key: r.object_key }, 'job photo left out of the report: object storage did not return it');
+          deps.logger.warn(
+            { err, key: r.object_key },
+            'job photo left out of the report: object storage did not return it',
+          );
         }
       }
       return { tag: r.tag, caption: r.caption, contentType: r.content_type, image };
     }),
   );
-  return renderJobReport(detail, { firmName: firm?.name ?? '', engineerName, timeZone: firm?.time_zone ?? DEFAULT_TIME_ZONE, photos });
+  return renderJobReport(detail, {
+    firmName: firm?.name ?? '',
+    engineerName,
+    timeZone: firm?.time_zone ?? DEFAULT_TIME_ZONE,
+    photos,
+  });
 }
 
 /** The completion report of a job as a PDF, for download. */

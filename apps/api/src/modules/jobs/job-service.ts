@@ -25,7 +25,9 @@ export async function listJobs(deps: AppDeps, actor: Actor): Promise<JobListRow[
  */
 async function bookedEngineer(db: Db, actor: Actor, named: number | null | undefined): Promise<number | null> {
   if (actor.role === 'engineer' && named != null && named !== actor.memberId) {
-    throw notAllowed('An engineer books jobs for themself only: leave yourself as the engineer, or ask the office to book it for someone else.');
+    throw notAllowed(
+      'An engineer books jobs for themself only: leave yourself as the engineer, or ask the office to book it for someone else.',
+    );
   }
   const memberId = named ?? (actor.role === 'engineer' ? actor.memberId : null);
   if (memberId === null) return null;
@@ -33,7 +35,10 @@ async function bookedEngineer(db: Db, actor: Actor, named: number | null | undef
   if (!member) throw notFound('That engineer');
   const refuse = (message: string) => ruleBroken(message, [{ path: 'engineerMemberId', message }]);
   if (!member.active) throw refuse(`${member.name} is no longer active in this firm: choose an active engineer.`);
-  if (member.role !== 'engineer') throw refuse(`${member.name} is not an engineer (their role is ${roleLabels[member.role]}): book the job for an engineer.`);
+  if (member.role !== 'engineer')
+    throw refuse(
+      `${member.name} is not an engineer (their role is ${roleLabels[member.role]}): book the job for an engineer.`,
+    );
   return member.id;
 }
 
@@ -47,7 +52,14 @@ export async function createJob(deps: AppDeps, actor: Actor, input: CreateJobInp
     const productIds = [...new Set(input.productIds)];
     const found = await findFirmProductIds(trx, actor.firmId, productIds);
     if (productIds.some((p) => !found.includes(p))) throw notFound('That product');
-    const jobId = await insertJob(trx, { firmId: actor.firmId, siteId: input.siteId, engineerMemberId, vanLocationId: van?.id ?? null, scheduledOn: input.scheduledOn, survey: input.survey });
+    const jobId = await insertJob(trx, {
+      firmId: actor.firmId,
+      siteId: input.siteId,
+      engineerMemberId,
+      vanLocationId: van?.id ?? null,
+      scheduledOn: input.scheduledOn,
+      survey: input.survey,
+    });
     await insertJobProducts(trx, actor.firmId, jobId, productIds);
     return jobId;
   });

@@ -27,7 +27,13 @@ type Db = Knex | Knex.Transaction;
  * The job sheet: what the engineer recorded on site with the figures computed from it by the
  * domain (the same functions the sheet runs live). Read in one query per table.
  */
-export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRow, survey: Survey = parseSurvey(row)): Promise<JobSheet> {
+export async function buildSheet(
+  db: Db,
+  deps: AppDeps,
+  actor: Actor,
+  row: JobRow,
+  survey: Survey = parseSurvey(row),
+): Promise<JobSheet> {
   const now = deps.clock.now();
   const rows = await loadSheetRows(db, actor.firmId, row);
   const thresholdK = rows.firm.coldBottomThresholdK ?? DEFAULT_COLD_BOTTOM_THRESHOLD_K;
@@ -36,9 +42,19 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
   const stepOf = new Map(rows.steps.map((s) => [s.step, s]));
   const steps = jobSteps.map((step) => {
     const done = stepOf.get(step);
-    return { step, label: jobStepLabels[step], doneAt: done?.doneAt.toISOString() ?? null, doneByName: done?.doneByName ?? null };
+    return {
+      step,
+      label: jobStepLabels[step],
+      doneAt: done?.doneAt.toISOString() ?? null,
+      doneByName: done?.doneByName ?? null,
+    };
   });
-  const circulation = circulationClock(circulationMinimumMinutes(rows.products), stepOf.get('dose_cleaner')?.doneAt ?? null, stepOf.get('circulate_hot')?.doneAt ?? null, now);
+  const circulation = circulationClock(
+    circulationMinimumMinutes(rows.products),
+    stepOf.get('dose_cleaner')?.doneAt ?? null,
+    stepOf.get('circulate_hot')?.doneAt ?? null,
+    now,
+  );
 
   const readingOf = new Map(rows.readings.map((r) => [`${r.radiatorIndex}:${r.phase}`, r]));
   const agitationOf = new Map(rows.agitations.map((a) => [a.radiatorIndex, a]));
@@ -48,7 +64,13 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
     const reading = (phase: ReadingPhase): SavedReading | null => {
       const saved = readingOf.get(`${index}:${phase}`);
       if (!saved) return null;
-      const input = { topC: saved.topC, bottomC: saved.bottomC, flowC: saved.flowC, returnC: saved.returnC, roomC: saved.roomC };
+      const input = {
+        topC: saved.topC,
+        bottomC: saved.bottomC,
+        flowC: saved.flowC,
+        returnC: saved.returnC,
+        roomC: saved.roomC,
+      };
       return { ...input, ...readingFigures(input, ratedWatts, thresholdK) };
     };
     const a = agitationOf.get(index);
@@ -60,23 +82,49 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
       before: reading('before'),
       after: reading('after'),
       flushedAt: flushedAt.get(index) ?? null,
-      agitation: a ? { minutes: a.minutes, kitItemId: a.kitItemId, kitItemTag: a.kitItemTag, magnitudeMs2: a.magnitudeMs2, points: agitationPoints(a.magnitudeMs2, a.minutes) } : null,
+      agitation: a
+        ? {
+            minutes: a.minutes,
+            kitItemId: a.kitItemId,
+            kitItemTag: a.kitItemTag,
+            magnitudeMs2: a.magnitudeMs2,
+            points: agitationPoints(a.magnitudeMs2, a.minutes),
+          }
+        : null,
     };
   });
 
   // The day of this visit's agitation (today while nothing is recorded), across all the engineer's jobs.
-  const havDayOn = rows.agitations.reduce<string | null>((d, a) => (d === null || a.recordedOn > d ? a.recordedOn : d), null) ?? today;
+  const havDayOn =
+    rows.agitations.reduce<string | null>((d, a) => (d === null || a.recordedOn > d ? a.recordedOn : d), null) ?? today;
   const [dayAgitations, engineerName] = row.engineer_member_id
-    ? await Promise.all([agitationsOfDay(db, actor.firmId, row.engineer_member_id, havDayOn), memberName(db, actor.firmId, row.engineer_member_id)])
+    ? await Promise.all([
+        agitationsOfDay(db, actor.firmId, row.engineer_member_id, havDayOn),
+        memberName(db, actor.firmId, row.engineer_member_id),
+      ])
     : [rows.agitations.filter((a) => a.recordedOn === havDayOn), null];
   const hav = { engineerName, day: havDayOn, ...havDay(dayAgitations) };
 
-  const w = rows.water ?? { mainsTdsPpm: null, systemTdsPpm: null, waterClear: null, inhibitorReading: null, inhibitorProductId: null, ph: null };
+  const w = rows.water ?? {
+    mainsTdsPpm: null,
+    systemTdsPpm: null,
+    waterClear: null,
+    inhibitorReading: null,
+    inhibitorProductId: null,
+    ph: null,
+  };
   // The reading is judged against the inhibitor named on the tests, else the one the job planned.
   const plannedInhibitor = rows.products.find((p) => p.kind === 'inhibitor') ?? null;
   const inhibitor =
-    w.inhibitorProductId === null ? plannedInhibitor : (rows.products.find((p) => p.id === w.inhibitorProductId) ?? (await findInhibitor(db, actor.firmId, w.inhibitorProductId)) ?? null);
-  const range = inhibitor && inhibitor.targetMin !== null && inhibitor.targetMax !== null ? { min: inhibitor.targetMin, max: inhibitor.targetMax, unit: inhibitor.targetUnit } : null;
+    w.inhibitorProductId === null
+      ? plannedInhibitor
+      : (rows.products.find((p) => p.id === w.inhibitorProductId) ??
+        (await findInhibitor(db, actor.firmId, w.inhibitorProductId)) ??
+        null);
+  const range =
+    inhibitor && inhibitor.targetMin !== null && inhibitor.targetMax !== null
+      ? { min: inhibitor.targetMin, max: inhibitor.targetMax, unit: inhibitor.targetUnit }
+      : null;
   const water = { ...w, figures: waterTestFigures(w, range) };
 
   return {
@@ -89,7 +137,14 @@ export async function buildSheet(db: Db, deps: AppDeps, actor: Actor, row: JobRo
     water,
     kitUsed: rows.kitUsed,
     kitOnVan: rows.kitOnVan,
-    photos: rows.photos.map((p) => ({ id: p.id, url: `/api/photos/${p.id}/content`, tag: p.tag, caption: p.caption, contentType: p.contentType, createdAt: p.createdAt.toISOString() })),
+    photos: rows.photos.map((p) => ({
+      id: p.id,
+      url: `/api/photos/${p.id}/content`,
+      tag: p.tag,
+      caption: p.caption,
+      contentType: p.contentType,
+      createdAt: p.createdAt.toISOString(),
+    })),
     notes: row.notes ?? '',
   };
 }

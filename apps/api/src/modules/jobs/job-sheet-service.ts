@@ -1,4 +1,13 @@
-import type { AgitationInput, JobPhoto, JobSheet, JobStep, RadiatorReadingInput, ReadingPhase, Survey, WaterTestsInput } from '@heatfleet/domain';
+import type {
+  AgitationInput,
+  JobPhoto,
+  JobSheet,
+  JobStep,
+  RadiatorReadingInput,
+  ReadingPhase,
+  Survey,
+  WaterTestsInput,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
@@ -26,7 +35,12 @@ import {
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
 
-async function writeSheet(deps: AppDeps, actor: Actor, jobId: number, work: (trx: Knex.Transaction, row: JobRow) => Promise<void>): Promise<JobSheet> {
+async function writeSheet(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  work: (trx: Knex.Transaction, row: JobRow) => Promise<void>,
+): Promise<JobSheet> {
   await withTransactionRetry(() =>
     deps.db.transaction(async (trx) => {
       await work(trx, await lockOpenJob(trx, actor, jobId));
@@ -52,15 +66,30 @@ export function setStep(deps: AppDeps, actor: Actor, jobId: number, step: JobSte
   });
 }
 
-export function recordReading(deps: AppDeps, actor: Actor, jobId: number, index: number, phase: ReadingPhase, input: RadiatorReadingInput) {
+export function recordReading(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  index: number,
+  phase: ReadingPhase,
+  input: RadiatorReadingInput,
+) {
   return writeSheet(deps, actor, jobId, async (trx, row) => {
     checkRadiator(row, index);
     // The columns keep one decimal place, as thermometers and cameras show.
     const c = (v: number | null | undefined) => (v === null || v === undefined ? null : round1(v));
     await upsertReading(trx, {
-      firm_id: actor.firmId, job_id: jobId, radiator_index: index, phase,
-      top_c: round1(input.topC), bottom_c: round1(input.bottomC), flow_c: c(input.flowC), return_c: c(input.returnC), room_c: c(input.roomC),
-      recorded_by_user_id: actor.userId, recorded_at: deps.clock.now(),
+      firm_id: actor.firmId,
+      job_id: jobId,
+      radiator_index: index,
+      phase,
+      top_c: round1(input.topC),
+      bottom_c: round1(input.bottomC),
+      flow_c: c(input.flowC),
+      return_c: c(input.returnC),
+      room_c: c(input.roomC),
+      recorded_by_user_id: actor.userId,
+      recorded_at: deps.clock.now(),
     });
   });
 }
@@ -81,15 +110,28 @@ export function recordAgitation(deps: AppDeps, actor: Actor, jobId: number, inde
     if (kitItemId !== null) {
       const [item] = await kitItemsForJob(trx, actor.firmId, jobId, [kitItemId]);
       if (!item || row.van_location_id === null || item.location_id !== row.van_location_id) {
-        throw invalid('kitItemId', item ? `${item.asset_tag} is not on this job\u2019s van: choose a tool the van holds.` : 'That tool was not found: choose one the van holds.');
+        throw invalid(
+          'kitItemId',
+          item
+            ? `${item.asset_tag} is not on this job\u2019s van: choose a tool the van holds.`
+            : 'That tool was not found: choose one the van holds.',
+        );
       }
       // Copied now, so a later change of the kit setting leaves this day's exposure as it was.
       magnitude = item.vibration_ms2 === null ? null : Number(item.vibration_ms2);
     }
     const now = deps.clock.now();
     await upsertAgitation(trx, {
-      firm_id: actor.firmId, job_id: jobId, radiator_index: index, minutes: input.minutes, kit_item_id: kitItemId, magnitude_ms2: magnitude,
-      engineer_member_id: row.engineer_member_id, recorded_on: await firmToday(trx, actor.firmId, now), recorded_by_user_id: actor.userId, recorded_at: now,
+      firm_id: actor.firmId,
+      job_id: jobId,
+      radiator_index: index,
+      minutes: input.minutes,
+      kit_item_id: kitItemId,
+      magnitude_ms2: magnitude,
+      engineer_member_id: row.engineer_member_id,
+      recorded_on: await firmToday(trx, actor.firmId, now),
+      recorded_by_user_id: actor.userId,
+      recorded_at: now,
     });
   });
 }
@@ -98,14 +140,23 @@ export function recordWaterTests(deps: AppDeps, actor: Actor, jobId: number, inp
   return writeSheet(deps, actor, jobId, async (trx) => {
     const productId = input.inhibitorProductId ?? null;
     if (productId !== null && !(await findInhibitor(trx, actor.firmId, productId))) {
-      throw invalid('inhibitorProductId', `Product ${productId} is not one of the firm\u2019s inhibitors: choose the inhibitor that was dosed.`);
+      throw invalid(
+        'inhibitorProductId',
+        `Product ${productId} is not one of the firm\u2019s inhibitors: choose the inhibitor that was dosed.`,
+      );
     }
     // A PUT of the whole set of tests: a field left out is cleared.
     await upsertWaterTests(trx, {
-      firm_id: actor.firmId, job_id: jobId,
-      mains_tds_ppm: input.mainsTdsPpm ?? null, system_tds_ppm: input.systemTdsPpm ?? null, water_clear: input.waterClear ?? null,
-      inhibitor_reading: input.inhibitorReading ?? null, inhibitor_product_id: productId, ph: input.ph ?? null,
-      recorded_by_user_id: actor.userId, recorded_at: deps.clock.now(),
+      firm_id: actor.firmId,
+      job_id: jobId,
+      mains_tds_ppm: input.mainsTdsPpm ?? null,
+      system_tds_ppm: input.systemTdsPpm ?? null,
+      water_clear: input.waterClear ?? null,
+      inhibitor_reading: input.inhibitorReading ?? null,
+      inhibitor_product_id: productId,
+      ph: input.ph ?? null,
+      recorded_by_user_id: actor.userId,
+      recorded_at: deps.clock.now(),
     });
   });
 }
@@ -115,11 +166,20 @@ export function recordKit(deps: AppDeps, actor: Actor, jobId: number, kitItemIds
     const ids = [...new Set(kitItemIds)];
     const found = await kitItemsForJob(trx, actor.firmId, jobId, ids);
     const missing = ids.filter((id) => !found.some((f) => f.id === id));
-    if (missing.length) throw invalid('kitItemIds', `Kit item${missing.length > 1 ? 's' : ''} ${missing.join(', ')} ${missing.length > 1 ? 'were' : 'was'} not found.`);
+    if (missing.length)
+      throw invalid(
+        'kitItemIds',
+        `Kit item${missing.length > 1 ? 's' : ''} ${missing.join(', ')} ${missing.length > 1 ? 'were' : 'was'} not found.`,
+      );
     // An item already listed on the job may stay after it has left the van; a new one must be on it now.
-    const away = found.filter((f) => f.listed_id === null && (row.van_location_id === null || f.location_id !== row.van_location_id));
+    const away = found.filter(
+      (f) => f.listed_id === null && (row.van_location_id === null || f.location_id !== row.van_location_id),
+    );
     if (away.length) {
-      throw invalid('kitItemIds', `${away.map((f) => f.asset_tag).join(', ')} ${away.length > 1 ? 'are' : 'is'} not on this job\u2019s van: choose kit the van holds.`);
+      throw invalid(
+        'kitItemIds',
+        `${away.map((f) => f.asset_tag).join(', ')} ${away.length > 1 ? 'are' : 'is'} not on this job\u2019s van: choose kit the van holds.`,
+      );
     }
     await replaceJobKit(trx, actor.firmId, jobId, ids);
   });
@@ -133,7 +193,13 @@ export function recordNotes(deps: AppDeps, actor: Actor, jobId: number, notes: s
  * A photo on the job. Checked before the upload (so a refused one is never stored) and again under
  * the job's lock in the photo row's transaction (so it cannot land after completion).
  */
-export async function addJobPhoto(deps: AppDeps, actor: Actor, jobId: number, file: Buffer, fields: { tag: string; caption?: string | undefined }): Promise<JobPhoto> {
+export async function addJobPhoto(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  file: Buffer,
+  fields: { tag: string; caption?: string | undefined },
+): Promise<JobPhoto> {
   const row = await requireJob(deps.db, actor.firmId, jobId);
   throwUnlessMayUpdateJob(actor, row);
   if (row.status === 'completed') throw conflict(COMPLETED_MESSAGE);
@@ -145,5 +211,12 @@ export async function addJobPhoto(deps: AppDeps, actor: Actor, jobId: number, fi
       await lockOpenJob(trx, actor, jobId);
     },
   });
-  return { id: photo.id, url: photo.url, tag: fields.tag, caption: photo.caption, contentType: photo.contentType, createdAt: photo.createdAt };
+  return {
+    id: photo.id,
+    url: photo.url,
+    tag: fields.tag,
+    caption: photo.caption,
+    contentType: photo.contentType,
+    createdAt: photo.createdAt,
+  };
 }

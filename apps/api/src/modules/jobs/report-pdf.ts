@@ -53,7 +53,11 @@ export function createReportPdf(info: { title: string; author: string }): Report
       const height = Math.max(...cells.map((c, i) => doc.heightOfString(c, { width: widths[i]! - 4 }))) + 4;
       if (doc.y + height > bottom()) {
         doc.addPage();
-        if (!bold) drawRow(columns.map((c) => c.title), true);
+        if (!bold)
+          drawRow(
+            columns.map((c) => c.title),
+            true,
+          );
         doc.font(bold ? 'bold' : 'body').fontSize(8.5);
       }
       const y = doc.y;
@@ -62,11 +66,19 @@ export function createReportPdf(info: { title: string; author: string }): Report
         doc.text(c, x + 2, y + 2, { width: widths[i]! - 4, align: columns[i]!.align ?? 'left' });
         x += widths[i]!;
       });
-      doc.moveTo(left, y + height).lineTo(left + contentWidth, y + height).lineWidth(0.4).strokeColor('#b9c2c1').stroke();
+      doc
+        .moveTo(left, y + height)
+        .lineTo(left + contentWidth, y + height)
+        .lineWidth(0.4)
+        .strokeColor('#b9c2c1')
+        .stroke();
       doc.x = left;
       doc.y = y + height;
     };
-    drawRow(columns.map((c) => c.title), true);
+    drawRow(
+      columns.map((c) => c.title),
+      true,
+    );
     for (const r of rows) drawRow(r, false);
     doc.font('body').fontSize(10).fillColor(INK);
     doc.moveDown(0.3);
@@ -78,7 +90,16 @@ export function createReportPdf(info: { title: string; author: string }): Report
     room,
     heading: (text) => {
       room(60);
-      doc.moveDown(0.8).font('bold').fontSize(13).fillColor(HEAD).text(text, left).moveDown(0.2).font('body').fontSize(10).fillColor(INK);
+      doc
+        .moveDown(0.8)
+        .font('bold')
+        .fontSize(13)
+        .fillColor(HEAD)
+        .text(text, left)
+        .moveDown(0.2)
+        .font('body')
+        .fontSize(10)
+        .fillColor(INK);
     },
     line: (label, value) => {
       doc.font('bold').text(`${label}: `, left, undefined, { continued: true }).font('body').text(value);

@@ -24,7 +24,12 @@ export async function insertCustodyEvents(
   if (rows.length) await trx('custody_events').insert(rows);
 }
 
-export async function listCustodyEvents(db: Db, firmId: number, where: { kitId?: number; itemId?: number }, limit = 100): Promise<CustodyEvent[]> {
+export async function listCustodyEvents(
+  db: Db,
+  firmId: number,
+  where: { kitId?: number; itemId?: number },
+  limit = 100,
+): Promise<CustodyEvent[]> {
   const q = db('custody_events as e')
     .join('kit_items as i', function joinItem() {
       this.on('i.id', '=', 'e.item_id').andOn('i.firm_id', '=', 'e.firm_id');
@@ -43,8 +48,12 @@ export async function listCustodyEvents(db: Db, firmId: number, where: { kitId?:
       'e.*',
       'i.asset_tag',
       'u.name as by_name',
-      'lf.kind as f_kind', 'lf.name as f_name', 'lf.registration as f_reg',
-      'lt.kind as t_kind', 'lt.name as t_name', 'lt.registration as t_reg',
+      'lf.kind as f_kind',
+      'lf.name as f_name',
+      'lf.registration as f_reg',
+      'lt.kind as t_kind',
+      'lt.name as t_name',
+      'lt.registration as t_reg',
     );
   if (where.kitId !== undefined) q.where('e.kit_id', where.kitId);
   if (where.itemId !== undefined) q.where('e.item_id', where.itemId);
@@ -56,8 +65,18 @@ export async function listCustodyEvents(db: Db, firmId: number, where: { kitId?:
     action: r.action as CustodyEvent['action'],
     item: { id: r.item_id as number, assetTag: r.asset_tag as string },
     kitId: (r.kit_id as number | null) ?? null,
-    from: ref(r.from_location_id as number | null, r.f_kind as 'van' | null, r.f_name as string | null, r.f_reg as string | null),
-    to: ref(r.to_location_id as number | null, r.t_kind as 'van' | null, r.t_name as string | null, r.t_reg as string | null),
+    from: ref(
+      r.from_location_id as number | null,
+      r.f_kind as 'van' | null,
+      r.f_name as string | null,
+      r.f_reg as string | null,
+    ),
+    to: ref(
+      r.to_location_id as number | null,
+      r.t_kind as 'van' | null,
+      r.t_name as string | null,
+      r.t_reg as string | null,
+    ),
     byName: r.by_name as string,
     condition: (r.condition as ItemCondition | null) ?? null,
     missingParts: (r.missing_parts as string | null) ?? null,

@@ -17,10 +17,21 @@ export function custodyRoute(spec: {
   summary: string;
   what: 'kit' | 'item';
   response: ZodType;
-  run: (deps: AppDeps, actor: Actor, id: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined) => Promise<CustodyAnswer<unknown>>;
+  run: (
+    deps: AppDeps,
+    actor: Actor,
+    id: number,
+    action: CustodyAction,
+    input: CustodyInput,
+    idempotencyKey: IdempotencyKey | undefined,
+  ) => Promise<CustodyAnswer<unknown>>;
 }) {
   return defineRoute({
-    method: 'post', path: spec.path, tag: 'Kits', access: 'member', tenantData: true,
+    method: 'post',
+    path: spec.path,
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: `${spec.summary} Send an Idempotency-Key header: a retry with the same key replays the first answer.`,
     request: { params: idParamSchema, body: bodies[spec.action] as ZodType },
     responses: {

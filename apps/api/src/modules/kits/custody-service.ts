@@ -1,5 +1,12 @@
 import { subject } from '@casl/ability';
-import type { CheckInInput, CheckOutInput, ItemCustodyResponse, KitDetailResponse, KitItem, MoveInput } from '@heatfleet/domain';
+import type {
+  CheckInInput,
+  CheckOutInput,
+  ItemCustodyResponse,
+  KitDetailResponse,
+  KitItem,
+  MoveInput,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
@@ -35,10 +42,18 @@ function custodySubject(firmId: number, loc: LocationRow) {
   return subject('Custody', { firmId, kind: loc.kind, engineerMemberId: loc.engineer_member_id });
 }
 
-async function destination(trx: Knex.Transaction, actor: Actor, action: CustodyAction, toLocationId: number | undefined): Promise<LocationRow> {
+async function destination(
+  trx: Knex.Transaction,
+  actor: Actor,
+  action: CustodyAction,
+  toLocationId: number | undefined,
+): Promise<LocationRow> {
   if (action === 'check_in') {
-    const depot = toLocationId ? await findLocation(trx, actor.firmId, toLocationId) : await firstDepot(trx, actor.firmId);
-    if (!depot || depot.kind !== 'depot' || !depot.active) throw notFound(toLocationId ? 'That depot' : 'A depot to check in to');
+    const depot = toLocationId
+      ? await findLocation(trx, actor.firmId, toLocationId)
+      : await firstDepot(trx, actor.firmId);
+    if (!depot || depot.kind !== 'depot' || !depot.active)
+      throw notFound(toLocationId ? 'That depot' : 'A depot to check in to');
     return depot;
   }
   const van = await findLocation(trx, actor.firmId, toLocationId!);
@@ -56,11 +71,25 @@ async function checkPhoto(trx: Knex.Transaction, firmId: number, photoId: number
  * are locked first, so of two engineers checking out the same kit at once exactly one succeeds;
  * the other then sees where it went and gets 409 naming the holder.
  */
-async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor, target: CustodyTarget, action: CustodyAction, input: CustodyInput): Promise<void> {
+async function recordCustody(
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  target: CustodyTarget,
+  action: CustodyAction,
+  input: CustodyInput,
+): Promise<void> {
   const now = deps.clock.now();
-  const ids = await lockItems(trx, actor.firmId, 'kitId' in target ? { kitId: target.kitId } : { itemId: target.itemId });
+  const ids = await lockItems(
+    trx,
+    actor.firmId,
+    'kitId' in target ? { kitId: target.kitId } : { itemId: target.itemId },
+  );
   if ('kitId' in target && !(await findKit(trx, actor.firmId, target.kitId))) throw notFound('That kit');
-  if (ids.length === 0) throw 'kitId' in target ? new HttpError(400, 'That kit has no items to move yet.', 'RuleBroken') : notFound('That item');
+  if (ids.length === 0)
+    throw 'kitId' in target
+      ? new HttpError(400, 'That kit has no items to move yet.', 'RuleBroken')
+      : notFound('That item');
   const items = await loadItems(trx, actor.firmId, now, { ids });
   const label = labelOf(target, items);
   const to = await destination(trx, actor, action, (input as { toLocationId?: number }).toLocationId);
@@ -73,7 +102,8 @@ async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor,
   if (action === 'check_out') {
     if (here?.kind === 'van') throw conflict(`${label} is already ${describeWhere(here)}.`);
   } else if (action === 'check_in') {
-    if (!here || here.kind !== 'van') throw conflict(`${label} is already checked in${here ? ` ${describeWhere(here)}` : ''}.`);
+    if (!here || here.kind !== 'van')
+      throw conflict(`${label} is already checked in${here ? ` ${describeWhere(here)}` : ''}.`);
   } else {
     if (!here || here.kind !== 'van') throw conflict(`${label} is not out on a van; check it out instead.`);
     if (here.id === to.id) throw conflict(`${label} is already on that van.`);
@@ -91,7 +121,12 @@ async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor,
   if (action !== 'check_in') {
     const broken = items.filter((i) => i.condition === 'out_of_service');
     if (broken.length) {
-      throw new HttpError(409, `${broken.map((i) => i.assetTag).join(', ')} is out of service and cannot go out.`, 'OutOfService', broken.map((i) => ({ path: i.assetTag, message: 'Out of service' })));
+      throw new HttpError(
+        409,
+        `${broken.map((i) => i.assetTag).join(', ')} is out of service and cannot go out.`,
+        'OutOfService',
+        broken.map((i) => ({ path: i.assetTag, message: 'Out of service' })),
+      );
     }
     const overdue = items.filter((i) => i.inspection.state === 'overdue');
     const blocked = overdue.filter((i) => i.kind.overduePolicy === 'block');
@@ -99,7 +134,10 @@ async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor,
     if (blocked.length || (overdue.length && !reason)) {
       const list = (blocked.length ? blocked : overdue).map((i) => ({
         path: i.assetTag,
-        message: i.kind.overduePolicy === 'block' ? `${i.kind.name}: stays in until inspected` : `${i.kind.name}: overdue for inspection; give a reason to take it`,
+        message:
+          i.kind.overduePolicy === 'block'
+            ? `${i.kind.name}: stays in until inspected`
+            : `${i.kind.name}: overdue for inspection; give a reason to take it`,
       }));
       throw new HttpError(
         409,
@@ -142,7 +180,14 @@ async function recordCustody(trx: Knex.Transaction, deps: AppDeps, actor: Actor,
  * A check-out, check-in or move of a whole kit: idempotent by key, retried whole on a deadlock,
  * answering with the kit as it now stands (read in the same transaction).
  */
-export function moveKit(deps: AppDeps, actor: Actor, kitId: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined): Promise<CustodyAnswer<KitDetailResponse>> {
+export function moveKit(
+  deps: AppDeps,
+  actor: Actor,
+  kitId: number,
+  action: CustodyAction,
+  input: CustodyInput,
+  idempotencyKey: IdempotencyKey | undefined,
+): Promise<CustodyAnswer<KitDetailResponse>> {
   return withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `${action} kit ${kitId}`, async (trx) => {
       await recordCustody(trx, deps, actor, { kitId }, action, input);
@@ -152,11 +197,24 @@ export function moveKit(deps: AppDeps, actor: Actor, kitId: number, action: Cust
 }
 
 /** The same for one item, answering with the item and its custody timeline. */
-export function moveItem(deps: AppDeps, actor: Actor, itemId: number, action: CustodyAction, input: CustodyInput, idempotencyKey: IdempotencyKey | undefined): Promise<CustodyAnswer<ItemCustodyResponse>> {
+export function moveItem(
+  deps: AppDeps,
+  actor: Actor,
+  itemId: number,
+  action: CustodyAction,
+  input: CustodyInput,
+  idempotencyKey: IdempotencyKey | undefined,
+): Promise<CustodyAnswer<ItemCustodyResponse>> {
   return withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `${action} item ${itemId}`, async (trx) => {
       await recordCustody(trx, deps, actor, { itemId }, action, input);
-      return { status: 200, body: { item: await getItem(deps, actor, itemId, trx), events: await listCustodyEvents(trx, actor.firmId, { itemId }) } };
+      return {
+        status: 200,
+        body: {
+          item: await getItem(deps, actor, itemId, trx),
+          events: await listCustodyEvents(trx, actor.firmId, { itemId }),
+        },
+      };
     }),
   );
 }

@@ -5,7 +5,16 @@ type Db = Knex | Knex.Transaction;
 
 export async function insertInspection(
   trx: Knex.Transaction,
-  row: { firm_id: number; item_id: number; result: Inspection['result']; notes: string | null; photo_id: number | null; by_user_id: number; inspected_on: string; created_at: Date },
+  row: {
+    firm_id: number;
+    item_id: number;
+    result: Inspection['result'];
+    notes: string | null;
+    photo_id: number | null;
+    by_user_id: number;
+    inspected_on: string;
+    created_at: Date;
+  },
 ): Promise<number> {
   const [id] = await trx('inspections').insert(row);
   return id as number;

@@ -11,13 +11,23 @@ import { findItemId, updateItems } from './kit-item-dal.ts';
 import { getItem } from './kit-item-service.ts';
 
 /** Writes an inspection; a failed one marks the item as needing attention. */
-async function writeInspection(trx: Knex.Transaction, deps: AppDeps, actor: Actor, itemId: number, input: RecordInspectionInput): Promise<number> {
+async function writeInspection(
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  itemId: number,
+  input: RecordInspectionInput,
+): Promise<number> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Inspection');
   if (!(await findItemId(trx, actor.firmId, itemId, { forUpdate: true }))) throw notFound('That item');
   const today = await firmToday(trx, actor.firmId, deps.clock.now());
   const on = input.inspectedOn ?? today;
-  if (on > today) throw ruleBroken(`An inspection cannot be dated in the future (${on}).`, [{ path: 'inspectedOn', message: 'Use today or an earlier day.' }]);
-  if (input.photoId !== undefined && !(await photoExists(trx, actor.firmId, input.photoId))) throw notFound('That photo');
+  if (on > today)
+    throw ruleBroken(`An inspection cannot be dated in the future (${on}).`, [
+      { path: 'inspectedOn', message: 'Use today or an earlier day.' },
+    ]);
+  if (input.photoId !== undefined && !(await photoExists(trx, actor.firmId, input.photoId)))
+    throw notFound('That photo');
   const id = await insertInspection(trx, {
     firm_id: actor.firmId,
     item_id: itemId,

@@ -95,26 +95,46 @@ export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
     // Plain LIKE: the column's collation already ignores case (knex's whereLike adds a binary
     // collation MariaDB refuses for utf8mb4). Wildcards typed by the user are taken literally.
     const pattern = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    q.where((w) => w.where('i.asset_tag', 'like', pattern).orWhere('i.serial_number', 'like', pattern).orWhere('k.name', 'like', pattern));
+    q.where((w) =>
+      w
+        .where('i.asset_tag', 'like', pattern)
+        .orWhere('i.serial_number', 'like', pattern)
+        .orWhere('k.name', 'like', pattern),
+    );
   }
   return q as unknown as Promise<ItemRow[]>;
 }
 
 export function locationRefOf(row: ItemRow) {
   return row.location_id && row.loc_kind && row.loc_name
-    ? toLocationRef({ id: row.location_id, kind: row.loc_kind, name: row.loc_name, registration: row.loc_registration, engineer_name: row.loc_engineer_name })
+    ? toLocationRef({
+        id: row.location_id,
+        kind: row.loc_kind,
+        name: row.loc_name,
+        registration: row.loc_registration,
+        engineer_name: row.loc_engineer_name,
+      })
     : null;
 }
 
 /** Locks the rows in id order, so two requests over overlapping items cannot deadlock each other. */
-export async function lockItems(trx: Knex.Transaction, firmId: number, where: { kitId?: number; itemId?: number }): Promise<number[]> {
+export async function lockItems(
+  trx: Knex.Transaction,
+  firmId: number,
+  where: { kitId?: number; itemId?: number },
+): Promise<number[]> {
   const q = trx('kit_items').where('firm_id', firmId).orderBy('id').forUpdate().select('id');
   if (where.kitId !== undefined) q.where('kit_id', where.kitId);
   if (where.itemId !== undefined) q.where('id', where.itemId);
   return ((await q) as { id: number }[]).map((r) => r.id);
 }
 
-export async function findItemId(db: Db, firmId: number, id: number, opts: { forUpdate?: boolean } = {}): Promise<number | undefined> {
+export async function findItemId(
+  db: Db,
+  firmId: number,
+  id: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<number | undefined> {
   const q = db('kit_items').where({ firm_id: firmId, id }).first('id');
   if (opts.forUpdate) q.forUpdate();
   const row = (await q) as { id: number } | undefined;
@@ -150,7 +170,12 @@ export type ItemPatch = Partial<{
   location_id: number;
 }>;
 
-export async function updateItems(trx: Knex.Transaction, firmId: number, ids: number[], patch: ItemPatch): Promise<void> {
+export async function updateItems(
+  trx: Knex.Transaction,
+  firmId: number,
+  ids: number[],
+  patch: ItemPatch,
+): Promise<void> {
   if (ids.length === 0 || Object.keys(patch).length === 0) return;
   await trx('kit_items').where('firm_id', firmId).whereIn('id', ids).update(patch);
 }

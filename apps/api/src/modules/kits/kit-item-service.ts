@@ -18,7 +18,16 @@ import { listItemPhotos } from '../photos/photo-dal.ts';
 import { listCustodyEvents } from './custody-dal.ts';
 import { listInspections } from './inspection-dal.ts';
 import { findKit } from './kit-dal.ts';
-import { assetTagTaken, findItemId, insertItem, locationRefOf, selectItems, updateItems, type ItemFilter, type ItemRow } from './kit-item-dal.ts';
+import {
+  assetTagTaken,
+  findItemId,
+  insertItem,
+  locationRefOf,
+  selectItems,
+  updateItems,
+  type ItemFilter,
+  type ItemRow,
+} from './kit-item-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 export const inspectionStateRank = { no_rule: 0, ok: 1, due_soon: 2, overdue: 3 } as const;
@@ -70,7 +79,12 @@ export async function listItems(deps: AppDeps, actor: Actor, query: KitItemListQ
     return sign * (x < y ? -1 : x > y ? 1 : 0) || a.assetTag.localeCompare(b.assetTag);
   });
   const start = (query.page - 1) * query.pageSize;
-  return { items: filtered.slice(start, start + query.pageSize), total: filtered.length, page: query.page, pageSize: query.pageSize };
+  return {
+    items: filtered.slice(start, start + query.pageSize),
+    total: filtered.length,
+    page: query.page,
+    pageSize: query.pageSize,
+  };
 }
 
 export async function getItem(deps: AppDeps, actor: Actor, id: number, db: Db = deps.db): Promise<KitItem> {
@@ -101,9 +115,12 @@ export async function createItem(deps: AppDeps, actor: Actor, input: CreateKitIt
   const id = await deps.db.transaction(async (trx) => {
     if (!(await findItemKind(trx, actor.firmId, input.kindId))) throw notFound('That kind of item');
     await checkKitExists(trx, actor.firmId, input.kitId);
-    const location = input.locationId ? await findLocation(trx, actor.firmId, input.locationId) : await firstDepot(trx, actor.firmId);
+    const location = input.locationId
+      ? await findLocation(trx, actor.firmId, input.locationId)
+      : await firstDepot(trx, actor.firmId);
     if (input.locationId && !location) throw notFound('That location');
-    if (await assetTagTaken(trx, actor.firmId, input.assetTag)) throw conflict(`Asset tag ${input.assetTag} is already on another item.`);
+    if (await assetTagTaken(trx, actor.firmId, input.assetTag))
+      throw conflict(`Asset tag ${input.assetTag} is already on another item.`);
     return insertItem(trx, actor.firmId, {
       kit_id: input.kitId ?? null,
       kind_id: input.kindId,
@@ -121,7 +138,8 @@ export async function updateItem(deps: AppDeps, actor: Actor, id: number, input:
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'KitItem');
   await deps.db.transaction(async (trx) => {
     if (!(await findItemId(trx, actor.firmId, id, { forUpdate: true }))) throw notFound('That item');
-    if (input.kindId !== undefined && !(await findItemKind(trx, actor.firmId, input.kindId))) throw notFound('That kind of item');
+    if (input.kindId !== undefined && !(await findItemKind(trx, actor.firmId, input.kindId)))
+      throw notFound('That kind of item');
     await checkKitExists(trx, actor.firmId, input.kitId);
     await updateItems(trx, actor.firmId, [id], {
       ...(input.kindId !== undefined && { kind_id: input.kindId }),

@@ -13,7 +13,11 @@ import { createKit, getKitDetail, listKits, updateKit } from './kit-service.ts';
 
 export const kitRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/kits', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/kits',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Kits with where they are and their worst inspection state',
     request: {},
     responses: { 200: { description: 'Kits', schema: kitListResponseSchema } },
@@ -22,7 +26,11 @@ export const kitRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/kits', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'post',
+    path: '/kits',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Add a kit (Owner, Admin, Stores)',
     request: { body: createKitInputSchema },
     responses: { 201: { description: 'Added', schema: kitResponseSchema } },
@@ -31,7 +39,11 @@ export const kitRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/kits/:id', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/kits/:id',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'A kit: items, custody timeline (newest first), inspections',
     request: { params: idParamSchema },
     responses: { 200: { description: 'Kit', schema: kitDetailResponseSchema } },
@@ -40,7 +52,11 @@ export const kitRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'patch', path: '/kits/:id', tag: 'Kits', access: 'member', tenantData: true,
+    method: 'patch',
+    path: '/kits/:id',
+    tag: 'Kits',
+    access: 'member',
+    tenantData: true,
     summary: 'Rename a kit or change its notes (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: updateKitInputSchema },
     responses: { 200: { description: 'Changed', schema: kitResponseSchema } },
@@ -48,9 +64,13 @@ export const kitRoutes: RouteDefinition[] = [
       res.json({ kit: await updateKit(deps, actor, params.id, body) });
     },
   }),
-  ...([
-    ['check_out', '/kits/:id/check-out', 'Check a kit out to a van: all its items go.'],
-    ['check_in', '/kits/:id/check-in', 'Check a kit in to a depot with its condition.'],
-    ['move', '/kits/:id/move', 'Move a kit from one van to another.'],
-  ] as const).map(([action, path, summary]) => custodyRoute({ action, path, summary, what: 'kit', response: kitDetailResponseSchema, run: moveKit })),
+  ...(
+    [
+      ['check_out', '/kits/:id/check-out', 'Check a kit out to a van: all its items go.'],
+      ['check_in', '/kits/:id/check-in', 'Check a kit in to a depot with its condition.'],
+      ['move', '/kits/:id/move', 'Move a kit from one van to another.'],
+    ] as const
+  ).map(([action, path, summary]) =>
+    custodyRoute({ action, path, summary, what: 'kit', response: kitDetailResponseSchema, run: moveKit }),
+  ),
 ];

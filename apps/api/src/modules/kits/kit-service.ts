@@ -20,7 +20,10 @@ export function summariseKit(kit: KitRow, items: KitItem[]): Kit {
     counts.set(i.location.id, c);
   }
   const where = [...counts.values()].sort((a, b) => b.n - a.n)[0]?.ref ?? null;
-  const worst = items.reduce<Kit['inspectionState']>((w, i) => (inspectionStateRank[i.inspection.state] > inspectionStateRank[w] ? i.inspection.state : w), 'no_rule');
+  const worst = items.reduce<Kit['inspectionState']>(
+    (w, i) => (inspectionStateRank[i.inspection.state] > inspectionStateRank[w] ? i.inspection.state : w),
+    'no_rule',
+  );
   return {
     id: kit.id,
     name: kit.name,
@@ -34,20 +37,32 @@ export function summariseKit(kit: KitRow, items: KitItem[]): Kit {
 
 export async function listKits(deps: AppDeps, actor: Actor, db: Db = deps.db): Promise<Kit[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Kit');
-  const [kits, items] = await Promise.all([listKitRows(db, actor.firmId), loadItems(db, actor.firmId, deps.clock.now(), { inKit: true })]);
+  const [kits, items] = await Promise.all([
+    listKitRows(db, actor.firmId),
+    loadItems(db, actor.firmId, deps.clock.now(), { inKit: true }),
+  ]);
   const byKit = new Map<number, KitItem[]>();
   for (const i of items) if (i.kit) byKit.set(i.kit.id, [...(byKit.get(i.kit.id) ?? []), i]);
   return kits.map((k) => summariseKit(k, byKit.get(k.id) ?? []));
 }
 
-export async function getKitDetail(deps: AppDeps, actor: Actor, id: number, db: Db = deps.db): Promise<KitDetailResponse> {
+export async function getKitDetail(
+  deps: AppDeps,
+  actor: Actor,
+  id: number,
+  db: Db = deps.db,
+): Promise<KitDetailResponse> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Kit');
   const kit = await findKit(db, actor.firmId, id);
   if (!kit) throw notFound('That kit');
   const items = await loadItems(db, actor.firmId, deps.clock.now(), { kitId: id });
   const [events, inspections] = await Promise.all([
     listCustodyEvents(db, actor.firmId, { kitId: id }),
-    listInspections(db, actor.firmId, items.map((i) => i.id)),
+    listInspections(
+      db,
+      actor.firmId,
+      items.map((i) => i.id),
+    ),
   ]);
   return { kit: summariseKit(kit, items), items, events, inspections };
 }
@@ -55,7 +70,8 @@ export async function getKitDetail(deps: AppDeps, actor: Actor, id: number, db: 
 export async function createKit(deps: AppDeps, actor: Actor, input: CreateKitInput): Promise<Kit> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Kit');
   const id = await deps.db.transaction(async (trx) => {
-    if (await kitNameTaken(trx, actor.firmId, input.name)) throw conflict(`There is already a kit called "${input.name}".`);
+    if (await kitNameTaken(trx, actor.firmId, input.name))
+      throw conflict(`There is already a kit called "${input.name}".`);
     return insertKit(trx, actor.firmId, { name: input.name, notes: input.notes ?? null });
   });
   return (await getKitDetail(deps, actor, id)).kit;

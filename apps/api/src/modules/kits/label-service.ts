@@ -5,7 +5,11 @@ import { ruleBroken } from '../../lib/http-error.ts';
 import { loadItems } from './kit-item-service.ts';
 
 /** Label data for an A4 sheet: each QR code opens the item's page in the app. */
-export async function buildLabels(deps: AppDeps, actor: Actor, query: { ids?: number[]; kitId?: number }): Promise<KitLabel[]> {
+export async function buildLabels(
+  deps: AppDeps,
+  actor: Actor,
+  query: { ids?: number[]; kitId?: number },
+): Promise<KitLabel[]> {
   if (!query.ids && query.kitId === undefined) throw ruleBroken('Say which labels to print: ids=1,2,3 or kitId=N.');
   const items = await loadItems(deps.db, actor.firmId, deps.clock.now(), { ids: query.ids, kitId: query.kitId });
   return Promise.all(

@@ -27,8 +27,16 @@ function locations(db: Db, firmId: number) {
     .select('l.*', 'u.name as engineer_name');
 }
 
-export function toLocationRef(row: Pick<LocationRow, 'id' | 'kind' | 'name' | 'registration' | 'engineer_name'>): LocationRef {
-  return { id: row.id, kind: row.kind, name: row.name, registration: row.registration, engineerName: row.engineer_name };
+export function toLocationRef(
+  row: Pick<LocationRow, 'id' | 'kind' | 'name' | 'registration' | 'engineer_name'>,
+): LocationRef {
+  return {
+    id: row.id,
+    kind: row.kind,
+    name: row.name,
+    registration: row.registration,
+    engineerName: row.engineer_name,
+  };
 }
 
 export async function listLocations(db: Db, firmId: number, kind?: 'depot' | 'van'): Promise<LocationRow[]> {
@@ -37,14 +45,22 @@ export async function listLocations(db: Db, firmId: number, kind?: 'depot' | 'va
   return q;
 }
 
-export async function findLocation(db: Db, firmId: number, id: number, opts: { forUpdate?: boolean } = {}): Promise<LocationRow | undefined> {
+export async function findLocation(
+  db: Db,
+  firmId: number,
+  id: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<LocationRow | undefined> {
   const q = locations(db, firmId).where('l.id', id).first();
   if (opts.forUpdate) q.forUpdate();
   return q;
 }
 
 export async function findVanOfMember(db: Db, firmId: number, memberId: number): Promise<LocationRow | undefined> {
-  return locations(db, firmId).where({ 'l.kind': 'van', 'l.engineer_member_id': memberId, 'l.active': true }).orderBy('l.id').first();
+  return locations(db, firmId)
+    .where({ 'l.kind': 'van', 'l.engineer_member_id': memberId, 'l.active': true })
+    .orderBy('l.id')
+    .first();
 }
 
 export async function firstDepot(db: Db, firmId: number): Promise<LocationRow | undefined> {
@@ -52,7 +68,12 @@ export async function firstDepot(db: Db, firmId: number): Promise<LocationRow | 
 }
 
 /** Another van or depot of the firm with this registration, if any. */
-export async function findLocationByRegistration(db: Db, firmId: number, registration: string, exceptId?: number): Promise<{ id: number; name: string } | undefined> {
+export async function findLocationByRegistration(
+  db: Db,
+  firmId: number,
+  registration: string,
+  exceptId?: number,
+): Promise<{ id: number; name: string } | undefined> {
   const q = db('locations').where({ firm_id: firmId, registration }).first('id', 'name');
   if (exceptId) q.whereNot('id', exceptId);
   return (await q) as { id: number; name: string } | undefined;
@@ -65,12 +86,21 @@ export async function locationNameTaken(db: Db, firmId: number, name: string, ex
   return Boolean(await q);
 }
 
-export async function insertLocation(trx: Knex.Transaction, firmId: number, row: Partial<Omit<LocationRow, 'id' | 'firm_id' | 'engineer_name'>>): Promise<number> {
+export async function insertLocation(
+  trx: Knex.Transaction,
+  firmId: number,
+  row: Partial<Omit<LocationRow, 'id' | 'firm_id' | 'engineer_name'>>,
+): Promise<number> {
   const [id] = await trx('locations').insert({ ...row, firm_id: firmId });
   return id as number;
 }
 
-export async function updateLocation(trx: Knex.Transaction, firmId: number, id: number, patch: Partial<Omit<LocationRow, 'id' | 'firm_id' | 'engineer_name'>>): Promise<void> {
+export async function updateLocation(
+  trx: Knex.Transaction,
+  firmId: number,
+  id: number,
+  patch: Partial<Omit<LocationRow, 'id' | 'firm_id' | 'engineer_name'>>,
+): Promise<void> {
   if (Object.keys(patch).length === 0) return;
   await trx('locations').where({ firm_id: firmId, id }).update(patch);
 }
@@ -87,9 +117,12 @@ export async function contentsByLocation(db: Db, firmId: number, locationIds: nu
       .whereIn('i.location_id', locationIds)
       .distinct('i.location_id', 'k.id', 'k.name')
       .orderBy('k.name') as Promise<{ location_id: number; id: number; name: string }[]>,
-    db('kit_items').where('firm_id', firmId).whereIn('location_id', locationIds).groupBy('location_id').select('location_id').count({ n: '*' }) as Promise<
-      { location_id: number; n: number }[]
-    >,
+    db('kit_items')
+      .where('firm_id', firmId)
+      .whereIn('location_id', locationIds)
+      .groupBy('location_id')
+      .select('location_id')
+      .count({ n: '*' }) as Promise<{ location_id: number; n: number }[]>,
   ]);
   const out = new Map<number, { kits: { id: number; name: string }[]; items: number }>();
   for (const id of locationIds) out.set(id, { kits: [], items: 0 });
@@ -98,7 +131,10 @@ export async function contentsByLocation(db: Db, firmId: number, locationIds: nu
   return out;
 }
 
-export function toVan(row: LocationRow, contents: { kits: { id: number; name: string }[]; items: number } | undefined): Van {
+export function toVan(
+  row: LocationRow,
+  contents: { kits: { id: number; name: string }[]; items: number } | undefined,
+): Van {
   const dates = [
     row.mot_due_on ? { what: 'MOT' as const, on: row.mot_due_on } : null,
     row.service_due_on ? { what: 'service' as const, on: row.service_due_on } : null,
@@ -109,7 +145,10 @@ export function toVan(row: LocationRow, contents: { kits: { id: number; name: st
     kind: 'van',
     name: row.name,
     registration: row.registration ?? '',
-    engineer: row.engineer_member_id && row.engineer_name ? { memberId: row.engineer_member_id, name: row.engineer_name } : null,
+    engineer:
+      row.engineer_member_id && row.engineer_name
+        ? { memberId: row.engineer_member_id, name: row.engineer_name }
+        : null,
     motDueOn: row.mot_due_on,
     serviceDueOn: row.service_due_on,
     notes: row.notes,

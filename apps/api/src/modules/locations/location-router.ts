@@ -11,11 +11,23 @@ import {
   vanResponseSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { createDepot, createVan, getMyVanDetail, getVanDetail, listDepots, listVans, updateVan } from './location-service.ts';
+import {
+  createDepot,
+  createVan,
+  getMyVanDetail,
+  getVanDetail,
+  listDepots,
+  listVans,
+  updateVan,
+} from './location-service.ts';
 
 export const locationRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/vans', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/vans',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'The firm\u2019s vans with engineer, kits on board and next MOT or service',
     request: {},
     responses: { 200: { description: 'Vans', schema: vanListResponseSchema } },
@@ -24,16 +36,27 @@ export const locationRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/vans', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'post',
+    path: '/vans',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'Add a van (Owner, Admin, Stores)',
     request: { body: createVanInputSchema },
-    responses: { 201: { description: 'Added', schema: vanResponseSchema }, 409: { description: 'Registration or name taken' } },
+    responses: {
+      201: { description: 'Added', schema: vanResponseSchema },
+      409: { description: 'Registration or name taken' },
+    },
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ van: await createVan(deps, actor, body) });
     },
   }),
   defineRoute({
-    method: 'get', path: '/vans/:id', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/vans/:id',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'A van with its kits and items and what is due',
     request: { params: idParamSchema },
     responses: { 200: { description: 'Van', schema: vanDetailResponseSchema } },
@@ -42,7 +65,11 @@ export const locationRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'patch', path: '/vans/:id', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'patch',
+    path: '/vans/:id',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'Change a van (Owner, Admin, Stores)',
     request: { params: idParamSchema, body: updateVanInputSchema },
     responses: { 200: { description: 'Changed', schema: vanResponseSchema } },
@@ -51,7 +78,11 @@ export const locationRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/depots', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/depots',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'The firm\u2019s depots',
     request: {},
     responses: { 200: { description: 'Depots', schema: depotListResponseSchema } },
@@ -60,7 +91,11 @@ export const locationRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/depots', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'post',
+    path: '/depots',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'Add a depot (Owner, Admin, Stores)',
     request: { body: createDepotInputSchema },
     responses: { 201: { description: 'Added', schema: depotResponseSchema } },
@@ -69,7 +104,11 @@ export const locationRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/me/van', tag: 'Vans', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/me/van',
+    tag: 'Vans',
+    access: 'member',
+    tenantData: true,
     summary: 'The signed-in engineer\u2019s own van, its kits and items (van is null without one)',
     request: {},
     responses: { 200: { description: 'My van', schema: myVanResponseSchema } },

@@ -1,5 +1,13 @@
 import { ForbiddenError } from '@casl/ability';
-import type { CreateDepotInput, CreateVanInput, Depot, MyVanResponse, UpdateVanInput, Van, VanDetailResponse } from '@heatfleet/domain';
+import type {
+  CreateDepotInput,
+  CreateVanInput,
+  Depot,
+  MyVanResponse,
+  UpdateVanInput,
+  Van,
+  VanDetailResponse,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound, ruleBroken } from '../../lib/http-error.ts';
@@ -21,7 +29,11 @@ import {
 } from './location-dal.ts';
 
 async function vansWithContents(db: Knex, firmId: number, rows: LocationRow[]): Promise<Van[]> {
-  const contents = await contentsByLocation(db, firmId, rows.map((r) => r.id));
+  const contents = await contentsByLocation(
+    db,
+    firmId,
+    rows.map((r) => r.id),
+  );
   return rows.map((r) => toVan(r, contents.get(r.id)));
 }
 
@@ -47,7 +59,10 @@ async function getMyVan(deps: AppDeps, actor: Actor): Promise<Van | null> {
 
 /** The kits (placed where most of their items are) and the items on a van. */
 async function contentsOf(deps: AppDeps, actor: Actor, vanId: number) {
-  const [kits, items] = await Promise.all([listKits(deps, actor), loadItems(deps.db, actor.firmId, deps.clock.now(), { locationId: vanId })]);
+  const [kits, items] = await Promise.all([
+    listKits(deps, actor),
+    loadItems(deps.db, actor.firmId, deps.clock.now(), { locationId: vanId }),
+  ]);
   return { kits: kits.filter((k) => k.location?.id === vanId), items };
 }
 
@@ -63,10 +78,17 @@ export async function getMyVanDetail(deps: AppDeps, actor: Actor): Promise<MyVan
   return van ? { van, ...(await contentsOf(deps, actor, van.id)) } : { van: null, kits: [], items: [] };
 }
 
-async function checkEngineer(trx: Knex.Transaction, firmId: number, memberId: number | null | undefined): Promise<void> {
+async function checkEngineer(
+  trx: Knex.Transaction,
+  firmId: number,
+  memberId: number | null | undefined,
+): Promise<void> {
   if (memberId === undefined || memberId === null) return;
   const member = await findMember(trx, firmId, memberId);
-  if (!member || !member.active) throw ruleBroken('The engineer given is not an active member of this firm.', [{ path: 'engineerMemberId', message: 'Choose an active member of this firm.' }]);
+  if (!member || !member.active)
+    throw ruleBroken('The engineer given is not an active member of this firm.', [
+      { path: 'engineerMemberId', message: 'Choose an active member of this firm.' },
+    ]);
 }
 
 async function checkRegistrationFree(trx: Knex.Transaction, firmId: number, registration: string, exceptId?: number) {
@@ -75,7 +97,8 @@ async function checkRegistrationFree(trx: Knex.Transaction, firmId: number, regi
 }
 
 async function checkNameFree(trx: Knex.Transaction, firmId: number, name: string, exceptId?: number) {
-  if (await locationNameTaken(trx, firmId, name, exceptId)) throw conflict(`There is already a van or depot called "${name}".`);
+  if (await locationNameTaken(trx, firmId, name, exceptId))
+    throw conflict(`There is already a van or depot called "${name}".`);
 }
 
 export async function createVan(deps: AppDeps, actor: Actor, input: CreateVanInput): Promise<Van> {

@@ -38,7 +38,13 @@ export async function deliverEmail(
   try {
     const attachments =
       email.attachment_key && objectStore
-        ? [{ filename: email.attachment_name ?? 'attachment.pdf', content: await streamToBuffer(await objectStore.get(email.attachment_key)), contentType: 'application/pdf' }]
+        ? [
+            {
+              filename: email.attachment_name ?? 'attachment.pdf',
+              content: await streamToBuffer(await objectStore.get(email.attachment_key)),
+              contentType: 'application/pdf',
+            },
+          ]
         : undefined;
     await transport.sendMail({
       attachments,

@@ -40,7 +40,12 @@ export async function insertEmail(trx: Knex.Transaction, email: NewEmail): Promi
 }
 
 /** Takes an unsent e-mail for one delivery attempt; undefined if it is sent or another worker holds it. */
-export async function claimUnsentEmail(db: Knex, id: number, now: Date, leaseMs: number): Promise<EmailRow | undefined> {
+export async function claimUnsentEmail(
+  db: Knex,
+  id: number,
+  now: Date,
+  leaseMs: number,
+): Promise<EmailRow | undefined> {
   const claimed = await db('emails')
     .where({ id })
     .whereNull('sent_at')
@@ -55,7 +60,10 @@ export async function markEmailSent(db: Knex, id: number, at: Date): Promise<voi
 }
 
 export async function recordEmailFailure(db: Knex, id: number, error: string): Promise<void> {
-  await db('emails').where({ id }).increment('attempts', 1).update({ last_error: error.slice(0, 500), claimed_until: null });
+  await db('emails')
+    .where({ id })
+    .increment('attempts', 1)
+    .update({ last_error: error.slice(0, 500), claimed_until: null });
 }
 
 export async function listUnsentEmailIds(db: Knex, olderThan: Date, limit = 200): Promise<number[]> {

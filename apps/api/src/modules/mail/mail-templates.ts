@@ -7,7 +7,10 @@ export interface RenderedEmail {
 }
 
 function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+  return s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c,
+  );
 }
 
 function layout(paragraphs: string[], link: { href: string; label: string }): string {
@@ -18,7 +21,13 @@ ${body}
 <p style="color:#555">Heatfleet</p></body></html>`;
 }
 
-export function invitationEmail(p: { firmName: string; inviterName: string; role: Role; link: string; expiresAt: Date }): RenderedEmail {
+export function invitationEmail(p: {
+  firmName: string;
+  inviterName: string;
+  role: Role;
+  link: string;
+  expiresAt: Date;
+}): RenderedEmail {
   const lines = [
     `${p.inviterName} has invited you to join ${p.firmName} on Heatfleet as ${roleLabels[p.role]}.`,
     `The link works once and expires on ${p.expiresAt.toUTCString()}.`,

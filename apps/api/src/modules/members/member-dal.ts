@@ -36,7 +36,12 @@ export async function listMembers(db: Knex, firmId: number): Promise<Member[]> {
   return rows.map(toMember);
 }
 
-export async function findMember(db: Knex | Knex.Transaction, firmId: number, memberId: number, opts: { forUpdate?: boolean } = {}) {
+export async function findMember(
+  db: Knex | Knex.Transaction,
+  firmId: number,
+  memberId: number,
+  opts: { forUpdate?: boolean } = {},
+) {
   const query = members(db, firmId).where('m.id', memberId).first(memberColumns);
   if (opts.forUpdate) query.forUpdate();
   const row: MemberRow | undefined = await query;
@@ -48,7 +53,11 @@ export async function findMemberByUser(db: Knex | Knex.Transaction, firmId: numb
   return row ? toMember(row) : undefined;
 }
 
-export async function findActiveMembership(db: Knex, userId: number, firmId: number): Promise<{ id: number; role: Role } | undefined> {
+export async function findActiveMembership(
+  db: Knex,
+  userId: number,
+  firmId: number,
+): Promise<{ id: number; role: Role } | undefined> {
   return db('memberships').where({ user_id: userId, firm_id: firmId, active: true }).first('id', 'role');
 }
 
@@ -62,17 +71,28 @@ export async function listMembershipsOfUser(db: Knex | Knex.Transaction, userId:
   return rows.map((r) => ({ memberId: r.id, firmId: r.firm_id, firmName: r.name, role: r.role }));
 }
 
-export async function insertMembership(trx: Knex.Transaction, m: { firmId: number; userId: number; role: Role }): Promise<number> {
+export async function insertMembership(
+  trx: Knex.Transaction,
+  m: { firmId: number; userId: number; role: Role },
+): Promise<number> {
   const [id] = await trx('memberships').insert({ firm_id: m.firmId, user_id: m.userId, role: m.role, active: true });
   return id as number;
 }
 
-export async function updateMembership(trx: Knex.Transaction, firmId: number, memberId: number, patch: { role?: Role; active?: boolean }) {
+export async function updateMembership(
+  trx: Knex.Transaction,
+  firmId: number,
+  memberId: number,
+  patch: { role?: Role; active?: boolean },
+) {
   await trx('memberships').where({ firm_id: firmId, id: memberId }).update(patch);
 }
 
 /** Locks the firm's active Owner rows, so two concurrent demotions cannot both pass the last-Owner check. */
 export async function lockActiveOwnerIds(trx: Knex.Transaction, firmId: number): Promise<number[]> {
-  const rows: { id: number }[] = await trx('memberships').where({ firm_id: firmId, role: 'owner', active: true }).forUpdate().select('id');
+  const rows: { id: number }[] = await trx('memberships')
+    .where({ firm_id: firmId, role: 'owner', active: true })
+    .forUpdate()
+    .select('id');
   return rows.map((r) => r.id);
 }

@@ -1,10 +1,19 @@
-import { idParamSchema, memberListResponseSchema, memberResponseSchema, updateMemberInputSchema } from '@heatfleet/domain';
+import {
+  idParamSchema,
+  memberListResponseSchema,
+  memberResponseSchema,
+  updateMemberInputSchema,
+} from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { listMembers, updateMember } from './member-service.ts';
 
 export const memberRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/members', tag: 'Team', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/members',
+    tag: 'Team',
+    access: 'member',
+    tenantData: true,
     summary: 'Members of the active firm',
     request: {},
     responses: { 200: { description: 'Members', schema: memberListResponseSchema } },
@@ -13,7 +22,11 @@ export const memberRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'patch', path: '/members/:id', tag: 'Team', access: 'member', tenantData: true,
+    method: 'patch',
+    path: '/members/:id',
+    tag: 'Team',
+    access: 'member',
+    tenantData: true,
     summary: 'Change a member\u2019s role, or deactivate or reactivate them (Owner, Admin)',
     request: { params: idParamSchema, body: updateMemberInputSchema },
     responses: {

@@ -31,6 +31,10 @@ export function buildOpenApiDocument(routes: RouteDefinition[]) {
   registry.registerComponent('securitySchemes', 'session', { type: 'apiKey', in: 'cookie', name: 'heatfleet.sid' });
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',
-    info: { title: 'Heatfleet API', version: '0.1.0', description: 'State-changing requests need the X-CSRF-Token header from GET /api/auth/csrf.' },
+    info: {
+      title: 'Heatfleet API',
+      version: '0.1.0',
+      description: 'State-changing requests need the X-CSRF-Token header from GET /api/auth/csrf.',
+    },
   });
 }

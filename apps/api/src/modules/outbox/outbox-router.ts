@@ -7,7 +7,12 @@ import { getOutboxMessage, listOutbox } from './outbox-service.ts';
 // It shows every caught e-mail, as a real mailbox server would, so it is not tenant data.
 export const outboxRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/outbox', tag: 'Outbox', access: 'public', tenantData: false, devOnly: true,
+    method: 'get',
+    path: '/outbox',
+    tag: 'Outbox',
+    access: 'public',
+    tenantData: false,
+    devOnly: true,
     summary: 'E-mails caught by the local SMTP server (not in production)',
     request: {},
     responses: { 200: { description: 'Messages', schema: outboxListResponseSchema } },
@@ -16,7 +21,12 @@ export const outboxRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/outbox/:id', tag: 'Outbox', access: 'public', tenantData: false, devOnly: true,
+    method: 'get',
+    path: '/outbox/:id',
+    tag: 'Outbox',
+    access: 'public',
+    tenantData: false,
+    devOnly: true,
     summary: 'One caught e-mail with its text and links (not in production)',
     request: { params: z.strictObject({ id: z.string().trim().max(80) }) },
     responses: { 200: { description: 'Message', schema: outboxMessageResponseSchema } },

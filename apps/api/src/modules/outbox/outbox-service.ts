@@ -18,7 +18,12 @@ async function readMessage(dir: string, id: string): Promise<OutboxMessage | und
 export async function listOutbox(dir: string | undefined): Promise<OutboxMessageSummary[]> {
   if (!dir) return [];
   const names = await readdir(dir).catch(() => [] as string[]);
-  const ids = names.filter((n) => n.endsWith('.json')).map((n) => n.slice(0, -5)).sort().reverse().slice(0, MAX_LISTED);
+  const ids = names
+    .filter((n) => n.endsWith('.json'))
+    .map((n) => n.slice(0, -5))
+    .sort()
+    .reverse()
+    .slice(0, MAX_LISTED);
   const messages = await Promise.all(ids.map((id) => readMessage(dir, id)));
   return messages
     .filter((m): m is OutboxMessage => m !== undefined)

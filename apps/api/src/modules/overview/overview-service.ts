@@ -1,10 +1,32 @@
 import { ForbiddenError } from '@casl/ability';
-import { addDays, addMonths, calendarDateIn, daysBetween, DEFAULT_TIME_ZONE, havDay, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate, type Overview, type OverviewDueItem, type OverviewVan } from '@heatfleet/domain';
+import {
+  addDays,
+  addMonths,
+  calendarDateIn,
+  daysBetween,
+  DEFAULT_TIME_ZONE,
+  havDay,
+  inspectionDue,
+  VAN_DUE_WINDOW_DAYS,
+  type CalendarDate,
+  type Overview,
+  type OverviewDueItem,
+  type OverviewVan,
+} from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findFirm } from '../firms/firm-dal.ts';
 import { listBatchesHeldExpiringBy } from '../reminders/reminder-stock-dal.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
-import { countJobsScheduled, listActiveVans, listAgitationsOn, listEngineers, listItemDueInputs, listLatestReminders, listProductsForUsage, packsUsedByMonth } from './overview-dal.ts';
+import {
+  countJobsScheduled,
+  listActiveVans,
+  listAgitationsOn,
+  listEngineers,
+  listItemDueInputs,
+  listLatestReminders,
+  listProductsForUsage,
+  packsUsedByMonth,
+} from './overview-dal.ts';
 
 export const EXPIRY_WINDOW_DAYS = 60;
 const USAGE_MONTHS = 12;
@@ -20,24 +42,53 @@ type MonthUsage = { monthIndex: number; productId: number; packs: number }[];
 const closedMonths = new Map<string, { productId: number; packs: number }[]>();
 const CLOSED_MONTHS_MAX = 50_000;
 
-async function usageByMonth(deps: AppDeps, firmId: number, timeZone: string, monthStarts: CalendarDate[]): Promise<MonthUsage> {
+async function usageByMonth(
+  deps: AppDeps,
+  firmId: number,
+  timeZone: string,
+  monthStarts: CalendarDate[],
+): Promise<MonthUsage> {
   const key = (i: number) => `${firmId}|${timeZone}|${monthStarts[i]}`;
   const closed = monthStarts.length - 2;
   let from = 0;
   while (from < closed && closedMonths.has(key(from))) from += 1;
-  const fresh = (await packsUsedByMonth(deps.db, firmId, monthStarts.slice(from).map((d) => startOfDayIn(d, timeZone)))).map((u) => ({ ...u, monthIndex: u.monthIndex + from }));
+  const fresh = (
+    await packsUsedByMonth(
+      deps.db,
+      firmId,
+      monthStarts.slice(from).map((d) => startOfDayIn(d, timeZone)),
+    )
+  ).map((u) => ({ ...u, monthIndex: u.monthIndex + from }));
   if (closedMonths.size > CLOSED_MONTHS_MAX) closedMonths.clear();
-  for (let i = from; i < closed; i += 1) closedMonths.set(key(i), fresh.filter((u) => u.monthIndex === i).map(({ productId, packs }) => ({ productId, packs })));
-  const remembered = Array.from({ length: from }, (_, i) => (closedMonths.get(key(i)) ?? []).map((u) => ({ ...u, monthIndex: i })));
+  for (let i = from; i < closed; i += 1)
+    closedMonths.set(
+      key(i),
+      fresh.filter((u) => u.monthIndex === i).map(({ productId, packs }) => ({ productId, packs })),
+    );
+  const remembered = Array.from({ length: from }, (_, i) =>
+    (closedMonths.get(key(i)) ?? []).map((u) => ({ ...u, monthIndex: i })),
+  );
   return [...remembered.flat(), ...fresh];
 }
 
 /** The instant a calendar day starts in a time zone (two passes settle the offset across a clock change). */
 export function startOfDayIn(day: CalendarDate, timeZone: string): Date {
-  const fmt = new Intl.DateTimeFormat('en-GB', { timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' });
+  const fmt = new Intl.DateTimeFormat('en-GB', {
+    timeZone,
+    hourCycle: 'h23',
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+    hour: '2-digit',
+    minute: '2-digit',
+    second: '2-digit',
+  });
   const offsetAt = (t: number) => {
     const p = Object.fromEntries(fmt.formatToParts(new Date(t)).map((x) => [x.type, x.value]));
-    return Date.UTC(Number(p.year), Number(p.month) - 1, Number(p.day), Number(p.hour), Number(p.minute), Number(p.second)) - t;
+    return (
+      Date.UTC(Number(p.year), Number(p.month) - 1, Number(p.day), Number(p.hour), Number(p.minute), Number(p.second)) -
+      t
+    );
   };
   const wall = Date.parse(`${day}T00:00:00Z`);
   let t = wall - offsetAt(wall);
@@ -45,7 +96,10 @@ export function startOfDayIn(day: CalendarDate, timeZone: string): Date {
   return new Date(t);
 }
 
-function nextDueOf(van: { mot_due_on: string | null; service_due_on: string | null }, today: CalendarDate): OverviewVan['nextDue'] {
+function nextDueOf(
+  van: { mot_due_on: string | null; service_due_on: string | null },
+  today: CalendarDate,
+): OverviewVan['nextDue'] {
   const dues = [
     { what: 'MOT' as const, on: van.mot_due_on },
     { what: 'service' as const, on: van.service_due_on },
@@ -54,7 +108,12 @@ function nextDueOf(van: { mot_due_on: string | null; service_due_on: string | nu
   const first = dues[0];
   if (!first) return null;
   const daysLeft = daysBetween(today, first.on);
-  return { ...first, daysLeft, state: daysLeft < 0 ? ('overdue' as const) : daysLeft <= VAN_DUE_WINDOW_DAYS ? ('due_soon' as const) : ('ok' as const) };
+  return {
+    ...first,
+    daysLeft,
+    state:
+      daysLeft < 0 ? ('overdue' as const) : daysLeft <= VAN_DUE_WINDOW_DAYS ? ('due_soon' as const) : ('ok' as const),
+  };
 }
 
 /**
@@ -110,10 +169,23 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
     .map((i) => {
       const due = inspectionDue(
         { intervalDays: i.interval_days, intervalUses: i.interval_uses, dueSoonDays: i.due_soon_days },
-        { lastInspectedOn: i.last_inspected_on, inServiceSince: i.in_service_since, usesSinceInspection: Number(i.uses_since_inspection ?? 0) },
+        {
+          lastInspectedOn: i.last_inspected_on,
+          inServiceSince: i.in_service_since,
+          usesSinceInspection: Number(i.uses_since_inspection ?? 0),
+        },
         today,
       );
-      return { id: i.id, assetTag: i.asset_tag, kindName: i.kind_name, locationName: i.location_name, state: due.state, dueOn: due.dueOn, usesLeft: due.usesLeft, reason: due.reason };
+      return {
+        id: i.id,
+        assetTag: i.asset_tag,
+        kindName: i.kind_name,
+        locationName: i.location_name,
+        state: due.state,
+        dueOn: due.dueOn,
+        usesLeft: due.usesLeft,
+        reason: due.reason,
+      };
     })
     .filter((i): i is OverviewDueItem => i.state === 'overdue' || i.state === 'due_soon')
     .sort((a, b) => (a.dueOn ?? '9999').localeCompare(b.dueOn ?? '9999') || a.assetTag.localeCompare(b.assetTag));
@@ -130,7 +202,9 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
   }
   // Kinds as a list, in a fixed order, so every month reads the same way.
   const months = monthStarts.slice(0, USAGE_MONTHS).map((start, i) => {
-    const byKind = [...(litres[i] ?? new Map<string, number>())].map(([kind, l]) => ({ kind, litres: round2(l) })).sort((a, b) => a.kind.localeCompare(b.kind));
+    const byKind = [...(litres[i] ?? new Map<string, number>())]
+      .map(([kind, l]) => ({ kind, litres: round2(l) }))
+      .sort((a, b) => a.kind.localeCompare(b.kind));
     return { month: start.slice(0, 7), byKind, totalLitres: round2(byKind.reduce((n, k) => n + k.litres, 0)) };
   });
 
@@ -149,12 +223,19 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
     timeZone,
     vans: vanRows,
     vansDue: vanRows.filter((v) => v.nextDue && v.nextDue.state !== 'ok').length,
-    kit: { overdueCount: overdue.length, dueSoonCount: dueSoon.length, overdue: overdue.slice(0, FIRST_FEW), dueSoon: dueSoon.slice(0, FIRST_FEW) },
+    kit: {
+      overdueCount: overdue.length,
+      dueSoonCount: dueSoon.length,
+      overdue: overdue.slice(0, FIRST_FEW),
+      dueSoon: dueSoon.slice(0, FIRST_FEW),
+    },
     expiringBatches: {
       withinDays: EXPIRY_WINDOW_DAYS,
       count: batches.length,
       packs: batches.reduce((n, b) => n + b.places.reduce((m, p) => m + p.quantity, 0), 0),
-      batches: batches.slice(0, FIRST_FEW).map((b) => ({ ...b, expired: b.expiresOn < today, packs: b.places.reduce((m, p) => m + p.quantity, 0) })),
+      batches: batches
+        .slice(0, FIRST_FEW)
+        .map((b) => ({ ...b, expired: b.expiresOn < today, packs: b.places.reduce((m, p) => m + p.quantity, 0) })),
     },
     jobsThisMonth: { month: today.slice(0, 7), ...jobs },
     usageByMonth: months,

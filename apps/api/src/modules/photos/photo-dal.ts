@@ -34,12 +34,20 @@ export async function listItemPhotos(db: Db, firmId: number, itemId: number): Pr
   const rows = (await db('photos')
     .where({ firm_id: firmId, item_id: itemId })
     .orderBy('id', 'desc')
-    .select('id', 'content_type', 'byte_size', 'caption', 'created_at')) as Pick<PhotoRow, 'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at'>[];
+    .select('id', 'content_type', 'byte_size', 'caption', 'created_at')) as Pick<
+    PhotoRow,
+    'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at'
+  >[];
   return rows.map(toPhoto);
 }
 
 /** Files a photo under an item, unless it already belongs to one. */
-export async function attachPhotoToItem(trx: Knex.Transaction, firmId: number, photoId: number, itemId: number): Promise<void> {
+export async function attachPhotoToItem(
+  trx: Knex.Transaction,
+  firmId: number,
+  photoId: number,
+  itemId: number,
+): Promise<void> {
   await trx('photos').where({ firm_id: firmId, id: photoId }).whereNull('item_id').update({ item_id: itemId });
 }
 

@@ -12,20 +12,35 @@ export const photoFieldsSchema = z.strictObject({
 
 export const photoRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'post', path: '/photos', tag: 'Photos', access: 'member', tenantData: true,
+    method: 'post',
+    path: '/photos',
+    tag: 'Photos',
+    access: 'member',
+    tenantData: true,
     summary: 'Upload a photo (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; optional itemId, caption)',
     request: {},
     multipart: { fileField: 'photo', fields: photoFieldsSchema },
-    responses: { 201: { description: 'Stored', schema: photoResponseSchema }, 413: { description: 'Too large' }, 422: { description: 'Not a JPEG, PNG or WebP' } },
+    responses: {
+      201: { description: 'Stored', schema: photoResponseSchema },
+      413: { description: 'Too large' },
+      422: { description: 'Not a JPEG, PNG or WebP' },
+    },
     before: () => [receivePhoto],
     handle: async ({ req, res, deps, actor }) => {
       const fields = photoFieldsSchema.parse(req.body ?? {});
-      if (!req.file) throw new HttpError(422, 'Attach a photo in the field "photo".', 'ValidationFailed', [{ path: 'photo', message: 'Required' }]);
+      if (!req.file)
+        throw new HttpError(422, 'Attach a photo in the field "photo".', 'ValidationFailed', [
+          { path: 'photo', message: 'Required' },
+        ]);
       res.status(201).json({ photo: await savePhoto(deps, actor, req.file.buffer, fields) });
     },
   }),
   defineRoute({
-    method: 'get', path: '/photos/:id/content', tag: 'Photos', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/photos/:id/content',
+    tag: 'Photos',
+    access: 'member',
+    tenantData: true,
     summary: 'The photo itself, for members of its firm only',
     request: { params: idParamSchema },
     responses: { 200: { description: 'Image bytes' } },

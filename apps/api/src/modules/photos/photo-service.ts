@@ -9,7 +9,11 @@ import { HttpError, notFound } from '../../lib/http-error.ts';
 import { findItemId } from '../kits/kit-item-dal.ts';
 import { findPhoto, insertPhoto, toPhoto } from './photo-dal.ts';
 
-const extensionFor: Record<(typeof photoContentTypes)[number], string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
+const extensionFor: Record<(typeof photoContentTypes)[number], string> = {
+  'image/jpeg': 'jpg',
+  'image/png': 'png',
+  'image/webp': 'webp',
+};
 
 export interface SavePhotoOptions {
   itemId?: number;
@@ -32,9 +36,12 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
   const detected = await fileTypeFromBuffer(file);
   const type = photoContentTypes.find((t) => t === detected?.mime);
   if (!type) {
-    throw new HttpError(422, `That file is ${detected ? `a ${detected.ext.toUpperCase()} file` : 'not an image'}; upload a JPEG, PNG or WebP photo.`, 'ValidationFailed', [
-      { path: 'photo', message: 'Upload a JPEG, PNG or WebP photo.' },
-    ]);
+    throw new HttpError(
+      422,
+      `That file is ${detected ? `a ${detected.ext.toUpperCase()} file` : 'not an image'}; upload a JPEG, PNG or WebP photo.`,
+      'ValidationFailed',
+      [{ path: 'photo', message: 'Upload a JPEG, PNG or WebP photo.' }],
+    );
   }
   if (opts.itemId !== undefined && !(await findItemId(deps.db, actor.firmId, opts.itemId))) throw notFound('That item');
   const key = `firms/${actor.firmId}/photos/${randomUUID()}.${extensionFor[type]}`;
@@ -55,7 +62,9 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
       return toPhoto((await findPhoto(trx, actor.firmId, id))!);
     });
   } catch (err) {
-    await deps.objectStore.delete(key).catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
+    await deps.objectStore
+      .delete(key)
+      .catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
     throw err;
   }
 }

@@ -17,10 +17,21 @@ export interface NewReminder {
  * row, undefined when the thing was already reminded for that period (by an earlier or a racing scan,
  * which holds the key's lock until it commits).
  */
-export async function insertReminderIfNew(trx: Knex.Transaction, firmId: number, reminder: NewReminder): Promise<number | undefined> {
+export async function insertReminderIfNew(
+  trx: Knex.Transaction,
+  firmId: number,
+  reminder: NewReminder,
+): Promise<number | undefined> {
   const [result] = (await trx.raw(
     'INSERT IGNORE INTO reminders (firm_id, kind, subject_type, subject_id, period_key, summary) VALUES (?, ?, ?, ?, ?, ?)',
-    [firmId, reminder.kind, reminder.subjectType, reminder.subjectId, reminder.periodKey, reminder.summary.slice(0, 300)],
+    [
+      firmId,
+      reminder.kind,
+      reminder.subjectType,
+      reminder.subjectId,
+      reminder.periodKey,
+      reminder.summary.slice(0, 300),
+    ],
   )) as [ResultSetHeader];
   return result.affectedRows === 1 ? result.insertId : undefined;
 }

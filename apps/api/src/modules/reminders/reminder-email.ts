@@ -12,7 +12,10 @@ export interface RenderedDigest {
 }
 
 function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+  return s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c,
+  );
 }
 
 const count = (n: number) => `${n} reminder${n === 1 ? '' : 's'}`;
@@ -41,7 +44,9 @@ function topics(lines: DigestLine[]): string {
     ...(has(['van_below_minimum', 'depot_reorder', 'batch_expiring']) ? ['stock'] : []),
     ...(has(['annual_check_due']) ? ['annual checks'] : []),
   ];
-  return words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}` : (words[0] ?? 'kit and vans');
+  return words.length > 1
+    ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`
+    : (words[0] ?? 'kit and vans');
 }
 
 /** One e-mail listing the reminders new in this scan, for the office or for one engineer's van. */
@@ -67,13 +72,25 @@ ${parts.map((s) => `<h3>${escapeHtml(s.title)}</h3>\n<ul>${s.lines.map((l) => `<
 <p>You get each reminder once for each time it falls due. <a href="${escapeHtml(p.link)}">All of them are in Heatfleet</a></p>
 <p style="color:#555">Heatfleet</p></body></html>`;
   const subject =
-    p.audience.kind === 'office' ? `${p.firmName}: ${count(p.lines.length)} for ${topics(p.lines)}` : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
+    p.audience.kind === 'office'
+      ? `${p.firmName}: ${count(p.lines.length)} for ${topics(p.lines)}`
+      : `Your van: ${count(p.lines.length)} from ${p.firmName}`;
   return { subject, text: `${text}\n`, html };
 }
 
 /** To a customer whose site falls due its yearly inhibitor check, when the firm has turned this on. */
-export function annualCheckCustomerEmail(p: { firmName: string; customerName: string; address: string; dueOn: string }): RenderedDigest {
-  const due = new Date(`${p.dueOn}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+export function annualCheckCustomerEmail(p: {
+  firmName: string;
+  customerName: string;
+  address: string;
+  dueOn: string;
+}): RenderedDigest {
+  const due = new Date(`${p.dueOn}T12:00:00Z`).toLocaleDateString('en-GB', {
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
   const paragraphs = [
     `Dear ${p.customerName},`,
     `The heating system at ${p.address} is due its yearly inhibitor check on ${due}. The check tests that the protective inhibitor in the system water is still at the right strength, so the radiators and boiler stay free of sludge and scale.`,
@@ -83,5 +100,9 @@ export function annualCheckCustomerEmail(p: { firmName: string; customerName: st
   const html = `<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">
 ${paragraphs.map((line) => `<p>${escapeHtml(line)}</p>`).join('\n')}
 </body></html>`;
-  return { subject: `${p.firmName}: your heating system's yearly check is due`, text: `${paragraphs.join('\n\n')}\n`, html };
+  return {
+    subject: `${p.firmName}: your heating system's yearly check is due`,
+    text: `${paragraphs.join('\n\n')}\n`,
+    html,
+  };
 }

@@ -26,7 +26,8 @@ export interface ItemForScan {
  * check-ins recorded after the last inspection was, as the kit screens count them.
  */
 export async function listItemsForScan(db: Db, firmId: number): Promise<ItemForScan[]> {
-  const inspectionsOf = () => db('inspections as ins').whereRaw('ins.firm_id = i.firm_id').whereRaw('ins.item_id = i.id');
+  const inspectionsOf = () =>
+    db('inspections as ins').whereRaw('ins.firm_id = i.firm_id').whereRaw('ins.item_id = i.id');
   const rows = (await db('kit_items as i')
     .join('item_kinds as ik', function joinKind() {
       this.on('ik.id', '=', 'i.kind_id').andOn('ik.firm_id', '=', 'i.firm_id');
@@ -135,8 +136,20 @@ export async function listSitesForScan(trx: Knex.Transaction, firmId: number): P
     .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
     .where('s.firm_id', firmId)
     .whereNotNull('s.next_check_on')
-    .select('s.id', 's.address', 'c.name as customer_name', 'c.email as customer_email', 's.next_check_on')) as { id: number; address: string; customer_name: string; customer_email: string | null; next_check_on: string }[];
-  return rows.map((r) => ({ id: r.id, address: r.address, customerName: r.customer_name, customerEmail: r.customer_email, nextCheckOn: r.next_check_on }));
+    .select('s.id', 's.address', 'c.name as customer_name', 'c.email as customer_email', 's.next_check_on')) as {
+    id: number;
+    address: string;
+    customer_name: string;
+    customer_email: string | null;
+    next_check_on: string;
+  }[];
+  return rows.map((r) => ({
+    id: r.id,
+    address: r.address,
+    customerName: r.customer_name,
+    customerEmail: r.customer_email,
+    nextCheckOn: r.next_check_on,
+  }));
 }
 
 export interface Recipient {

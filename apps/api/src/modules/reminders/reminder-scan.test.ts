@@ -31,6 +31,11 @@ describe('when the sweep scans a firm', () => {
     // 23:30 UTC on 1 December is already 2 December in Auckland (UTC+13), at 12:30.
     const auckland = firm({ lastScanOn: '2026-12-01' }, 'Pacific/Auckland');
     expect(firmIsDueForScan(auckland, new Date('2026-12-01T23:30:00Z'))).toBe(true);
-    expect(firmIsDueForScan({ ...auckland, settings: { ...auckland.settings, lastScanOn: '2026-12-02' } }, new Date('2026-12-01T23:30:00Z'))).toBe(false);
+    expect(
+      firmIsDueForScan(
+        { ...auckland, settings: { ...auckland.settings, lastScanOn: '2026-12-02' } },
+        new Date('2026-12-01T23:30:00Z'),
+      ),
+    ).toBe(false);
   });
 });

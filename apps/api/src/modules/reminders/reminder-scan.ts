@@ -1,6 +1,13 @@
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
-import { ANNUAL_CHECK_WINDOW_DAYS, calendarDateIn, daysBetween, inspectionDue, VAN_DUE_WINDOW_DAYS, type CalendarDate } from '@heatfleet/domain';
+import {
+  ANNUAL_CHECK_WINDOW_DAYS,
+  calendarDateIn,
+  daysBetween,
+  inspectionDue,
+  VAN_DUE_WINDOW_DAYS,
+  type CalendarDate,
+} from '@heatfleet/domain';
 import type { Env } from '../../config/env.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import type { MailQueue } from '../mail/mail-queue.ts';
@@ -15,7 +22,13 @@ import {
   type SiteForScan,
   type VanForScan,
 } from './reminder-scan-dal.ts';
-import { ensureReminderSettingsRow, listFirmsToScan, lockFirmForScan, markFirmScanned, type FirmToScan } from './reminder-settings-dal.ts';
+import {
+  ensureReminderSettingsRow,
+  listFirmsToScan,
+  lockFirmForScan,
+  markFirmScanned,
+  type FirmToScan,
+} from './reminder-settings-dal.ts';
 import { annualCheckCustomerEmail, reminderDigestEmail, type DigestLine } from './reminder-email.ts';
 import { stockCandidates } from './reminder-stock.ts';
 
@@ -64,7 +77,11 @@ function inspectionCandidates(items: ItemForScan[], today: CalendarDate): Candid
   for (const item of items) {
     const due = inspectionDue(
       { intervalDays: item.intervalDays, intervalUses: item.intervalUses, dueSoonDays: item.dueSoonDays },
-      { lastInspectedOn: item.lastInspectedOn, inServiceSince: item.inServiceSince, usesSinceInspection: item.usesSinceInspection },
+      {
+        lastInspectedOn: item.lastInspectedOn,
+        inServiceSince: item.inServiceSince,
+        usesSinceInspection: item.usesSinceInspection,
+      },
       today,
     );
     if (due.state !== 'due_soon' && due.state !== 'overdue') continue;
@@ -157,7 +174,8 @@ function planDigests(fresh: (Candidate & { id: number })[], members: Recipient[]
   for (const member of members) {
     if (officeIds.has(member.memberId)) continue;
     const own = fresh.filter((r) => r.vanEngineerMemberId === member.memberId);
-    if (own.length > 0) digests.push({ recipient: member, audience: { kind: 'engineer', name: member.name }, reminders: own });
+    if (own.length > 0)
+      digests.push({ recipient: member, audience: { kind: 'engineer', name: member.name }, reminders: own });
   }
   return digests.filter((d) => d.reminders.length > 0);
 }
@@ -213,7 +231,12 @@ export async function runReminderScan(
     if (firm.settings.annualCheckCustomerEmails) {
       for (const r of fresh) {
         if (r.kind !== 'annual_check_due' || !r.customer?.email) continue;
-        const email = annualCheckCustomerEmail({ firmName: firm.name, customerName: r.customer.name, address: r.customer.address, dueOn: r.customer.dueOn });
+        const email = annualCheckCustomerEmail({
+          firmName: firm.name,
+          customerName: r.customer.name,
+          address: r.customer.address,
+          dueOn: r.customer.dueOn,
+        });
         const emailId = await insertEmail(trx, { firmId, to: r.customer.email, ...email, purpose: 'reminder' });
         emailIds.push(emailId);
         await insertReminderDeliveries(trx, firmId, [{ reminderId: r.id, emailId, recipient: r.customer.email }]);
@@ -231,7 +254,11 @@ export async function runReminderScan(
  * not been scanned today. A sweep missed while the worker was down is caught up by the next one.
  * `firmIds` narrows it (tests share one database with other test files).
  */
-export async function runDueScans(deps: ReminderScanDeps, now: Date, firmIds?: number[]): Promise<{ firms: number; reminders: number }> {
+export async function runDueScans(
+  deps: ReminderScanDeps,
+  now: Date,
+  firmIds?: number[],
+): Promise<{ firms: number; reminders: number }> {
   let firms = 0;
   let reminders = 0;
   for (const firm of await listFirmsToScan(deps.db, firmIds)) {

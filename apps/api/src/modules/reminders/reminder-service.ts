@@ -18,7 +18,11 @@ export async function getReminderSettings(deps: AppDeps, actor: Actor): Promise<
   return findReminderSettings(deps.db, actor.firmId);
 }
 
-export async function updateReminderSettings(deps: AppDeps, actor: Actor, input: ReminderSettings): Promise<ReminderSettingsView> {
+export async function updateReminderSettings(
+  deps: AppDeps,
+  actor: Actor,
+  input: ReminderSettings,
+): Promise<ReminderSettingsView> {
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'ReminderSettings');
   await saveReminderSettings(deps.db, actor.firmId, input);
   return findReminderSettings(deps.db, actor.firmId);

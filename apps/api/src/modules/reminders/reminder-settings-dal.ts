@@ -34,9 +34,17 @@ const toSettings = (row: SettingsRow | undefined): ReminderSettingsView =>
     : { ...defaultReminderSettings, lastScanOn: null };
 
 export async function findReminderSettings(db: Db, firmId: number): Promise<ReminderSettingsView> {
-  const row = (await db('reminder_settings').where({ firm_id: firmId }).first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'annual_check_customer_emails', 'last_scan_on')) as
-    | SettingsRow
-    | undefined;
+  const row = (await db('reminder_settings')
+    .where({ firm_id: firmId })
+    .first(
+      'scan_hour',
+      'inspection_reminders',
+      'van_reminders',
+      'stock_reminders',
+      'annual_check_reminders',
+      'annual_check_customer_emails',
+      'last_scan_on',
+    )) as SettingsRow | undefined;
   return toSettings(row);
 }
 
@@ -48,7 +56,9 @@ export async function saveReminderSettings(db: Db, firmId: number, settings: Rem
   const stock = {
     ...(settings.stockReminders === undefined ? {} : { stock_reminders: settings.stockReminders }),
     ...(settings.annualCheckReminders === undefined ? {} : { annual_check_reminders: settings.annualCheckReminders }),
-    ...(settings.annualCheckCustomerEmails === undefined ? {} : { annual_check_customer_emails: settings.annualCheckCustomerEmails }),
+    ...(settings.annualCheckCustomerEmails === undefined
+      ? {}
+      : { annual_check_customer_emails: settings.annualCheckCustomerEmails }),
   };
   await db('reminder_settings')
     .insert({
@@ -78,13 +88,20 @@ export async function ensureReminderSettingsRow(db: Knex, firmId: number): Promi
  */
 export async function lockFirmForScan(trx: Knex.Transaction, firmId: number): Promise<FirmToScan | undefined> {
   const firm = (await trx('firms').where({ id: firmId }).first('id', 'name', 'time_zone')) as
-    | { id: number; name: string; time_zone: string }
-    | undefined;
+    { id: number; name: string; time_zone: string } | undefined;
   if (!firm) return undefined;
   const row = (await trx('reminder_settings')
     .where({ firm_id: firmId })
     .forUpdate()
-    .first('scan_hour', 'inspection_reminders', 'van_reminders', 'stock_reminders', 'annual_check_reminders', 'annual_check_customer_emails', 'last_scan_on')) as SettingsRow | undefined;
+    .first(
+      'scan_hour',
+      'inspection_reminders',
+      'van_reminders',
+      'stock_reminders',
+      'annual_check_reminders',
+      'annual_check_customer_emails',
+      'last_scan_on',
+    )) as SettingsRow | undefined;
   return { id: firm.id, name: firm.name, timeZone: firm.time_zone, settings: toSettings(row) };
 }
 
@@ -96,7 +113,18 @@ export async function markFirmScanned(trx: Knex.Transaction, firmId: number, on:
 export async function listFirmsToScan(db: Db, firmIds?: number[]): Promise<FirmToScan[]> {
   const q = db('firms as f')
     .leftJoin('reminder_settings as s', 's.firm_id', 'f.id')
-    .select('f.id', 'f.name', 'f.time_zone', 's.scan_hour', 's.inspection_reminders', 's.van_reminders', 's.stock_reminders', 's.annual_check_reminders', 's.annual_check_customer_emails', 's.last_scan_on')
+    .select(
+      'f.id',
+      'f.name',
+      'f.time_zone',
+      's.scan_hour',
+      's.inspection_reminders',
+      's.van_reminders',
+      's.stock_reminders',
+      's.annual_check_reminders',
+      's.annual_check_customer_emails',
+      's.last_scan_on',
+    )
     .orderBy('f.id');
   if (firmIds) q.whereIn('f.id', firmIds);
   const rows = (await q) as (SettingsRow & { id: number; name: string; time_zone: string; scan_hour: number | null })[];

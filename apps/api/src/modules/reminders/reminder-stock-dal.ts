@@ -26,15 +26,29 @@ export async function listStockPlaces(db: Db, firmId: number): Promise<StockPlac
     registration: string | null;
     engineer_member_id: number | null;
   }[];
-  return rows.map((r) => ({ id: r.id, kind: r.kind, name: r.name, registration: r.registration, engineerMemberId: r.engineer_member_id }));
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    name: r.name,
+    registration: r.registration,
+    engineerMemberId: r.engineer_member_id,
+  }));
 }
 
 export async function listActiveProducts(db: Db, firmId: number): Promise<{ id: number; name: string }[]> {
-  return (await db('products').where({ firm_id: firmId, active: true }).select('id', 'name').orderBy('name')) as { id: number; name: string }[];
+  return (await db('products').where({ firm_id: firmId, active: true }).select('id', 'name').orderBy('name')) as {
+    id: number;
+    name: string;
+  }[];
 }
 
 /** The newest movement that added stock of a product at a place (received, transferred in, counted up, reversed back), if any. */
-export async function latestArrivalId(db: Db, firmId: number, locationId: number, productId: number): Promise<number | null> {
+export async function latestArrivalId(
+  db: Db,
+  firmId: number,
+  locationId: number,
+  productId: number,
+): Promise<number | null> {
   const row = (await db('stock_movements')
     .where({ firm_id: firmId, location_id: locationId, product_id: productId })
     .where('quantity_delta', '>', 0)
@@ -73,8 +87,21 @@ export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay:
     .where('s.quantity', '>', 0)
     .where('b.expires_on', '<=', lastDay)
     .where('p.active', true)
-    .select('b.id as batch_id', 'b.lot_number', 'b.expires_on', 'p.name as product_name', 'l.name as location_name', 's.quantity')
-    .orderBy([{ column: 'b.expires_on' }, { column: 'p.name' }, { column: 'b.lot_number' }, { column: 's.quantity', order: 'desc' }, { column: 'l.name' }])) as {
+    .select(
+      'b.id as batch_id',
+      'b.lot_number',
+      'b.expires_on',
+      'p.name as product_name',
+      'l.name as location_name',
+      's.quantity',
+    )
+    .orderBy([
+      { column: 'b.expires_on' },
+      { column: 'p.name' },
+      { column: 'b.lot_number' },
+      { column: 's.quantity', order: 'desc' },
+      { column: 'l.name' },
+    ])) as {
     batch_id: number;
     lot_number: string;
     expires_on: string;
@@ -84,7 +111,13 @@ export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay:
   }[];
   const byBatch = new Map<number, BatchHeld>();
   for (const r of rows) {
-    const batch = byBatch.get(r.batch_id) ?? { batchId: r.batch_id, lotNumber: r.lot_number, expiresOn: r.expires_on, productName: r.product_name, places: [] };
+    const batch = byBatch.get(r.batch_id) ?? {
+      batchId: r.batch_id,
+      lotNumber: r.lot_number,
+      expiresOn: r.expires_on,
+      productName: r.product_name,
+      places: [],
+    };
     batch.places.push({ name: r.location_name, quantity: r.quantity });
     byBatch.set(r.batch_id, batch);
   }

@@ -1,9 +1,26 @@
 import type { Knex } from 'knex';
-import { addDays, BATCH_EXPIRY_WINDOW_DAYS, daysBetween, planReorder, planRestock, type BatchStock, type CalendarDate, type ReorderLine } from '@heatfleet/domain';
+import {
+  addDays,
+  BATCH_EXPIRY_WINDOW_DAYS,
+  daysBetween,
+  planReorder,
+  planRestock,
+  type BatchStock,
+  type CalendarDate,
+  type ReorderLine,
+} from '@heatfleet/domain';
 import { balancesAt } from '../stock/stock-ledger.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
 import type { NewReminder } from './reminder-dal.ts';
-import { latestArrivalId, listActiveProducts, listBatchesHeldExpiringBy, listStockPlaces, packsUsedSince, type BatchHeld, type StockPlace } from './reminder-stock-dal.ts';
+import {
+  latestArrivalId,
+  listActiveProducts,
+  listBatchesHeldExpiringBy,
+  listStockPlaces,
+  packsUsedSince,
+  type BatchHeld,
+  type StockPlace,
+} from './reminder-stock-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -28,13 +45,21 @@ const placeLabel = (p: StockPlace) => (p.registration ? `${p.name} (${p.registra
  * rejected because expiry takes stock under with no movement at all, and a calendar week would
  * repeat the reminder every week of a long dip.
  */
-async function dipPeriod(db: Db, firmId: number, locationId: number, productId: number, prefix: string): Promise<string> {
+async function dipPeriod(
+  db: Db,
+  firmId: number,
+  locationId: number,
+  productId: number,
+  prefix: string,
+): Promise<string> {
   return `${prefix}:in${(await latestArrivalId(db, firmId, locationId, productId)) ?? 0}`;
 }
 
 function reorderSummary(line: ReorderLine, productName: string, depot: StockPlace, afterRestock: boolean): string {
   const cover =
-    line.daysOfCover === null ? 'none used in the last 90 days' : `about ${line.daysOfCover} day${line.daysOfCover === 1 ? '' : 's'} of cover at the last 90 days' use`;
+    line.daysOfCover === null
+      ? 'none used in the last 90 days'
+      : `about ${line.daysOfCover} day${line.daysOfCover === 1 ? '' : 's'} of cover at the last 90 days' use`;
   const usable = `${line.usableAfterTransfers} usable${afterRestock ? ' after the planned restock' : ''}`;
   return `${productName} at ${depot.name}: ${usable}, under its minimum of ${line.par.minimum}; order ${packs(line.orderQuantity)} to reach ${line.par.target} (${cover})`;
 }
@@ -58,11 +83,22 @@ function batchSummary(batch: BatchHeld, today: CalendarDate): string {
  * same domain computations as the Restock run and Reorder list screens, over active products only
  * (a discontinued product is not restocked, so reminding about it is noise).
  */
-export async function stockCandidates(db: Db, firmId: number, today: CalendarDate, now: Date): Promise<StockCandidate[]> {
-  const [places, products, levels] = await Promise.all([listStockPlaces(db, firmId), listActiveProducts(db, firmId), stockLevels(db, firmId, today)]);
+export async function stockCandidates(
+  db: Db,
+  firmId: number,
+  today: CalendarDate,
+  now: Date,
+): Promise<StockCandidate[]> {
+  const [places, products, levels] = await Promise.all([
+    listStockPlaces(db, firmId),
+    listActiveProducts(db, firmId),
+    stockLevels(db, firmId, today),
+  ]);
   const productName = new Map(products.map((p) => [p.id, p.name]));
   const placeById = new Map(places.map((p) => [p.id, p]));
-  const vanCells = levels.filter((c) => placeById.get(c.locationId)?.kind === 'van' && productName.has(c.productId) && c.par !== null);
+  const vanCells = levels.filter(
+    (c) => placeById.get(c.locationId)?.kind === 'van' && productName.has(c.productId) && c.par !== null,
+  );
   const found: StockCandidate[] = [];
 
   for (const cell of vanCells) {
@@ -88,13 +124,34 @@ export async function stockCandidates(db: Db, firmId: number, today: CalendarDat
     for (const [index, depot] of depots.entries()) {
       const batches = new Map<number, BatchStock[]>();
       for (const b of await balancesAt(db, firmId, depot.id)) {
-        batches.set(b.product_id, [...(batches.get(b.product_id) ?? []), { batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity }]);
+        batches.set(b.product_id, [
+          ...(batches.get(b.product_id) ?? []),
+          { batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity },
+        ]);
       }
       const restock =
-        index === 0 ? planRestock(vanCells.map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par! })), batches, today) : [];
-      const depotPar = new Map(levels.filter((c) => c.locationId === depot.id && c.par !== null).map((c) => [c.productId, c.par!]));
+        index === 0
+          ? planRestock(
+              vanCells.map((c) => ({
+                locationId: c.locationId,
+                productId: c.productId,
+                usable: c.usable,
+                par: c.par!,
+              })),
+              batches,
+              today,
+            )
+          : [];
+      const depotPar = new Map(
+        levels.filter((c) => c.locationId === depot.id && c.par !== null).map((c) => [c.productId, c.par!]),
+      );
       const reorder = planReorder(
-        products.map((p) => ({ productId: p.id, depotBatches: batches.get(p.id) ?? [], par: depotPar.get(p.id) ?? null, used90Days: used.get(p.id) ?? 0 })),
+        products.map((p) => ({
+          productId: p.id,
+          depotBatches: batches.get(p.id) ?? [],
+          par: depotPar.get(p.id) ?? null,
+          used90Days: used.get(p.id) ?? 0,
+        })),
         restock,
         today,
       );

@@ -8,7 +8,10 @@ export async function listSiteChecks(db: Db, firmId: number, siteId: number): Pr
     .join('products as p', (j) => j.on('p.id', '=', 'k.product_id').andOn('p.firm_id', '=', 'k.firm_id'))
     .join('users as u', 'u.id', 'k.by_user_id')
     .where({ 'k.firm_id': firmId, 'k.site_id': siteId })
-    .orderBy([{ column: 'k.checked_on', order: 'desc' }, { column: 'k.id', order: 'desc' }])
+    .orderBy([
+      { column: 'k.checked_on', order: 'desc' },
+      { column: 'k.id', order: 'desc' },
+    ])
     .select('k.*', 'p.name as product_name', 'u.name as by_name')) as Record<string, unknown>[];
   return rows.map((r) => ({
     id: r.id as number,
@@ -35,7 +38,11 @@ export interface InhibitorRow {
 }
 
 export function findProduct(db: Db, firmId: number, productId: number): Promise<InhibitorRow | undefined> {
-  return db('products').where({ firm_id: firmId, id: productId }).first('id', 'name', 'kind', 'target_min', 'target_max', 'target_unit', 'test_method') as Promise<InhibitorRow | undefined>;
+  return db('products')
+    .where({ firm_id: firmId, id: productId })
+    .first('id', 'name', 'kind', 'target_min', 'target_max', 'target_unit', 'test_method') as Promise<
+    InhibitorRow | undefined
+  >;
 }
 
 /** The firm's active inhibitors that have a target range: the ones a check can be recorded against. */
@@ -46,17 +53,46 @@ export async function listCheckableInhibitors(db: Db, firmId: number): Promise<C
     .whereNotNull('target_max')
     .orderBy('name')
     .select('id', 'name', 'kind', 'target_min', 'target_max', 'target_unit', 'test_method')) as InhibitorRow[];
-  return rows.map((r) => ({ id: r.id, name: r.name, targetMin: Number(r.target_min), targetMax: Number(r.target_max), targetUnit: r.target_unit, testMethod: r.test_method }));
+  return rows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    targetMin: Number(r.target_min),
+    targetMax: Number(r.target_max),
+    targetUnit: r.target_unit,
+    testMethod: r.test_method,
+  }));
 }
 
 export async function insertSiteCheck(
   trx: Knex.Transaction,
-  row: { firmId: number; siteId: number; checkedOn: string; productId: number; reading: number; min: number; max: number; unit: string | null; tdsPpm: number | null; result: 'pass' | 'fail'; notes: string | null; byUserId: number },
+  row: {
+    firmId: number;
+    siteId: number;
+    checkedOn: string;
+    productId: number;
+    reading: number;
+    min: number;
+    max: number;
+    unit: string | null;
+    tdsPpm: number | null;
+    result: 'pass' | 'fail';
+    notes: string | null;
+    byUserId: number;
+  },
 ): Promise<number> {
   const [id] = await trx('site_checks').insert({
-    firm_id: row.firmId, site_id: row.siteId, checked_on: row.checkedOn, product_id: row.productId, reading: row.reading, target_min: row.min, target_max: row.max, target_unit: row.unit,
-    tds_ppm: row.tdsPpm, result: row.result, notes: row.notes, by_user_id: row.byUserId,
+    firm_id: row.firmId,
+    site_id: row.siteId,
+    checked_on: row.checkedOn,
+    product_id: row.productId,
+    reading: row.reading,
+    target_min: row.min,
+    target_max: row.max,
+    target_unit: row.unit,
+    tds_ppm: row.tdsPpm,
+    result: row.result,
+    notes: row.notes,
+    by_user_id: row.byUserId,
   });
   return id as number;
 }
-

@@ -14,26 +14,48 @@ const CHECK_INTERVAL_MONTHS = 12;
  * Records an inhibitor check visit: pass when the reading is within the product's target range,
  * and the site's next check a year on from the visit, in one transaction.
  */
-export async function recordSiteCheck(deps: AppDeps, actor: Actor, siteId: number, input: SiteCheckInput): Promise<SiteCheckResponse> {
+export async function recordSiteCheck(
+  deps: AppDeps,
+  actor: Actor,
+  siteId: number,
+  input: SiteCheckInput,
+): Promise<SiteCheckResponse> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Customer');
   const checkId = await deps.db.transaction(async (trx) => {
     const site = await findSite(trx, actor.firmId, siteId, true);
     if (!site) throw notFound('That site');
     const today = await firmToday(trx, actor.firmId, deps.clock.now());
     if (input.checkedOn > today) {
-      throw new HttpError(422, `A check cannot be dated after today (${input.checkedOn} is later than ${today}).`, undefined, [{ path: 'checkedOn', message: 'After today' }]);
+      throw new HttpError(
+        422,
+        `A check cannot be dated after today (${input.checkedOn} is later than ${today}).`,
+        undefined,
+        [{ path: 'checkedOn', message: 'After today' }],
+      );
     }
     const product = await findProduct(trx, actor.firmId, input.inhibitorProductId);
     if (!product) throw notFound('That product');
     if (product.kind !== 'inhibitor' || product.target_min === null || product.target_max === null) {
-      throw new HttpError(422, `${product.name} is not an inhibitor with a target range, so a check cannot be judged against it. Choose an inhibitor, or set its target range on the product.`, undefined, [
-        { path: 'inhibitorProductId', message: 'Not an inhibitor with a target range' },
-      ]);
+      throw new HttpError(
+        422,
+        `${product.name} is not an inhibitor with a target range, so a check cannot be judged against it. Choose an inhibitor, or set its target range on the product.`,
+        undefined,
+        [{ path: 'inhibitorProductId', message: 'Not an inhibitor with a target range' }],
+      );
     }
     const range = { min: Number(product.target_min), max: Number(product.target_max) };
     const id = await insertSiteCheck(trx, {
-      firmId: actor.firmId, siteId, checkedOn: input.checkedOn, productId: product.id, reading: input.inhibitorReading, ...range, unit: product.target_unit,
-      tdsPpm: input.systemTdsPpm ?? null, result: inhibitorCheck(input.inhibitorReading, range) === 'pass' ? 'pass' : 'fail', notes: input.notes ?? null, byUserId: actor.userId,
+      firmId: actor.firmId,
+      siteId,
+      checkedOn: input.checkedOn,
+      productId: product.id,
+      reading: input.inhibitorReading,
+      ...range,
+      unit: product.target_unit,
+      tdsPpm: input.systemTdsPpm ?? null,
+      result: inhibitorCheck(input.inhibitorReading, range) === 'pass' ? 'pass' : 'fail',
+      notes: input.notes ?? null,
+      byUserId: actor.userId,
     });
     await setSiteNextCheck(trx, actor.firmId, siteId, addMonths(input.checkedOn, CHECK_INTERVAL_MONTHS));
     return id;

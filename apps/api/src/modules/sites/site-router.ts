@@ -1,11 +1,21 @@
-import { idParamSchema, siteCheckInputSchema, siteCheckResponseSchema, siteDetailSchema, siteListResponseSchema } from '@heatfleet/domain';
+import {
+  idParamSchema,
+  siteCheckInputSchema,
+  siteCheckResponseSchema,
+  siteDetailSchema,
+  siteListResponseSchema,
+} from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { recordSiteCheck } from './site-check-service.ts';
 import { getSite, listAllSites } from './site-service.ts';
 
 export const siteRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/sites', tag: 'Jobs', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/sites',
+    tag: 'Jobs',
+    access: 'member',
+    tenantData: true,
     summary: 'Every site with its customer and next check date, by customer',
     request: {},
     responses: { 200: { description: 'Sites', schema: siteListResponseSchema } },
@@ -14,7 +24,11 @@ export const siteRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'get', path: '/sites/:id', tag: 'Jobs', access: 'member', tenantData: true,
+    method: 'get',
+    path: '/sites/:id',
+    tag: 'Jobs',
+    access: 'member',
+    tenantData: true,
     summary: 'A site with its customer, its jobs newest first, its inhibitor checks and the next check date',
     request: { params: idParamSchema },
     responses: { 200: { description: 'Site', schema: siteDetailSchema } },
@@ -23,10 +37,18 @@ export const siteRoutes: RouteDefinition[] = [
     },
   }),
   defineRoute({
-    method: 'post', path: '/sites/:id/checks', tag: 'Jobs', access: 'member', tenantData: true,
-    summary: 'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on',
+    method: 'post',
+    path: '/sites/:id/checks',
+    tag: 'Jobs',
+    access: 'member',
+    tenantData: true,
+    summary:
+      'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on',
     request: { params: idParamSchema, body: siteCheckInputSchema },
-    responses: { 201: { description: 'Recorded', schema: siteCheckResponseSchema }, 422: { description: 'Not an inhibitor with a target range, or bad input' } },
+    responses: {
+      201: { description: 'Recorded', schema: siteCheckResponseSchema },
+      422: { description: 'Not an inhibitor with a target range, or bad input' },
+    },
     handle: async ({ params, body, res, deps, actor }) => {
       res.status(201).json(await recordSiteCheck(deps, actor, params.id, body));
     },

@@ -25,7 +25,19 @@ export interface ProductRow {
   active: number;
 }
 
-export type ProductWrite = Partial<Omit<ProductRow, 'id' | 'sds_object_key' | 'sds_byte_size' | 'sds_uploaded_at' | 'active' | 'dose_litres_per_100l' | 'target_min' | 'target_max'>> & {
+export type ProductWrite = Partial<
+  Omit<
+    ProductRow,
+    | 'id'
+    | 'sds_object_key'
+    | 'sds_byte_size'
+    | 'sds_uploaded_at'
+    | 'active'
+    | 'dose_litres_per_100l'
+    | 'target_min'
+    | 'target_max'
+  >
+> & {
   dose_litres_per_100l?: number | null;
   target_min?: number | null;
   target_max?: number | null;
@@ -47,7 +59,12 @@ export async function findProductRow(db: Db, firmId: number, id: number): Promis
 }
 
 /** A product's id and name; forUpdate locks its row while it is changed. */
-export async function findProductRef(db: Db, firmId: number, id: number, opts: { forUpdate?: boolean } = {}): Promise<{ id: number; name: string } | undefined> {
+export async function findProductRef(
+  db: Db,
+  firmId: number,
+  id: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<{ id: number; name: string } | undefined> {
   const q = db('products').where({ firm_id: firmId, id }).first('id', 'name');
   if (opts.forUpdate) q.forUpdate();
   return q;
@@ -62,7 +79,12 @@ export async function insertProduct(trx: Trx, firmId: number, row: ProductWrite)
   return id as number;
 }
 
-export async function updateProductRow(db: Db, firmId: number, id: number, row: ProductWrite | Pick<ProductRow, 'sds_object_key' | 'sds_byte_size' | 'sds_uploaded_at'>): Promise<void> {
+export async function updateProductRow(
+  db: Db,
+  firmId: number,
+  id: number,
+  row: ProductWrite | Pick<ProductRow, 'sds_object_key' | 'sds_byte_size' | 'sds_uploaded_at'>,
+): Promise<void> {
   await db('products').where({ firm_id: firmId, id }).update(row);
 }
 
@@ -72,8 +94,14 @@ export async function listProductNames(db: Db, firmId: number): Promise<{ id: nu
 
 /** Active products for the stock grid, by name. */
 export async function listActiveProductSummaries(db: Db, firmId: number) {
-  return (await db('products').where({ firm_id: firmId, active: true }).orderBy('name').select('id', 'name', 'kind', 'pack_size_ml as packSizeMl')) as {
-    id: number; name: string; kind: Product['kind']; packSizeMl: number;
+  return (await db('products')
+    .where({ firm_id: firmId, active: true })
+    .orderBy('name')
+    .select('id', 'name', 'kind', 'pack_size_ml as packSizeMl')) as {
+    id: number;
+    name: string;
+    kind: Product['kind'];
+    packSizeMl: number;
   }[];
 }
 
@@ -83,12 +111,28 @@ export async function findBatch(db: Db, firmId: number, id: number, productId?: 
   return q;
 }
 
-export async function findBatchByLot(db: Db, firmId: number, productId: number, lotNumber: string): Promise<{ id: number; expires_on: string } | undefined> {
-  return db('product_batches').where({ firm_id: firmId, product_id: productId, lot_number: lotNumber }).first('id', 'expires_on');
+export async function findBatchByLot(
+  db: Db,
+  firmId: number,
+  productId: number,
+  lotNumber: string,
+): Promise<{ id: number; expires_on: string } | undefined> {
+  return db('product_batches')
+    .where({ firm_id: firmId, product_id: productId, lot_number: lotNumber })
+    .first('id', 'expires_on');
 }
 
-export async function insertBatch(trx: Trx, firmId: number, batch: { productId: number; lotNumber: string; expiresOn: string }): Promise<number> {
-  const [id] = await trx('product_batches').insert({ firm_id: firmId, product_id: batch.productId, lot_number: batch.lotNumber, expires_on: batch.expiresOn });
+export async function insertBatch(
+  trx: Trx,
+  firmId: number,
+  batch: { productId: number; lotNumber: string; expiresOn: string },
+): Promise<number> {
+  const [id] = await trx('product_batches').insert({
+    firm_id: firmId,
+    product_id: batch.productId,
+    lot_number: batch.lotNumber,
+    expires_on: batch.expiresOn,
+  });
   return id as number;
 }
 

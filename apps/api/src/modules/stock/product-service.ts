@@ -5,7 +5,16 @@ import { packSizeMl, type Product, type ProductInput } from '@heatfleet/domain';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notFound } from '../../lib/http-error.ts';
-import { findProductRef, findProductRow, insertProduct, listProductRows, productNameTaken, updateProductRow, type ProductRow, type ProductWrite } from './product-dal.ts';
+import {
+  findProductRef,
+  findProductRow,
+  insertProduct,
+  listProductRows,
+  productNameTaken,
+  updateProductRow,
+  type ProductRow,
+  type ProductWrite,
+} from './product-dal.ts';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -25,7 +34,14 @@ export function toProduct(r: ProductRow): Product {
     shelfLifeMonths: r.shelf_life_months,
     hazardNotes: r.hazard_notes,
     minCirculationMinutes: r.min_circulation_minutes ?? null,
-    safetyDataSheet: r.sds_object_key && r.sds_uploaded_at ? { url: `/api/products/${r.id}/safety-data-sheet`, byteSize: r.sds_byte_size ?? 0, uploadedAt: r.sds_uploaded_at.toISOString() } : null,
+    safetyDataSheet:
+      r.sds_object_key && r.sds_uploaded_at
+        ? {
+            url: `/api/products/${r.id}/safety-data-sheet`,
+            byteSize: r.sds_byte_size ?? 0,
+            uploadedAt: r.sds_uploaded_at.toISOString(),
+          }
+        : null,
     active: Boolean(r.active),
   };
 }
@@ -60,7 +76,8 @@ export async function getProduct(deps: AppDeps, actor: Actor, id: number): Promi
 export async function createProduct(deps: AppDeps, actor: Actor, input: ProductInput): Promise<Product> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Product');
   const id = await deps.db.transaction(async (trx) => {
-    if (await productNameTaken(trx, actor.firmId, input.name)) throw conflict(`There is already a product called "${input.name}".`);
+    if (await productNameTaken(trx, actor.firmId, input.name))
+      throw conflict(`There is already a product called "${input.name}".`);
     return insertProduct(trx, actor.firmId, toRow(input));
   });
   return getProduct(deps, actor, id);
@@ -71,7 +88,8 @@ export async function updateProduct(deps: AppDeps, actor: Actor, id: number, inp
   await deps.db.transaction(async (trx) => {
     const row = await findProductRef(trx, actor.firmId, id, { forUpdate: true });
     if (!row) throw notFound('That product');
-    if (input.name !== row.name && (await productNameTaken(trx, actor.firmId, input.name))) throw conflict(`There is already a product called "${input.name}".`);
+    if (input.name !== row.name && (await productNameTaken(trx, actor.firmId, input.name)))
+      throw conflict(`There is already a product called "${input.name}".`);
     await updateProductRow(trx, actor.firmId, id, toRow(input));
   });
   return getProduct(deps, actor, id);
@@ -86,12 +104,18 @@ export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: numbe
   if (!row) throw notFound('That product');
   const type = await fileTypeFromBuffer(file);
   if (type?.mime !== 'application/pdf') {
-    throw new HttpError(422, 'A safety data sheet must be a PDF file.', 'ValidationFailed', [{ path: 'file', message: 'Upload a PDF.' }]);
+    throw new HttpError(422, 'A safety data sheet must be a PDF file.', 'ValidationFailed', [
+      { path: 'file', message: 'Upload a PDF.' },
+    ]);
   }
   const key = `firms/${actor.firmId}/safety-data-sheets/${randomUUID()}.pdf`;
   await deps.objectStore.put(key, file, 'application/pdf');
   try {
-    await updateProductRow(deps.db, actor.firmId, id, { sds_object_key: key, sds_byte_size: file.length, sds_uploaded_at: deps.clock.now() });
+    await updateProductRow(deps.db, actor.firmId, id, {
+      sds_object_key: key,
+      sds_byte_size: file.length,
+      sds_uploaded_at: deps.clock.now(),
+    });
   } catch (err) {
     await deps.objectStore.delete(key).catch(() => undefined);
     throw err;
@@ -100,7 +124,11 @@ export async function saveSafetyDataSheet(deps: AppDeps, actor: Actor, id: numbe
   return getProduct(deps, actor, id);
 }
 
-export async function openSafetyDataSheet(deps: AppDeps, actor: Actor, id: number): Promise<{ name: string; body: Readable }> {
+export async function openSafetyDataSheet(
+  deps: AppDeps,
+  actor: Actor,
+  id: number,
+): Promise<{ name: string; body: Readable }> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Product');
   const row = await findProductRow(deps.db, actor.firmId, id);
   if (!row?.sds_object_key) throw notFound('That safety data sheet');

@@ -1,5 +1,12 @@
 import { ForbiddenError } from '@casl/ability';
-import { planReorder, planRestock, type BatchStock, type RestockApplied, type RestockApplyInput, type RestockRun } from '@heatfleet/domain';
+import {
+  planReorder,
+  planRestock,
+  type BatchStock,
+  type RestockApplied,
+  type RestockApplyInput,
+  type RestockRun,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
@@ -25,7 +32,10 @@ async function depotOf(db: Db, actor: Actor, depotId?: number) {
 async function depotBatches(db: Db, firmId: number, depotId: number): Promise<Map<number, BatchStock[]>> {
   const map = new Map<number, BatchStock[]>();
   for (const b of await balancesAt(db, firmId, depotId)) {
-    map.set(b.product_id, [...(map.get(b.product_id) ?? []), { batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity }]);
+    map.set(b.product_id, [
+      ...(map.get(b.product_id) ?? []),
+      { batchId: b.batch_id, lotNumber: b.lot_number, expiresOn: b.expires_on, quantity: b.quantity },
+    ]);
   }
   return map;
 }
@@ -42,12 +52,19 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
     sumUsedByProductSince(db, actor.firmId, new Date(deps.clock.now().getTime() - 90 * 86_400_000)),
   ]);
   const vanIds = new Set(vans.map((v) => v.id));
-  const needs = levels.filter((c) => vanIds.has(c.locationId) && c.par).map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par! }));
+  const needs = levels
+    .filter((c) => vanIds.has(c.locationId) && c.par)
+    .map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par! }));
   const lines = planRestock(needs, batches, today);
   const usedBy = new Map(used.map((u) => [u.product_id, -Number(u.n)]));
   const depotPar = new Map(levels.filter((c) => c.locationId === depot.id && c.par).map((c) => [c.productId, c.par!]));
   const reorder = planReorder(
-    products.map((p) => ({ productId: p.id, depotBatches: batches.get(p.id) ?? [], par: depotPar.get(p.id) ?? null, used90Days: usedBy.get(p.id) ?? 0 })),
+    products.map((p) => ({
+      productId: p.id,
+      depotBatches: batches.get(p.id) ?? [],
+      par: depotPar.get(p.id) ?? null,
+      used90Days: usedBy.get(p.id) ?? 0,
+    })),
     lines,
     today,
   );
@@ -67,7 +84,13 @@ export async function getRestockRun(deps: AppDeps, actor: Actor, depotId?: numbe
 }
 
 /** Applies a reviewed restock run as transfers from the depot: all of them, or none. */
-export async function applyRestockRun(trx: Knex.Transaction, deps: AppDeps, actor: Actor, input: RestockApplyInput, depotId?: number): Promise<string> {
+export async function applyRestockRun(
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  input: RestockApplyInput,
+  depotId?: number,
+): Promise<string> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
   const depot = await depotOf(trx, actor, depotId);
   const today = await firmToday(trx, actor.firmId, deps.clock.now());
@@ -77,19 +100,43 @@ export async function applyRestockRun(trx: Knex.Transaction, deps: AppDeps, acto
     if (!van || van.kind !== 'van') throw notFound('That van');
     const b = await findBatch(trx, actor.firmId, l.batchId, l.productId);
     if (!b) throw notFound('That batch');
-    if (b.expires_on < today) throw conflict(`Lot ${b.lot_number} has expired since the run was computed; compute it again.`);
+    if (b.expires_on < today)
+      throw conflict(`Lot ${b.lot_number} has expired since the run was computed; compute it again.`);
     lines.push(
-      { kind: 'transfer_out' as const, locationId: depot.id, productId: l.productId, batchId: l.batchId, quantityDelta: -l.quantity, reason: `Restock run to ${van.name}` },
-      { kind: 'transfer_in' as const, locationId: van.id, productId: l.productId, batchId: l.batchId, quantityDelta: l.quantity, reason: 'Restock run' },
+      {
+        kind: 'transfer_out' as const,
+        locationId: depot.id,
+        productId: l.productId,
+        batchId: l.batchId,
+        quantityDelta: -l.quantity,
+        reason: `Restock run to ${van.name}`,
+      },
+      {
+        kind: 'transfer_in' as const,
+        locationId: van.id,
+        productId: l.productId,
+        batchId: l.batchId,
+        quantityDelta: l.quantity,
+        reason: 'Restock run',
+      },
     );
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
 
 /** A reviewed restock run, applied at most once per Idempotency-Key and retried whole on deadlock. */
-export async function applyRestockRunOnce(deps: AppDeps, actor: Actor, idempotencyKey: IdempotencyKey | undefined, input: RestockApplyInput, depotId?: number): Promise<{ status: number; applied: RestockApplied }> {
+export async function applyRestockRunOnce(
+  deps: AppDeps,
+  actor: Actor,
+  idempotencyKey: IdempotencyKey | undefined,
+  input: RestockApplyInput,
+  depotId?: number,
+): Promise<{ status: number; applied: RestockApplied }> {
   const out = await withTransactionRetry(() =>
-    runIdempotent(deps, actor, idempotencyKey, 'restock-run', async (trx) => ({ status: 201, body: { groupId: await applyRestockRun(trx, deps, actor, input, depotId) } })),
+    runIdempotent(deps, actor, idempotencyKey, 'restock-run', async (trx) => ({
+      status: 201,
+      body: { groupId: await applyRestockRun(trx, deps, actor, input, depotId) },
+    })),
   );
   return { status: out.status, applied: out.body };
 }

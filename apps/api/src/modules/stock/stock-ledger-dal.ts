@@ -3,7 +3,8 @@ import type { Knex } from 'knex';
 type Db = Knex | Knex.Transaction;
 type Trx = Knex.Transaction;
 
-export type MovementKind = 'received' | 'transfer_out' | 'transfer_in' | 'used' | 'counted' | 'written_off' | 'reversal';
+export type MovementKind =
+  'received' | 'transfer_out' | 'transfer_in' | 'used' | 'counted' | 'written_off' | 'reversal';
 
 export interface MovementRow {
   id: number;
@@ -34,7 +35,13 @@ export interface NewMovementRow {
  * Lowers a balance by a negative delta only while it stays at or above zero (a conditional update),
  * so two requests racing for the last pack cannot both have it. Returns whether the balance changed.
  */
-export async function decreaseBalance(trx: Trx, firmId: number, locationId: number, batchId: number, quantityDelta: number): Promise<boolean> {
+export async function decreaseBalance(
+  trx: Trx,
+  firmId: number,
+  locationId: number,
+  batchId: number,
+  quantityDelta: number,
+): Promise<boolean> {
   const changed = await trx('stock_balances')
     .where({ firm_id: firmId, location_id: locationId, batch_id: batchId })
     .andWhereRaw('quantity + ? >= 0', [quantityDelta])
@@ -42,7 +49,14 @@ export async function decreaseBalance(trx: Trx, firmId: number, locationId: numb
   return changed === 1;
 }
 
-export async function increaseBalance(trx: Trx, firmId: number, locationId: number, batchId: number, productId: number, quantityDelta: number): Promise<void> {
+export async function increaseBalance(
+  trx: Trx,
+  firmId: number,
+  locationId: number,
+  batchId: number,
+  productId: number,
+  quantityDelta: number,
+): Promise<void> {
   await trx.raw(
     'INSERT INTO stock_balances (firm_id, location_id, batch_id, product_id, quantity) VALUES (?, ?, ?, ?, ?) ON DUPLICATE KEY UPDATE quantity = quantity + VALUES(quantity)',
     [firmId, locationId, batchId, productId, quantityDelta],
@@ -50,8 +64,16 @@ export async function increaseBalance(trx: Trx, firmId: number, locationId: numb
 }
 
 /** Packs of a batch at a place, or undefined with no balance row; forUpdate locks the row for a stocktake. */
-export async function findBalanceQuantity(db: Db, firmId: number, locationId: number, batchId: number, opts: { forUpdate?: boolean } = {}): Promise<number | undefined> {
-  const q = db('stock_balances').where({ firm_id: firmId, location_id: locationId, batch_id: batchId }).first('quantity');
+export async function findBalanceQuantity(
+  db: Db,
+  firmId: number,
+  locationId: number,
+  batchId: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<number | undefined> {
+  const q = db('stock_balances')
+    .where({ firm_id: firmId, location_id: locationId, batch_id: batchId })
+    .first('quantity');
   if (opts.forUpdate) q.forUpdate();
   const row = (await q) as { quantity: number } | undefined;
   return row?.quantity;
@@ -63,7 +85,8 @@ export async function describeStockAt(db: Db, firmId: number, batchId: number, l
     .join('products as p', 'p.id', 'b.product_id')
     .join('locations as l', (j) => j.on('l.firm_id', '=', 'b.firm_id'))
     .where({ 'b.firm_id': firmId, 'b.id': batchId, 'l.id': locationId })
-    .first('p.name as product', 'b.lot_number as lot', 'l.name as place')) as { product: string; lot: string; place: string } | undefined;
+    .first('p.name as product', 'b.lot_number as lot', 'l.name as place')) as
+    { product: string; lot: string; place: string } | undefined;
 }
 
 /** Balances at a place, with batch expiry, for allocation. */
@@ -74,7 +97,9 @@ export async function balancesAt(db: Db, firmId: number, locationId: number, pro
     .where('s.quantity', '>', 0)
     .select('s.batch_id', 's.product_id', 's.quantity', 'b.lot_number', 'b.expires_on');
   if (productId !== undefined) q.where('s.product_id', productId);
-  return q as Promise<{ batch_id: number; product_id: number; quantity: number; lot_number: string; expires_on: string }[]>;
+  return q as Promise<
+    { batch_id: number; product_id: number; quantity: number; lot_number: string; expires_on: string }[]
+  >;
 }
 
 export async function insertMovements(trx: Trx, firmId: number, rows: NewMovementRow[]): Promise<void> {
@@ -82,7 +107,9 @@ export async function insertMovements(trx: Trx, firmId: number, rows: NewMovemen
 }
 
 export async function listMovementIdsOfGroup(db: Db, firmId: number, groupId: string): Promise<number[]> {
-  const rows = (await db('stock_movements').where({ firm_id: firmId, group_id: groupId }).select('id')) as { id: number }[];
+  const rows = (await db('stock_movements').where({ firm_id: firmId, group_id: groupId }).select('id')) as {
+    id: number;
+  }[];
   return rows.map((m) => Number(m.id));
 }
 
@@ -96,7 +123,9 @@ export async function listGroupMovementsForUpdate(trx: Trx, firmId: number, grou
 
 /** Whether any of these movements has been reversed already. */
 export async function anyReversed(db: Db, firmId: number, movementIds: number[]): Promise<boolean> {
-  return Boolean(await db('stock_movements').where('firm_id', firmId).whereIn('reverses_movement_id', movementIds).first('id'));
+  return Boolean(
+    await db('stock_movements').where('firm_id', firmId).whereIn('reverses_movement_id', movementIds).first('id'),
+  );
 }
 
 /** Packs used per product since an instant (the ledger's 'used' rows are negative; this is their sum). */

@@ -1,7 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { HttpError } from '../../lib/http-error.ts';
-import { decreaseBalance, describeStockAt, findBalanceQuantity, increaseBalance, insertMovements, type MovementKind } from './stock-ledger-dal.ts';
+import {
+  decreaseBalance,
+  describeStockAt,
+  findBalanceQuantity,
+  increaseBalance,
+  insertMovements,
+  type MovementKind,
+} from './stock-ledger-dal.ts';
 
 export type { MovementKind } from './stock-ledger-dal.ts';
 // Jobs and reminders read balances through here; the query itself lives in the data-access file.
@@ -32,16 +39,26 @@ async function describe(trx: Knex.Transaction, firmId: number, line: MovementLin
  * with what is on hand. Lines are applied in (place, batch) order so concurrent multi-line
  * movements take their row locks in the same order.
  */
-export async function applyMovements(trx: Knex.Transaction, firmId: number, userId: number, lines: MovementLine[], now: Date, groupId = randomUUID()): Promise<string> {
+export async function applyMovements(
+  trx: Knex.Transaction,
+  firmId: number,
+  userId: number,
+  lines: MovementLine[],
+  now: Date,
+  groupId = randomUUID(),
+): Promise<string> {
   const ordered = [...lines].sort((a, b) => a.locationId - b.locationId || a.batchId - b.batchId);
   for (const line of ordered) {
     if (line.quantityDelta === 0) continue;
     if (line.quantityDelta < 0) {
       if (!(await decreaseBalance(trx, firmId, line.locationId, line.batchId, line.quantityDelta))) {
         const onHand = (await findBalanceQuantity(trx, firmId, line.locationId, line.batchId)) ?? 0;
-        throw new HttpError(409, `Only ${onHand} pack${onHand === 1 ? '' : 's'} of ${await describe(trx, firmId, line)} on hand; ${-line.quantityDelta} asked for. Nothing was moved.`, 'NotEnoughStock', [
-          { path: `batch:${line.batchId}`, message: `${onHand} on hand` },
-        ]);
+        throw new HttpError(
+          409,
+          `Only ${onHand} pack${onHand === 1 ? '' : 's'} of ${await describe(trx, firmId, line)} on hand; ${-line.quantityDelta} asked for. Nothing was moved.`,
+          'NotEnoughStock',
+          [{ path: `batch:${line.batchId}`, message: `${onHand} on hand` }],
+        );
       }
     } else {
       await increaseBalance(trx, firmId, line.locationId, line.batchId, line.productId, line.quantityDelta);

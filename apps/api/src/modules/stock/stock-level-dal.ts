@@ -24,9 +24,10 @@ export async function listParLevelRows(db: Db, firmId: number, locationId?: numb
 
 /** Sets a product's minimum and target at a place, adding the row the first time. */
 export async function upsertParLevel(db: Db, firmId: number, par: ParLevelInput): Promise<void> {
-  await db.raw('INSERT INTO par_levels (firm_id, location_id, product_id, minimum, target) VALUES (?, ?, ?, ?, ?) ON DUPLICATE KEY UPDATE minimum = VALUES(minimum), target = VALUES(target)', [
-    firmId, par.locationId, par.productId, par.minimum, par.target,
-  ]);
+  await db.raw(
+    'INSERT INTO par_levels (firm_id, location_id, product_id, minimum, target) VALUES (?, ?, ?, ?, ?) ON DUPLICATE KEY UPDATE minimum = VALUES(minimum), target = VALUES(target)',
+    [firmId, par.locationId, par.productId, par.minimum, par.target],
+  );
 }
 
 export async function locationExists(db: Db, firmId: number, id: number): Promise<boolean> {
@@ -35,13 +36,21 @@ export async function locationExists(db: Db, firmId: number, id: number): Promis
 
 /** Active depots and vans for the stock grid: depots first, then by name. */
 export async function listActivePlaces(db: Db, firmId: number) {
-  return (await db('locations').where({ firm_id: firmId, active: true }).orderBy([{ column: 'kind' }, { column: 'name' }]).select('id', 'kind', 'name', 'registration')) as {
-    id: number; kind: 'depot' | 'van'; name: string; registration: string | null;
+  return (await db('locations')
+    .where({ firm_id: firmId, active: true })
+    .orderBy([{ column: 'kind' }, { column: 'name' }])
+    .select('id', 'kind', 'name', 'registration')) as {
+    id: number;
+    kind: 'depot' | 'van';
+    name: string;
+    registration: string | null;
   }[];
 }
 
 export async function listActiveVanRefs(db: Db, firmId: number) {
-  return (await db('locations').where({ firm_id: firmId, kind: 'van', active: true }).select('id', 'name', 'registration')) as { id: number; name: string; registration: string | null }[];
+  return (await db('locations')
+    .where({ firm_id: firmId, kind: 'van', active: true })
+    .select('id', 'name', 'registration')) as { id: number; name: string; registration: string | null }[];
 }
 
 /** Packs held by batch (lot and expiry), with place and product names, by place, product and expiry. */
@@ -53,8 +62,28 @@ export async function listHeldBatchRows(db: Db, firmId: number, where: { locatio
     .where('s.firm_id', firmId)
     .where('s.quantity', '>', 0)
     .orderBy([{ column: 'l.name' }, { column: 'p.name' }, { column: 'b.expires_on' }])
-    .select('s.location_id', 'l.name as location_name', 's.product_id', 'p.name as product_name', 's.batch_id', 'b.lot_number', 'b.expires_on', 's.quantity');
+    .select(
+      's.location_id',
+      'l.name as location_name',
+      's.product_id',
+      'p.name as product_name',
+      's.batch_id',
+      'b.lot_number',
+      'b.expires_on',
+      's.quantity',
+    );
   if (where.locationId) q.where('s.location_id', where.locationId);
   if (where.productId) q.where('s.product_id', where.productId);
-  return q as Promise<{ location_id: number; location_name: string; product_id: number; product_name: string; batch_id: number; lot_number: string; expires_on: string; quantity: number }[]>;
+  return q as Promise<
+    {
+      location_id: number;
+      location_name: string;
+      product_id: number;
+      product_name: string;
+      batch_id: number;
+      lot_number: string;
+      expires_on: string;
+      quantity: number;
+    }[]
+  >;
 }

@@ -10,13 +10,25 @@ export type LedgerFilters = Omit<LedgerQuery, 'limit' | 'before'>;
  * them in id order), then joined to their names. Joined in one query, MariaDB started from the small
  * tables and sorted the firm's whole ledger for every page (140 s a page at a million movements).
  */
-function ledgerRows(db: Db, firmId: number, query: LedgerFilters, page: { limit: number; before?: number | undefined; ids?: number[] }) {
+function ledgerRows(
+  db: Db,
+  firmId: number,
+  query: LedgerFilters,
+  page: { limit: number; before?: number | undefined; ids?: number[] },
+) {
   // Named, because left to itself MariaDB 10.11 walks the primary key (or the firm's whole index
   // entry) from the top and filters: 0.3 s for a first page and 5 s for a deep one at a million rows.
-  const index = query.locationId ? 'stock_movements_firm_id_location_id_id_index' : query.productId ? 'stock_movements_firm_id_product_id_id_index' : 'stock_movements_firm_id_id_index';
+  const index = query.locationId
+    ? 'stock_movements_firm_id_location_id_id_index'
+    : query.productId
+      ? 'stock_movements_firm_id_product_id_id_index'
+      : 'stock_movements_firm_id_id_index';
   const picked = db
     .from(db.raw('?? FORCE INDEX (??)', ['stock_movements', index]))
-    .where('firm_id', firmId).orderBy('id', 'desc').limit(page.limit).select('*');
+    .where('firm_id', firmId)
+    .orderBy('id', 'desc')
+    .limit(page.limit)
+    .select('*');
   if (query.locationId) picked.where('location_id', query.locationId);
   if (query.productId) picked.where('product_id', query.productId);
   if (query.kind) picked.where('kind', query.kind);
@@ -32,7 +44,14 @@ function ledgerRows(db: Db, firmId: number, query: LedgerFilters, page: { limit:
     .join('product_batches as b', (j) => j.on('b.id', '=', 'm.batch_id').andOn('b.firm_id', '=', 'm.firm_id'))
     .join('users as u', 'u.id', 'm.by_user_id')
     .orderBy('m.id', 'desc')
-    .select('m.*', 'l.name as location_name', 'p.name as product_name', 'b.lot_number', 'b.expires_on', 'u.name as by_name');
+    .select(
+      'm.*',
+      'l.name as location_name',
+      'p.name as product_name',
+      'b.lot_number',
+      'b.expires_on',
+      'u.name as by_name',
+    );
 }
 
 function toMovement(r: Record<string, unknown>): Movement {
@@ -53,7 +72,12 @@ function toMovement(r: Record<string, unknown>): Movement {
 }
 
 /** Up to `limit` movements matching the filters, newest first; `before` is the keyset cursor. */
-export async function listLedgerMovements(db: Db, firmId: number, query: LedgerFilters, page: { limit: number; before?: number | undefined }): Promise<Movement[]> {
+export async function listLedgerMovements(
+  db: Db,
+  firmId: number,
+  query: LedgerFilters,
+  page: { limit: number; before?: number | undefined },
+): Promise<Movement[]> {
   return ((await ledgerRows(db, firmId, query, page)) as Record<string, unknown>[]).map(toMovement);
 }
 

@@ -18,20 +18,52 @@ import { defineRoute, type RouteDefinition } from '../../routes/route-registry.t
 import { sendCsv } from './stock-csv.ts';
 import { recordMovement } from './stock-movement-service.ts';
 import { exportLedgerCsv, ledgerPage } from './stock-query-service.ts';
-import { receiveDelivery, recordStocktake, reverseMovement, transferStock, useStock, writeOff } from './stock-service.ts';
+import {
+  receiveDelivery,
+  recordStocktake,
+  reverseMovement,
+  transferStock,
+  useStock,
+  writeOff,
+} from './stock-service.ts';
 
-type MovementWork<I> = (trx: Knex.Transaction, deps: AppDeps, actor: Actor, input: I, params: { id?: number }) => Promise<string>;
+type MovementWork<I> = (
+  trx: Knex.Transaction,
+  deps: AppDeps,
+  actor: Actor,
+  input: I,
+  params: { id?: number },
+) => Promise<string>;
 
 /** A stock-changing route: idempotent by header, retried on deadlock, answering with the movements written. */
-function movementRoute<B extends z.ZodType>(path: string, body: B, summary: string, work: MovementWork<z.infer<B>>, params?: z.ZodType) {
+function movementRoute<B extends z.ZodType>(
+  path: string,
+  body: B,
+  summary: string,
+  work: MovementWork<z.infer<B>>,
+  params?: z.ZodType,
+) {
   return defineRoute({
-    method: 'post', path, tag: 'Stock', access: 'member', tenantData: true,
+    method: 'post',
+    path,
+    tag: 'Stock',
+    access: 'member',
+    tenantData: true,
     summary: `${summary} Send an Idempotency-Key header: a retry with the same key moves nothing twice.`,
     request: { body, ...(params && { params }) },
-    responses: { 201: { description: 'Moved', schema: stockMovedSchema }, 409: { description: 'Not enough usable stock, or an expired batch' } },
+    responses: {
+      201: { description: 'Moved', schema: stockMovedSchema },
+      409: { description: 'Not enough usable stock, or an expired batch' },
+    },
     handle: async ({ body: input, params: p, req, res, deps, actor }) => {
       const given = (p ?? {}) as { id?: number };
-      const { status, moved } = await recordMovement(deps, actor, idempotencyKeyOf(req), `${path} ${JSON.stringify(p ?? {})}`, (trx) => work(trx, deps, actor, input as z.infer<B>, given));
+      const { status, moved } = await recordMovement(
+        deps,
+        actor,
+        idempotencyKeyOf(req),
+        `${path} ${JSON.stringify(p ?? {})}`,
+        (trx) => work(trx, deps, actor, input as z.infer<B>, given),
+      );
       res.status(status).json(moved);
     },
   });
@@ -41,25 +73,56 @@ const ledgerExportQuery = ledgerQuerySchema.omit({ before: true, limit: true });
 
 export const stockMovementRoutes: RouteDefinition[] = [
   defineRoute({
-    method: 'get', path: '/stock/movements', tag: 'Stock', access: 'member', tenantData: true,
-    summary: 'The ledger, newest first, a page at a time (keyset: pass nextCursor as before)', request: { query: ledgerQuerySchema },
+    method: 'get',
+    path: '/stock/movements',
+    tag: 'Stock',
+    access: 'member',
+    tenantData: true,
+    summary: 'The ledger, newest first, a page at a time (keyset: pass nextCursor as before)',
+    request: { query: ledgerQuerySchema },
     responses: { 200: { description: 'Page', schema: ledgerPageSchema } },
     handle: async ({ query, res, deps, actor }) => {
       res.json(await ledgerPage(deps, actor, query));
     },
   }),
   defineRoute({
-    method: 'get', path: '/stock/movements.csv', tag: 'Stock', access: 'member', tenantData: true,
-    summary: 'The ledger (same filters) as CSV, up to 100000 rows', request: { query: ledgerExportQuery },
+    method: 'get',
+    path: '/stock/movements.csv',
+    tag: 'Stock',
+    access: 'member',
+    tenantData: true,
+    summary: 'The ledger (same filters) as CSV, up to 100000 rows',
+    request: { query: ledgerExportQuery },
     responses: { 200: { description: 'CSV' } },
     handle: async ({ query, res, deps, actor }) => {
       sendCsv(res, 'stock-ledger.csv', await exportLedgerCsv(deps, actor, query));
     },
   }),
-  movementRoute('/stock/receipts', receiptInputSchema, 'Receive a delivery at a depot (lines with lot and expiry).', receiveDelivery),
-  movementRoute('/stock/transfers', transferInputSchema, 'Move stock between places (depot to van, van to van, van to depot).', transferStock),
+  movementRoute(
+    '/stock/receipts',
+    receiptInputSchema,
+    'Receive a delivery at a depot (lines with lot and expiry).',
+    receiveDelivery,
+  ),
+  movementRoute(
+    '/stock/transfers',
+    transferInputSchema,
+    'Move stock between places (depot to van, van to van, van to depot).',
+    transferStock,
+  ),
   movementRoute('/stock/usages', usageInputSchema, 'Record stock used by hand, with a reason.', useStock),
-  movementRoute('/stock/stocktakes', stocktakeInputSchema, 'Record a stocktake: each difference becomes an adjustment.', recordStocktake),
+  movementRoute(
+    '/stock/stocktakes',
+    stocktakeInputSchema,
+    'Record a stocktake: each difference becomes an adjustment.',
+    recordStocktake,
+  ),
   movementRoute('/stock/write-offs', writeOffInputSchema, 'Write off expired, damaged or spilled stock.', writeOff),
-  movementRoute('/stock/movements/:id/reverse', reversalInputSchema, 'Reverse a movement (a transfer as a whole) by one pointing at it.', (trx, deps, actor, input, params) => reverseMovement(trx, deps, actor, params.id!, input.reason), idParamSchema),
+  movementRoute(
+    '/stock/movements/:id/reverse',
+    reversalInputSchema,
+    'Reverse a movement (a transfer as a whole) by one pointing at it.',
+    (trx, deps, actor, input, params) => reverseMovement(trx, deps, actor, params.id!, input.reason),
+    idParamSchema,
+  ),
 ];

@@ -24,5 +24,11 @@ export async function recordMovement(
       return { status: 201, body: { groupId, movementIds: await listMovementIdsOfGroup(trx, actor.firmId, groupId) } };
     }),
   );
-  return { status: out.status, moved: { groupId: out.body.groupId, movements: await listMovementsByIds(deps.db, actor.firmId, out.body.movementIds) } };
+  return {
+    status: out.status,
+    moved: {
+      groupId: out.body.groupId,
+      movements: await listMovementsByIds(deps.db, actor.firmId, out.body.movementIds),
+    },
+  };
 }

@@ -1,5 +1,14 @@
 import { ForbiddenError } from '@casl/ability';
-import { stockHealthOf, type BatchStockRow, type LedgerPage, type LedgerQuery, type Movement, type MyVanStock, type StockCell, type StockGrid } from '@heatfleet/domain';
+import {
+  stockHealthOf,
+  type BatchStockRow,
+  type LedgerPage,
+  type LedgerQuery,
+  type Movement,
+  type MyVanStock,
+  type StockCell,
+  type StockGrid,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
@@ -16,7 +25,12 @@ type Db = Knex | Knex.Transaction;
  * Read as plain rows and added up here: joined and grouped in SQL, MariaDB drove the join from the
  * batches by the firm's index and grouped in a temporary table (1 s for 200 vans x 100 products).
  */
-export async function stockLevels(db: Db, firmId: number, today: string, where: { locationId?: number } = {}): Promise<StockCell[]> {
+export async function stockLevels(
+  db: Db,
+  firmId: number,
+  today: string,
+  where: { locationId?: number } = {},
+): Promise<StockCell[]> {
   const [balanceRows, batchRows, parRows] = await Promise.all([
     listBalanceRows(db, firmId, where.locationId),
     listBatchExpiries(db, firmId),
@@ -37,9 +51,22 @@ export async function stockLevels(db: Db, firmId: number, today: string, where: 
   const levels = [...sums.values()].sort((x, y) => x.location_id - y.location_id || x.product_id - y.product_id);
   const key = (l: number, p: number) => `${l}:${p}`;
   const cells = new Map<string, Omit<StockCell, 'health'>>();
-  for (const l of levels) cells.set(key(l.location_id, l.product_id), { locationId: l.location_id, productId: l.product_id, usable: Number(l.usable), expired: Number(l.expired), par: null });
+  for (const l of levels)
+    cells.set(key(l.location_id, l.product_id), {
+      locationId: l.location_id,
+      productId: l.product_id,
+      usable: Number(l.usable),
+      expired: Number(l.expired),
+      par: null,
+    });
   for (const p of parRows) {
-    const c = cells.get(key(p.location_id, p.product_id)) ?? { locationId: p.location_id, productId: p.product_id, usable: 0, expired: 0, par: null };
+    const c = cells.get(key(p.location_id, p.product_id)) ?? {
+      locationId: p.location_id,
+      productId: p.product_id,
+      usable: 0,
+      expired: 0,
+      par: null,
+    };
     c.par = { minimum: p.minimum, target: p.target };
     cells.set(key(p.location_id, p.product_id), c);
   }
@@ -57,7 +84,11 @@ export async function stockGrid(deps: AppDeps, actor: Actor): Promise<StockGrid>
   return { today, products, locations, cells };
 }
 
-export async function batchesAt(deps: AppDeps, actor: Actor, where: { locationId?: number | undefined; productId?: number | undefined }): Promise<BatchStockRow[]> {
+export async function batchesAt(
+  deps: AppDeps,
+  actor: Actor,
+  where: { locationId?: number | undefined; productId?: number | undefined },
+): Promise<BatchStockRow[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   const today = await firmToday(deps.db, actor.firmId, deps.clock.now());
   const rows = await listHeldBatchRows(deps.db, actor.firmId, where);
@@ -73,7 +104,10 @@ export async function batchesAt(deps: AppDeps, actor: Actor, where: { locationId
 /** A page of the ledger, newest first, by keyset (id below the cursor): as quick deep in as at the top. */
 export async function ledgerPage(deps: AppDeps, actor: Actor, query: LedgerQuery): Promise<LedgerPage> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
-  const rows = await listLedgerMovements(deps.db, actor.firmId, query, { limit: query.limit + 1, before: query.before });
+  const rows = await listLedgerMovements(deps.db, actor.firmId, query, {
+    limit: query.limit + 1,
+    before: query.before,
+  });
   const page = rows.slice(0, query.limit);
   return { movements: page, nextCursor: rows.length > query.limit ? page[page.length - 1]!.id : null };
 }
@@ -96,7 +130,11 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
     listProductNames(deps.db, actor.firmId),
   ]);
   const names = new Map(products.map((p) => [p.id, p.name]));
-  return { van: { id: van.id, name: van.name, registration: van.registration }, stock: levels.map((l) => ({ ...l, productName: names.get(l.productId) ?? '' })), batches };
+  return {
+    van: { id: van.id, name: van.name, registration: van.registration },
+    stock: levels.map((l) => ({ ...l, productName: names.get(l.productId) ?? '' })),
+    batches,
+  };
 }
 
 /** The ledger with the same filters, as CSV, up to LEDGER_CSV_MAX_ROWS rows. */

@@ -14,14 +14,21 @@ import { conflict, HttpError, notAllowed, notFound, ruleBroken } from '../../lib
 import { findLocation, type LocationRow } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { findBatch, findBatchByLot, findProductRef, insertBatch, type BatchRow } from './product-dal.ts';
-import { anyReversed, balancesAt, findBalanceQuantity, findMovementForUpdate, listGroupMovementsForUpdate } from './stock-ledger-dal.ts';
+import {
+  anyReversed,
+  balancesAt,
+  findBalanceQuantity,
+  findMovementForUpdate,
+  listGroupMovementsForUpdate,
+} from './stock-ledger-dal.ts';
 import { applyMovements, type MovementLine } from './stock-ledger.ts';
 
 type Trx = Knex.Transaction;
 
 async function place(trx: Trx, actor: Actor, id: number, what: 'depot' | 'any' = 'any'): Promise<LocationRow> {
   const loc = await findLocation(trx, actor.firmId, id);
-  if (!loc || !loc.active || (what === 'depot' && loc.kind !== 'depot')) throw notFound(what === 'depot' ? 'That depot' : 'That place');
+  if (!loc || !loc.active || (what === 'depot' && loc.kind !== 'depot'))
+    throw notFound(what === 'depot' ? 'That depot' : 'That place');
   return loc;
 }
 
@@ -39,7 +46,11 @@ async function batch(trx: Trx, actor: Actor, id: number): Promise<BatchRow> {
 
 function refuseExpired(b: { lot_number: string; expires_on: string }, today: string, doing: string) {
   if (isExpired({ expiresOn: b.expires_on }, today)) {
-    throw new HttpError(409, `Lot ${b.lot_number} expired on ${b.expires_on}: it cannot be ${doing}, only written off.`, 'BatchExpired');
+    throw new HttpError(
+      409,
+      `Lot ${b.lot_number} expired on ${b.expires_on}: it cannot be ${doing}, only written off.`,
+      'BatchExpired',
+    );
   }
 }
 
@@ -52,10 +63,20 @@ export async function receiveDelivery(trx: Trx, deps: AppDeps, actor: Actor, inp
     await product(trx, actor, line.productId);
     const existing = await findBatchByLot(trx, actor.firmId, line.productId, line.lotNumber);
     if (existing && existing.expires_on !== line.expiresOn) {
-      throw ruleBroken(`Lot ${line.lotNumber} is already recorded with expiry ${existing.expires_on}, not ${line.expiresOn}.`, [{ path: 'expiresOn', message: `Lot ${line.lotNumber} expires ${existing.expires_on}` }]);
+      throw ruleBroken(
+        `Lot ${line.lotNumber} is already recorded with expiry ${existing.expires_on}, not ${line.expiresOn}.`,
+        [{ path: 'expiresOn', message: `Lot ${line.lotNumber} expires ${existing.expires_on}` }],
+      );
     }
     const batchId = existing?.id ?? (await insertBatch(trx, actor.firmId, line));
-    lines.push({ kind: 'received', locationId: depot.id, productId: line.productId, batchId, quantityDelta: line.quantity, reference: input.reference ?? null });
+    lines.push({
+      kind: 'received',
+      locationId: depot.id,
+      productId: line.productId,
+      batchId,
+      quantityDelta: line.quantity,
+      reference: input.reference ?? null,
+    });
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
@@ -75,17 +96,38 @@ export async function transferStock(trx: Trx, deps: AppDeps, actor: Actor, input
       refuseExpired(b, today, 'transferred');
       picks = [{ batchId: b.id, quantity: line.quantity }];
     } else {
-      const stock = (await balancesAt(trx, actor.firmId, from.id, p.id)).map((s) => ({ batchId: s.batch_id, lotNumber: s.lot_number, expiresOn: s.expires_on, quantity: s.quantity }));
+      const stock = (await balancesAt(trx, actor.firmId, from.id, p.id)).map((s) => ({
+        batchId: s.batch_id,
+        lotNumber: s.lot_number,
+        expiresOn: s.expires_on,
+        quantity: s.quantity,
+      }));
       const plan = allocateFefo(stock, line.quantity, today);
       if (plan.shortfall > 0) {
         const usable = line.quantity - plan.shortfall;
-        throw conflict(`Only ${usable} usable pack${usable === 1 ? '' : 's'} of ${p.name} at ${from.name}; ${line.quantity} asked for. Nothing was moved.`);
+        throw conflict(
+          `Only ${usable} usable pack${usable === 1 ? '' : 's'} of ${p.name} at ${from.name}; ${line.quantity} asked for. Nothing was moved.`,
+        );
       }
       picks = plan.allocations;
     }
     for (const pick of picks) {
-      lines.push({ kind: 'transfer_out', locationId: from.id, productId: p.id, batchId: pick.batchId, quantityDelta: -pick.quantity, reason: input.note ?? null });
-      lines.push({ kind: 'transfer_in', locationId: to.id, productId: p.id, batchId: pick.batchId, quantityDelta: pick.quantity, reason: input.note ?? null });
+      lines.push({
+        kind: 'transfer_out',
+        locationId: from.id,
+        productId: p.id,
+        batchId: pick.batchId,
+        quantityDelta: -pick.quantity,
+        reason: input.note ?? null,
+      });
+      lines.push({
+        kind: 'transfer_in',
+        locationId: to.id,
+        productId: p.id,
+        batchId: pick.batchId,
+        quantityDelta: pick.quantity,
+        reason: input.note ?? null,
+      });
     }
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
@@ -94,7 +136,12 @@ export async function transferStock(trx: Trx, deps: AppDeps, actor: Actor, input
 /** Stock used by hand (not on a job), first expiry first unless a batch is named. */
 export async function useStock(trx: Trx, deps: AppDeps, actor: Actor, input: UsageInput): Promise<string> {
   const loc = await place(trx, actor, input.locationId);
-  if (actor.ability.cannot('create', subject('StockUse', { firmId: actor.firmId, kind: loc.kind, engineerMemberId: loc.engineer_member_id }))) {
+  if (
+    actor.ability.cannot(
+      'create',
+      subject('StockUse', { firmId: actor.firmId, kind: loc.kind, engineerMemberId: loc.engineer_member_id }),
+    )
+  ) {
     throw notAllowed('You can record stock used from your own van only.');
   }
   const p = await product(trx, actor, input.productId);
@@ -106,11 +153,18 @@ export async function useStock(trx: Trx, deps: AppDeps, actor: Actor, input: Usa
     refuseExpired(b, today, 'used');
     picks = [{ batchId: b.id, quantity: input.quantity }];
   } else {
-    const stock = (await balancesAt(trx, actor.firmId, loc.id, p.id)).map((s) => ({ batchId: s.batch_id, lotNumber: s.lot_number, expiresOn: s.expires_on, quantity: s.quantity }));
+    const stock = (await balancesAt(trx, actor.firmId, loc.id, p.id)).map((s) => ({
+      batchId: s.batch_id,
+      lotNumber: s.lot_number,
+      expiresOn: s.expires_on,
+      quantity: s.quantity,
+    }));
     const plan = allocateFefo(stock, input.quantity, today);
     if (plan.shortfall > 0) {
       const usable = input.quantity - plan.shortfall;
-      throw conflict(`Only ${usable} usable pack${usable === 1 ? '' : 's'} of ${p.name} at ${loc.name}; ${input.quantity} asked for. Nothing was used.`);
+      throw conflict(
+        `Only ${usable} usable pack${usable === 1 ? '' : 's'} of ${p.name} at ${loc.name}; ${input.quantity} asked for. Nothing was used.`,
+      );
     }
     // Read without a lock: if another request takes the same packs first, the conditional update refuses.
     picks = plan.allocations;
@@ -119,7 +173,14 @@ export async function useStock(trx: Trx, deps: AppDeps, actor: Actor, input: Usa
     trx,
     actor.firmId,
     actor.userId,
-    picks.map((pick) => ({ kind: 'used' as const, locationId: loc.id, productId: p.id, batchId: pick.batchId, quantityDelta: -pick.quantity, reason: input.reason })),
+    picks.map((pick) => ({
+      kind: 'used' as const,
+      locationId: loc.id,
+      productId: p.id,
+      batchId: pick.batchId,
+      quantityDelta: -pick.quantity,
+      reason: input.reason,
+    })),
     deps.clock.now(),
   );
 }
@@ -133,7 +194,15 @@ export async function recordStocktake(trx: Trx, deps: AppDeps, actor: Actor, inp
     const b = await batch(trx, actor, count.batchId);
     const onHand = await findBalanceQuantity(trx, actor.firmId, loc.id, b.id, { forUpdate: true });
     const diff = count.counted - (onHand ?? 0);
-    if (diff !== 0) lines.push({ kind: 'counted', locationId: loc.id, productId: b.product_id, batchId: b.id, quantityDelta: diff, reason: input.note ?? 'Stocktake' });
+    if (diff !== 0)
+      lines.push({
+        kind: 'counted',
+        locationId: loc.id,
+        productId: b.product_id,
+        batchId: b.id,
+        quantityDelta: diff,
+        reason: input.note ?? 'Stocktake',
+      });
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
@@ -146,25 +215,58 @@ export async function writeOff(trx: Trx, deps: AppDeps, actor: Actor, input: Wri
     trx,
     actor.firmId,
     actor.userId,
-    [{ kind: 'written_off', locationId: loc.id, productId: b.product_id, batchId: b.id, quantityDelta: -input.quantity, reason: [input.reason, input.note].filter(Boolean).join(': ') }],
+    [
+      {
+        kind: 'written_off',
+        locationId: loc.id,
+        productId: b.product_id,
+        batchId: b.id,
+        quantityDelta: -input.quantity,
+        reason: [input.reason, input.note].filter(Boolean).join(': '),
+      },
+    ],
     deps.clock.now(),
   );
 }
 
 /** Undoes a movement by a new one of the opposite sign that points at it; each may be reversed once. */
-export async function reverseMovement(trx: Trx, deps: AppDeps, actor: Actor, movementId: number, reason: string): Promise<string> {
+export async function reverseMovement(
+  trx: Trx,
+  deps: AppDeps,
+  actor: Actor,
+  movementId: number,
+  reason: string,
+): Promise<string> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
   const m = await findMovementForUpdate(trx, actor.firmId, movementId);
   if (!m) throw notFound('That movement');
   if (m.kind === 'reversal') throw ruleBroken('A reversal cannot itself be reversed; record a new movement instead.');
   // A transfer is undone as a whole: both its legs.
-  const legs = m.kind === 'transfer_out' || m.kind === 'transfer_in' ? await listGroupMovementsForUpdate(trx, actor.firmId, m.group_id) : [m];
-  if (await anyReversed(trx, actor.firmId, legs.map((l) => l.id))) throw conflict('That movement has already been reversed.');
+  const legs =
+    m.kind === 'transfer_out' || m.kind === 'transfer_in'
+      ? await listGroupMovementsForUpdate(trx, actor.firmId, m.group_id)
+      : [m];
+  if (
+    await anyReversed(
+      trx,
+      actor.firmId,
+      legs.map((l) => l.id),
+    )
+  )
+    throw conflict('That movement has already been reversed.');
   return applyMovements(
     trx,
     actor.firmId,
     actor.userId,
-    legs.map((l) => ({ kind: 'reversal' as const, locationId: l.location_id, productId: l.product_id, batchId: l.batch_id, quantityDelta: -l.quantity_delta, reason, reversesMovementId: l.id })),
+    legs.map((l) => ({
+      kind: 'reversal' as const,
+      locationId: l.location_id,
+      productId: l.product_id,
+      batchId: l.batch_id,
+      quantityDelta: -l.quantity_delta,
+      reason,
+      reversesMovementId: l.id,
+    })),
     deps.clock.now(),
   );
 }

@@ -41,7 +41,9 @@ function SignOutButton() {
     <button
       type="button"
       disabled={signOut.isPending}
-      onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) })}
+      onClick={() =>
+        signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) })
+      }
       className="min-h-11 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
     >
       Sign out
@@ -74,7 +76,11 @@ function SignedInHeader({ me }: { me: Me }) {
     <header className="bg-brand-900 text-white print:hidden">
       <div className="mx-auto max-w-5xl px-4">
         <div className="flex items-center justify-between gap-3 pt-2">
-          <Link to={paths.home.getHref()} className="inline-flex min-h-11 shrink-0 items-center rounded-md" aria-label="Heatfleet home">
+          <Link
+            to={paths.home.getHref()}
+            className="inline-flex min-h-11 shrink-0 items-center rounded-md"
+            aria-label="Heatfleet home"
+          >
             <Wordmark />
           </Link>
           <div className="flex min-w-0 items-center gap-2">
@@ -161,7 +167,11 @@ export function OutboxLayout() {
       <SkipLink />
       <header className="bg-brand-900 text-white">
         <div className="mx-auto flex max-w-5xl items-center justify-between gap-3 px-4 py-2">
-          <Link to={paths.home.getHref()} className="inline-flex min-h-11 items-center rounded-md" aria-label="Heatfleet home">
+          <Link
+            to={paths.home.getHref()}
+            className="inline-flex min-h-11 items-center rounded-md"
+            aria-label="Heatfleet home"
+          >
             <Wordmark />
           </Link>
           <Link

@@ -3,7 +3,9 @@ import { Button } from '@/components/ui/button';
 import { NotFoundPage } from '@/app/routes/not-found-page';
 
 function isStaleChunk(error: unknown): boolean {
-  return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
+  return (
+    error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message)
+  );
 }
 
 export function RouteErrorPage() {

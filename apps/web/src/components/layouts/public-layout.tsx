@@ -14,7 +14,11 @@ export function PublicLayout({ title, intro, children, footer }: PublicLayoutPro
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="bg-brand-900 px-4 py-3">
-        <Link to={paths.home.getHref()} className="inline-flex min-h-11 items-center rounded-md" aria-label="Heatfleet home">
+        <Link
+          to={paths.home.getHref()}
+          className="inline-flex min-h-11 items-center rounded-md"
+          aria-label="Heatfleet home"
+        >
           <Wordmark />
         </Link>
       </header>

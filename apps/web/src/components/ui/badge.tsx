@@ -11,6 +11,8 @@ const tones: Record<BadgeTone, string> = {
 
 export function Badge({ tone, children }: { tone: BadgeTone; children: ReactNode }) {
   return (
-    <span className={`inline-block rounded-full px-2 py-0.5 text-sm font-semibold whitespace-nowrap ${tones[tone]}`}>{children}</span>
+    <span className={`inline-block rounded-full px-2 py-0.5 text-sm font-semibold whitespace-nowrap ${tones[tone]}`}>
+      {children}
+    </span>
   );
 }

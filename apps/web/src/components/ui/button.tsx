@@ -22,7 +22,15 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   busy?: boolean;
 }
 
-export function Button({ variant = 'primary', busy = false, className = '', type = 'button', disabled, children, ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  busy = false,
+  className = '',
+  type = 'button',
+  disabled,
+  children,
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type={type}
@@ -31,7 +39,12 @@ export function Button({ variant = 'primary', busy = false, className = '', type
       aria-busy={busy || undefined}
       {...rest}
     >
-      {busy ? <span aria-hidden="true" className="size-4 animate-spin rounded-full border-2 border-current border-t-transparent" /> : null}
+      {busy ? (
+        <span
+          aria-hidden="true"
+          className="size-4 animate-spin rounded-full border-2 border-current border-t-transparent"
+        />
+      ) : null}
       {children}
     </button>
   );

@@ -1,6 +1,11 @@
 import type { ReactNode } from 'react';
 
-export function Card({ title, description, children, headingLevel = 2 }: {
+export function Card({
+  title,
+  description,
+  children,
+  headingLevel = 2,
+}: {
   title?: string;
   description?: ReactNode;
   children: ReactNode;

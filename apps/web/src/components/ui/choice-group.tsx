@@ -13,10 +13,23 @@ interface ChoiceGroupProps {
 }
 
 /** Radio buttons as large tiles: easy to hit with a gloved thumb, clear which one is chosen. */
-export function ChoiceGroup({ legend, name, options, defaultValue, value, onChange, error, columns = 3 }: ChoiceGroupProps) {
+export function ChoiceGroup({
+  legend,
+  name,
+  options,
+  defaultValue,
+  value,
+  onChange,
+  error,
+  columns = 3,
+}: ChoiceGroupProps) {
   const id = useId();
   return (
-    <fieldset aria-describedby={error ? `${id}-error` : undefined} aria-invalid={error ? true : undefined} tabIndex={error ? -1 : undefined}>
+    <fieldset
+      aria-describedby={error ? `${id}-error` : undefined}
+      aria-invalid={error ? true : undefined}
+      tabIndex={error ? -1 : undefined}
+    >
       <legend className="mb-1 font-semibold">{legend}</legend>
       <div className={`grid gap-2 ${columns === 3 ? 'sm:grid-cols-3' : 'sm:grid-cols-2'}`}>
         {options.map((option) => (
@@ -31,7 +44,9 @@ export function ChoiceGroup({ legend, name, options, defaultValue, value, onChan
               name={name}
               value={option.value}
               className="size-5 shrink-0 accent-brand-700 focus-visible:outline-none"
-              {...(value === undefined ? { defaultChecked: option.value === defaultValue } : { checked: option.value === value })}
+              {...(value === undefined
+                ? { defaultChecked: option.value === defaultValue }
+                : { checked: option.value === value })}
               onChange={(event) => event.target.checked && onChange?.(option.value)}
             />
             <span>

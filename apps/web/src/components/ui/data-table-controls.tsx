@@ -2,7 +2,15 @@ import { useId } from 'react';
 import { Button } from '@/components/ui/button';
 import type { DataTableInstance } from '@/components/ui/data-table-columns';
 
-export function DataTableFilter({ label, value, onChange }: { label: string; value: string; onChange: (value: string) => void }) {
+export function DataTableFilter({
+  label,
+  value,
+  onChange,
+}: {
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+}) {
   const id = useId();
   return (
     <div className="flex flex-col gap-1 sm:max-w-sm">
@@ -53,7 +61,11 @@ export function DataTableSortControls<TData extends object>({ table }: { table: 
           ))}
         </select>
       </div>
-      <Button variant="secondary" disabled={!activeSort} onClick={() => activeSort && table.setSorting([{ id: activeSort.id, desc: !activeSort.desc }])}>
+      <Button
+        variant="secondary"
+        disabled={!activeSort}
+        onClick={() => activeSort && table.setSorting([{ id: activeSort.id, desc: !activeSort.desc }])}
+      >
         {activeSort?.desc ? 'Descending' : 'Ascending'}
       </Button>
     </div>

@@ -6,7 +6,15 @@ const sortMarks = { asc: '▲', desc: '▼' } as const;
  * The rows as a table with sortable column headers; on a phone each row stacks as a card, every
  * value labelled by its column.
  */
-export function DataTableGrid<TData extends object>({ table, caption, empty }: { table: DataTableInstance<TData>; caption: string; empty: string }) {
+export function DataTableGrid<TData extends object>({
+  table,
+  caption,
+  empty,
+}: {
+  table: DataTableInstance<TData>;
+  caption: string;
+  empty: string;
+}) {
   const rows = table.getRowModel().rows;
   const leafCount = table.getAllLeafColumns().length;
   return (
@@ -54,7 +62,10 @@ export function DataTableGrid<TData extends object>({ table, caption, empty }: {
           </tr>
         ) : (
           rows.map((row) => (
-            <tr key={row.id} className="border-b border-line max-sm:block max-sm:rounded-lg max-sm:border max-sm:bg-card max-sm:p-3">
+            <tr
+              key={row.id}
+              className="border-b border-line max-sm:block max-sm:rounded-lg max-sm:border max-sm:bg-card max-sm:p-3"
+            >
               {row.getAllCells().map((cell) => {
                 const meta = cell.column.columnDef.meta;
                 const header = cell.column.columnDef.header;

@@ -20,13 +20,21 @@ export function DataTableCount({
   return (
     <p className="text-sm text-ink-muted" aria-live="polite" aria-busy={isFetching || undefined}>
       {isFetching ? 'Loading… ' : null}
-      {matching === 0 ? `No ${itemsLabel} to show.` : `Showing ${first}–${last} of ${matching} ${itemsLabel}${filter ? ` matching "${filter}"` : ''}.`}
+      {matching === 0
+        ? `No ${itemsLabel} to show.`
+        : `Showing ${first}–${last} of ${matching} ${itemsLabel}${filter ? ` matching "${filter}"` : ''}.`}
     </p>
   );
 }
 
 /** Previous and next, shown only when there is more than one page. */
-export function DataTablePager<TData extends object>({ table, itemsLabel }: { table: DataTableInstance<TData>; itemsLabel: string }) {
+export function DataTablePager<TData extends object>({
+  table,
+  itemsLabel,
+}: {
+  table: DataTableInstance<TData>;
+  itemsLabel: string;
+}) {
   const pageCount = Math.max(1, table.getPageCount());
   if (pageCount <= 1) return null;
   return (

@@ -35,7 +35,12 @@ export function ConfirmSignUpPage() {
           <Button
             className="w-full"
             busy={confirm.isPending}
-            onClick={() => confirm.mutate({ token: tokenCheck.data }, { onSuccess: () => void navigate(paths.home.getHref(), { replace: true }) })}
+            onClick={() =>
+              confirm.mutate(
+                { token: tokenCheck.data },
+                { onSuccess: () => void navigate(paths.home.getHref(), { replace: true }) },
+              )
+            }
           >
             Create the firm
           </Button>

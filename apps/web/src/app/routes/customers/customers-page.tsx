@@ -34,8 +34,20 @@ export function CustomersPage() {
           <QueryErrorNotice error={sites.error} onRetry={() => void sites.refetch()} />
         ) : (
           <div className="space-y-4">
-            <TextField label="Find a customer or address" name="filter" type="search" value={filter} onChange={(e) => setFilter(e.target.value)} className="sm:max-w-md" />
-            <CustomerSitesList customers={customers.data} sites={sites.data} today={calendarDateIn(new Date(), me.activeFirm.timeZone)} filter={filter} />
+            <TextField
+              label="Find a customer or address"
+              name="filter"
+              type="search"
+              value={filter}
+              onChange={(e) => setFilter(e.target.value)}
+              className="sm:max-w-md"
+            />
+            <CustomerSitesList
+              customers={customers.data}
+              sites={sites.data}
+              today={calendarDateIn(new Date(), me.activeFirm.timeZone)}
+              filter={filter}
+            />
           </div>
         )}
       </Card>

@@ -47,7 +47,10 @@ function AccountCards() {
       <Card title="Your firms" description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}>
         <FirmList me={me} />
       </Card>
-      <Card title="Change your password" description="Other devices signed in as you are signed out when you change it.">
+      <Card
+        title="Change your password"
+        description="Other devices signed in as you are signed out when you change it."
+      >
         <ChangePasswordForm email={me.user.email} />
       </Card>
     </>
@@ -69,12 +72,17 @@ export function HomePage() {
   }
   return (
     <>
-      <PageHeader title={me.activeFirm.name}>Signed in as {me.user.name} ({me.user.email}).</PageHeader>
+      <PageHeader title={me.activeFirm.name}>
+        Signed in as {me.user.name} ({me.user.email}).
+      </PageHeader>
       <div className="grid gap-5 lg:grid-cols-2">
         {me.role === 'engineer' ? (
           <>
             <MyVanCard timeZone={me.activeFirm.timeZone} />
-            <Card title="Hand-arm vibration today" description="From your agitation time on today's jobs: 100 points is the exposure action value, 400 the limit value.">
+            <Card
+              title="Hand-arm vibration today"
+              description="From your agitation time on today's jobs: 100 points is the exposure action value, 400 the limit value."
+            >
               <MyHavToday />
             </Card>
           </>

@@ -31,7 +31,10 @@ export function JobPage() {
   if (job.isError) return <QueryErrorNotice error={job.error} onRetry={() => void job.refetch()} />;
   const { job: row } = job.data;
   const completed = row.status === 'completed';
-  const canComplete = ability.can('update', subject('Job', { firmId: me.activeFirm.id, engineerMemberId: row.engineerMemberId }));
+  const canComplete = ability.can(
+    'update',
+    subject('Job', { firmId: me.activeFirm.id, engineerMemberId: row.engineerMemberId }),
+  );
   const inhibitors: InhibitorChoice[] = (products.data ?? [])
     .filter((p) => p.kind === 'inhibitor' && (p.active || p.id === job.data.sheet.water.inhibitorProductId))
     .map((p) => ({ id: p.id, name: p.name, targetMin: p.targetMin, targetMax: p.targetMax, targetUnit: p.targetUnit }));
@@ -48,7 +51,14 @@ export function JobPage() {
       </PageHeader>
       <div className="space-y-5">
         {completed ? (
-          <Card title="Done" description={row.completedAt ? `Completed ${formatDateTime(row.completedAt, timeZone)}. The sheet below is the record and can no longer change.` : undefined}>
+          <Card
+            title="Done"
+            description={
+              row.completedAt
+                ? `Completed ${formatDateTime(row.completedAt, timeZone)}. The sheet below is the record and can no longer change.`
+                : undefined
+            }
+          >
             <div className="space-y-3">
               <h3 className="font-bold text-brand-900">Chemicals used</h3>
               <ChemicalsUsed used={job.data.chemicalsUsed} />
@@ -56,7 +66,11 @@ export function JobPage() {
                 Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
               </p>
               <p>
-                <a className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')} href={`/api/jobs/${row.id}/report.pdf`} download>
+                <a
+                  className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')}
+                  href={`/api/jobs/${row.id}/report.pdf`}
+                  download
+                >
                   Download the report (PDF)
                 </a>
               </p>

@@ -72,7 +72,11 @@ export function KitPage() {
           </Card>
         ) : kit.notes || ability.can('update', 'Kit') ? (
           <Card title="Notes">
-            {kit.notes ? <p className="whitespace-pre-line">{kit.notes}</p> : <p className="text-ink-muted">No notes.</p>}
+            {kit.notes ? (
+              <p className="whitespace-pre-line">{kit.notes}</p>
+            ) : (
+              <p className="text-ink-muted">No notes.</p>
+            )}
             {ability.can('update', 'Kit') ? (
               <Button variant="secondary" className="mt-4" onClick={() => setEditing(true)}>
                 Edit kit

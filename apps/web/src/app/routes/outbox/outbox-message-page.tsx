@@ -6,7 +6,10 @@ export function OutboxMessagePage() {
   const { id = '' } = useParams();
   return (
     <div className="space-y-4">
-      <Link to={paths.outbox.getHref()} className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline-offset-4 hover:underline">
+      <Link
+        to={paths.outbox.getHref()}
+        className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline-offset-4 hover:underline"
+      >
         ← All caught e-mails
       </Link>
       <OutboxMessageView id={id} />

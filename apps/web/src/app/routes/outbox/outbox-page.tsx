@@ -4,7 +4,9 @@ import { OutboxList } from '@/features/outbox/components/outbox-list';
 export function OutboxPage() {
   return (
     <>
-      <PageHeader title="Outbox">E-mails Heatfleet sent here, caught by the local mail server and never delivered. Newest first.</PageHeader>
+      <PageHeader title="Outbox">
+        E-mails Heatfleet sent here, caught by the local mail server and never delivered. Newest first.
+      </PageHeader>
       <OutboxList />
     </>
   );

@@ -9,7 +9,9 @@ export function RemindersPage() {
   const me = useSignedInMe();
   return (
     <>
-      <PageHeader title="Reminders">What Heatfleet has e-mailed about inspections, MOTs and services, to whom and when.</PageHeader>
+      <PageHeader title="Reminders">
+        What Heatfleet has e-mailed about inspections, MOTs and services, to whom and when.
+      </PageHeader>
       <div className="space-y-5">
         <Can I="update" a="ReminderSettings">
           <RunScanButton />

@@ -10,15 +10,23 @@ export function SettingsPage() {
   const me = useSignedInMe();
   return (
     <>
-      <PageHeader title="Settings">{me.activeFirm.name}: the firm itself, how it inspects its kit and when it is reminded.</PageHeader>
+      <PageHeader title="Settings">
+        {me.activeFirm.name}: the firm itself, how it inspects its kit and when it is reminded.
+      </PageHeader>
       <div className="space-y-5">
         <Can I="update" a="Firm">
-          <Card title="Firm" description="Name, address, time zone, units and the cold-bottom threshold of the radiator log.">
+          <Card
+            title="Firm"
+            description="Name, address, time zone, units and the cold-bottom threshold of the radiator log."
+          >
             <FirmSettingsForm />
           </Card>
         </Can>
         <Can I="update" a="ReminderSettings">
-          <Card title="Reminders" description="One digest e-mail a day per firm, and one per engineer for their own van.">
+          <Card
+            title="Reminders"
+            description="One digest e-mail a day per firm, and one per engineer for their own van."
+          >
             <ReminderSettingsForm timeZone={me.activeFirm.timeZone} />
           </Card>
         </Can>

@@ -15,11 +15,30 @@ import { SiteCheckForm } from '@/features/sites/components/site-check-form';
 import { SiteChecks, SiteJobs } from '@/features/sites/components/site-history';
 
 function NextCheckNotice({ on, today }: { on: string | null; today: string }) {
-  if (!on) return <Alert tone="info">No annual check date yet: it is set when a job here is completed or a check is recorded.</Alert>;
+  if (!on)
+    return (
+      <Alert tone="info">
+        No annual check date yet: it is set when a job here is completed or a check is recorded.
+      </Alert>
+    );
   const days = daysBetween(today, on);
-  if (days < 0) return <Alert tone="error" title="Annual check overdue">It was due on {formatCalendarDate(on)}.</Alert>;
-  if (days <= 30) return <Alert tone="info" title="Annual check due soon">Due on {formatCalendarDate(on)}, in {days} day{days === 1 ? '' : 's'}.</Alert>;
-  return <Alert tone="success" title={`Next annual check ${formatCalendarDate(on)}`}>A year on from the last clean or check.</Alert>;
+  if (days < 0)
+    return (
+      <Alert tone="error" title="Annual check overdue">
+        It was due on {formatCalendarDate(on)}.
+      </Alert>
+    );
+  if (days <= 30)
+    return (
+      <Alert tone="info" title="Annual check due soon">
+        Due on {formatCalendarDate(on)}, in {days} day{days === 1 ? '' : 's'}.
+      </Alert>
+    );
+  return (
+    <Alert tone="success" title={`Next annual check ${formatCalendarDate(on)}`}>
+      A year on from the last clean or check.
+    </Alert>
+  );
 }
 
 export function SitePage() {
@@ -50,7 +69,9 @@ export function SitePage() {
               </div>
               <div>
                 <dt className="text-sm font-semibold text-ink-muted">Contact</dt>
-                <dd>{[customer.contact, customer.phone, customer.email].filter(Boolean).join(' · ') || 'None given'}</dd>
+                <dd>
+                  {[customer.contact, customer.phone, customer.email].filter(Boolean).join(' · ') || 'None given'}
+                </dd>
               </div>
               <div>
                 <dt className="text-sm font-semibold text-ink-muted">Access notes</dt>
@@ -67,7 +88,10 @@ export function SitePage() {
           </Card>
         </div>
         <Can I="create" a="Customer">
-          <Card title="Record an inhibitor check" description="Measure the inhibitor in the system water and compare it with the product's target range. Saving sets the next check a year on.">
+          <Card
+            title="Record an inhibitor check"
+            description="Measure the inhibitor in the system water and compare it with the product's target range. Saving sets the next check a year on."
+          >
             <SiteCheckForm siteId={s.id} inhibitors={inhibitors} timeZone={me.activeFirm.timeZone} />
           </Card>
         </Can>

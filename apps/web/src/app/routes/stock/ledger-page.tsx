@@ -8,7 +8,9 @@ export function LedgerPage() {
   const me = useSignedInMe();
   return (
     <>
-      <PageHeader title="Stock ledger">Every movement of stock, newest first. Nothing is edited or deleted: a mistake is put right by a reversal.</PageHeader>
+      <PageHeader title="Stock ledger">
+        Every movement of stock, newest first. Nothing is edited or deleted: a mistake is put right by a reversal.
+      </PageHeader>
       <StockNav />
       <Card title="Movements">
         <LedgerView timeZone={me.activeFirm.timeZone} />

@@ -38,7 +38,10 @@ export function ProductPage() {
           <SafetyDataSheetCard product={p} canUpload={canEdit} timeZone={me.activeFirm.timeZone} />
         </Card>
         {ability.can('update', 'ParLevel') ? (
-          <Card title="Par levels" description="Packs to keep at each place: below the minimum it needs restocking, and a restock fills it to the target.">
+          <Card
+            title="Par levels"
+            description="Packs to keep at each place: below the minimum it needs restocking, and a restock fills it to the target."
+          >
             <ParLevelsEditor productId={p.id} />
           </Card>
         ) : null}

@@ -8,7 +8,9 @@ import { StockNav } from '@/features/stock/components/stock-nav';
 export function ProductsPage() {
   return (
     <>
-      <PageHeader title="Products">The chemicals the firm carries: pack sizes, dose rules, targets and safety data sheets.</PageHeader>
+      <PageHeader title="Products">
+        The chemicals the firm carries: pack sizes, dose rules, targets and safety data sheets.
+      </PageHeader>
       <StockNav />
       <div className="space-y-5">
         <Card title="Products">

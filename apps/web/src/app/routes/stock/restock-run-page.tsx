@@ -8,7 +8,9 @@ export function RestockRunPage() {
   const ability = useAbility();
   return (
     <>
-      <PageHeader title="Restock run">What each van needs to reach its target, taken from the depot first expiry first.</PageHeader>
+      <PageHeader title="Restock run">
+        What each van needs to reach its target, taken from the depot first expiry first.
+      </PageHeader>
       <StockNav />
       <Card title="Pick list">
         <RestockRunPlan canApply={ability.can('create', 'Stock')} />

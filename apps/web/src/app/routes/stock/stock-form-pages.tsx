@@ -18,7 +18,17 @@ import { WriteOffForm } from '@/features/stock/components/write-off-form';
 type Choices = ReturnType<typeof useStockChoices>;
 
 /** The frame every stock form shares: header, stock links, loading the places and products, and the permission check. */
-function StockFormPage({ title, intro, allowed, children }: { title: string; intro: string; allowed: boolean; children: (choices: Choices) => ReactNode }) {
+function StockFormPage({
+  title,
+  intro,
+  allowed,
+  children,
+}: {
+  title: string;
+  intro: string;
+  allowed: boolean;
+  children: (choices: Choices) => ReactNode;
+}) {
   const choices = useStockChoices();
   let body: ReactNode;
   if (!allowed) body = <Alert tone="info">Only the stores, an admin or the owner can do this.</Alert>;
@@ -37,9 +47,17 @@ function StockFormPage({ title, intro, allowed, children }: { title: string; int
 export function ReceivePage() {
   const ability = useAbility();
   return (
-    <StockFormPage title="Receive a delivery" intro="Each line is one product and lot, with its use-by date from the pack." allowed={ability.can('create', 'Stock')}>
+    <StockFormPage
+      title="Receive a delivery"
+      intro="Each line is one product and lot, with its use-by date from the pack."
+      allowed={ability.can('create', 'Stock')}
+    >
       {(choices) =>
-        choices.depots.length === 0 ? <Alert tone="info">Add a depot under Vans first.</Alert> : <ReceiveForm depots={choices.depots} products={choices.products} />
+        choices.depots.length === 0 ? (
+          <Alert tone="info">Add a depot under Vans first.</Alert>
+        ) : (
+          <ReceiveForm depots={choices.depots} products={choices.products} />
+        )
       }
     </StockFormPage>
   );
@@ -48,7 +66,11 @@ export function ReceivePage() {
 export function TransferPage() {
   const ability = useAbility();
   return (
-    <StockFormPage title="Transfer stock" intro="Depot to van, van to van or van to depot. Each line is taken first expiry first." allowed={ability.can('create', 'Stock')}>
+    <StockFormPage
+      title="Transfer stock"
+      intro="Depot to van, van to van or van to depot. Each line is taken first expiry first."
+      allowed={ability.can('create', 'Stock')}
+    >
       {(choices) => <TransferForm places={choices.places} products={choices.products} />}
     </StockFormPage>
   );
@@ -60,7 +82,11 @@ export function UsePage() {
   // An engineer records use from their own van only, so that is the only place offered.
   const mine = useQuery({ ...stockQueries.mine(), enabled: !canAnywhere });
   return (
-    <StockFormPage title="Record stock used" intro="For stock used outside a job, e.g. a top-up or a workshop test." allowed={ability.can('create', 'StockUse')}>
+    <StockFormPage
+      title="Record stock used"
+      intro="For stock used outside a job, e.g. a top-up or a workshop test."
+      allowed={ability.can('create', 'StockUse')}
+    >
       {(choices) => {
         if (canAnywhere) return <UseForm places={choices.places} products={choices.products} />;
         if (mine.isPending) return <PageSpinner />;
@@ -77,7 +103,11 @@ export function UsePage() {
 export function StocktakePage() {
   const ability = useAbility();
   return (
-    <StockFormPage title="Stocktake" intro="Count one place batch by batch; the differences are recorded as adjustments." allowed={ability.can('create', 'Stock')}>
+    <StockFormPage
+      title="Stocktake"
+      intro="Count one place batch by batch; the differences are recorded as adjustments."
+      allowed={ability.can('create', 'Stock')}
+    >
       {(choices) => <StocktakeForm places={choices.places} />}
     </StockFormPage>
   );
@@ -86,7 +116,11 @@ export function StocktakePage() {
 export function WriteOffPage() {
   const ability = useAbility();
   return (
-    <StockFormPage title="Write off stock" intro="Expired, damaged or spilled packs leave the stock here, with the reason kept in the ledger." allowed={ability.can('create', 'Stock')}>
+    <StockFormPage
+      title="Write off stock"
+      intro="Expired, damaged or spilled packs leave the stock here, with the reason kept in the ledger."
+      allowed={ability.can('create', 'Stock')}
+    >
       {(choices) => <WriteOffForm places={choices.places} />}
     </StockFormPage>
   );

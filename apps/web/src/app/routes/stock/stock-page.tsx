@@ -8,7 +8,9 @@ export function StockPage() {
   const me = useSignedInMe();
   return (
     <>
-      <PageHeader title="Stock">Usable packs of every product at every place in {me.activeFirm.name}, against each place’s minimum and target.</PageHeader>
+      <PageHeader title="Stock">
+        Usable packs of every product at every place in {me.activeFirm.name}, against each place’s minimum and target.
+      </PageHeader>
       <StockNav />
       <Card title="Balances" description="Expired packs never count as usable; they wait to be written off.">
         <StockGridView />

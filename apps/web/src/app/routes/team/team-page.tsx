@@ -15,7 +15,10 @@ export function TeamPage() {
       <PageHeader title="Team">Everyone in {me.activeFirm.name} and what they can do.</PageHeader>
       <div className="space-y-5">
         <Can I="create" a="Invitation">
-          <Card title="Invite someone" description="They get an e-mail with a link to join. The link works once and expires.">
+          <Card
+            title="Invite someone"
+            description="They get an e-mail with a link to join. The link works once and expires."
+          >
             <InviteForm firmId={firmId} />
           </Card>
         </Can>

@@ -24,7 +24,9 @@ export function MyVanPage() {
     return (
       <>
         <PageHeader title="My van" />
-        <Alert tone="info">No van is assigned to you in {me.activeFirm.name}. The stores or the office can assign one.</Alert>
+        <Alert tone="info">
+          No van is assigned to you in {me.activeFirm.name}. The stores or the office can assign one.
+        </Alert>
       </>
     );
   }

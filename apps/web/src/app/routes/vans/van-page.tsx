@@ -56,7 +56,10 @@ export function VanPage() {
         <Card title="Kits on board">
           <KitsTable kits={kits} caption={`Kits on ${van.name}`} />
         </Card>
-        <Card title="Items on board" description={loose.length > 0 ? `${loose.length} of them loose, not in a kit.` : undefined}>
+        <Card
+          title="Items on board"
+          description={loose.length > 0 ? `${loose.length} of them loose, not in a kit.` : undefined}
+        >
           <KitItemsList items={items} caption={`Items on ${van.name}`} />
         </Card>
       </div>

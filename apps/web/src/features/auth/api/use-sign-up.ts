@@ -1,5 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { messageResponseSchema, sessionEnvelopeSchema, type SignUpConfirmInput, type SignUpInput } from '@heatfleet/domain';
+import {
+  messageResponseSchema,
+  sessionEnvelopeSchema,
+  type SignUpConfirmInput,
+  type SignUpInput,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { startSession } from '@/lib/auth';
 

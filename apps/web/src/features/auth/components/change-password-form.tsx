@@ -32,7 +32,9 @@ export function ChangePasswordForm({ email }: { email: string }) {
     >
       <input type="email" name="username" autoComplete="username" value={email} readOnly hidden />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
-      {saved ? <Alert tone="success">Password changed. Any other devices signed in as you have been signed out.</Alert> : null}
+      {saved ? (
+        <Alert tone="success">Password changed. Any other devices signed in as you have been signed out.</Alert>
+      ) : null}
       <TextField
         label="Current password"
         name="currentPassword"

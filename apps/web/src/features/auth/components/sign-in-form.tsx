@@ -21,13 +21,31 @@ export function SignInForm() {
       onSubmit={form.handleSubmit((input) => signIn.mutate(input, { onError: form.showError }))}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
-      <TextField label="E-mail" name="email" type="email" autoComplete="email" inputMode="email" required error={form.fieldErrors.email} />
-      <TextField label="Password" name="password" type="password" autoComplete="current-password" required error={form.fieldErrors.password} />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        required
+        error={form.fieldErrors.email}
+      />
+      <TextField
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="current-password"
+        required
+        error={form.fieldErrors.password}
+      />
       <Button type="submit" busy={signIn.isPending} className="w-full">
         Sign in
       </Button>
       <p className="text-center">
-        <Link to={paths.resetPassword.getHref()} className="inline-block py-2 font-semibold text-brand-700 underline-offset-4 hover:underline">
+        <Link
+          to={paths.resetPassword.getHref()}
+          className="inline-block py-2 font-semibold text-brand-700 underline-offset-4 hover:underline"
+        >
           Forgotten your password?
         </Link>
       </p>

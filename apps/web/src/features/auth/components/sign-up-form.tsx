@@ -19,8 +19,8 @@ export function SignUpForm({ outboxLink }: { outboxLink?: ReactNode }) {
           {signUp.data.message}
         </Alert>
         <p className="text-ink-muted">
-          Sent to <strong className="[overflow-wrap:anywhere]">{signUp.variables.email}</strong>. Nothing arrived after a few minutes? Look in
-          spam, or try again.
+          Sent to <strong className="[overflow-wrap:anywhere]">{signUp.variables.email}</strong>. Nothing arrived after
+          a few minutes? Look in spam, or try again.
         </p>
         {outboxLink}
         <Button variant="secondary" className="w-full" onClick={() => signUp.reset()}>
@@ -38,9 +38,23 @@ export function SignUpForm({ outboxLink }: { outboxLink?: ReactNode }) {
       onSubmit={form.handleSubmit((input) => signUp.mutate(input, { onError: form.showError }))}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
-      <TextField label="Firm name" name="firmName" autoComplete="organization" required error={form.fieldErrors.firmName} />
+      <TextField
+        label="Firm name"
+        name="firmName"
+        autoComplete="organization"
+        required
+        error={form.fieldErrors.firmName}
+      />
       <TextField label="Your name" name="name" autoComplete="name" required error={form.fieldErrors.name} />
-      <TextField label="E-mail" name="email" type="email" autoComplete="email" inputMode="email" required error={form.fieldErrors.email} />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        required
+        error={form.fieldErrors.email}
+      />
       <TextField
         label="Password"
         name="password"

@@ -26,7 +26,9 @@ export function CreateFirmForm() {
       ref={form.formRef}
       noValidate
       className="space-y-3"
-      onSubmit={form.handleSubmit((input) => createFirm.mutate(input, { onError: form.showError, onSuccess: () => setOpen(false) }))}
+      onSubmit={form.handleSubmit((input) =>
+        createFirm.mutate(input, { onError: form.showError, onSuccess: () => setOpen(false) }),
+      )}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <TextField

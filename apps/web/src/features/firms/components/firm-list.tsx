@@ -19,7 +19,9 @@ export function FirmList({ me }: { me: Me }) {
                 <p className="text-sm text-ink-muted">{roleLabels[membership.role]}</p>
               </div>
               {active ? (
-                <span className="rounded-full bg-brand-100 px-3 py-1 text-sm font-semibold text-brand-800">Working in now</span>
+                <span className="rounded-full bg-brand-100 px-3 py-1 text-sm font-semibold text-brand-800">
+                  Working in now
+                </span>
               ) : (
                 <Button
                   variant="secondary"

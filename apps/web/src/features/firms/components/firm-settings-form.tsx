@@ -1,6 +1,13 @@
 import { useId } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { COLD_BOTTOM_THRESHOLD_MAX_K, COLD_BOTTOM_THRESHOLD_MIN_K, firmSettingsInputSchema, volumeUnitLabels, volumeUnits, type FirmSettings } from '@heatfleet/domain';
+import {
+  COLD_BOTTOM_THRESHOLD_MAX_K,
+  COLD_BOTTOM_THRESHOLD_MIN_K,
+  firmSettingsInputSchema,
+  volumeUnitLabels,
+  volumeUnits,
+  type FirmSettings,
+} from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -41,7 +48,13 @@ function Form({ firm }: { firm: FirmSettings }) {
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       {save.isSuccess ? <Alert tone="success">Firm settings saved.</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Firm name" name="name" maxLength={120} defaultValue={firm.name} error={form.fieldErrors.name} />
+        <TextField
+          label="Firm name"
+          name="name"
+          maxLength={120}
+          defaultValue={firm.name}
+          error={form.fieldErrors.name}
+        />
         <div>
           <TextField
             label="Time zone"
@@ -59,7 +72,15 @@ function Form({ firm }: { firm: FirmSettings }) {
           </datalist>
         </div>
       </div>
-      <TextareaField label="Address" name="address" rows={3} maxLength={500} defaultValue={firm.address ?? ''} hint="Printed on the cleaning reports." error={form.fieldErrors.address} />
+      <TextareaField
+        label="Address"
+        name="address"
+        rows={3}
+        maxLength={500}
+        defaultValue={firm.address ?? ''}
+        hint="Printed on the cleaning reports."
+        error={form.fieldErrors.address}
+      />
       <ChoiceGroup
         legend="Volumes shown in"
         name="volumeUnit"

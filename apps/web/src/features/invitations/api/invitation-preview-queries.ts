@@ -3,7 +3,9 @@ import { invitationPreviewResponseSchema } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 
 export async function getInvitationPreview(token: string) {
-  return (await apiClient.get(`/api/invitations/by-token/${encodeURIComponent(token)}`, invitationPreviewResponseSchema)).invitation;
+  return (
+    await apiClient.get(`/api/invitations/by-token/${encodeURIComponent(token)}`, invitationPreviewResponseSchema)
+  ).invitation;
 }
 
 export const invitationPreviewQueries = {

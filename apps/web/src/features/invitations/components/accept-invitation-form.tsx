@@ -54,7 +54,10 @@ function NewAccountForm({ token }: { token: string }) {
       noValidate
       className="space-y-4"
       onSubmit={form.handleSubmit((input) =>
-        accept.mutate({ token, ...input }, { onError: form.showError, onSuccess: () => navigate(paths.home.getHref()) }),
+        accept.mutate(
+          { token, ...input },
+          { onError: form.showError, onSuccess: () => navigate(paths.home.getHref()) },
+        ),
       )}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
@@ -85,12 +88,13 @@ function ExistingAccountForm({ token, email }: { token: string; email: string })
       noValidate
       className="space-y-4"
       onSubmit={form.handleSubmit((input) =>
-        accept.mutate({ token, ...input }, { onError: form.showError, onSuccess: () => navigate(paths.home.getHref()) }),
+        accept.mutate(
+          { token, ...input },
+          { onError: form.showError, onSuccess: () => navigate(paths.home.getHref()) },
+        ),
       )}
     >
-      <p>
-        {email} already has a Heatfleet account. Sign in with your existing password to join.
-      </p>
+      <p>{email} already has a Heatfleet account. Sign in with your existing password to join.</p>
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <TextField
         label="Your password"
@@ -124,4 +128,3 @@ export function AcceptInvitationForm({ token, invitation, signedInAs }: AcceptIn
     </div>
   );
 }
-

@@ -1,5 +1,10 @@
 import { queryOptions } from '@tanstack/react-query';
-import { customerListResponseSchema, customerResponseSchema, jobDetailSchema, jobListResponseSchema } from '@heatfleet/domain';
+import {
+  customerListResponseSchema,
+  customerResponseSchema,
+  jobDetailSchema,
+  jobListResponseSchema,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-keys';
 
@@ -33,5 +38,6 @@ export const customerQueries = {
   all: () => ['customers'] as const,
   lists: () => [...customerQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: customerQueries.lists(), queryFn: listCustomers }),
-  detail: (id: number) => queryOptions({ queryKey: [...customerQueries.all(), 'detail', id] as const, queryFn: () => getCustomer(id) }),
+  detail: (id: number) =>
+    queryOptions({ queryKey: [...customerQueries.all(), 'detail', id] as const, queryFn: () => getCustomer(id) }),
 };

@@ -1,5 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { customerResponseSchema, jobDetailSchema, newSiteResponseSchema, type CreateJobInput, type CustomerInput, type SiteInput } from '@heatfleet/domain';
+import {
+  customerResponseSchema,
+  jobDetailSchema,
+  newSiteResponseSchema,
+  type CreateJobInput,
+  type CustomerInput,
+  type SiteInput,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-keys';
 import { customerQueries, jobQueries } from '@/features/jobs/api/job-queries';
@@ -33,7 +40,8 @@ export function useCreateJob() {
 export function useCreateCustomer() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: CustomerInput) => (await apiClient.post('/api/customers', input, customerResponseSchema)).customer,
+    mutationFn: async (input: CustomerInput) =>
+      (await apiClient.post('/api/customers', input, customerResponseSchema)).customer,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
   });
 }
@@ -41,7 +49,8 @@ export function useCreateCustomer() {
 export function useCreateSite(customerId: number | null) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: SiteInput) => (await apiClient.post(`/api/customers/${customerId}/sites`, input, newSiteResponseSchema)).site,
+    mutationFn: async (input: SiteInput) =>
+      (await apiClient.post(`/api/customers/${customerId}/sites`, input, newSiteResponseSchema)).site,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
   });
 }

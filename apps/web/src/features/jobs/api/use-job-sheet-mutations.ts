@@ -33,8 +33,10 @@ export function useTickStep(jobId: number) {
 }
 
 export function useSaveReading(jobId: number) {
-  return useSheetWrite(jobId, ({ index, phase, reading }: { index: number; phase: ReadingPhase; reading: RadiatorReadingInput }) =>
-    apiClient.put(`/api/jobs/${jobId}/radiators/${index}/readings/${phase}`, reading, jobSheetResponseSchema),
+  return useSheetWrite(
+    jobId,
+    ({ index, phase, reading }: { index: number; phase: ReadingPhase; reading: RadiatorReadingInput }) =>
+      apiClient.put(`/api/jobs/${jobId}/radiators/${index}/readings/${phase}`, reading, jobSheetResponseSchema),
   );
 }
 
@@ -51,15 +53,21 @@ export function useSaveAgitation(jobId: number) {
 }
 
 export function useSaveWaterTests(jobId: number) {
-  return useSheetWrite(jobId, (tests: WaterTestsInput) => apiClient.put(`/api/jobs/${jobId}/water-tests`, tests, jobSheetResponseSchema));
+  return useSheetWrite(jobId, (tests: WaterTestsInput) =>
+    apiClient.put(`/api/jobs/${jobId}/water-tests`, tests, jobSheetResponseSchema),
+  );
 }
 
 export function useSaveKitUsed(jobId: number) {
-  return useSheetWrite(jobId, (kitItemIds: number[]) => apiClient.put(`/api/jobs/${jobId}/kit`, { kitItemIds }, jobSheetResponseSchema));
+  return useSheetWrite(jobId, (kitItemIds: number[]) =>
+    apiClient.put(`/api/jobs/${jobId}/kit`, { kitItemIds }, jobSheetResponseSchema),
+  );
 }
 
 export function useSaveNotes(jobId: number) {
-  return useSheetWrite(jobId, (notes: string) => apiClient.put(`/api/jobs/${jobId}/notes`, { notes }, jobSheetResponseSchema));
+  return useSheetWrite(jobId, (notes: string) =>
+    apiClient.put(`/api/jobs/${jobId}/notes`, { notes }, jobSheetResponseSchema),
+  );
 }
 
 export function useUploadJobPhoto(jobId: number) {
@@ -75,7 +83,9 @@ export function useUploadJobPhoto(jobId: number) {
     },
     onSuccess: (photo) => {
       queryClient.setQueryData<JobDetail>(jobQueries.detail(jobId).queryKey, (old) =>
-        old ? { ...old, sheet: { ...old.sheet, photos: [...old.sheet.photos.filter((p) => p.id !== photo.id), photo] } } : old,
+        old
+          ? { ...old, sheet: { ...old.sheet, photos: [...old.sheet.photos.filter((p) => p.id !== photo.id), photo] } }
+          : old,
       );
     },
   });

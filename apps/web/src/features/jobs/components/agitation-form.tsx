@@ -1,5 +1,11 @@
 import { useState, type FormEvent } from 'react';
-import { agitationInputSchema, agitationPoints, havDayPointsIfSaved, type JobSheet, type SheetRadiator } from '@heatfleet/domain';
+import {
+  agitationInputSchema,
+  agitationPoints,
+  havDayPointsIfSaved,
+  type JobSheet,
+  type SheetRadiator,
+} from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
@@ -17,7 +23,10 @@ function toolLabel(item: { assetTag: string; kindName: string; vibrationMs2?: nu
 /** One radiator's agitation: the minutes and the vibrating tool, with its points and the day's total if saved. */
 export function AgitationForm({ jobId, radiator, sheet }: { jobId: number; radiator: SheetRadiator; sheet: JobSheet }) {
   const saved = radiator.agitation;
-  const savedDraft = { minutes: numberText(saved?.minutes), kitItemId: saved?.kitItemId ? String(saved.kitItemId) : '' };
+  const savedDraft = {
+    minutes: numberText(saved?.minutes),
+    kitItemId: saved?.kitItemId ? String(saved.kitItemId) : '',
+  };
   const [draft, setDraft] = useState(savedDraft);
   const [errors, setErrors] = useState<FieldErrors>({});
   const save = useSaveAgitation(jobId);
@@ -32,7 +41,10 @@ export function AgitationForm({ jobId, radiator, sheet }: { jobId: number; radia
     ...(gone ? [{ value: String(gone.kitItemId), label: `${gone.kitItemTag ?? 'Tool'} (no longer on the van)` }] : []),
   ];
   const chosenId = draft.kitItemId ? Number(draft.kitItemId) : null;
-  const magnitude = chosenId === null ? null : (tools.find((t) => t.id === chosenId)?.vibrationMs2 ?? (gone ? saved?.magnitudeMs2 : null) ?? null);
+  const magnitude =
+    chosenId === null
+      ? null
+      : (tools.find((t) => t.id === chosenId)?.vibrationMs2 ?? (gone ? saved?.magnitudeMs2 : null) ?? null);
   const minutes = finiteOrNull(draft.minutes);
   // The same rules the API applies to the saved agitation and the day (HSE points system).
   const livePoints = minutes === null ? 0 : agitationPoints(magnitude, minutes);
@@ -59,7 +71,12 @@ export function AgitationForm({ jobId, radiator, sheet }: { jobId: number; radia
   };
 
   return (
-    <form aria-label="Agitation" noValidate onSubmit={submit} className="space-y-3 rounded-lg border border-line-strong p-3">
+    <form
+      aria-label="Agitation"
+      noValidate
+      onSubmit={submit}
+      className="space-y-3 rounded-lg border border-line-strong p-3"
+    >
       <h4 className="font-bold">Agitation</h4>
       <fieldset disabled={!sheet.editable} className="grid gap-3">
         <TextField
@@ -87,9 +104,13 @@ export function AgitationForm({ jobId, radiator, sheet }: { jobId: number; radia
       </fieldset>
       <p className="tabular-nums">
         <span className="font-semibold">{points} vibration points</span> on this radiator
-        {magnitude ? null : <span className="text-ink-muted"> (choose a tool with a vibration figure to count them)</span>}
+        {magnitude ? null : (
+          <span className="text-ink-muted"> (choose a tool with a vibration figure to count them)</span>
+        )}
       </p>
-      {dirty && sheet.editable ? <p className="text-sm text-ink-muted">About {dayIfSaved} points for the day once saved.</p> : null}
+      {dirty && sheet.editable ? (
+        <p className="text-sm text-ink-muted">About {dayIfSaved} points for the day once saved.</p>
+      ) : null}
       {sheet.editable ? (
         <>
           <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
@@ -101,4 +122,3 @@ export function AgitationForm({ jobId, radiator, sheet }: { jobId: number; radia
     </form>
   );
 }
-

@@ -11,7 +11,9 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
   const complete = useCompleteJob(detail.job.id);
   const idempotency = useIdempotencyKey();
   const short = detail.doses.some((d) => d.shortfall > 0);
-  const taking = detail.doses.flatMap((d) => d.takeFromVan.map((a) => `${a.quantity} × ${d.product.name} (lot ${a.lotNumber})`));
+  const taking = detail.doses.flatMap((d) =>
+    d.takeFromVan.map((a) => `${a.quantity} × ${d.product.name} (lot ${a.lotNumber})`),
+  );
   // Not a bar to completing (a step may not apply on every system), but worth a second look first.
   const unticked = detail.sheet.steps.filter((s) => s.doneAt === null);
   const untickedNote = unticked.length ? (
@@ -37,7 +39,10 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
       <p className="font-semibold">
         {taking.length ? `This takes ${taking.join(', ')} off the van. Complete the job?` : 'Complete the job?'}
       </p>
-      <p className="text-ink-muted">Once completed, the job sheet can no longer change, and the report is e-mailed to the customer if they have an address.</p>
+      <p className="text-ink-muted">
+        Once completed, the job sheet can no longer change, and the report is e-mailed to the customer if they have an
+        address.
+      </p>
       {complete.isError ? <Alert tone="error">{complete.error.message}</Alert> : null}
       <div className="flex flex-wrap gap-3">
         <Button
@@ -57,7 +62,12 @@ export function CompleteJobPanel({ detail }: { detail: JobDetail }) {
         >
           Yes, complete it
         </Button>
-        <Button variant="secondary" className="min-h-12" disabled={complete.isPending} onClick={() => setConfirming(false)}>
+        <Button
+          variant="secondary"
+          className="min-h-12"
+          disabled={complete.isPending}
+          onClick={() => setConfirming(false)}
+        >
           Not yet
         </Button>
       </div>

@@ -23,9 +23,29 @@ function NewCustomer({ onAdded }: { onAdded: (id: number) => void }) {
   };
   return (
     <div role="group" aria-label="New customer" className="space-y-3 rounded-lg border border-line-strong p-3">
-      <TextField label="Customer name" name="customer.name" value={draft.name} onChange={(e) => setDraft({ ...draft, name: e.target.value })} error={errors.name} />
-      <TextField label="E-mail (optional)" name="customer.email" type="email" value={draft.email} onChange={(e) => setDraft({ ...draft, email: e.target.value })} error={errors.email} />
-      <TextField label="Phone (optional)" name="customer.phone" type="tel" value={draft.phone} onChange={(e) => setDraft({ ...draft, phone: e.target.value })} error={errors.phone} />
+      <TextField
+        label="Customer name"
+        name="customer.name"
+        value={draft.name}
+        onChange={(e) => setDraft({ ...draft, name: e.target.value })}
+        error={errors.name}
+      />
+      <TextField
+        label="E-mail (optional)"
+        name="customer.email"
+        type="email"
+        value={draft.email}
+        onChange={(e) => setDraft({ ...draft, email: e.target.value })}
+        error={errors.email}
+      />
+      <TextField
+        label="Phone (optional)"
+        name="customer.phone"
+        type="tel"
+        value={draft.phone}
+        onChange={(e) => setDraft({ ...draft, phone: e.target.value })}
+        error={errors.phone}
+      />
       {create.isError ? <Alert tone="error">{create.error.message}</Alert> : null}
       <Button variant="secondary" busy={create.isPending} onClick={add}>
         Add the customer
@@ -46,9 +66,27 @@ function NewSite({ customerId, onAdded }: { customerId: number; onAdded: (id: nu
   };
   return (
     <div role="group" aria-label="New site" className="space-y-3 rounded-lg border border-line-strong p-3">
-      <TextField label="Site address" name="site.address" value={draft.address} onChange={(e) => setDraft({ ...draft, address: e.target.value })} error={errors.address} />
-      <TextField label="Postcode (optional)" name="site.postcode" value={draft.postcode} onChange={(e) => setDraft({ ...draft, postcode: e.target.value })} error={errors.postcode} />
-      <TextField label="Access notes (optional)" name="site.accessNotes" value={draft.accessNotes} onChange={(e) => setDraft({ ...draft, accessNotes: e.target.value })} error={errors.accessNotes} />
+      <TextField
+        label="Site address"
+        name="site.address"
+        value={draft.address}
+        onChange={(e) => setDraft({ ...draft, address: e.target.value })}
+        error={errors.address}
+      />
+      <TextField
+        label="Postcode (optional)"
+        name="site.postcode"
+        value={draft.postcode}
+        onChange={(e) => setDraft({ ...draft, postcode: e.target.value })}
+        error={errors.postcode}
+      />
+      <TextField
+        label="Access notes (optional)"
+        name="site.accessNotes"
+        value={draft.accessNotes}
+        onChange={(e) => setDraft({ ...draft, accessNotes: e.target.value })}
+        error={errors.accessNotes}
+      />
       {create.isError ? <Alert tone="error">{create.error.message}</Alert> : null}
       <Button variant="secondary" busy={create.isPending} onClick={add}>
         Add the site

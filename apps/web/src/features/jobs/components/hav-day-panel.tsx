@@ -17,7 +17,11 @@ export function HavDayPanel({ hav }: { hav: JobSheet['hav'] }) {
   const share = Math.min(100, (hav.points / HAV_LIMIT_POINTS) * 100);
   return (
     <div className="space-y-3">
-      <div role={warn ? 'alert' : 'status'} aria-label="Vibration today" className={`space-y-1 rounded-lg border-2 p-3 ${look.box}`}>
+      <div
+        role={warn ? 'alert' : 'status'}
+        aria-label="Vibration today"
+        className={`space-y-1 rounded-lg border-2 p-3 ${look.box}`}
+      >
         <p className="flex flex-wrap items-baseline gap-x-2">
           <span className="text-3xl font-bold tabular-nums">{hav.points}</span>
           <span className="font-semibold">points · {look.word}</span>
@@ -26,11 +30,15 @@ export function HavDayPanel({ hav }: { hav: JobSheet['hav'] }) {
       </div>
       <div aria-hidden="true" className="relative h-4 overflow-hidden rounded-full bg-line">
         <div className={`h-full ${warn ? 'bg-danger-700' : 'bg-ok-700'}`} style={{ width: `${share}%` }} />
-        <div className="absolute inset-y-0 w-0.5 bg-ink" style={{ left: `${(HAV_ACTION_POINTS / HAV_LIMIT_POINTS) * 100}%` }} />
+        <div
+          className="absolute inset-y-0 w-0.5 bg-ink"
+          style={{ left: `${(HAV_ACTION_POINTS / HAV_LIMIT_POINTS) * 100}%` }}
+        />
       </div>
       <p className="text-sm text-ink-muted">
-        {hav.engineerName ?? 'The engineer'}, {formatCalendarDate(hav.day)}. Points = 2 × vibration² × hours per tool; {HAV_ACTION_POINTS} is the exposure action value, {HAV_LIMIT_POINTS} the limit value
-        (Control of Vibration at Work Regulations 2005).
+        {hav.engineerName ?? 'The engineer'}, {formatCalendarDate(hav.day)}. Points = 2 × vibration² × hours per tool;{' '}
+        {HAV_ACTION_POINTS} is the exposure action value, {HAV_LIMIT_POINTS} the limit value (Control of Vibration at
+        Work Regulations 2005).
       </p>
     </div>
   );

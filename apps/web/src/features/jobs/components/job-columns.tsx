@@ -15,7 +15,10 @@ export function buildJobColumns(): DataTableColumns<JobListRow> {
       sortFn: 'text',
       enableGlobalFilter: false,
       cell: (info) => (
-        <Link to={paths.job.getHref(info.row.original.id)} className="font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4">
+        <Link
+          to={paths.job.getHref(info.row.original.id)}
+          className="font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4"
+        >
           {formatCalendarDate(info.getValue())}
         </Link>
       ),

@@ -60,7 +60,12 @@ function AddPhotoForm({ jobId }: { jobId: number }) {
   };
 
   return (
-    <form aria-label="Add a photo" noValidate onSubmit={submit} className="space-y-3 rounded-lg border border-line-strong p-3">
+    <form
+      aria-label="Add a photo"
+      noValidate
+      onSubmit={submit}
+      className="space-y-3 rounded-lg border border-line-strong p-3"
+    >
       <div className="flex flex-col gap-1">
         <label htmlFor={`job-${jobId}-photo`} className="font-semibold">
           Photo
@@ -81,9 +86,22 @@ function AddPhotoForm({ jobId }: { jobId: number }) {
         />
         {fileError ? <p className="text-sm font-semibold text-danger-700">{fileError}</p> : null}
       </div>
-      {preview ? <img src={preview} alt="The chosen photo" className="max-h-48 rounded-md border border-line object-contain" /> : null}
-      <SelectField label="What it shows" value={tag} onChange={(e) => setTag(e.target.value as PhotoTag)} options={jobPhotoTags.map((t) => ({ value: t, label: jobPhotoTagLabels[t] }))} />
-      <TextField label="Caption (optional)" name="caption" maxLength={200} value={caption} onChange={(e) => setCaption(e.target.value)} />
+      {preview ? (
+        <img src={preview} alt="The chosen photo" className="max-h-48 rounded-md border border-line object-contain" />
+      ) : null}
+      <SelectField
+        label="What it shows"
+        value={tag}
+        onChange={(e) => setTag(e.target.value as PhotoTag)}
+        options={jobPhotoTags.map((t) => ({ value: t, label: jobPhotoTagLabels[t] }))}
+      />
+      <TextField
+        label="Caption (optional)"
+        name="caption"
+        maxLength={200}
+        value={caption}
+        onChange={(e) => setCaption(e.target.value)}
+      />
       <SaveFeedback error={upload.error} saved={upload.isSuccess} />
       <Button type="submit" variant="secondary" className="min-h-12 w-full sm:w-auto" busy={upload.isPending}>
         Add the photo
@@ -103,7 +121,12 @@ export function JobPhotos({ jobId, sheet, timeZone }: { jobId: number; sheet: Jo
             <li key={photo.id}>
               <figure className="space-y-1">
                 <a href={photo.url} target="_blank" rel="noreferrer" className="block">
-                  <img src={photo.url} alt={photo.caption ?? tagLabel(photo.tag)} loading="lazy" className="aspect-square w-full rounded-md border border-line bg-canvas object-cover" />
+                  <img
+                    src={photo.url}
+                    alt={photo.caption ?? tagLabel(photo.tag)}
+                    loading="lazy"
+                    className="aspect-square w-full rounded-md border border-line bg-canvas object-cover"
+                  />
                 </a>
                 <figcaption className="text-sm">
                   <span className="block font-semibold">{tagLabel(photo.tag)}</span>

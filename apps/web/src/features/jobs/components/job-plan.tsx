@@ -1,7 +1,12 @@
 import type { JobDetail } from '@heatfleet/domain';
 import { formatCalendarDate } from '@/lib/format';
 import { SheetSection } from '@/features/jobs/components/sheet-section';
-import { DoseSummary, VolumeBreakdown, formatLitres, useGallonsToggle } from '@/features/jobs/components/volume-breakdown';
+import {
+  DoseSummary,
+  VolumeBreakdown,
+  formatLitres,
+  useGallonsToggle,
+} from '@/features/jobs/components/volume-breakdown';
 
 function packs(n: number): string {
   return `${n} pack${n === 1 ? '' : 's'}`;
@@ -39,7 +44,8 @@ export function JobPlan({ detail }: { detail: JobDetail }) {
                       <ul className="list-disc pl-5">
                         {dose.takeFromVan.map((a) => (
                           <li key={a.batchId}>
-                            {packs(a.quantity)} of lot <span className="font-mono">{a.lotNumber}</span>, use by {formatCalendarDate(a.expiresOn)}
+                            {packs(a.quantity)} of lot <span className="font-mono">{a.lotNumber}</span>, use by{' '}
+                            {formatCalendarDate(a.expiresOn)}
                           </li>
                         ))}
                       </ul>

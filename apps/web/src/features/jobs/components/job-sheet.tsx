@@ -12,7 +12,15 @@ import { WaterTestsForm, waterSummary, type InhibitorChoice } from '@/features/j
  * The on-site record, phone first: each section saves on its own, so a lost signal costs one
  * section's typing, not the visit. Read-only once the job is completed (the API says so).
  */
-export function JobSheetSections({ detail, timeZone, inhibitors }: { detail: JobDetail; timeZone: string; inhibitors: InhibitorChoice[] }) {
+export function JobSheetSections({
+  detail,
+  timeZone,
+  inhibitors,
+}: {
+  detail: JobDetail;
+  timeZone: string;
+  inhibitors: InhibitorChoice[];
+}) {
   const { sheet } = detail;
   const jobId = detail.job.id;
   const dosedInhibitor = detail.doses.find((d) => d.product.kind === 'inhibitor')?.product.id ?? null;

@@ -33,18 +33,32 @@ function Circulation({ sheet }: { sheet: JobSheet }) {
   if (!startedAt) {
     return (
       <p role="status" aria-label="Circulation" className="text-ink-muted">
-        The circulation clock starts when the cleaner is dosed{minimumMinutes ? `; this cleaner needs at least ${minutes(minimumMinutes)} hot.` : '.'}
+        The circulation clock starts when the cleaner is dosed
+        {minimumMinutes ? `; this cleaner needs at least ${minutes(minimumMinutes)} hot.` : '.'}
       </p>
     );
   }
   // The API's rule, run live: the sheet's own figure is from when it was read.
-  const clock = circulationClock(minimumMinutes, new Date(startedAt), endedAt ? new Date(endedAt) : null, new Date(now));
+  const clock = circulationClock(
+    minimumMinutes,
+    new Date(startedAt),
+    endedAt ? new Date(endedAt) : null,
+    new Date(now),
+  );
   const elapsed = clock.elapsedMinutes ?? 0;
   const met = clock.met;
   return (
-    <div role="status" aria-label="Circulation" className={`rounded-md border-2 px-3 py-2 ${met === false ? 'border-ember-500 bg-ember-100' : met ? 'border-ok-700 bg-ok-50' : 'border-line-strong'}`}>
+    <div
+      role="status"
+      aria-label="Circulation"
+      className={`rounded-md border-2 px-3 py-2 ${met === false ? 'border-ember-500 bg-ember-100' : met ? 'border-ok-700 bg-ok-50' : 'border-line-strong'}`}
+    >
       <p className="flex flex-wrap items-center gap-2 text-lg font-bold tabular-nums">
-        <span>{minimumMinutes === null ? `Circulated ${minutes(elapsed)}` : `Circulated ${elapsed} of ${minutes(minimumMinutes)}`}</span>
+        <span>
+          {minimumMinutes === null
+            ? `Circulated ${minutes(elapsed)}`
+            : `Circulated ${elapsed} of ${minutes(minimumMinutes)}`}
+        </span>
         {met === null ? null : met ? <Badge tone="ok">Minimum met</Badge> : <Badge tone="warn">Not yet</Badge>}
       </p>
       <p className="text-sm text-ink-muted">
@@ -60,12 +74,26 @@ function Circulation({ sheet }: { sheet: JobSheet }) {
   );
 }
 
-function StepRow({ step, n, sheet, timeZone, tick }: { step: Step; n: number; sheet: JobSheet; timeZone: string; tick: ReturnType<typeof useTickStep> }) {
+function StepRow({
+  step,
+  n,
+  sheet,
+  timeZone,
+  tick,
+}: {
+  step: Step;
+  n: number;
+  sheet: JobSheet;
+  timeZone: string;
+  tick: ReturnType<typeof useTickStep>;
+}) {
   const cautions = stepCautions[step.step] ?? [];
   const busy = tick.isPending && tick.variables.step === step.step;
   const failed = tick.isError && tick.variables.step === step.step;
   const done = step.doneAt !== null;
-  const when = step.doneAt ? `Done at ${formatClock(step.doneAt, timeZone)}${step.doneByName ? ` by ${step.doneByName}` : ''}` : null;
+  const when = step.doneAt
+    ? `Done at ${formatClock(step.doneAt, timeZone)}${step.doneByName ? ` by ${step.doneByName}` : ''}`
+    : null;
   return (
     <li className="space-y-2 border-t border-line pt-4 first:border-t-0 first:pt-0">
       <StepCautions keys={cautions} label={`Cautions before step ${n}`} />
@@ -76,14 +104,22 @@ function StepRow({ step, n, sheet, timeZone, tick }: { step: Step; n: number; sh
           onClick={() => tick.mutate({ step: step.step, done: true })}
           className="flex min-h-16 w-full items-center gap-3 rounded-lg border-2 border-brand-700 bg-card px-3 py-2 text-left font-semibold text-ink disabled:opacity-60"
         >
-          <span aria-hidden="true" className="grid size-9 shrink-0 place-items-center rounded-md border-2 border-brand-700 text-lg text-brand-700">
+          <span
+            aria-hidden="true"
+            className="grid size-9 shrink-0 place-items-center rounded-md border-2 border-brand-700 text-lg text-brand-700"
+          >
             {busy ? '…' : n}
           </span>
           <span>{step.label}</span>
         </button>
       ) : (
-        <div className={`flex min-h-16 items-center gap-3 rounded-lg border-2 px-3 py-2 ${done ? 'border-ok-700 bg-ok-50' : 'border-line'}`}>
-          <span aria-hidden="true" className={`grid size-9 shrink-0 place-items-center rounded-md text-lg font-bold ${done ? 'bg-ok-700 text-white' : 'border-2 border-line-strong text-ink-muted'}`}>
+        <div
+          className={`flex min-h-16 items-center gap-3 rounded-lg border-2 px-3 py-2 ${done ? 'border-ok-700 bg-ok-50' : 'border-line'}`}
+        >
+          <span
+            aria-hidden="true"
+            className={`grid size-9 shrink-0 place-items-center rounded-md text-lg font-bold ${done ? 'bg-ok-700 text-white' : 'border-2 border-line-strong text-ink-muted'}`}
+          >
             {done ? '✓' : n}
           </span>
           <span className="min-w-0 flex-1">
@@ -93,7 +129,13 @@ function StepRow({ step, n, sheet, timeZone, tick }: { step: Step; n: number; sh
         </div>
       )}
       {sheet.editable && done ? (
-        <Button variant="secondary" className="min-h-12" busy={busy} aria-label={`Untick step ${n}: ${step.label}`} onClick={() => tick.mutate({ step: step.step, done: false })}>
+        <Button
+          variant="secondary"
+          className="min-h-12"
+          busy={busy}
+          aria-label={`Untick step ${n}: ${step.label}`}
+          onClick={() => tick.mutate({ step: step.step, done: false })}
+        >
           Untick
         </Button>
       ) : null}

@@ -1,6 +1,11 @@
 import { dosePlan, surveyVolume, type Survey } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
-import { DoseSummary, VolumeBreakdown, formatLitres, useGallonsToggle } from '@/features/jobs/components/volume-breakdown';
+import {
+  DoseSummary,
+  VolumeBreakdown,
+  formatLitres,
+  useGallonsToggle,
+} from '@/features/jobs/components/volume-breakdown';
 
 export interface DoseProduct {
   id: number;
@@ -18,7 +23,10 @@ export function LivePlanPanel({ survey, products }: { survey: Survey; products: 
   const radiators = survey.radiators.length;
   return (
     <>
-      <section aria-labelledby="live-plan-heading" className="space-y-4 rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6">
+      <section
+        aria-labelledby="live-plan-heading"
+        className="space-y-4 rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6"
+      >
         <h2 id="live-plan-heading" className="text-lg font-bold text-brand-900">
           Volume and dose, as you type
         </h2>
@@ -40,12 +48,17 @@ export function LivePlanPanel({ survey, products }: { survey: Survey; products: 
           )}
         </div>
         <p className="text-sm text-ink-muted">
-          These figures support your judgement; they do not replace it. The plan saved with the job also checks your van&apos;s stock.
+          These figures support your judgement; they do not replace it. The plan saved with the job also checks your
+          van&apos;s stock.
         </p>
       </section>
       {/* On a phone the panel sits below the form, so the total stays in view at the foot of the screen. */}
       <div className="fixed inset-x-0 bottom-0 z-10 border-t border-line bg-card px-4 py-2 shadow-lg lg:hidden print:hidden">
-        <p role="status" aria-label="Live system volume" className="flex flex-wrap items-center gap-2 font-bold text-brand-900">
+        <p
+          role="status"
+          aria-label="Live system volume"
+          className="flex flex-wrap items-center gap-2 font-bold text-brand-900"
+        >
           <span>Volume {formatLitres(volume.totalLitres, withGallons)}</span>
           {volume.estimate ? <Badge tone="warn">Estimate</Badge> : null}
         </p>

@@ -13,21 +13,40 @@ import { CustomerSitePicker } from '@/features/jobs/components/customer-site-pic
 import { LivePlanPanel, type DoseProduct } from '@/features/jobs/components/live-plan-panel';
 import { PipeRunRows } from '@/features/jobs/components/pipe-run-rows';
 import { RadiatorRows } from '@/features/jobs/components/radiator-rows';
-import { draftToLiveSurvey, draftToSurveyInput, initialSurveyDraft, type SurveyDraft } from '@/features/jobs/components/survey-draft';
+import {
+  draftToLiveSurvey,
+  draftToSurveyInput,
+  initialSurveyDraft,
+  type SurveyDraft,
+} from '@/features/jobs/components/survey-draft';
 
 export interface EngineerChoice {
   memberId: number;
   name: string;
 }
 
-const boilerLabels: Record<(typeof boilerKinds)[number], string> = { combi: 'Combi', system: 'System', regular: 'Regular (heat only)' };
+const boilerLabels: Record<(typeof boilerKinds)[number], string> = {
+  combi: 'Combi',
+  system: 'System',
+  regular: 'Regular (heat only)',
+};
 
-function ProductChoices({ products, chosen, onChange }: { products: DoseProduct[]; chosen: number[]; onChange: (ids: number[]) => void }) {
+function ProductChoices({
+  products,
+  chosen,
+  onChange,
+}: {
+  products: DoseProduct[];
+  chosen: number[];
+  onChange: (ids: number[]) => void;
+}) {
   const id = useId();
   return (
     <fieldset className="space-y-2">
       <legend className="text-lg font-bold text-brand-900">Products to dose</legend>
-      {products.length === 0 ? <p className="text-ink-muted">The firm has no cleaner or inhibitor set up yet.</p> : null}
+      {products.length === 0 ? (
+        <p className="text-ink-muted">The firm has no cleaner or inhibitor set up yet.</p>
+      ) : null}
       {products.map((p) => (
         <div key={p.id} className="flex min-h-11 items-center gap-3">
           <input
@@ -103,18 +122,33 @@ export function NewJobForm({
 
   return (
     <div className="grid gap-5 pb-16 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)] lg:items-start lg:pb-0">
-      <form aria-label="Book a job" noValidate onSubmit={submit} className="space-y-6 rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6">
+      <form
+        aria-label="Book a job"
+        noValidate
+        onSubmit={submit}
+        className="space-y-6 rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6"
+      >
         <CustomerSitePicker siteId={siteId} onSiteChange={setSiteId} siteError={errors.siteId} />
 
         <fieldset className="space-y-3">
           <legend className="text-lg font-bold text-brand-900">When and who</legend>
-          <TextField label="Date" name="scheduledOn" type="date" value={scheduledOn} onChange={(e) => setScheduledOn(e.target.value)} error={errors.scheduledOn} />
+          <TextField
+            label="Date"
+            name="scheduledOn"
+            type="date"
+            value={scheduledOn}
+            onChange={(e) => setScheduledOn(e.target.value)}
+            error={errors.scheduledOn}
+          />
           <SelectField
             label="Engineer"
             value={engineerId}
             onChange={(e) => setEngineerId(e.target.value)}
             error={errors.engineerMemberId}
-            options={[{ value: '', label: 'Nobody yet' }, ...engineers.map((m) => ({ value: String(m.memberId), label: m.name }))]}
+            options={[
+              { value: '', label: 'Nobody yet' },
+              ...engineers.map((m) => ({ value: String(m.memberId), label: m.name })),
+            ]}
           />
         </fieldset>
 
@@ -135,7 +169,11 @@ export function NewJobForm({
               value={draft.boilerKind}
               onChange={(e) => {
                 const boilerKind = e.target.value as SurveyDraft['boilerKind'];
-                set(heatExchangerEdited ? { boilerKind } : { boilerKind, heatExchangerLitres: String(defaultHeatExchangerLitres[boilerKind]) });
+                set(
+                  heatExchangerEdited
+                    ? { boilerKind }
+                    : { boilerKind, heatExchangerLitres: String(defaultHeatExchangerLitres[boilerKind]) },
+                );
               }}
               options={boilerKinds.map((k) => ({ value: k, label: boilerLabels[k] }))}
             />

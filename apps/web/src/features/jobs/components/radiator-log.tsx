@@ -13,16 +13,25 @@ export function RadiatorLog({ jobId, sheet, timeZone }: { jobId: number; sheet: 
   if (sheet.radiators.length === 0) return <p className="text-ink-muted">The survey lists no radiators.</p>;
   return (
     <div className="space-y-4">
-      <p className="text-ink-muted">A cold bottom is flagged when the top is more than {sheet.coldBottomThresholdK} K warmer than the bottom (the firm&apos;s setting).</p>
+      <p className="text-ink-muted">
+        A cold bottom is flagged when the top is more than {sheet.coldBottomThresholdK} K warmer than the bottom (the
+        firm&apos;s setting).
+      </p>
       <JudgementNote />
       {sheet.radiators.map((radiator) => {
         const name = `Radiator ${radiator.index + 1}: ${radiator.room}`;
         return (
-          <div key={radiator.index} role="group" aria-label={name} className="space-y-3 rounded-xl border-2 border-line-strong p-3">
+          <div
+            key={radiator.index}
+            role="group"
+            aria-label={name}
+            className="space-y-3 rounded-xl border-2 border-line-strong p-3"
+          >
             <div>
               <h3 className="text-lg font-bold text-brand-900">{name}</h3>
               <p className="text-sm text-ink-muted">
-                {panelLabel(radiator.panel)} · {radiator.ratedWatts ? `rated ${watts.format(radiator.ratedWatts)} W at dT 50` : 'no rated output'}
+                {panelLabel(radiator.panel)} ·{' '}
+                {radiator.ratedWatts ? `rated ${watts.format(radiator.ratedWatts)} W at dT 50` : 'no rated output'}
               </p>
             </div>
             <div className="grid gap-3 lg:grid-cols-3">

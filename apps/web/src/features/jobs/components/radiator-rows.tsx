@@ -7,31 +7,97 @@ import { panelTypes } from '@heatfleet/domain';
 
 const panelOptions = panelTypes.map((p) => ({ value: p, label: panelLabels[p] }));
 
-export function RadiatorRows({ rows, onChange, errors }: { rows: RadiatorDraft[]; onChange: (rows: RadiatorDraft[]) => void; errors: FieldErrors }) {
-  const update = (key: number, patch: Partial<RadiatorDraft>) => onChange(rows.map((r) => (r.key === key ? { ...r, ...patch } : r)));
+export function RadiatorRows({
+  rows,
+  onChange,
+  errors,
+}: {
+  rows: RadiatorDraft[];
+  onChange: (rows: RadiatorDraft[]) => void;
+  errors: FieldErrors;
+}) {
+  const update = (key: number, patch: Partial<RadiatorDraft>) =>
+    onChange(rows.map((r) => (r.key === key ? { ...r, ...patch } : r)));
   return (
     <fieldset className="space-y-3">
       <legend className="text-lg font-bold text-brand-900">Radiators</legend>
-      <p className="text-ink-muted">Give the height and length, or the litres from the maker&apos;s data. Without sizes the volume is estimated.</p>
+      <p className="text-ink-muted">
+        Give the height and length, or the litres from the maker&apos;s data. Without sizes the volume is estimated.
+      </p>
       {rows.map((row, i) => {
         const at = `survey.radiators.${i}`;
         const n = i + 1;
         return (
-          <div key={row.key} role="group" aria-label={`Radiator ${n}`} className="space-y-3 rounded-lg border border-line-strong p-3">
+          <div
+            key={row.key}
+            role="group"
+            aria-label={`Radiator ${n}`}
+            className="space-y-3 rounded-lg border border-line-strong p-3"
+          >
             <div className="flex items-center justify-between gap-2">
               <p className="font-bold">Radiator {n}</p>
-              <Button variant="danger" onClick={() => onChange(rows.filter((r) => r.key !== row.key))} aria-label={`Remove radiator ${n}`}>
+              <Button
+                variant="danger"
+                onClick={() => onChange(rows.filter((r) => r.key !== row.key))}
+                aria-label={`Remove radiator ${n}`}
+              >
                 Remove
               </Button>
             </div>
             <div className="grid gap-3 sm:grid-cols-2">
-              <TextField label="Room" name={`${at}.room`} value={row.room} onChange={(e) => update(row.key, { room: e.target.value })} error={errors[`${at}.room`]} />
-              <SelectField label="Panel type" name={`${at}.panel`} options={panelOptions} value={row.panel} onChange={(e) => update(row.key, { panel: e.target.value as RadiatorDraft['panel'] })} />
-              <TextField label="Height (mm)" name={`${at}.heightMm`} inputMode="numeric" value={row.heightMm} onChange={(e) => update(row.key, { heightMm: e.target.value })} error={errors[`${at}.heightMm`]} />
-              <TextField label="Length (mm)" name={`${at}.lengthMm`} inputMode="numeric" value={row.lengthMm} onChange={(e) => update(row.key, { lengthMm: e.target.value })} error={errors[`${at}.lengthMm`]} />
-              <TextField label="Or litres, if known" name={`${at}.litres`} inputMode="decimal" value={row.litres} onChange={(e) => update(row.key, { litres: e.target.value })} error={errors[`${at}.litres`]} />
-              <TextField label="Rated output (W), if known" name={`${at}.ratedWatts`} inputMode="numeric" value={row.ratedWatts} onChange={(e) => update(row.key, { ratedWatts: e.target.value })} error={errors[`${at}.ratedWatts`]} />
-              <TextField label="Cold spot note (optional)" name={`${at}.coldSpotNote`} value={row.coldSpotNote} onChange={(e) => update(row.key, { coldSpotNote: e.target.value })} error={errors[`${at}.coldSpotNote`]} />
+              <TextField
+                label="Room"
+                name={`${at}.room`}
+                value={row.room}
+                onChange={(e) => update(row.key, { room: e.target.value })}
+                error={errors[`${at}.room`]}
+              />
+              <SelectField
+                label="Panel type"
+                name={`${at}.panel`}
+                options={panelOptions}
+                value={row.panel}
+                onChange={(e) => update(row.key, { panel: e.target.value as RadiatorDraft['panel'] })}
+              />
+              <TextField
+                label="Height (mm)"
+                name={`${at}.heightMm`}
+                inputMode="numeric"
+                value={row.heightMm}
+                onChange={(e) => update(row.key, { heightMm: e.target.value })}
+                error={errors[`${at}.heightMm`]}
+              />
+              <TextField
+                label="Length (mm)"
+                name={`${at}.lengthMm`}
+                inputMode="numeric"
+                value={row.lengthMm}
+                onChange={(e) => update(row.key, { lengthMm: e.target.value })}
+                error={errors[`${at}.lengthMm`]}
+              />
+              <TextField
+                label="Or litres, if known"
+                name={`${at}.litres`}
+                inputMode="decimal"
+                value={row.litres}
+                onChange={(e) => update(row.key, { litres: e.target.value })}
+                error={errors[`${at}.litres`]}
+              />
+              <TextField
+                label="Rated output (W), if known"
+                name={`${at}.ratedWatts`}
+                inputMode="numeric"
+                value={row.ratedWatts}
+                onChange={(e) => update(row.key, { ratedWatts: e.target.value })}
+                error={errors[`${at}.ratedWatts`]}
+              />
+              <TextField
+                label="Cold spot note (optional)"
+                name={`${at}.coldSpotNote`}
+                value={row.coldSpotNote}
+                onChange={(e) => update(row.key, { coldSpotNote: e.target.value })}
+                error={errors[`${at}.coldSpotNote`]}
+              />
             </div>
           </div>
         );

@@ -1,5 +1,13 @@
 import { useState, type FormEvent } from 'react';
-import { radiatorReadingInputSchema, readingFigures, type JobSheet, type ReadingFigures, type ReadingPhase, type SavedReading, type SheetRadiator } from '@heatfleet/domain';
+import {
+  radiatorReadingInputSchema,
+  readingFigures,
+  type JobSheet,
+  type ReadingFigures,
+  type ReadingPhase,
+  type SavedReading,
+  type SheetRadiator,
+} from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
@@ -41,7 +49,17 @@ function readingInput(d: ReadingDraft): Record<keyof ReadingDraft, number | null
 
 export const watts = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 });
 
-function FiguresView({ figures, roomTaken, ratedWatts, live }: { figures: ReadingFigures | null; roomTaken: boolean; ratedWatts: number | null; live: boolean }) {
+function FiguresView({
+  figures,
+  roomTaken,
+  ratedWatts,
+  live,
+}: {
+  figures: ReadingFigures | null;
+  roomTaken: boolean;
+  ratedWatts: number | null;
+  live: boolean;
+}) {
   if (!figures) return <p className="text-ink-muted">Enter the top and bottom temperatures to see the difference.</p>;
   return (
     <div className="space-y-1 rounded-md bg-canvas px-3 py-2">
@@ -50,7 +68,11 @@ function FiguresView({ figures, roomTaken, ratedWatts, live }: { figures: Readin
         {figures.coldBottom ? <Badge tone="danger">Cold bottom</Badge> : <Badge tone="ok">No cold bottom</Badge>}
       </p>
       <p className="tabular-nums">
-        Mean water to room {figures.deltaTK} K <span className="text-ink-muted">({figures.deltaTFrom === 'flow_return' ? 'from flow and return' : 'from the surfaces'}, room {figures.roomUsedC} °C{roomTaken ? '' : ' (not taken: the rating room)'})</span>
+        Mean water to room {figures.deltaTK} K{' '}
+        <span className="text-ink-muted">
+          ({figures.deltaTFrom === 'flow_return' ? 'from flow and return' : 'from the surfaces'}, room{' '}
+          {figures.roomUsedC} °C{roomTaken ? '' : ' (not taken: the rating room)'})
+        </span>
       </p>
       <p className="tabular-nums">
         {figures.outputWatts !== null && ratedWatts !== null
@@ -63,7 +85,17 @@ function FiguresView({ figures, roomTaken, ratedWatts, live }: { figures: Readin
 }
 
 /** One radiator's readings before or after the clean, with the figures worked out live by the domain's `readingFigures`. */
-export function ReadingForm({ jobId, radiator, phase, sheet }: { jobId: number; radiator: SheetRadiator; phase: ReadingPhase; sheet: JobSheet }) {
+export function ReadingForm({
+  jobId,
+  radiator,
+  phase,
+  sheet,
+}: {
+  jobId: number;
+  radiator: SheetRadiator;
+  phase: ReadingPhase;
+  sheet: JobSheet;
+}) {
   const saved = radiator[phase];
   const [draft, setDraft] = useState<ReadingDraft>(() => readingDraft(saved));
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -84,13 +116,21 @@ export function ReadingForm({ jobId, radiator, phase, sheet }: { jobId: number; 
     save.mutate(
       { index: radiator.index, phase, reading: parsed.data },
       // The saved reading comes back with the room it assumed (20 °C when not taken): show that.
-      { onSuccess: (next) => setDraft(readingDraft(next.radiators.find((r) => r.index === radiator.index)?.[phase] ?? null)) },
+      {
+        onSuccess: (next) =>
+          setDraft(readingDraft(next.radiators.find((r) => r.index === radiator.index)?.[phase] ?? null)),
+      },
     );
   };
 
   const title = `Readings ${phaseWords[phase]}`;
   return (
-    <form aria-label={title} noValidate onSubmit={submit} className="space-y-3 rounded-lg border border-line-strong p-3">
+    <form
+      aria-label={title}
+      noValidate
+      onSubmit={submit}
+      className="space-y-3 rounded-lg border border-line-strong p-3"
+    >
       <h4 className="font-bold">{phase === 'before' ? 'Before the clean' : 'After the clean'}</h4>
       <fieldset disabled={!sheet.editable} className="grid grid-cols-2 gap-3">
         {readingFields.map(([key, label]) => (
@@ -110,7 +150,12 @@ export function ReadingForm({ jobId, radiator, phase, sheet }: { jobId: number; 
           />
         ))}
       </fieldset>
-      <FiguresView figures={figures} roomTaken={saved && !dirty ? saved.roomC != null : parsed.success && parsed.data.roomC != null} ratedWatts={radiator.ratedWatts} live={dirty && live !== null} />
+      <FiguresView
+        figures={figures}
+        roomTaken={saved && !dirty ? saved.roomC != null : parsed.success && parsed.data.roomC != null}
+        ratedWatts={radiator.ratedWatts}
+        live={dirty && live !== null}
+      />
       {sheet.editable ? (
         <>
           <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
@@ -122,4 +167,3 @@ export function ReadingForm({ jobId, radiator, phase, sheet }: { jobId: number; 
     </form>
   );
 }
-

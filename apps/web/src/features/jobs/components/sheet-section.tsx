@@ -4,7 +4,17 @@ import { useId, type ReactNode } from 'react';
  * One part of the job sheet: a card whose heading opens and closes it, so an engineer can fold away
  * what is done. Native details/summary: no hover, a large tap target, and it works without script.
  */
-export function SheetSection({ title, summary, children, defaultOpen = true }: { title: string; summary?: ReactNode; children: ReactNode; defaultOpen?: boolean }) {
+export function SheetSection({
+  title,
+  summary,
+  children,
+  defaultOpen = true,
+}: {
+  title: string;
+  summary?: ReactNode;
+  children: ReactNode;
+  defaultOpen?: boolean;
+}) {
   const id = useId();
   return (
     <section aria-labelledby={id} className="rounded-xl border border-line bg-card shadow-sm">
@@ -16,7 +26,10 @@ export function SheetSection({ title, summary, children, defaultOpen = true }: {
             </h2>
             {summary ? <span className="block text-sm text-ink-muted">{summary}</span> : null}
           </span>
-          <span aria-hidden="true" className="shrink-0 text-2xl leading-none text-brand-700 transition-transform group-open:rotate-180">
+          <span
+            aria-hidden="true"
+            className="shrink-0 text-2xl leading-none text-brand-700 transition-transform group-open:rotate-180"
+          >
             ⌄
           </span>
         </summary>

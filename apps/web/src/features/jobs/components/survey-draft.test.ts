@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { surveySchema, surveyVolume } from '@heatfleet/domain';
-import { draftToLiveSurvey, draftToSurveyInput, emptyPipeRun, emptyRadiator, initialSurveyDraft, type SurveyDraft } from './survey-draft';
+import {
+  draftToLiveSurvey,
+  draftToSurveyInput,
+  emptyPipeRun,
+  emptyRadiator,
+  initialSurveyDraft,
+  type SurveyDraft,
+} from './survey-draft';
 
 function draft(patch: Partial<SurveyDraft>): SurveyDraft {
   return { ...initialSurveyDraft(), heatExchangerLitres: '', ...patch };
@@ -41,8 +48,16 @@ describe('the survey draft on submit', () => {
   });
 
   it('sends a bore only for plastic pipe', () => {
-    const d = draft({ pipeRuns: [{ ...emptyPipeRun(), tube: '15', boreMm: '11', lengthM: '3' }, { ...emptyPipeRun(), tube: 'plastic', boreMm: '11', lengthM: '3' }] });
+    const d = draft({
+      pipeRuns: [
+        { ...emptyPipeRun(), tube: '15', boreMm: '11', lengthM: '3' },
+        { ...emptyPipeRun(), tube: 'plastic', boreMm: '11', lengthM: '3' },
+      ],
+    });
     const input = draftToSurveyInput(d) as { pipeRuns: object[] };
-    expect(input.pipeRuns).toEqual([{ tube: '15', lengthM: 3 }, { tube: 'plastic', boreMm: 11, lengthM: 3 }]);
+    expect(input.pipeRuns).toEqual([
+      { tube: '15', lengthM: 3 },
+      { tube: 'plastic', boreMm: 11, lengthM: 3 },
+    ]);
   });
 });

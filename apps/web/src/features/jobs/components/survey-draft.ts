@@ -59,7 +59,16 @@ export function newRowKey(): number {
 }
 
 export function emptyRadiator(): RadiatorDraft {
-  return { key: newRowKey(), room: '', panel: 'single', heightMm: '', lengthMm: '', litres: '', ratedWatts: '', coldSpotNote: '' };
+  return {
+    key: newRowKey(),
+    room: '',
+    panel: 'single',
+    heightMm: '',
+    lengthMm: '',
+    litres: '',
+    ratedWatts: '',
+    coldSpotNote: '',
+  };
 }
 
 export function emptyPipeRun(): PipeRunDraft {

@@ -77,7 +77,15 @@ export function doseReason(dose: DoseFigures, radiators: number): string {
     : `The volume rule wins (or ties): ${packsText(dose.packsByVolume ?? 0)} by volume against ${packsText(dose.packsByRadiators)} by radiators.`;
 }
 
-export function DoseSummary({ dose, radiators, withGallons }: { dose: DoseFigures; radiators: number; withGallons: boolean }) {
+export function DoseSummary({
+  dose,
+  radiators,
+  withGallons,
+}: {
+  dose: DoseFigures;
+  radiators: number;
+  withGallons: boolean;
+}) {
   return (
     <div className="space-y-1">
       <p className="font-bold text-brand-900">
@@ -85,7 +93,9 @@ export function DoseSummary({ dose, radiators, withGallons }: { dose: DoseFigure
       </p>
       <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-base">
         <dt className="text-ink-muted">Product by volume</dt>
-        <dd className="tabular-nums">{dose.litres === null ? 'No rate set' : formatLitres(dose.litres, withGallons)}</dd>
+        <dd className="tabular-nums">
+          {dose.litres === null ? 'No rate set' : formatLitres(dose.litres, withGallons)}
+        </dd>
         <dt className="text-ink-muted">Packs by volume</dt>
         <dd className="tabular-nums">{dose.packsByVolume ?? 'None'}</dd>
         <dt className="text-ink-muted">Packs by radiators</dt>

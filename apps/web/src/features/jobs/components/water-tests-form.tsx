@@ -41,14 +41,22 @@ function waterDraft(water: JobSheet['water'], defaultInhibitorId: number | null)
 }
 
 function rangeOf(product: InhibitorChoice | undefined) {
-  return product && product.targetMin !== null && product.targetMax !== null ? { min: product.targetMin, max: product.targetMax, unit: product.targetUnit } : null;
+  return product && product.targetMin !== null && product.targetMax !== null
+    ? { min: product.targetMin, max: product.targetMax, unit: product.targetUnit }
+    : null;
 }
 
 function percent(n: number): string {
   return Number.isFinite(n) ? `${n}%` : 'too far';
 }
 
-function FlushResult({ flush, waterClear }: { flush: WaterTestFigures['flush']; waterClear: WaterDraft['waterClear'] }) {
+function FlushResult({
+  flush,
+  waterClear,
+}: {
+  flush: WaterTestFigures['flush'];
+  waterClear: WaterDraft['waterClear'];
+}) {
   if (!flush) return <p className="text-ink-muted">Enter the mains and system TDS to check the flush.</p>;
   if (flush.complete)
     return (
@@ -66,13 +74,29 @@ function FlushResult({ flush, waterClear }: { flush: WaterTestFigures['flush']; 
   );
 }
 
-function InhibitorResult({ figures, range, hasReading }: { figures: WaterTestFigures['inhibitor']; range: ReturnType<typeof rangeOf>; hasReading: boolean }) {
+function InhibitorResult({
+  figures,
+  range,
+  hasReading,
+}: {
+  figures: WaterTestFigures['inhibitor'];
+  range: ReturnType<typeof rangeOf>;
+  hasReading: boolean;
+}) {
   if (!range) return <p className="text-ink-muted">Choose an inhibitor with a target range to check the reading.</p>;
   const target = `target ${range.min} to ${range.max}${range.unit ? ` ${range.unit}` : ''}`;
   if (!figures || !hasReading) return <p className="text-ink-muted">Enter the reading after dosing: {target}.</p>;
   const tone =
-    figures.result === 'pass' ? 'border-ok-700 bg-ok-50 text-ok-700' : figures.result === 'low' ? 'border-danger-700 bg-danger-50 text-danger-700' : 'border-ember-500 bg-ember-100 text-ember-700';
-  const words = { pass: 'Inhibitor pass', low: 'Inhibitor low: dose more and test again', high: 'Inhibitor high: above the range' }[figures.result];
+    figures.result === 'pass'
+      ? 'border-ok-700 bg-ok-50 text-ok-700'
+      : figures.result === 'low'
+        ? 'border-danger-700 bg-danger-50 text-danger-700'
+        : 'border-ember-500 bg-ember-100 text-ember-700';
+  const words = {
+    pass: 'Inhibitor pass',
+    low: 'Inhibitor low: dose more and test again',
+    high: 'Inhibitor high: above the range',
+  }[figures.result];
   return <p className={`rounded-md border-l-4 px-3 py-2 font-semibold ${tone}`}>{`${words} (${target}).`}</p>;
 }
 
@@ -134,8 +158,24 @@ export function WaterTestsForm({
       <JudgementNote />
       <fieldset disabled={!sheet.editable} className="space-y-4">
         <div className="grid grid-cols-2 gap-3">
-          <TextField label="Mains TDS (ppm)" name="mainsTdsPpm" inputMode="decimal" autoComplete="off" value={draft.mainsTdsPpm} onChange={(e) => set({ mainsTdsPpm: e.target.value })} error={errors.mainsTdsPpm} />
-          <TextField label="System TDS (ppm)" name="systemTdsPpm" inputMode="decimal" autoComplete="off" value={draft.systemTdsPpm} onChange={(e) => set({ systemTdsPpm: e.target.value })} error={errors.systemTdsPpm} />
+          <TextField
+            label="Mains TDS (ppm)"
+            name="mainsTdsPpm"
+            inputMode="decimal"
+            autoComplete="off"
+            value={draft.mainsTdsPpm}
+            onChange={(e) => set({ mainsTdsPpm: e.target.value })}
+            error={errors.mainsTdsPpm}
+          />
+          <TextField
+            label="System TDS (ppm)"
+            name="systemTdsPpm"
+            inputMode="decimal"
+            autoComplete="off"
+            value={draft.systemTdsPpm}
+            onChange={(e) => set({ systemTdsPpm: e.target.value })}
+            error={errors.systemTdsPpm}
+          />
         </div>
         <p className="text-sm text-ink-muted">System TDS after the final flush, before the inhibitor goes in.</p>
         <ChoiceGroup
@@ -155,7 +195,10 @@ export function WaterTestsForm({
           label="Inhibitor"
           value={draft.inhibitorProductId}
           onChange={(e) => set({ inhibitorProductId: e.target.value })}
-          options={[{ value: '', label: 'Choose the inhibitor' }, ...inhibitors.map((p) => ({ value: String(p.id), label: p.name }))]}
+          options={[
+            { value: '', label: 'Choose the inhibitor' },
+            ...inhibitors.map((p) => ({ value: String(p.id), label: p.name })),
+          ]}
           error={errors.inhibitorProductId}
         />
         <div className="grid gap-3 sm:grid-cols-2">
@@ -168,7 +211,15 @@ export function WaterTestsForm({
             onChange={(e) => set({ inhibitorReading: e.target.value })}
             error={errors.inhibitorReading}
           />
-          <TextField label="pH, if taken" name="ph" inputMode="decimal" autoComplete="off" value={draft.ph} onChange={(e) => set({ ph: e.target.value })} error={errors.ph} />
+          <TextField
+            label="pH, if taken"
+            name="ph"
+            inputMode="decimal"
+            autoComplete="off"
+            value={draft.ph}
+            onChange={(e) => set({ ph: e.target.value })}
+            error={errors.ph}
+          />
         </div>
         <InhibitorResult figures={figures.inhibitor} range={range} hasReading={draft.inhibitorReading.trim() !== ''} />
       </fieldset>
@@ -186,6 +237,9 @@ export function WaterTestsForm({
 
 export function waterSummary(sheet: JobSheet): string {
   const { flush, inhibitor } = sheet.water.figures;
-  const parts = [flush ? (flush.complete ? 'flush complete' : 'flush not complete') : null, inhibitor ? `inhibitor ${inhibitor.result}` : null].filter(Boolean);
+  const parts = [
+    flush ? (flush.complete ? 'flush complete' : 'flush not complete') : null,
+    inhibitor ? `inhibitor ${inhibitor.result}` : null,
+  ].filter(Boolean);
   return parts.length ? parts.join(' · ') : 'Not tested yet';
 }

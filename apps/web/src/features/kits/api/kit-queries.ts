@@ -59,7 +59,8 @@ export const kitItemQueries = {
       placeholderData: keepPreviousData,
     }),
   details: () => [...kitItemQueries.all(), 'detail'] as const,
-  detail: (id: number) => queryOptions({ queryKey: [...kitItemQueries.details(), id] as const, queryFn: () => getKitItem(id) }),
+  detail: (id: number) =>
+    queryOptions({ queryKey: [...kitItemQueries.details(), id] as const, queryFn: () => getKitItem(id) }),
 };
 
 export const itemKindQueries = {

@@ -4,14 +4,23 @@ import { apiClient } from '@/lib/api-client';
 import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 
 export function recordInspection(itemId: number, input: RecordInspectionInput, idempotencyKey: string) {
-  return apiClient.post(`/api/kit-items/${itemId}/inspections`, input, inspectionRecordedResponseSchema, { idempotencyKey });
+  return apiClient.post(`/api/kit-items/${itemId}/inspections`, input, inspectionRecordedResponseSchema, {
+    idempotencyKey,
+  });
 }
 
 export function useRecordInspection() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ itemId, input, idempotencyKey }: { itemId: number; input: RecordInspectionInput; idempotencyKey: string }) =>
-      recordInspection(itemId, input, idempotencyKey),
+    mutationFn: ({
+      itemId,
+      input,
+      idempotencyKey,
+    }: {
+      itemId: number;
+      input: RecordInspectionInput;
+      idempotencyKey: string;
+    }) => recordInspection(itemId, input, idempotencyKey),
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: kitItemQueries.all() }),

@@ -1,5 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { kitItemResponseSchema, kitResponseSchema, type CreateKitInput, type CreateKitItemInput, type UpdateKitItemInput, type updateKitInputSchema } from '@heatfleet/domain';
+import {
+  kitItemResponseSchema,
+  kitResponseSchema,
+  type CreateKitInput,
+  type CreateKitItemInput,
+  type UpdateKitItemInput,
+  type updateKitInputSchema,
+} from '@heatfleet/domain';
 import type { z } from 'zod';
 import { apiClient } from '@/lib/api-client';
 import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';

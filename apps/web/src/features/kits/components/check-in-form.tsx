@@ -10,7 +10,12 @@ import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
 import { uploadPhoto } from '@/features/kits/api/upload-photo';
 import { useCustody, type CustodyScope } from '@/features/kits/api/use-custody';
-import { defaultScope, ScopeChoice, type CustodyDepot, type CustodyTargets } from '@/features/kits/components/custody-shared';
+import {
+  defaultScope,
+  ScopeChoice,
+  type CustodyDepot,
+  type CustodyTargets,
+} from '@/features/kits/components/custody-shared';
 import { PhotoField } from '@/features/kits/components/photo-field';
 
 const fields = ['condition', 'missingParts', 'note', 'toLocationId'] as const;
@@ -65,14 +70,19 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
           }
           photoId = uploaded.current.id;
         }
-        const body = { scope, request: { action: 'check-in' as const, input: { ...input, ...(photoId ? { photoId } : {}) } } };
+        const body = {
+          scope,
+          request: { action: 'check-in' as const, input: { ...input, ...(photoId ? { photoId } : {}) } },
+        };
         custody.mutate(
           { ...body, idempotencyKey: idempotency.keyFor(body) },
           {
             onSuccess: () => {
               idempotency.done();
               const depot = depots.find((d) => d.id === input.toLocationId) ?? depots[0];
-              onDone(`Checked in${depot ? ` to ${depot.name}` : ''}, ${itemConditionLabels[input.condition].toLowerCase()}.`);
+              onDone(
+                `Checked in${depot ? ` to ${depot.name}` : ''}, ${itemConditionLabels[input.condition].toLowerCase()}.`,
+              );
             },
             onError: form.showError,
           },
@@ -95,7 +105,12 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
           error={form.fieldErrors.toLocationId}
         />
       ) : null}
-      <TextField label="Missing parts (if any)" name="missingParts" autoComplete="off" error={form.fieldErrors.missingParts} />
+      <TextField
+        label="Missing parts (if any)"
+        name="missingParts"
+        autoComplete="off"
+        error={form.fieldErrors.missingParts}
+      />
       <TextareaField label="Note (optional)" name="note" error={form.fieldErrors.note} />
       <PhotoField label="Photo (optional)" file={photo} onChange={setPhoto} error={form.fieldErrors.photoId} />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}

@@ -103,7 +103,10 @@ export function CheckOutForm({ targets, vans, items, onDone, onCancel }: CheckOu
           label="To which van"
           name="toLocationId"
           defaultValue=""
-          options={[{ value: '', label: 'Choose a van…' }, ...vans.map((van) => ({ value: String(van.id), label: vanLabel(van) }))]}
+          options={[
+            { value: '', label: 'Choose a van…' },
+            ...vans.map((van) => ({ value: String(van.id), label: vanLabel(van) })),
+          ]}
           error={form.fieldErrors.toLocationId}
         />
       )}

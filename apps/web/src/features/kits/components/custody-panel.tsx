@@ -5,7 +5,12 @@ import { Button } from '@/components/ui/button';
 import { useAbility } from '@/lib/ability';
 import { CheckInForm } from '@/features/kits/components/check-in-form';
 import { CheckOutForm } from '@/features/kits/components/check-out-form';
-import { canHandleVan, type CustodyDepot, type CustodyTargets, type CustodyVan } from '@/features/kits/components/custody-shared';
+import {
+  canHandleVan,
+  type CustodyDepot,
+  type CustodyTargets,
+  type CustodyVan,
+} from '@/features/kits/components/custody-shared';
 import { LocationText } from '@/features/kits/components/location-text';
 import { MoveForm } from '@/features/kits/components/move-form';
 
@@ -89,7 +94,9 @@ export function CustodyPanel({ firmId, targets, location, vans, depots, items }:
           ) : null}
         </div>
       ) : null}
-      {open === 'check-out' ? <CheckOutForm targets={targets} vans={outTargets} items={items} onDone={finish} onCancel={cancel} /> : null}
+      {open === 'check-out' ? (
+        <CheckOutForm targets={targets} vans={outTargets} items={items} onDone={finish} onCancel={cancel} />
+      ) : null}
       {open === 'check-in' ? <CheckInForm targets={targets} depots={depots} onDone={finish} onCancel={cancel} /> : null}
       {open === 'move' ? <MoveForm targets={targets} vans={moveTargets} onDone={finish} onCancel={cancel} /> : null}
     </section>

@@ -24,7 +24,10 @@ export function vanLabel(van: CustodyVan): string {
 
 /** Whether this member may check kit out to, in from, or on from this van: the same rule the API applies. */
 export function canHandleVan(ability: AppAbility, firmId: number, van: CustodyVan): boolean {
-  return ability.can('create', subject('Custody', { firmId, kind: 'van' as const, engineerMemberId: van.engineerMemberId }));
+  return ability.can(
+    'create',
+    subject('Custody', { firmId, kind: 'van' as const, engineerMemberId: van.engineerMemberId }),
+  );
 }
 
 /** What a custody form acts on: a kit, or one item which may belong to a kit. */
@@ -40,7 +43,15 @@ export function defaultScope(targets: CustodyTargets): CustodyScope {
 }
 
 /** On an item's page, when the item belongs to a kit: move the whole kit (the usual case) or only this item. */
-export function ScopeChoice({ targets, scope, onChange }: { targets: CustodyTargets; scope: CustodyScope; onChange: (scope: CustodyScope) => void }) {
+export function ScopeChoice({
+  targets,
+  scope,
+  onChange,
+}: {
+  targets: CustodyTargets;
+  scope: CustodyScope;
+  onChange: (scope: CustodyScope) => void;
+}) {
   const { kit, item } = targets;
   if (!kit || !item) return null;
   return (

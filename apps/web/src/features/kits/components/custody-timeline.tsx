@@ -19,7 +19,15 @@ function route(event: CustodyEvent): string {
  * The custody log, newest first. A kit's check-out writes one event per item; on a kit's page
  * those show as one line with the count, since they happened together.
  */
-export function CustodyTimeline({ events, timeZone, groupByKit = false }: { events: CustodyEvent[]; timeZone: string; groupByKit?: boolean }) {
+export function CustodyTimeline({
+  events,
+  timeZone,
+  groupByKit = false,
+}: {
+  events: CustodyEvent[];
+  timeZone: string;
+  groupByKit?: boolean;
+}) {
   const sorted = [...events].sort((a, b) => b.createdAt.localeCompare(a.createdAt) || b.id - a.id);
   const rows: { event: CustodyEvent; tags: string[] }[] = [];
   for (const event of sorted) {
@@ -43,7 +51,10 @@ export function CustodyTimeline({ events, timeZone, groupByKit = false }: { even
     <ol aria-label="Custody timeline" className="space-y-0">
       {rows.map(({ event, tags }) => (
         <li key={event.id} className="relative border-l-2 border-line pb-4 pl-5 last:pb-0">
-          <span aria-hidden="true" className={`absolute top-1.5 -left-[7px] size-3 rounded-full ${marks[event.action]}`} />
+          <span
+            aria-hidden="true"
+            className={`absolute top-1.5 -left-[7px] size-3 rounded-full ${marks[event.action]}`}
+          />
           <p className="font-semibold">
             {custodyActionLabels[event.action]}
             <span className="font-normal"> · {route(event)}</span>
@@ -54,10 +65,17 @@ export function CustodyTimeline({ events, timeZone, groupByKit = false }: { even
           </p>
           {event.condition ? <p className="text-sm">Condition: {itemConditionLabels[event.condition]}</p> : null}
           {event.missingParts ? <p className="text-sm text-ember-700">Missing: {event.missingParts}</p> : null}
-          {event.overdueReason ? <p className="text-sm text-ember-700">Out before inspection: {event.overdueReason}</p> : null}
+          {event.overdueReason ? (
+            <p className="text-sm text-ember-700">Out before inspection: {event.overdueReason}</p>
+          ) : null}
           {event.note ? <p className="text-sm whitespace-pre-line">{event.note}</p> : null}
           {event.photoId ? (
-            <a href={`/api/photos/${event.photoId}/content`} target="_blank" rel="noreferrer" className="text-sm text-brand-700 underline">
+            <a
+              href={`/api/photos/${event.photoId}/content`}
+              target="_blank"
+              rel="noreferrer"
+              className="text-sm text-brand-700 underline"
+            >
               Photo
             </a>
           ) : null}

@@ -58,7 +58,11 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
               uploaded.current = null;
               setPhoto(null);
               setFormKey((n) => n + 1);
-              setSaved(inspection.result === 'passed' ? 'Inspection recorded: passed.' : 'Inspection recorded: failed. The item now needs attention.');
+              setSaved(
+                inspection.result === 'passed'
+                  ? 'Inspection recorded: passed.'
+                  : 'Inspection recorded: failed. The item now needs attention.',
+              );
             },
             onError: form.showError,
           },
@@ -76,7 +80,14 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
         ]}
         error={form.fieldErrors.result}
       />
-      <TextField label="Inspected on" name="inspectedOn" type="date" defaultValue={today} max={today} error={form.fieldErrors.inspectedOn} />
+      <TextField
+        label="Inspected on"
+        name="inspectedOn"
+        type="date"
+        defaultValue={today}
+        max={today}
+        error={form.fieldErrors.inspectedOn}
+      />
       <TextareaField label="Notes (optional)" name="notes" error={form.fieldErrors.notes} />
       <PhotoField label="Photo (optional)" file={photo} onChange={setPhoto} error={form.fieldErrors.photoId} />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}

@@ -14,8 +14,16 @@ export function InspectionStateBadge({ state }: { state: InspectionState }) {
 export function describeDue(inspection: KitItem['inspection']): string {
   if (inspection.state === 'no_rule') return 'No inspection rule for this kind.';
   const parts: string[] = [];
-  if (inspection.dueOn) parts.push(`${inspection.state === 'overdue' && inspection.reason === 'days' ? 'was due' : 'due'} ${formatCalendarDate(inspection.dueOn)}`);
-  if (inspection.usesLeft !== null) parts.push(inspection.usesLeft === 0 ? 'no uses left' : `${inspection.usesLeft} use${inspection.usesLeft === 1 ? '' : 's'} left`);
+  if (inspection.dueOn)
+    parts.push(
+      `${inspection.state === 'overdue' && inspection.reason === 'days' ? 'was due' : 'due'} ${formatCalendarDate(inspection.dueOn)}`,
+    );
+  if (inspection.usesLeft !== null)
+    parts.push(
+      inspection.usesLeft === 0
+        ? 'no uses left'
+        : `${inspection.usesLeft} use${inspection.usesLeft === 1 ? '' : 's'} left`,
+    );
   const text = parts.join(' or ');
   return text.charAt(0).toUpperCase() + text.slice(1) + '.';
 }
@@ -24,7 +32,9 @@ export function ItemDue({ item }: { item: KitItem }) {
   return (
     <span className="inline-flex flex-wrap items-center gap-x-2 gap-y-1 max-sm:justify-end">
       <InspectionStateBadge state={item.inspection.state} />
-      {item.inspection.state === 'no_rule' ? null : <span className="text-sm text-ink-muted">{describeDue(item.inspection)}</span>}
+      {item.inspection.state === 'no_rule' ? null : (
+        <span className="text-sm text-ink-muted">{describeDue(item.inspection)}</span>
+      )}
     </span>
   );
 }

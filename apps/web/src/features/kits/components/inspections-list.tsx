@@ -2,7 +2,13 @@ import type { Inspection } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { formatCalendarDate } from '@/lib/format';
 
-export function InspectionsList({ inspections, assetTags }: { inspections: Inspection[]; assetTags?: Map<number, string> }) {
+export function InspectionsList({
+  inspections,
+  assetTags,
+}: {
+  inspections: Inspection[];
+  assetTags?: Map<number, string>;
+}) {
   const sorted = [...inspections].sort((a, b) => b.inspectedOn.localeCompare(a.inspectedOn) || b.id - a.id);
   if (sorted.length === 0) return <p className="text-ink-muted">No inspections recorded yet.</p>;
   return (
@@ -10,14 +16,23 @@ export function InspectionsList({ inspections, assetTags }: { inspections: Inspe
       {sorted.map((inspection) => (
         <li key={inspection.id} className="py-3">
           <p className="flex flex-wrap items-center gap-2">
-            <Badge tone={inspection.result === 'passed' ? 'ok' : 'danger'}>{inspection.result === 'passed' ? 'Passed' : 'Failed'}</Badge>
+            <Badge tone={inspection.result === 'passed' ? 'ok' : 'danger'}>
+              {inspection.result === 'passed' ? 'Passed' : 'Failed'}
+            </Badge>
             <span className="font-semibold">{formatCalendarDate(inspection.inspectedOn)}</span>
             <span className="text-sm text-ink-muted">by {inspection.byName}</span>
-            {assetTags?.get(inspection.itemId) ? <span className="font-mono text-sm">{assetTags.get(inspection.itemId)}</span> : null}
+            {assetTags?.get(inspection.itemId) ? (
+              <span className="font-mono text-sm">{assetTags.get(inspection.itemId)}</span>
+            ) : null}
           </p>
           {inspection.notes ? <p className="mt-1 text-sm whitespace-pre-line">{inspection.notes}</p> : null}
           {inspection.photoId ? (
-            <a href={`/api/photos/${inspection.photoId}/content`} target="_blank" rel="noreferrer" className="text-sm text-brand-700 underline">
+            <a
+              href={`/api/photos/${inspection.photoId}/content`}
+              target="_blank"
+              rel="noreferrer"
+              className="text-sm text-brand-700 underline"
+            >
               Photo
             </a>
           ) : null}

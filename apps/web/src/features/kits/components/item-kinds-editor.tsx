@@ -61,7 +61,13 @@ function ItemKindForm({ kind, onDone }: { kind?: ItemKind; onDone: () => void })
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-3">
-        <TextField label="Kind name" name="name" defaultValue={kind?.name} autoComplete="off" error={form.fieldErrors.name} />
+        <TextField
+          label="Kind name"
+          name="name"
+          defaultValue={kind?.name}
+          autoComplete="off"
+          error={form.fieldErrors.name}
+        />
         <TextField
           label="Inspect every N days"
           name="intervalDays"
@@ -99,7 +105,12 @@ function ItemKindForm({ kind, onDone }: { kind?: ItemKind; onDone: () => void })
           error={form.fieldErrors.overduePolicy}
         />
         <label className="flex min-h-11 items-center gap-3 self-end font-semibold">
-          <input type="checkbox" name="electrical" defaultChecked={kind?.electrical ?? false} className="size-5 accent-brand-700" />
+          <input
+            type="checkbox"
+            name="electrical"
+            defaultChecked={kind?.electrical ?? false}
+            className="size-5 accent-brand-700"
+          />
           Electrical (tested on the firm&apos;s schedule)
         </label>
       </div>
@@ -135,7 +146,8 @@ export function ItemKindsEditor() {
                 <div className="min-w-0">
                   <p className="font-semibold">{kind.name}</p>
                   <p className="text-sm text-ink-muted">
-                    {describeRule(kind)}. {overduePolicyLabels[kind.overduePolicy]}.{kind.electrical ? ' Electrical.' : ''}
+                    {describeRule(kind)}. {overduePolicyLabels[kind.overduePolicy]}.
+                    {kind.electrical ? ' Electrical.' : ''}
                   </p>
                 </div>
                 <Button variant="secondary" onClick={() => setEditing(kind.id)}>

@@ -12,7 +12,10 @@ export const kitColumns: DataTableColumns<Kit> = helper.columns([
     header: 'Kit',
     sortFn: 'alphanumeric',
     cell: (info) => (
-      <Link to={paths.kit.getHref(info.row.original.id)} className="font-semibold text-brand-700 underline underline-offset-4">
+      <Link
+        to={paths.kit.getHref(info.row.original.id)}
+        className="font-semibold text-brand-700 underline underline-offset-4"
+      >
         {info.getValue()}
       </Link>
     ),

@@ -20,12 +20,26 @@ export function KitEditForm({ kit, onDone }: { kit: Kit; onDone: () => void }) {
       noValidate
       aria-label={`Edit ${kit.name}`}
       className="space-y-4"
-      onSubmit={form.handleSubmit((input) => update.mutate({ id: kit.id, ...input }, { onError: form.showError, onSuccess: onDone }))}
+      onSubmit={form.handleSubmit((input) =>
+        update.mutate({ id: kit.id, ...input }, { onError: form.showError, onSuccess: onDone }),
+      )}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Kit name" name="name" defaultValue={kit.name} autoComplete="off" error={form.fieldErrors.name} />
-        <TextField label="Notes" name="notes" defaultValue={kit.notes ?? ''} autoComplete="off" error={form.fieldErrors.notes} />
+        <TextField
+          label="Kit name"
+          name="name"
+          defaultValue={kit.name}
+          autoComplete="off"
+          error={form.fieldErrors.name}
+        />
+        <TextField
+          label="Notes"
+          name="notes"
+          defaultValue={kit.notes ?? ''}
+          autoComplete="off"
+          error={form.fieldErrors.notes}
+        />
       </div>
       <div className="flex flex-wrap gap-2">
         <Button type="submit" busy={update.isPending}>

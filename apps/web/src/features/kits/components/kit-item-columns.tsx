@@ -12,7 +12,10 @@ export const kitItemColumns: DataTableColumns<KitItem> = helper.columns([
     header: 'Asset tag',
     sortFn: 'alphanumeric',
     cell: (info) => (
-      <Link to={paths.kitItem.getHref(info.row.original.id)} className="font-mono font-semibold text-brand-700 underline underline-offset-4">
+      <Link
+        to={paths.kitItem.getHref(info.row.original.id)}
+        className="font-mono font-semibold text-brand-700 underline underline-offset-4"
+      >
         {info.getValue()}
       </Link>
     ),
@@ -31,7 +34,9 @@ export const kitItemColumns: DataTableColumns<KitItem> = helper.columns([
     // The server sorts the items list and has no condition order.
     enableSorting: false,
     cell: (info) => (
-      <span className={info.row.original.condition === 'in_service' ? '' : 'font-semibold text-ember-700'}>{info.getValue()}</span>
+      <span className={info.row.original.condition === 'in_service' ? '' : 'font-semibold text-ember-700'}>
+        {info.getValue()}
+      </span>
     ),
   }),
   helper.accessor((item) => inspectionStates.indexOf(item.inspection.state), {

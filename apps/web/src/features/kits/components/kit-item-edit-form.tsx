@@ -28,19 +28,36 @@ export function KitItemEditForm({ item, onDone }: { item: KitItem; onDone: () =>
   const update = useUpdateKitItem();
   const form = useSchemaForm(updateKitItemInputSchema, fields, prepare);
   const kindOptions = (kinds.data ?? [item.kind]).map((k) => ({ value: String(k.id), label: k.name }));
-  const kitOptions = [{ value: '', label: 'Loose (no kit)' }, ...(kits.data ?? (item.kit ? [item.kit] : [])).map((k) => ({ value: String(k.id), label: k.name }))];
+  const kitOptions = [
+    { value: '', label: 'Loose (no kit)' },
+    ...(kits.data ?? (item.kit ? [item.kit] : [])).map((k) => ({ value: String(k.id), label: k.name })),
+  ];
   return (
     <form
       ref={form.formRef}
       noValidate
       aria-label={`Edit ${item.assetTag}`}
       className="space-y-4"
-      onSubmit={form.handleSubmit((input) => update.mutate({ id: item.id, ...input }, { onError: form.showError, onSuccess: onDone }))}
+      onSubmit={form.handleSubmit((input) =>
+        update.mutate({ id: item.id, ...input }, { onError: form.showError, onSuccess: onDone }),
+      )}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Kind" name="kindId" defaultValue={String(item.kind.id)} options={kindOptions} error={form.fieldErrors.kindId} />
-        <SelectField label="Kit" name="kitId" defaultValue={item.kit ? String(item.kit.id) : ''} options={kitOptions} error={form.fieldErrors.kitId} />
+        <SelectField
+          label="Kind"
+          name="kindId"
+          defaultValue={String(item.kind.id)}
+          options={kindOptions}
+          error={form.fieldErrors.kindId}
+        />
+        <SelectField
+          label="Kit"
+          name="kitId"
+          defaultValue={item.kit ? String(item.kit.id) : ''}
+          options={kitOptions}
+          error={form.fieldErrors.kitId}
+        />
         <SelectField
           label="Condition"
           name="condition"
@@ -48,8 +65,21 @@ export function KitItemEditForm({ item, onDone }: { item: KitItem; onDone: () =>
           options={itemConditions.map((c) => ({ value: c, label: itemConditionLabels[c] }))}
           error={form.fieldErrors.condition}
         />
-        <TextField label="Serial number" name="serialNumber" defaultValue={item.serialNumber ?? ''} autoComplete="off" error={form.fieldErrors.serialNumber} />
-        <TextField label="Notes" name="notes" defaultValue={item.notes ?? ''} autoComplete="off" error={form.fieldErrors.notes} className="sm:col-span-2" />
+        <TextField
+          label="Serial number"
+          name="serialNumber"
+          defaultValue={item.serialNumber ?? ''}
+          autoComplete="off"
+          error={form.fieldErrors.serialNumber}
+        />
+        <TextField
+          label="Notes"
+          name="notes"
+          defaultValue={item.notes ?? ''}
+          autoComplete="off"
+          error={form.fieldErrors.notes}
+          className="sm:col-span-2"
+        />
         <TextField
           label="Vibration magnitude (m/s²)"
           name="vibrationMs2"

@@ -55,19 +55,32 @@ export function KitItemForm({ places }: { places: PlaceOption[] }) {
         </Alert>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-3">
-        <TextField label="Asset tag" name="assetTag" required autoCapitalize="characters" autoComplete="off" error={form.fieldErrors.assetTag} />
+        <TextField
+          label="Asset tag"
+          name="assetTag"
+          required
+          autoCapitalize="characters"
+          autoComplete="off"
+          error={form.fieldErrors.assetTag}
+        />
         <SelectField
           label="Kind"
           name="kindId"
           defaultValue=""
-          options={[{ value: '', label: 'Choose a kind…' }, ...(kinds.data ?? []).map((k) => ({ value: String(k.id), label: k.name }))]}
+          options={[
+            { value: '', label: 'Choose a kind…' },
+            ...(kinds.data ?? []).map((k) => ({ value: String(k.id), label: k.name })),
+          ]}
           error={form.fieldErrors.kindId}
         />
         <SelectField
           label="Kit"
           name="kitId"
           defaultValue=""
-          options={[{ value: '', label: 'Loose (no kit)' }, ...(kits.data ?? []).map((k) => ({ value: String(k.id), label: k.name }))]}
+          options={[
+            { value: '', label: 'Loose (no kit)' },
+            ...(kits.data ?? []).map((k) => ({ value: String(k.id), label: k.name })),
+          ]}
           error={form.fieldErrors.kitId}
         />
         <TextField label="Serial number" name="serialNumber" autoComplete="off" error={form.fieldErrors.serialNumber} />
@@ -75,7 +88,10 @@ export function KitItemForm({ places }: { places: PlaceOption[] }) {
           label="Starts at"
           name="locationId"
           defaultValue=""
-          options={[{ value: '', label: 'The main depot' }, ...places.map((p) => ({ value: String(p.id), label: p.label }))]}
+          options={[
+            { value: '', label: 'The main depot' },
+            ...places.map((p) => ({ value: String(p.id), label: p.label })),
+          ]}
           error={form.fieldErrors.locationId}
         />
         <TextField label="Notes" name="notes" autoComplete="off" error={form.fieldErrors.notes} />

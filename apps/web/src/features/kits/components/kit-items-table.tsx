@@ -13,7 +13,13 @@ import { kitItemColumns } from '@/features/kits/components/kit-item-columns';
 const PAGE_SIZE = 25;
 const initialSorting = [{ id: 'assetTag', desc: false }];
 // Table column -> the API's sort key; a column the server cannot sort by falls back to the asset tag.
-const serverSortKeys: Record<string, NonNullable<KitItemFilters['sort']>> = { assetTag: 'assetTag', kind: 'kind', kit: 'kit', where: 'location', due: 'due' };
+const serverSortKeys: Record<string, NonNullable<KitItemFilters['sort']>> = {
+  assetTag: 'assetTag',
+  kind: 'kind',
+  kit: 'kit',
+  where: 'location',
+  due: 'due',
+};
 const columnOfSortKey = Object.fromEntries(Object.entries(serverSortKeys).map(([column, key]) => [key, column]));
 
 export interface PlaceOption {
@@ -76,7 +82,10 @@ export function KitItemsTable({ places }: { places: PlaceOption[] }) {
         label="Kind"
         value={filters.kindId ? String(filters.kindId) : ''}
         onChange={(event) => update({ kind: event.target.value })}
-        options={[{ value: '', label: 'All kinds' }, ...(kinds.data ?? []).map((k) => ({ value: String(k.id), label: k.name }))]}
+        options={[
+          { value: '', label: 'All kinds' },
+          ...(kinds.data ?? []).map((k) => ({ value: String(k.id), label: k.name })),
+        ]}
       />
       <SelectField
         label="Where"
@@ -88,7 +97,10 @@ export function KitItemsTable({ places }: { places: PlaceOption[] }) {
         label="Inspection"
         value={filters.inspectionState ?? ''}
         onChange={(event) => update({ due: event.target.value })}
-        options={[{ value: '', label: 'Any state' }, ...inspectionStates.map((s) => ({ value: s, label: inspectionStateLabels[s] }))]}
+        options={[
+          { value: '', label: 'Any state' },
+          ...inspectionStates.map((s) => ({ value: s, label: inspectionStateLabels[s] })),
+        ]}
       />
     </div>
   );
@@ -130,7 +142,10 @@ export function KitItemsTable({ places }: { places: PlaceOption[] }) {
         sorting: [{ id: columnOfSortKey[filters.sort ?? 'assetTag'] ?? 'assetTag', desc: filters.dir === 'desc' }],
         onSortingChange: (sorting) => {
           const first = sorting[0];
-          update({ sort: first ? (serverSortKeys[first.id] ?? 'assetTag') : undefined, dir: first?.desc ? 'desc' : undefined });
+          update({
+            sort: first ? (serverSortKeys[first.id] ?? 'assetTag') : undefined,
+            dir: first?.desc ? 'desc' : undefined,
+          });
         },
         rowCount: page.total,
         pageIndex: filters.page - 1,

@@ -12,7 +12,8 @@ const initialSorting = [{ id: 'name', desc: false }];
 export function KitsTable({ kits, caption = 'Kits of the firm' }: { kits?: Kit[]; caption?: string }) {
   const query = useQuery({ ...kitQueries.list(), enabled: kits === undefined });
   if (kits === undefined && query.isPending) return <PageSpinner label="Loading kits…" />;
-  if (kits === undefined && query.isError) return <QueryErrorNotice error={query.error} onRetry={() => void query.refetch()} />;
+  if (kits === undefined && query.isError)
+    return <QueryErrorNotice error={query.error} onRetry={() => void query.refetch()} />;
   return (
     <DataTable
       columns={kitColumns}

@@ -13,7 +13,9 @@ export function LocationText({ location }: { location: LocationRef | null }) {
   return (
     <span>
       {locationText(location)}
-      {location.kind === 'van' && location.engineerName ? <span className="text-ink-muted"> · {location.engineerName}</span> : null}
+      {location.kind === 'van' && location.engineerName ? (
+        <span className="text-ink-muted"> · {location.engineerName}</span>
+      ) : null}
     </span>
   );
 }

@@ -7,7 +7,13 @@ import { TextareaField } from '@/components/ui/textarea-field';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
 import { useCustody, type CustodyScope } from '@/features/kits/api/use-custody';
-import { defaultScope, ScopeChoice, vanLabel, type CustodyTargets, type CustodyVan } from '@/features/kits/components/custody-shared';
+import {
+  defaultScope,
+  ScopeChoice,
+  vanLabel,
+  type CustodyTargets,
+  type CustodyVan,
+} from '@/features/kits/components/custody-shared';
 
 const fields = ['toLocationId', 'note'] as const;
 
@@ -55,7 +61,10 @@ export function MoveForm({ targets, vans, onDone, onCancel }: MoveFormProps) {
         label="To which van"
         name="toLocationId"
         defaultValue=""
-        options={[{ value: '', label: 'Choose a van…' }, ...vans.map((van) => ({ value: String(van.id), label: vanLabel(van) }))]}
+        options={[
+          { value: '', label: 'Choose a van…' },
+          ...vans.map((van) => ({ value: String(van.id), label: vanLabel(van) })),
+        ]}
         error={form.fieldErrors.toLocationId}
       />
       <TextareaField label="Note (optional)" name="note" error={form.fieldErrors.note} />

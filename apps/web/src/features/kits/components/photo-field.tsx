@@ -5,7 +5,17 @@ import { photoProblem } from '@/features/kits/api/upload-photo';
  * An optional photo, taken with the phone's back camera where there is one. The file is checked
  * here against the server's limits; the form uploads it on submit.
  */
-export function PhotoField({ label, file, onChange, error }: { label: string; file: File | null; onChange: (file: File | null) => void; error?: string | undefined }) {
+export function PhotoField({
+  label,
+  file,
+  onChange,
+  error,
+}: {
+  label: string;
+  file: File | null;
+  onChange: (file: File | null) => void;
+  error?: string | undefined;
+}) {
   const id = useId();
   const [problem, setProblem] = useState<string | null>(null);
   const shown = problem ?? error;

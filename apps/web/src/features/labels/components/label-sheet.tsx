@@ -15,7 +15,11 @@ export function LabelSheet({ labels }: { labels: KitLabel[] }) {
           key={label.itemId}
           className="label flex break-inside-avoid flex-col items-center rounded-md border border-dashed border-line-strong bg-card p-3 text-center"
         >
-          <img src={label.qrSvgDataUrl} alt={`QR code for ${label.assetTag}`} className="aspect-square w-full max-w-40" />
+          <img
+            src={label.qrSvgDataUrl}
+            alt={`QR code for ${label.assetTag}`}
+            className="aspect-square w-full max-w-40"
+          />
           <p className="mt-1 font-mono text-lg font-bold break-all">{label.assetTag}</p>
           <p className="text-sm">{label.kindName}</p>
           {label.kitName ? <p className="text-sm font-semibold">{label.kitName}</p> : null}

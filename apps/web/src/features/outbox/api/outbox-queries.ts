@@ -16,5 +16,9 @@ export const outboxQueries = {
   lists: () => [...outboxQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: outboxQueries.lists(), queryFn: listOutboxMessages, staleTime: 0 }),
   detail: (id: string) =>
-    queryOptions({ queryKey: [...outboxQueries.all(), 'detail', id] as const, queryFn: () => getOutboxMessage(id), staleTime: Infinity }),
+    queryOptions({
+      queryKey: [...outboxQueries.all(), 'detail', id] as const,
+      queryFn: () => getOutboxMessage(id),
+      staleTime: Infinity,
+    }),
 };

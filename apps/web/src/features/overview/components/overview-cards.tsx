@@ -6,20 +6,48 @@ import { paths } from '@/config/paths';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
 
 /** A card whose heading is a link to the list it summarises: the whole heading is the touch target. */
-export function LinkCard({ title, to, linkLabel, children }: { title: string; to: string; linkLabel: string; children: ReactNode }) {
+export function LinkCard({
+  title,
+  to,
+  linkLabel,
+  children,
+}: {
+  title: string;
+  to: string;
+  linkLabel: string;
+  children: ReactNode;
+}) {
   return (
     <section className="flex flex-col rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6">
       <h2 className="text-lg font-bold text-brand-900">{title}</h2>
       <div className="mt-3 flex-1">{children}</div>
-      <Link to={to} className="mt-4 inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4">
+      <Link
+        to={to}
+        className="mt-4 inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4"
+      >
         {linkLabel}
       </Link>
     </section>
   );
 }
 
-function Figure({ value, label, tone = 'neutral' }: { value: number; label: string; tone?: 'neutral' | 'warn' | 'danger' | 'ok' }) {
-  const colour = tone === 'danger' ? 'text-danger-700' : tone === 'warn' ? 'text-ember-700' : tone === 'ok' ? 'text-ok-700' : 'text-brand-900';
+function Figure({
+  value,
+  label,
+  tone = 'neutral',
+}: {
+  value: number;
+  label: string;
+  tone?: 'neutral' | 'warn' | 'danger' | 'ok';
+}) {
+  const colour =
+    tone === 'danger'
+      ? 'text-danger-700'
+      : tone === 'warn'
+        ? 'text-ember-700'
+        : tone === 'ok'
+          ? 'text-ok-700'
+          : 'text-brand-900';
   return (
     <div>
       <p className={`text-3xl font-bold tabular-nums ${colour}`}>{value}</p>
@@ -29,7 +57,11 @@ function Figure({ value, label, tone = 'neutral' }: { value: number; label: stri
 }
 
 function vanConcern(v: OverviewVan) {
-  return v.stock.outOfStock * 100 + v.stock.belowMinimum * 10 + (v.nextDue?.state === 'overdue' ? 5 : v.nextDue?.state === 'due_soon' ? 1 : 0);
+  return (
+    v.stock.outOfStock * 100 +
+    v.stock.belowMinimum * 10 +
+    (v.nextDue?.state === 'overdue' ? 5 : v.nextDue?.state === 'due_soon' ? 1 : 0)
+  );
 }
 
 /** Stock health and MOT or service per van, the vans that need something first. */
@@ -40,7 +72,10 @@ export function VanHealthList({ vans }: { vans: OverviewVan[] }) {
     <ul className="divide-y divide-line">
       {sorted.map((v) => (
         <li key={v.id}>
-          <Link to={paths.van.getHref(v.id)} className="flex min-h-11 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between">
+          <Link
+            to={paths.van.getHref(v.id)}
+            className="flex min-h-11 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between"
+          >
             <span>
               <span className="font-semibold text-brand-700 underline underline-offset-4">{v.name}</span>
               <span className="block text-sm text-ink-muted">
@@ -54,7 +89,8 @@ export function VanHealthList({ vans }: { vans: OverviewVan[] }) {
               <Badge tone="neutral">{v.stock.usablePacks} usable packs</Badge>
               {v.nextDue && v.nextDue.state !== 'ok' ? (
                 <Badge tone={v.nextDue.state === 'overdue' ? 'danger' : 'warn'}>
-                  {v.nextDue.what} {v.nextDue.state === 'overdue' ? 'overdue' : 'due'} {formatCalendarDate(v.nextDue.on)}
+                  {v.nextDue.what} {v.nextDue.state === 'overdue' ? 'overdue' : 'due'}{' '}
+                  {formatCalendarDate(v.nextDue.on)}
                 </Badge>
               ) : null}
             </span>
@@ -77,7 +113,10 @@ export function KitDueSummary({ kit }: { kit: Overview['kit'] }) {
         <ul className="mt-3 space-y-1 text-sm">
           {items.map((i) => (
             <li key={i.id}>
-              <Link to={paths.kitItem.getHref(i.id)} className="font-semibold text-brand-700 underline underline-offset-4">
+              <Link
+                to={paths.kitItem.getHref(i.id)}
+                className="font-semibold text-brand-700 underline underline-offset-4"
+              >
                 {i.assetTag}
               </Link>{' '}
               {i.kindName}
@@ -97,7 +136,11 @@ export function KitDueSummary({ kit }: { kit: Overview['kit'] }) {
 export function ExpiringBatchesSummary({ expiring }: { expiring: Overview['expiringBatches'] }) {
   return (
     <>
-      <Figure value={expiring.count} label={`batch${expiring.count === 1 ? '' : 'es'} expired or expiring within ${expiring.withinDays} days (${expiring.packs} packs)`} tone={expiring.count ? 'warn' : 'ok'} />
+      <Figure
+        value={expiring.count}
+        label={`batch${expiring.count === 1 ? '' : 'es'} expired or expiring within ${expiring.withinDays} days (${expiring.packs} packs)`}
+        tone={expiring.count ? 'warn' : 'ok'}
+      />
       {expiring.batches.length > 0 ? (
         <ul className="mt-3 space-y-1 text-sm">
           {expiring.batches.map((b) => (
@@ -106,7 +149,9 @@ export function ExpiringBatchesSummary({ expiring }: { expiring: Overview['expir
               <span className={b.expired ? 'font-semibold text-danger-700' : 'text-ember-700'}>
                 {b.expired ? 'expired' : 'expires'} {formatCalendarDate(b.expiresOn)}
               </span>
-              <span className="block text-ink-muted">{b.places.map((p) => `${p.quantity} at ${p.name}`).join(', ')}</span>
+              <span className="block text-ink-muted">
+                {b.places.map((p) => `${p.quantity} at ${p.name}`).join(', ')}
+              </span>
             </li>
           ))}
         </ul>
@@ -116,7 +161,11 @@ export function ExpiringBatchesSummary({ expiring }: { expiring: Overview['expir
 }
 
 export function JobsThisMonthSummary({ jobs }: { jobs: Overview['jobsThisMonth'] }) {
-  const month = new Date(`${jobs.month}-01T00:00:00Z`).toLocaleDateString('en-GB', { month: 'long', year: 'numeric', timeZone: 'UTC' });
+  const month = new Date(`${jobs.month}-01T00:00:00Z`).toLocaleDateString('en-GB', {
+    month: 'long',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
   return (
     <>
       <p className="mb-2 text-sm text-ink-muted">{month}</p>
@@ -128,7 +177,13 @@ export function JobsThisMonthSummary({ jobs }: { jobs: Overview['jobsThisMonth']
   );
 }
 
-export function RecentReminders({ reminders, timeZone }: { reminders: NonNullable<Overview['reminders']>; timeZone: string }) {
+export function RecentReminders({
+  reminders,
+  timeZone,
+}: {
+  reminders: NonNullable<Overview['reminders']>;
+  timeZone: string;
+}) {
   if (reminders.length === 0) return <p className="text-ink-muted">No reminders yet.</p>;
   return (
     <ul className="space-y-2 text-sm">

@@ -7,7 +7,14 @@ import { paths } from '@/config/paths';
 import { overviewQueries } from '@/features/overview/api/overview-queries';
 import { HavToday } from '@/features/overview/components/hav-today';
 import { UsageChart } from '@/features/overview/components/usage-chart';
-import { ExpiringBatchesSummary, JobsThisMonthSummary, KitDueSummary, LinkCard, RecentReminders, VanHealthList } from '@/features/overview/components/overview-cards';
+import {
+  ExpiringBatchesSummary,
+  JobsThisMonthSummary,
+  KitDueSummary,
+  LinkCard,
+  RecentReminders,
+  VanHealthList,
+} from '@/features/overview/components/overview-cards';
 
 export function OwnerOverview() {
   const overview = useQuery(overviewQueries.detail());
@@ -35,7 +42,9 @@ export function OwnerOverview() {
         </LinkCard>
         {o.hav ? (
           <LinkCard title="Hand-arm vibration today" to={paths.jobs.getHref()} linkLabel="Jobs">
-            <p className="mb-3 text-sm text-ink-muted">HSE points from agitation time: 100 is the exposure action value, 400 the limit value.</p>
+            <p className="mb-3 text-sm text-ink-muted">
+              HSE points from agitation time: 100 is the exposure action value, 400 the limit value.
+            </p>
             <HavToday engineers={o.hav.engineers} />
           </LinkCard>
         ) : null}
@@ -45,10 +54,17 @@ export function OwnerOverview() {
           </LinkCard>
         ) : null}
       </div>
-      <LinkCard title={`Vans: stock health, MOT and service (${o.vansDue} due)`} to={paths.vans.getHref()} linkLabel="All vans">
+      <LinkCard
+        title={`Vans: stock health, MOT and service (${o.vansDue} due)`}
+        to={paths.vans.getHref()}
+        linkLabel="All vans"
+      >
         <VanHealthList vans={o.vans} />
       </LinkCard>
-      <Card title="Chemical used per month" description="Litres taken off vans on jobs, by kind of product, over the last twelve months.">
+      <Card
+        title="Chemical used per month"
+        description="Litres taken off vans on jobs, by kind of product, over the last twelve months."
+      >
         <UsageChart months={o.usageByMonth} kindLabels={productKindLabels} />
       </Card>
     </div>

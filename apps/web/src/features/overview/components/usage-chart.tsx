@@ -11,21 +11,33 @@ const kindColours: Record<string, string> = {
   other: 'var(--color-line-strong)',
 };
 
-const monthLabel = (month: string) => new Date(`${month}-01T00:00:00Z`).toLocaleDateString('en-GB', { month: 'short', year: '2-digit', timeZone: 'UTC' });
+const monthLabel = (month: string) =>
+  new Date(`${month}-01T00:00:00Z`).toLocaleDateString('en-GB', { month: 'short', year: '2-digit', timeZone: 'UTC' });
 
 /**
  * Chemical used per month, litres, stacked by product kind; a table under it carries the same figures
  * for screen readers. The kinds and their labels come in as props: importing the domain package here
  * would make the bundler split it into a shared chunk the first page load then has to fetch.
  */
-export function UsageChart({ months, kindLabels }: { months: Overview['usageByMonth']; kindLabels: Readonly<Record<string, string>> }) {
+export function UsageChart({
+  months,
+  kindLabels,
+}: {
+  months: Overview['usageByMonth'];
+  kindLabels: Readonly<Record<string, string>>;
+}) {
   const kindLabel = (kind: string) => kindLabels[kind] ?? kind;
-  const litresOf = (m: Overview['usageByMonth'][number], kind: string) => m.byKind.find((k) => k.kind === kind)?.litres ?? 0;
+  const litresOf = (m: Overview['usageByMonth'][number], kind: string) =>
+    m.byKind.find((k) => k.kind === kind)?.litres ?? 0;
   const seen = new Set(months.flatMap((m) => m.byKind.filter((k) => k.litres > 0).map((k) => k.kind)));
   const kinds = [...Object.keys(kindLabels).filter((k) => seen.has(k)), ...[...seen].filter((k) => !(k in kindLabels))];
-  const data = months.map((m) => ({ label: monthLabel(m.month), ...Object.fromEntries(m.byKind.map((k) => [k.kind, k.litres])) }));
+  const data = months.map((m) => ({
+    label: monthLabel(m.month),
+    ...Object.fromEntries(m.byKind.map((k) => [k.kind, k.litres])),
+  }));
   const total = months.reduce((n, m) => n + m.totalLitres, 0);
-  if (total === 0) return <p className="text-ink-muted">No chemical has been used on jobs in the last twelve months.</p>;
+  if (total === 0)
+    return <p className="text-ink-muted">No chemical has been used on jobs in the last twelve months.</p>;
   return (
     <div>
       <div className="h-64 w-full sm:h-80" aria-hidden="true">
@@ -37,7 +49,13 @@ export function UsageChart({ months, kindLabels }: { months: Overview['usageByMo
             <Tooltip formatter={(value, name) => [`${Number(value).toFixed(1)} L`, kindLabel(String(name))]} />
             <Legend formatter={(value: string) => kindLabel(value)} />
             {kinds.map((k) => (
-              <Bar key={k} dataKey={k} stackId="litres" isAnimationActive={false} fill={kindColours[k] ?? 'var(--color-line-strong)'} />
+              <Bar
+                key={k}
+                dataKey={k}
+                stackId="litres"
+                isAnimationActive={false}
+                fill={kindColours[k] ?? 'var(--color-line-strong)'}
+              />
             ))}
           </BarChart>
         </ResponsiveContainer>
@@ -50,7 +68,9 @@ export function UsageChart({ months, kindLabels }: { months: Overview['usageByMo
             <tr>
               <th scope="col">Month</th>
               {kinds.map((k) => (
-                <th key={k} scope="col">{kindLabel(k)}</th>
+                <th key={k} scope="col">
+                  {kindLabel(k)}
+                </th>
               ))}
             </tr>
           </thead>
@@ -66,7 +86,9 @@ export function UsageChart({ months, kindLabels }: { months: Overview['usageByMo
           </tbody>
         </table>
       </div>
-      <p className="mt-2 text-sm text-ink-muted">{total.toFixed(1)} litres in the last twelve months, from the packs taken off vans on jobs.</p>
+      <p className="mt-2 text-sm text-ink-muted">
+        {total.toFixed(1)} litres in the last twelve months, from the packs taken off vans on jobs.
+      </p>
     </div>
   );
 }

@@ -14,5 +14,6 @@ export const reminderQueries = {
   all: () => ['reminders'] as const,
   lists: () => [...reminderQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: reminderQueries.lists(), queryFn: listReminders }),
-  settings: () => queryOptions({ queryKey: [...reminderQueries.all(), 'settings'] as const, queryFn: getReminderSettings }),
+  settings: () =>
+    queryOptions({ queryKey: [...reminderQueries.all(), 'settings'] as const, queryFn: getReminderSettings }),
 };

@@ -11,7 +11,11 @@ export function RunScanButton() {
         Check for reminders now
       </Button>
       {scan.isSuccess ? (
-        <Alert tone="success">{scan.data === 0 ? 'Nothing new to remind anyone of.' : `${scan.data} reminder e-mail${scan.data === 1 ? '' : 's'} sent.`}</Alert>
+        <Alert tone="success">
+          {scan.data === 0
+            ? 'Nothing new to remind anyone of.'
+            : `${scan.data} reminder e-mail${scan.data === 1 ? '' : 's'} sent.`}
+        </Alert>
       ) : null}
       {scan.isError ? <Alert tone="error">{scan.error.message}</Alert> : null}
     </div>

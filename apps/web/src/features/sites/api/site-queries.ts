@@ -21,6 +21,7 @@ export const siteQueries = {
   lists: () => [...siteQueries.all(), 'list'] as const,
   list: () => queryOptions({ queryKey: siteQueries.lists(), queryFn: listSites }),
   details: () => [...siteQueries.all(), 'detail'] as const,
-  detail: (id: number) => queryOptions({ queryKey: [...siteQueries.details(), id] as const, queryFn: () => getSite(id) }),
+  detail: (id: number) =>
+    queryOptions({ queryKey: [...siteQueries.details(), id] as const, queryFn: () => getSite(id) }),
   customers: () => queryOptions({ queryKey: [...siteQueries.all(), 'customers'] as const, queryFn: listCustomers }),
 };

@@ -7,7 +7,8 @@ import { siteQueries } from '@/features/sites/api/site-queries';
 export function useRecordSiteCheck(siteId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: SiteCheckInput) => apiClient.post(`/api/sites/${siteId}/checks`, input, siteCheckResponseSchema),
+    mutationFn: (input: SiteCheckInput) =>
+      apiClient.post(`/api/sites/${siteId}/checks`, input, siteCheckResponseSchema),
     onSuccess: (answer) => {
       queryClient.setQueryData(siteQueries.detail(siteId).queryKey, answer.site);
       void queryClient.invalidateQueries({ queryKey: siteQueries.lists() });

@@ -42,14 +42,24 @@ function LiveResult({ product, reading }: { product: CheckableInhibitor | undefi
         <Alert tone="error" title={`Fail: ${result === 'low' ? 'below' : 'above'} the target`}>
           {value}
           {unitOf(product)} is {result === 'low' ? 'below' : 'above'} {product.name}&apos;s target of {range}.{' '}
-          {result === 'low' ? 'Top up the inhibitor as its label directs and test again.' : 'Check the reading; follow the product’s instructions.'}
+          {result === 'low'
+            ? 'Top up the inhibitor as its label directs and test again.'
+            : 'Check the reading; follow the product’s instructions.'}
         </Alert>
       )}
     </div>
   );
 }
 
-export function SiteCheckForm({ siteId, inhibitors, timeZone }: { siteId: number; inhibitors: CheckableInhibitor[]; timeZone: string }) {
+export function SiteCheckForm({
+  siteId,
+  inhibitors,
+  timeZone,
+}: {
+  siteId: number;
+  inhibitors: CheckableInhibitor[];
+  timeZone: string;
+}) {
   const record = useRecordSiteCheck(siteId);
   const form = useSchemaForm(siteCheckInputSchema, fields, prepare);
   const [productId, setProductId] = useState(inhibitors.length === 1 ? String(inhibitors[0]!.id) : '');
@@ -57,7 +67,12 @@ export function SiteCheckForm({ siteId, inhibitors, timeZone }: { siteId: number
   const product = inhibitors.find((p) => String(p.id) === productId);
 
   if (inhibitors.length === 0) {
-    return <Alert tone="info">No inhibitor has a target range yet. Set the target range on the inhibitor product in Stock, then record the check here.</Alert>;
+    return (
+      <Alert tone="info">
+        No inhibitor has a target range yet. Set the target range on the inhibitor product in Stock, then record the
+        check here.
+      </Alert>
+    );
   }
   return (
     <form
@@ -82,13 +97,22 @@ export function SiteCheckForm({ siteId, inhibitors, timeZone }: { siteId: number
         </Alert>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Date of the check" name="checkedOn" type="date" defaultValue={calendarDateIn(new Date(), timeZone)} error={form.fieldErrors.checkedOn} />
+        <TextField
+          label="Date of the check"
+          name="checkedOn"
+          type="date"
+          defaultValue={calendarDateIn(new Date(), timeZone)}
+          error={form.fieldErrors.checkedOn}
+        />
         <SelectField
           label="Inhibitor in the system"
           name="inhibitorProductId"
           value={productId}
           onChange={(e) => setProductId(e.target.value)}
-          options={[...(inhibitors.length > 1 ? [{ value: '', label: 'Choose the inhibitor…' }] : []), ...inhibitors.map((p) => ({ value: String(p.id), label: p.name }))]}
+          options={[
+            ...(inhibitors.length > 1 ? [{ value: '', label: 'Choose the inhibitor…' }] : []),
+            ...inhibitors.map((p) => ({ value: String(p.id), label: p.name })),
+          ]}
           error={form.fieldErrors.inhibitorProductId}
         />
         <TextField
@@ -98,10 +122,20 @@ export function SiteCheckForm({ siteId, inhibitors, timeZone }: { siteId: number
           autoComplete="off"
           value={reading}
           onChange={(e) => setReading(e.target.value)}
-          hint={product ? `Target ${product.targetMin} to ${product.targetMax}${unitOf(product)}${product.testMethod ? `; ${product.testMethod}` : ''}.` : undefined}
+          hint={
+            product
+              ? `Target ${product.targetMin} to ${product.targetMax}${unitOf(product)}${product.testMethod ? `; ${product.testMethod}` : ''}.`
+              : undefined
+          }
           error={form.fieldErrors.inhibitorReading}
         />
-        <TextField label="System water TDS (ppm), if taken" name="systemTdsPpm" inputMode="decimal" autoComplete="off" error={form.fieldErrors.systemTdsPpm} />
+        <TextField
+          label="System water TDS (ppm), if taken"
+          name="systemTdsPpm"
+          inputMode="decimal"
+          autoComplete="off"
+          error={form.fieldErrors.systemTdsPpm}
+        />
       </div>
       <LiveResult product={product} reading={reading} />
       <TextareaField label="Notes" name="notes" rows={3} error={form.fieldErrors.notes} />

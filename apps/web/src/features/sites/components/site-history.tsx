@@ -10,9 +10,14 @@ export function SiteJobs({ jobs, timeZone }: { jobs: SiteDetail['jobs']; timeZon
     <ul className="divide-y divide-line">
       {jobs.map((j) => (
         <li key={j.id}>
-          <Link to={paths.job.getHref(j.id)} className="flex min-h-11 flex-wrap items-center justify-between gap-2 py-3 hover:bg-brand-50">
+          <Link
+            to={paths.job.getHref(j.id)}
+            className="flex min-h-11 flex-wrap items-center justify-between gap-2 py-3 hover:bg-brand-50"
+          >
             <span>
-              <span className="font-semibold text-brand-700 underline underline-offset-4">{formatCalendarDate(j.scheduledOn)}</span>
+              <span className="font-semibold text-brand-700 underline underline-offset-4">
+                {formatCalendarDate(j.scheduledOn)}
+              </span>
               <span className="block text-sm text-ink-muted">
                 {j.engineerName ?? 'No engineer'}
                 {j.completedAt ? ` · completed ${formatDate(j.completedAt, timeZone)}` : ''}

@@ -25,7 +25,8 @@ export interface LedgerFilters {
 
 function searchOf(values: Record<string, string | number | undefined>): string {
   const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(values)) if (value !== undefined && value !== '') params.set(key, String(value));
+  for (const [key, value] of Object.entries(values))
+    if (value !== undefined && value !== '') params.set(key, String(value));
   const text = params.toString();
   return text ? `?${text}` : '';
 }
@@ -56,27 +57,42 @@ export const productQueries = {
 
 export const stockQueries = {
   all: () => queryRoots.stock,
-  grid: () => queryOptions({ queryKey: [...stockQueries.all(), 'grid'] as const, queryFn: () => apiClient.get('/api/stock', stockGridSchema) }),
+  grid: () =>
+    queryOptions({
+      queryKey: [...stockQueries.all(), 'grid'] as const,
+      queryFn: () => apiClient.get('/api/stock', stockGridSchema),
+    }),
   batches: (where: { locationId?: number; productId?: number }) =>
     queryOptions({
       queryKey: [...stockQueries.all(), 'batches', where] as const,
-      queryFn: async () => (await apiClient.get(`/api/stock/batches${searchOf(where)}`, batchStockResponseSchema)).batches,
+      queryFn: async () =>
+        (await apiClient.get(`/api/stock/batches${searchOf(where)}`, batchStockResponseSchema)).batches,
     }),
   ledgers: () => [...stockQueries.all(), 'ledger'] as const,
   ledger: (filters: LedgerFilters) =>
     infiniteQueryOptions({
       queryKey: [...stockQueries.ledgers(), filters] as const,
       queryFn: ({ pageParam }) =>
-        apiClient.get(`/api/stock/movements${searchOf({ ...filters, before: pageParam ?? undefined, limit: LEDGER_PAGE_SIZE })}`, ledgerPageSchema),
+        apiClient.get(
+          `/api/stock/movements${searchOf({ ...filters, before: pageParam ?? undefined, limit: LEDGER_PAGE_SIZE })}`,
+          ledgerPageSchema,
+        ),
       initialPageParam: null as number | null,
       getNextPageParam: (last) => last.nextCursor,
     }),
   restockRun: () =>
-    queryOptions({ queryKey: [...stockQueries.all(), 'restock-run'] as const, queryFn: () => apiClient.get('/api/stock/restock-run', restockRunSchema) }),
+    queryOptions({
+      queryKey: [...stockQueries.all(), 'restock-run'] as const,
+      queryFn: () => apiClient.get('/api/stock/restock-run', restockRunSchema),
+    }),
   parLevels: () =>
     queryOptions({
       queryKey: [...stockQueries.all(), 'par-levels'] as const,
       queryFn: async () => (await apiClient.get('/api/par-levels', parLevelListResponseSchema)).parLevels,
     }),
-  mine: () => queryOptions({ queryKey: [...stockQueries.all(), 'mine'] as const, queryFn: () => apiClient.get('/api/me/van/stock', myVanStockSchema) }),
+  mine: () =>
+    queryOptions({
+      queryKey: [...stockQueries.all(), 'mine'] as const,
+      queryFn: () => apiClient.get('/api/me/van/stock', myVanStockSchema),
+    }),
 };

@@ -1,22 +1,37 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { parLevelResponseSchema, productResponseSchema, type ParLevelInput, type ProductInput } from '@heatfleet/domain';
+import {
+  parLevelResponseSchema,
+  productResponseSchema,
+  type ParLevelInput,
+  type ProductInput,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { productQueries, stockQueries } from '@/features/stock/api/stock-queries';
 
 export function useCreateProduct() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: ProductInput) => (await apiClient.post('/api/products', input, productResponseSchema)).product,
+    mutationFn: async (input: ProductInput) =>
+      (await apiClient.post('/api/products', input, productResponseSchema)).product,
     // A new product also gains a row in the stock grid.
-    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: productQueries.all() }), queryClient.invalidateQueries({ queryKey: stockQueries.all() })]),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: productQueries.all() }),
+        queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+      ]),
   });
 }
 
 export function useUpdateProduct() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async ({ id, input }: { id: number; input: ProductInput }) => (await apiClient.put(`/api/products/${id}`, input, productResponseSchema)).product,
-    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: productQueries.all() }), queryClient.invalidateQueries({ queryKey: stockQueries.all() })]),
+    mutationFn: async ({ id, input }: { id: number; input: ProductInput }) =>
+      (await apiClient.put(`/api/products/${id}`, input, productResponseSchema)).product,
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: productQueries.all() }),
+        queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
+      ]),
   });
 }
 

@@ -1,5 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { restockAppliedSchema, stockMovedSchema, type ReceiptInput, type StocktakeInput, type TransferInput, type UsageInput, type WriteOffInput } from '@heatfleet/domain';
+import {
+  restockAppliedSchema,
+  stockMovedSchema,
+  type ReceiptInput,
+  type StocktakeInput,
+  type TransferInput,
+  type UsageInput,
+  type WriteOffInput,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { stockQueries } from '@/features/stock/api/stock-queries';
 
@@ -18,7 +26,8 @@ export function sendStockMovement(request: StockMovementRequest, idempotencyKey:
 export function useStockMovement() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ request, idempotencyKey }: { request: StockMovementRequest; idempotencyKey: string }) => sendStockMovement(request, idempotencyKey),
+    mutationFn: ({ request, idempotencyKey }: { request: StockMovementRequest; idempotencyKey: string }) =>
+      sendStockMovement(request, idempotencyKey),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
 }
@@ -26,7 +35,15 @@ export function useStockMovement() {
 export function useReverseMovement() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ movementId, reason, idempotencyKey }: { movementId: number; reason: string; idempotencyKey: string }) =>
+    mutationFn: ({
+      movementId,
+      reason,
+      idempotencyKey,
+    }: {
+      movementId: number;
+      reason: string;
+      idempotencyKey: string;
+    }) =>
       apiClient.post(`/api/stock/movements/${movementId}/reverse`, { reason }, stockMovedSchema, { idempotencyKey }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });
@@ -35,8 +52,13 @@ export function useReverseMovement() {
 export function useApplyRestockRun() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ lines, idempotencyKey }: { lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[]; idempotencyKey: string }) =>
-      apiClient.post('/api/stock/restock-run', { lines }, restockAppliedSchema, { idempotencyKey }),
+    mutationFn: ({
+      lines,
+      idempotencyKey,
+    }: {
+      lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[];
+      idempotencyKey: string;
+    }) => apiClient.post('/api/stock/restock-run', { lines }, restockAppliedSchema, { idempotencyKey }),
     // A refused run (stock moved since it was computed) is recomputed too, so the next try starts from the truth.
     onSettled: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });

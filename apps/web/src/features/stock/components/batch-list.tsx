@@ -18,7 +18,15 @@ export function BatchList({ locationId, productId, today }: { locationId: number
           <span>
             {productId === undefined ? <span className="block font-semibold">{row.product.name}</span> : null}
             <span className="font-mono">Lot {row.batch.lotNumber}</span>{' '}
-            <span className={row.expired ? 'font-semibold text-danger-700' : row.batch.expiresOn <= today ? 'text-ember-700' : 'text-ink-muted'}>
+            <span
+              className={
+                row.expired
+                  ? 'font-semibold text-danger-700'
+                  : row.batch.expiresOn <= today
+                    ? 'text-ember-700'
+                    : 'text-ink-muted'
+              }
+            >
               {row.expired ? 'expired' : 'use by'} {formatCalendarDate(row.batch.expiresOn)}
             </span>
           </span>

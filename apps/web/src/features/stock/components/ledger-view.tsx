@@ -19,7 +19,12 @@ function DateFilter({ label, value, onChange }: { label: string; value: string; 
   return (
     <label className="flex flex-col gap-1">
       <span className="font-semibold">{label}</span>
-      <input type="date" value={value} onChange={(event) => onChange(event.target.value)} className="min-h-11 rounded-md border border-line-strong bg-card px-3 text-base" />
+      <input
+        type="date"
+        value={value}
+        onChange={(event) => onChange(event.target.value)}
+        className="min-h-11 rounded-md border border-line-strong bg-card px-3 text-base"
+      />
     </label>
   );
 }
@@ -56,19 +61,28 @@ export function LedgerView({ timeZone }: { timeZone: string }) {
           label="Place"
           value={filters.locationId ? String(filters.locationId) : ''}
           onChange={(event) => set({ locationId: event.target.value ? Number(event.target.value) : undefined })}
-          options={[{ value: '', label: 'All places' }, ...choices.places.map((p) => ({ value: String(p.id), label: placeLabel(p) }))]}
+          options={[
+            { value: '', label: 'All places' },
+            ...choices.places.map((p) => ({ value: String(p.id), label: placeLabel(p) })),
+          ]}
         />
         <SelectField
           label="Product"
           value={filters.productId ? String(filters.productId) : ''}
           onChange={(event) => set({ productId: event.target.value ? Number(event.target.value) : undefined })}
-          options={[{ value: '', label: 'All products' }, ...choices.products.map((p) => ({ value: String(p.id), label: p.name }))]}
+          options={[
+            { value: '', label: 'All products' },
+            ...choices.products.map((p) => ({ value: String(p.id), label: p.name })),
+          ]}
         />
         <SelectField
           label="Kind"
           value={filters.kind ?? ''}
           onChange={(event) => set({ kind: (event.target.value || undefined) as LedgerFilters['kind'] })}
-          options={[{ value: '', label: 'Every kind' }, ...movementKinds.map((k) => ({ value: k, label: movementKindLabels[k] }))]}
+          options={[
+            { value: '', label: 'Every kind' },
+            ...movementKinds.map((k) => ({ value: k, label: movementKindLabels[k] })),
+          ]}
         />
         <DateFilter label="From" value={filters.from ?? ''} onChange={(from) => set({ from: from || undefined })} />
         <DateFilter label="To" value={filters.to ?? ''} onChange={(to) => set({ to: to || undefined })} />

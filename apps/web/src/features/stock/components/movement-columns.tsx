@@ -6,7 +6,10 @@ import { formatCalendarDate, formatDateTime } from '@/lib/format';
 const helper = createDataTableColumnHelper<Movement>();
 
 /** `onReverse` is given only to members who may reverse; a reversal itself cannot be reversed. */
-export function buildMovementColumns(timeZone: string, onReverse?: (movement: Movement) => void): DataTableColumns<Movement> {
+export function buildMovementColumns(
+  timeZone: string,
+  onReverse?: (movement: Movement) => void,
+): DataTableColumns<Movement> {
   const actions = onReverse
     ? [
         helper.display({
@@ -39,7 +42,9 @@ export function buildMovementColumns(timeZone: string, onReverse?: (movement: Mo
       cell: (info) => (
         <span>
           <span className="font-mono">{info.getValue()}</span>
-          <span className="block text-xs text-ink-muted">use by {formatCalendarDate(info.row.original.batch.expiresOn)}</span>
+          <span className="block text-xs text-ink-muted">
+            use by {formatCalendarDate(info.row.original.batch.expiresOn)}
+          </span>
         </span>
       ),
     }),
@@ -49,7 +54,9 @@ export function buildMovementColumns(timeZone: string, onReverse?: (movement: Mo
       enableGlobalFilter: false,
       cell: (info) => {
         const n = info.getValue();
-        return <span className={`font-semibold ${n < 0 ? 'text-danger-700' : 'text-ok-700'}`}>{n > 0 ? `+${n}` : n}</span>;
+        return (
+          <span className={`font-semibold ${n < 0 ? 'text-danger-700' : 'text-ok-700'}`}>{n > 0 ? `+${n}` : n}</span>
+        );
       },
     }),
     helper.accessor((m) => [m.reason, m.reference].filter(Boolean).join(' · '), {

@@ -12,7 +12,15 @@ import { placeLabel, useStockChoices } from '@/features/stock/api/use-stock-choi
 
 const fields = ['minimum', 'target'] as const;
 
-function ParLevelRow({ place, productId, current }: { place: StockPlace; productId: number; current: { minimum: number; target: number } | undefined }) {
+function ParLevelRow({
+  place,
+  productId,
+  current,
+}: {
+  place: StockPlace;
+  productId: number;
+  current: { minimum: number; target: number } | undefined;
+}) {
   const save = useSetParLevel();
   const [saved, setSaved] = useState(false);
   const form = useSchemaForm(parLevelInputSchema, fields, (values) => ({
@@ -38,13 +46,33 @@ function ParLevelRow({ place, productId, current }: { place: StockPlace; product
           {label}
           {current ? null : <span className="block text-sm font-normal text-ink-muted">No level set</span>}
         </p>
-        <TextField label="Minimum" name="minimum" type="number" inputMode="numeric" min={0} step={1} defaultValue={current ? String(current.minimum) : ''} error={form.fieldErrors.minimum} />
-        <TextField label="Target" name="target" type="number" inputMode="numeric" min={0} step={1} defaultValue={current ? String(current.target) : ''} error={form.fieldErrors.target} />
+        <TextField
+          label="Minimum"
+          name="minimum"
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          defaultValue={current ? String(current.minimum) : ''}
+          error={form.fieldErrors.minimum}
+        />
+        <TextField
+          label="Target"
+          name="target"
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          defaultValue={current ? String(current.target) : ''}
+          error={form.fieldErrors.target}
+        />
         <Button type="submit" variant="secondary" busy={save.isPending} className="col-span-2 sm:col-span-1">
           {saved ? 'Saved' : 'Save'}
           <span className="sr-only"> the level at {label}</span>
         </Button>
-        {form.formError ? <p className="col-span-2 text-sm font-semibold text-danger-700 sm:col-span-4">{form.formError}</p> : null}
+        {form.formError ? (
+          <p className="col-span-2 text-sm font-semibold text-danger-700 sm:col-span-4">{form.formError}</p>
+        ) : null}
       </form>
     </li>
   );

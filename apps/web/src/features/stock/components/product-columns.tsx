@@ -26,7 +26,10 @@ export function buildProductColumns(showGallons: boolean): DataTableColumns<Prod
       header: 'Product',
       sortFn: 'alphanumeric',
       cell: (info) => (
-        <Link to={paths.product.getHref(info.row.original.id)} className="font-semibold text-brand-700 underline underline-offset-4">
+        <Link
+          to={paths.product.getHref(info.row.original.id)}
+          className="font-semibold text-brand-700 underline underline-offset-4"
+        >
           {info.getValue()}
         </Link>
       ),
@@ -38,7 +41,12 @@ export function buildProductColumns(showGallons: boolean): DataTableColumns<Prod
       enableGlobalFilter: false,
       cell: (info) => <span className="whitespace-nowrap">{packSizeText(info.getValue(), showGallons)}</span>,
     }),
-    helper.accessor((p) => doseText(p), { id: 'dose', header: 'Dose', sortFn: 'text', cell: (info) => info.getValue() || <span className="text-ink-muted">Not set</span> }),
+    helper.accessor((p) => doseText(p), {
+      id: 'dose',
+      header: 'Dose',
+      sortFn: 'text',
+      cell: (info) => info.getValue() || <span className="text-ink-muted">Not set</span>,
+    }),
     helper.accessor((p) => targetRangeText(p), {
       id: 'target',
       header: 'Target',
@@ -49,7 +57,8 @@ export function buildProductColumns(showGallons: boolean): DataTableColumns<Prod
       header: 'Shelf life',
       sortFn: 'basic',
       enableGlobalFilter: false,
-      cell: (info) => (info.getValue() === null ? <span className="text-ink-muted">—</span> : `${info.getValue()} months`),
+      cell: (info) =>
+        info.getValue() === null ? <span className="text-ink-muted">—</span> : `${info.getValue()} months`,
     }),
     helper.accessor((p) => (p.safetyDataSheet ? 'yes' : 'no'), {
       id: 'sds',

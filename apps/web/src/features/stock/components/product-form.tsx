@@ -1,5 +1,13 @@
 import { useState } from 'react';
-import { packSizeInUnit, packSizeMl, productInputSchema, productKindLabels, productKinds, type PackUnit, type Product } from '@heatfleet/domain';
+import {
+  packSizeInUnit,
+  packSizeMl,
+  productInputSchema,
+  productKindLabels,
+  productKinds,
+  type PackUnit,
+  type Product,
+} from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -45,7 +53,9 @@ function prepare(values: Record<string, string | undefined>) {
     shelfLifeMonths: numberOrNull(values.shelfLifeMonths),
     hazardNotes: values.hazardNotes ?? '',
     // Only a cleaner shows the field; for other kinds it is left out and keeps what is stored.
-    ...(values.minCirculationMinutes === undefined ? {} : { minCirculationMinutes: numberOrNull(values.minCirculationMinutes) }),
+    ...(values.minCirculationMinutes === undefined
+      ? {}
+      : { minCirculationMinutes: numberOrNull(values.minCirculationMinutes) }),
   };
 }
 
@@ -63,7 +73,8 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
   const [saved, setSaved] = useState<string | null>(null);
   const pending = create.isPending || update.isPending;
   const sizeNumber = Number(packSize);
-  const previewMl = packSize.trim() && Number.isFinite(sizeNumber) && sizeNumber > 0 ? packSizeMl(sizeNumber, packUnit) : null;
+  const previewMl =
+    packSize.trim() && Number.isFinite(sizeNumber) && sizeNumber > 0 ? packSizeMl(sizeNumber, packUnit) : null;
 
   return (
     <form
@@ -90,13 +101,22 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
       })}
     >
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Name" name="name" maxLength={120} defaultValue={product?.name ?? ''} error={form.fieldErrors.name} />
+        <TextField
+          label="Name"
+          name="name"
+          maxLength={120}
+          defaultValue={product?.name ?? ''}
+          error={form.fieldErrors.name}
+        />
         <SelectField
           label="Kind"
           name="kind"
           value={kind}
           onChange={(event) => setKind(event.target.value)}
-          options={[{ value: '', label: 'Choose a kind…' }, ...productKinds.map((k) => ({ value: k, label: productKindLabels[k] }))]}
+          options={[
+            { value: '', label: 'Choose a kind…' },
+            ...productKinds.map((k) => ({ value: k, label: productKindLabels[k] })),
+          ]}
           error={form.fieldErrors.kind}
         />
         <TextField
@@ -162,9 +182,31 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
       </fieldset>
       <fieldset className="grid gap-4 rounded-lg border border-line p-3 sm:grid-cols-3">
         <legend className="px-1 font-semibold">Target concentration in the system</legend>
-        <TextField label="From" name="targetMin" type="number" inputMode="decimal" step="any" defaultValue={str(product?.targetMin)} error={form.fieldErrors.targetMin} />
-        <TextField label="To" name="targetMax" type="number" inputMode="decimal" step="any" defaultValue={str(product?.targetMax)} error={form.fieldErrors.targetMax} />
-        <TextField label="Unit (e.g. % v/v, ppm)" name="targetUnit" maxLength={20} defaultValue={product?.targetUnit ?? ''} error={form.fieldErrors.targetUnit} />
+        <TextField
+          label="From"
+          name="targetMin"
+          type="number"
+          inputMode="decimal"
+          step="any"
+          defaultValue={str(product?.targetMin)}
+          error={form.fieldErrors.targetMin}
+        />
+        <TextField
+          label="To"
+          name="targetMax"
+          type="number"
+          inputMode="decimal"
+          step="any"
+          defaultValue={str(product?.targetMax)}
+          error={form.fieldErrors.targetMax}
+        />
+        <TextField
+          label="Unit (e.g. % v/v, ppm)"
+          name="targetUnit"
+          maxLength={20}
+          defaultValue={product?.targetUnit ?? ''}
+          error={form.fieldErrors.targetUnit}
+        />
         <TextField
           label="How it is tested"
           name="testMethod"
@@ -199,7 +241,14 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
           />
         ) : null}
       </div>
-      <TextareaField label="Hazard notes" name="hazardNotes" rows={3} maxLength={2000} defaultValue={product?.hazardNotes ?? ''} error={form.fieldErrors.hazardNotes} />
+      <TextareaField
+        label="Hazard notes"
+        name="hazardNotes"
+        rows={3}
+        maxLength={2000}
+        defaultValue={product?.hazardNotes ?? ''}
+        error={form.fieldErrors.hazardNotes}
+      />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       {saved ? <Alert tone="success">{saved}</Alert> : null}
       <Button type="submit" busy={pending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">

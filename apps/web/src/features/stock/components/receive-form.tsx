@@ -38,7 +38,10 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
   );
   const prepareValues = useMemo(() => prepare(lineKeys), [lineKeys]);
   const form = useSchemaForm(receiptInputSchema, fields, prepareValues);
-  const productOptions = [{ value: '', label: 'Choose a product…' }, ...products.map((p) => ({ value: String(p.id), label: p.name }))];
+  const productOptions = [
+    { value: '', label: 'Choose a product…' },
+    ...products.map((p) => ({ value: String(p.id), label: p.name })),
+  ];
 
   return (
     <form
@@ -55,7 +58,9 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
             onSuccess: () => {
               idempotency.done();
               const total = input.lines.reduce((n, l) => n + l.quantity, 0);
-              setDone(`Received ${packsText(total)} on ${input.lines.length} line${input.lines.length === 1 ? '' : 's'}.`);
+              setDone(
+                `Received ${packsText(total)} on ${input.lines.length} line${input.lines.length === 1 ? '' : 's'}.`,
+              );
               form.formRef.current?.reset();
               setLineKeys([nextKey]);
               setNextKey((k) => k + 1);
@@ -70,30 +75,69 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
           label="Depot"
           name="locationId"
           defaultValue={depots.length === 1 ? String(depots[0]!.id) : ''}
-          options={[...(depots.length === 1 ? [] : [{ value: '', label: 'Choose a depot…' }]), ...depots.map((d) => ({ value: String(d.id), label: placeLabel(d) }))]}
+          options={[
+            ...(depots.length === 1 ? [] : [{ value: '', label: 'Choose a depot…' }]),
+            ...depots.map((d) => ({ value: String(d.id), label: placeLabel(d) })),
+          ]}
           error={form.fieldErrors.locationId}
         />
-        <TextField label="Delivery note or order reference (optional)" name="reference" maxLength={100} error={form.fieldErrors.reference} />
+        <TextField
+          label="Delivery note or order reference (optional)"
+          name="reference"
+          maxLength={100}
+          error={form.fieldErrors.reference}
+        />
       </div>
       <ol className="space-y-3" aria-label="Delivery lines">
         {lineKeys.map((key, i) => (
           <li key={key} className="rounded-lg border border-line bg-canvas p-3">
             <fieldset className="grid gap-3 sm:grid-cols-[2fr_1fr_1fr_1fr]">
               <legend className="mb-1 font-semibold">Line {i + 1}</legend>
-              <SelectField label="Product" name={`lines.${i}.productId`} defaultValue="" options={productOptions} error={form.fieldErrors[`lines.${i}.productId`]} />
-              <TextField label="Lot number" name={`lines.${i}.lotNumber`} maxLength={60} autoComplete="off" error={form.fieldErrors[`lines.${i}.lotNumber`]} />
-              <TextField label="Use by" name={`lines.${i}.expiresOn`} type="date" error={form.fieldErrors[`lines.${i}.expiresOn`]} />
-              <TextField label="Quantity (packs)" name={`lines.${i}.quantity`} type="number" inputMode="numeric" min={1} step={1} error={form.fieldErrors[`lines.${i}.quantity`]} />
+              <SelectField
+                label="Product"
+                name={`lines.${i}.productId`}
+                defaultValue=""
+                options={productOptions}
+                error={form.fieldErrors[`lines.${i}.productId`]}
+              />
+              <TextField
+                label="Lot number"
+                name={`lines.${i}.lotNumber`}
+                maxLength={60}
+                autoComplete="off"
+                error={form.fieldErrors[`lines.${i}.lotNumber`]}
+              />
+              <TextField
+                label="Use by"
+                name={`lines.${i}.expiresOn`}
+                type="date"
+                error={form.fieldErrors[`lines.${i}.expiresOn`]}
+              />
+              <TextField
+                label="Quantity (packs)"
+                name={`lines.${i}.quantity`}
+                type="number"
+                inputMode="numeric"
+                min={1}
+                step={1}
+                error={form.fieldErrors[`lines.${i}.quantity`]}
+              />
             </fieldset>
             {lineKeys.length > 1 ? (
-              <Button variant="quiet" className="mt-1 px-0" onClick={() => setLineKeys((keys) => keys.filter((k) => k !== key))}>
+              <Button
+                variant="quiet"
+                className="mt-1 px-0"
+                onClick={() => setLineKeys((keys) => keys.filter((k) => k !== key))}
+              >
                 Remove line {i + 1}
               </Button>
             ) : null}
           </li>
         ))}
       </ol>
-      {form.fieldErrors.lines ? <p className="text-sm font-semibold text-danger-700">{form.fieldErrors.lines}</p> : null}
+      {form.fieldErrors.lines ? (
+        <p className="text-sm font-semibold text-danger-700">{form.fieldErrors.lines}</p>
+      ) : null}
       <Button
         variant="secondary"
         onClick={() => {

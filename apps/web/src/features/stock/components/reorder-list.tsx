@@ -14,7 +14,8 @@ export function ReorderList() {
   return (
     <div className="space-y-4">
       <p className="text-ink-muted">
-        For {depot.name}, after the vans have been restocked. Days of cover are worked out from the last 90 days of use across the firm.
+        For {depot.name}, after the vans have been restocked. Days of cover are worked out from the last 90 days of use
+        across the firm.
       </p>
       <a href={reorderCsvHref} download className={buttonClasses('secondary')}>
         Download as CSV
@@ -26,17 +27,32 @@ export function ReorderList() {
           <caption className="sr-only">Reorder list</caption>
           <thead className="max-sm:hidden">
             <tr className="border-b-2 border-line text-sm text-ink-muted">
-              <th scope="col" className="px-2 py-1">Product</th>
-              <th scope="col" className="px-2 py-1 text-right">After restock</th>
-              <th scope="col" className="px-2 py-1 text-right">Minimum / target</th>
-              <th scope="col" className="px-2 py-1 text-right">Order</th>
-              <th scope="col" className="px-2 py-1 text-right">Used in 90 days</th>
-              <th scope="col" className="px-2 py-1 text-right">Days of cover</th>
+              <th scope="col" className="px-2 py-1">
+                Product
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                After restock
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Minimum / target
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Order
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Used in 90 days
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Days of cover
+              </th>
             </tr>
           </thead>
           <tbody className="max-sm:block max-sm:space-y-3">
             {reorder.map((row) => (
-              <tr key={row.productId} className="border-b border-line max-sm:grid max-sm:grid-cols-2 max-sm:gap-1 max-sm:rounded-lg max-sm:border max-sm:bg-card max-sm:p-3">
+              <tr
+                key={row.productId}
+                className="border-b border-line max-sm:grid max-sm:grid-cols-2 max-sm:gap-1 max-sm:rounded-lg max-sm:border max-sm:bg-card max-sm:p-3"
+              >
                 <th scope="row" className="px-2 py-2 font-semibold max-sm:col-span-2 max-sm:px-0">
                   {row.product.name}
                 </th>

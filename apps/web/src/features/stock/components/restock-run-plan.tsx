@@ -36,7 +36,12 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
   const { depot, lines, today } = run.data;
   const vans = byVan(lines);
   const transfers = lines.flatMap((line) =>
-    line.allocations.map((a) => ({ toLocationId: line.van.id, productId: line.product.id, batchId: a.batchId, quantity: a.quantity })),
+    line.allocations.map((a) => ({
+      toLocationId: line.van.id,
+      productId: line.product.id,
+      batchId: a.batchId,
+      quantity: a.quantity,
+    })),
   );
   const totalPacks = transfers.reduce((n, t) => n + t.quantity, 0);
   const shortLines = lines.filter((line) => line.shortfall > 0);
@@ -57,8 +62,11 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
       ) : (
         <>
           <p className="print:hidden">
-            From <strong>{depot.name}</strong>: {packsText(totalPacks)} to {vans.length} van{vans.length === 1 ? '' : 's'}, first expiry first.
-            {shortLines.length > 0 ? ` ${shortLines.length} line${shortLines.length === 1 ? ' is' : 's are'} short: the depot does not hold enough.` : ''}
+            From <strong>{depot.name}</strong>: {packsText(totalPacks)} to {vans.length} van
+            {vans.length === 1 ? '' : 's'}, first expiry first.
+            {shortLines.length > 0
+              ? ` ${shortLines.length} line${shortLines.length === 1 ? ' is' : 's are'} short: the depot does not hold enough.`
+              : ''}
           </p>
           <div className="flex flex-col gap-2 sm:flex-row print:hidden">
             {canApply ? (
@@ -74,7 +82,9 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
                     {
                       onSuccess: () => {
                         idempotency.done();
-                        setApplied(`Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vans.length} van${vans.length === 1 ? '' : 's'}.`);
+                        setApplied(
+                          `Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vans.length} van${vans.length === 1 ? '' : 's'}.`,
+                        );
                       },
                     },
                   );
@@ -89,29 +99,53 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
           </div>
           <ol className="space-y-4 print:space-y-2" aria-label="Pick list by van">
             {vans.map(({ van, lines: vanLines }) => (
-              <li key={van.id} className="rounded-xl border border-line bg-card p-4 print:break-inside-avoid print:rounded-none print:border-ink print:p-2">
+              <li
+                key={van.id}
+                className="rounded-xl border border-line bg-card p-4 print:break-inside-avoid print:rounded-none print:border-ink print:p-2"
+              >
                 <h3 className="text-lg font-bold text-brand-900 print:text-black">
-                  {van.name} {van.registration ? <span className="font-mono text-base font-normal">{van.registration}</span> : null}
+                  {van.name}{' '}
+                  {van.registration ? (
+                    <span className="font-mono text-base font-normal">{van.registration}</span>
+                  ) : null}
                 </h3>
                 <table className="mt-2 w-full border-collapse text-left text-sm">
                   <caption className="sr-only">What to pick for {van.name}</caption>
                   <thead>
                     <tr className="border-b border-line">
-                      <th scope="col" className="py-1 pr-2">Product</th>
-                      <th scope="col" className="py-1 pr-2">Lot and use by</th>
-                      <th scope="col" className="py-1 pr-2 text-right">Packs</th>
-                      <th scope="col" className="hidden w-10 py-1 print:table-cell">✓</th>
+                      <th scope="col" className="py-1 pr-2">
+                        Product
+                      </th>
+                      <th scope="col" className="py-1 pr-2">
+                        Lot and use by
+                      </th>
+                      <th scope="col" className="py-1 pr-2 text-right">
+                        Packs
+                      </th>
+                      <th scope="col" className="hidden w-10 py-1 print:table-cell">
+                        ✓
+                      </th>
                     </tr>
                   </thead>
                   <tbody>
                     {vanLines.map((line) => {
                       // One row per lot to pick, so each count sits beside its own lot; a shortfall gets a row of its own.
                       const picks = line.allocations.map((a) => ({ key: `lot-${a.batchId}`, allocation: a }));
-                      const rows = [...picks, ...(line.shortfall > 0 || picks.length === 0 ? [{ key: 'short', allocation: null }] : [])];
+                      const rows = [
+                        ...picks,
+                        ...(line.shortfall > 0 || picks.length === 0 ? [{ key: 'short', allocation: null }] : []),
+                      ];
                       return rows.map((row, i) => (
-                        <tr key={`${line.product.id}-${row.key}`} className={`align-top ${i === rows.length - 1 ? 'border-b border-line' : ''}`}>
+                        <tr
+                          key={`${line.product.id}-${row.key}`}
+                          className={`align-top ${i === rows.length - 1 ? 'border-b border-line' : ''}`}
+                        >
                           {i === 0 ? (
-                            <th scope="row" rowSpan={rows.length} className="py-1 pr-2 font-semibold [overflow-wrap:anywhere]">
+                            <th
+                              scope="row"
+                              rowSpan={rows.length}
+                              className="py-1 pr-2 font-semibold [overflow-wrap:anywhere]"
+                            >
                               {line.product.name}
                               <span className="block text-xs font-normal text-ink-muted">
                                 has {line.usable}, target {line.par.target}
@@ -122,7 +156,9 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
                             <>
                               <td className="py-1 pr-2">
                                 <span className="font-mono">{row.allocation.lotNumber}</span>{' '}
-                                <span className="text-xs whitespace-nowrap text-ink-muted">use by {formatCalendarDate(row.allocation.expiresOn)}</span>
+                                <span className="text-xs whitespace-nowrap text-ink-muted">
+                                  use by {formatCalendarDate(row.allocation.expiresOn)}
+                                </span>
                               </td>
                               <td className="py-1 pr-2 text-right font-semibold">{row.allocation.quantity}</td>
                               <td className="hidden py-1 print:table-cell">

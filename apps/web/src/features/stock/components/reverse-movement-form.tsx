@@ -9,7 +9,15 @@ import { useReverseMovement } from '@/features/stock/api/use-stock-movement';
 const fields = ['reason'] as const;
 
 /** A mistake is put right by a new movement that undoes it; a transfer is undone as a whole, both legs. */
-export function ReverseMovementForm({ movement, onDone, onCancel }: { movement: Movement; onDone: (message: string) => void; onCancel: () => void }) {
+export function ReverseMovementForm({
+  movement,
+  onDone,
+  onCancel,
+}: {
+  movement: Movement;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+}) {
   const reverse = useReverseMovement();
   const idempotency = useIdempotencyKey();
   const form = useSchemaForm(reversalInputSchema, fields);
@@ -27,7 +35,9 @@ export function ReverseMovementForm({ movement, onDone, onCancel }: { movement: 
           {
             onSuccess: () => {
               idempotency.done();
-              onDone(`Reversed: ${movementKindLabels[movement.kind].toLowerCase()} of ${Math.abs(movement.quantityDelta)} × ${movement.product.name} at ${movement.location.name}.`);
+              onDone(
+                `Reversed: ${movementKindLabels[movement.kind].toLowerCase()} of ${Math.abs(movement.quantityDelta)} × ${movement.product.name} at ${movement.location.name}.`,
+              );
             },
             onError: form.showError,
           },
@@ -35,8 +45,9 @@ export function ReverseMovementForm({ movement, onDone, onCancel }: { movement: 
       })}
     >
       <p className="font-semibold">
-        Reverse {movementKindLabels[movement.kind].toLowerCase()} of {movement.quantityDelta > 0 ? `+${movement.quantityDelta}` : movement.quantityDelta} × {movement.product.name}, lot{' '}
-        {movement.batch.lotNumber}, at {movement.location.name}?
+        Reverse {movementKindLabels[movement.kind].toLowerCase()} of{' '}
+        {movement.quantityDelta > 0 ? `+${movement.quantityDelta}` : movement.quantityDelta} × {movement.product.name},
+        lot {movement.batch.lotNumber}, at {movement.location.name}?
       </p>
       {isTransfer ? <p className="text-sm">Both legs of the transfer are undone together.</p> : null}
       <TextField label="Why it is being reversed" name="reason" maxLength={300} error={form.fieldErrors.reason} />

@@ -8,11 +8,21 @@ import { useUploadSafetyDataSheet } from '@/features/stock/api/use-save-product'
 const MAX_BYTES = 10 * 1024 * 1024;
 
 function sizeText(bytes: number): string {
-  return bytes >= 1024 * 1024 ? `${(bytes / (1024 * 1024)).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} KB`;
+  return bytes >= 1024 * 1024
+    ? `${(bytes / (1024 * 1024)).toFixed(1)} MB`
+    : `${Math.max(1, Math.round(bytes / 1024))} KB`;
 }
 
 /** The product's safety data sheet: download the current one, or upload a PDF to replace it. */
-export function SafetyDataSheetCard({ product, canUpload, timeZone }: { product: Product; canUpload: boolean; timeZone: string }) {
+export function SafetyDataSheetCard({
+  product,
+  canUpload,
+  timeZone,
+}: {
+  product: Product;
+  canUpload: boolean;
+  timeZone: string;
+}) {
   const upload = useUploadSafetyDataSheet();
   const input = useRef<HTMLInputElement>(null);
   const [file, setFile] = useState<File | null>(null);
@@ -29,7 +39,9 @@ export function SafetyDataSheetCard({ product, canUpload, timeZone }: { product:
           </a>
         </p>
       ) : (
-        <Alert tone="error">No safety data sheet yet. Engineers must be able to read it before using the product.</Alert>
+        <Alert tone="error">
+          No safety data sheet yet. Engineers must be able to read it before using the product.
+        </Alert>
       )}
       {canUpload ? (
         <form
@@ -55,7 +67,9 @@ export function SafetyDataSheetCard({ product, canUpload, timeZone }: { product:
           }}
         >
           <label className="flex flex-col gap-1">
-            <span className="font-semibold">{sds ? 'Replace with a new PDF' : 'Safety data sheet (PDF, up to 10 MB)'}</span>
+            <span className="font-semibold">
+              {sds ? 'Replace with a new PDF' : 'Safety data sheet (PDF, up to 10 MB)'}
+            </span>
             <input
               ref={input}
               type="file"

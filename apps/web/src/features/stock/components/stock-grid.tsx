@@ -34,18 +34,34 @@ export function StockGridView() {
     <div className="space-y-4">
       <HealthLegend />
       {/* The grid scrolls inside its own box on a phone, so the page itself never runs wider than the screen. */}
-      <div className="max-w-full overflow-x-auto rounded-lg border border-line" tabIndex={0} role="region" aria-label="Stock grid, scrolls sideways">
+      <div
+        className="max-w-full overflow-x-auto rounded-lg border border-line"
+        tabIndex={0}
+        role="region"
+        aria-label="Stock grid, scrolls sideways"
+      >
         <table className="min-w-full border-collapse text-left">
           <caption className="sr-only">Usable packs of each product at each place</caption>
           <thead>
             <tr>
-              <th scope="col" className="sticky left-0 z-[1] border-b-2 border-line bg-card px-2 py-2 text-sm font-semibold text-ink-muted">
+              <th
+                scope="col"
+                className="sticky left-0 z-[1] border-b-2 border-line bg-card px-2 py-2 text-sm font-semibold text-ink-muted"
+              >
                 Product
               </th>
               {locations.map((place) => (
-                <th key={place.id} scope="col" className="border-b-2 border-line px-2 py-2 text-sm font-semibold whitespace-nowrap text-ink-muted">
+                <th
+                  key={place.id}
+                  scope="col"
+                  className="border-b-2 border-line px-2 py-2 text-sm font-semibold whitespace-nowrap text-ink-muted"
+                >
                   {place.name}
-                  {place.kind === 'depot' ? <span className="block text-xs font-normal">Depot</span> : place.registration ? <span className="block font-mono text-xs font-normal">{place.registration}</span> : null}
+                  {place.kind === 'depot' ? (
+                    <span className="block text-xs font-normal">Depot</span>
+                  ) : place.registration ? (
+                    <span className="block font-mono text-xs font-normal">{place.registration}</span>
+                  ) : null}
                 </th>
               ))}
             </tr>
@@ -53,7 +69,10 @@ export function StockGridView() {
           <tbody>
             {products.map((product) => (
               <tr key={product.id} className="border-b border-line">
-                <th scope="row" className="sticky left-0 z-[1] max-w-36 bg-card min-w-28 px-2 py-1 text-sm font-semibold hyphens-auto [overflow-wrap:break-word] sm:max-w-none">
+                <th
+                  scope="row"
+                  className="sticky left-0 z-[1] max-w-36 bg-card min-w-28 px-2 py-1 text-sm font-semibold hyphens-auto [overflow-wrap:break-word] sm:max-w-none"
+                >
                   {product.name}
                 </th>
                 {locations.map((place) => {

@@ -14,7 +14,9 @@ export const healthStyles: Record<StockHealth, { cell: string; mark: string }> =
 export function HealthBadge({ health }: { health: StockHealth }) {
   const style = healthStyles[health];
   return (
-    <span className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-sm font-semibold whitespace-nowrap ${style.cell}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-sm font-semibold whitespace-nowrap ${style.cell}`}
+    >
       <span aria-hidden="true">{style.mark}</span>
       {stockHealthLabels[health]}
     </span>

@@ -4,7 +4,9 @@ import { useAbility } from '@/lib/ability';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
   `inline-flex min-h-11 items-center rounded-md border px-3 font-semibold ${
-    isActive ? 'border-brand-700 bg-brand-700 text-white' : 'border-line-strong bg-card text-brand-800 hover:bg-brand-50'
+    isActive
+      ? 'border-brand-700 bg-brand-700 text-white'
+      : 'border-line-strong bg-card text-brand-800 hover:bg-brand-50'
   }`;
 
 /** The stock screens are several pages; this row ties them together and hides what the member cannot do. */

@@ -14,7 +14,15 @@ import { stockQueries } from '@/features/stock/api/stock-queries';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
 import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 
-function CountForm({ locationId, batches, onDone }: { locationId: number; batches: BatchStockRow[]; onDone: (message: string) => void }) {
+function CountForm({
+  locationId,
+  batches,
+  onDone,
+}: {
+  locationId: number;
+  batches: BatchStockRow[];
+  onDone: (message: string) => void;
+}) {
   const movement = useStockMovement();
   const idempotency = useIdempotencyKey();
   const fields = useMemo(() => ['note', 'counts', ...batches.map((_, i) => `counts.${i}.counted`)], [batches]);
@@ -44,21 +52,31 @@ function CountForm({ locationId, batches, onDone }: { locationId: number; batche
             onSuccess: (answer) => {
               idempotency.done();
               const n = answer.movements.length;
-              onDone(n === 0 ? 'Counted: everything matched, nothing was adjusted.' : `Counted: ${n} batch${n === 1 ? '' : 'es'} adjusted to the count.`);
+              onDone(
+                n === 0
+                  ? 'Counted: everything matched, nothing was adjusted.'
+                  : `Counted: ${n} batch${n === 1 ? '' : 'es'} adjusted to the count.`,
+              );
             },
             onError: form.showError,
           },
         );
       })}
     >
-      <p className="text-ink-muted">Count what is on the shelf for each batch; the difference from the record becomes an adjustment.</p>
+      <p className="text-ink-muted">
+        Count what is on the shelf for each batch; the difference from the record becomes an adjustment.
+      </p>
       <ul className="space-y-2" aria-label="Batches to count">
         {batches.map((row, i) => (
-          <li key={row.batch.id} className="grid items-end gap-2 rounded-lg border border-line bg-canvas p-3 sm:grid-cols-[2fr_1fr]">
+          <li
+            key={row.batch.id}
+            className="grid items-end gap-2 rounded-lg border border-line bg-canvas p-3 sm:grid-cols-[2fr_1fr]"
+          >
             <div>
               <p className="font-semibold">{row.product.name}</p>
               <p className="text-sm text-ink-muted">
-                Lot <span className="font-mono">{row.batch.lotNumber}</span>, {row.expired ? 'expired' : 'use by'} {formatCalendarDate(row.batch.expiresOn)}; recorded {row.quantity}
+                Lot <span className="font-mono">{row.batch.lotNumber}</span>, {row.expired ? 'expired' : 'use by'}{' '}
+                {formatCalendarDate(row.batch.expiresOn)}; recorded {row.quantity}
               </p>
             </div>
             <TextField
@@ -97,7 +115,10 @@ export function StocktakeForm({ places }: { places: StockPlace[] }) {
           setDone(null);
           setPlaceId(event.target.value ? Number(event.target.value) : null);
         }}
-        options={[{ value: '', label: 'Choose a place…' }, ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) }))]}
+        options={[
+          { value: '', label: 'Choose a place…' },
+          ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) })),
+        ]}
       />
       {done ? <Alert tone="success">{done}</Alert> : null}
       {placeId === null ? null : batches.isPending ? (
@@ -107,7 +128,12 @@ export function StocktakeForm({ places }: { places: StockPlace[] }) {
       ) : batches.data.length === 0 ? (
         <p className="text-ink-muted">Nothing is recorded here, so there is nothing to count.</p>
       ) : (
-        <CountForm key={`${placeId}:${batches.dataUpdatedAt}`} locationId={placeId} batches={batches.data} onDone={setDone} />
+        <CountForm
+          key={`${placeId}:${batches.dataUpdatedAt}`}
+          locationId={placeId}
+          batches={batches.data}
+          onDone={setDone}
+        />
       )}
     </div>
   );

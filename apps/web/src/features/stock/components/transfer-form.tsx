@@ -18,7 +18,13 @@ export function TransferForm({ places, products }: { places: StockPlace[]; produ
   const movement = useStockMovement();
   const idempotency = useIdempotencyKey();
   const fields = useMemo(
-    () => ['fromLocationId', 'toLocationId', 'note', 'lines', ...lineKeys.flatMap((_, i) => [`lines.${i}.productId`, `lines.${i}.quantity`])],
+    () => [
+      'fromLocationId',
+      'toLocationId',
+      'note',
+      'lines',
+      ...lineKeys.flatMap((_, i) => [`lines.${i}.productId`, `lines.${i}.quantity`]),
+    ],
     [lineKeys],
   );
   const prepare = useMemo(
@@ -34,8 +40,14 @@ export function TransferForm({ places, products }: { places: StockPlace[]; produ
     [lineKeys],
   );
   const form = useSchemaForm(transferInputSchema, fields, prepare);
-  const placeOptions = [{ value: '', label: 'Choose a place…' }, ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) }))];
-  const productOptions = [{ value: '', label: 'Choose a product…' }, ...products.map((p) => ({ value: String(p.id), label: p.name }))];
+  const placeOptions = [
+    { value: '', label: 'Choose a place…' },
+    ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) })),
+  ];
+  const productOptions = [
+    { value: '', label: 'Choose a product…' },
+    ...products.map((p) => ({ value: String(p.id), label: p.name })),
+  ];
 
   return (
     <form
@@ -52,7 +64,9 @@ export function TransferForm({ places, products }: { places: StockPlace[]; produ
             onSuccess: () => {
               idempotency.done();
               const to = places.find((p) => p.id === input.toLocationId);
-              setDone(`Moved ${packsText(input.lines.reduce((n, l) => n + l.quantity, 0))} to ${to ? to.name : 'the other place'}.`);
+              setDone(
+                `Moved ${packsText(input.lines.reduce((n, l) => n + l.quantity, 0))} to ${to ? to.name : 'the other place'}.`,
+              );
               form.formRef.current?.reset();
             },
             onError: form.showError,
@@ -61,19 +75,49 @@ export function TransferForm({ places, products }: { places: StockPlace[]; produ
       })}
     >
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="From" name="fromLocationId" defaultValue="" options={placeOptions} error={form.fieldErrors.fromLocationId} />
-        <SelectField label="To" name="toLocationId" defaultValue="" options={placeOptions} error={form.fieldErrors.toLocationId} />
+        <SelectField
+          label="From"
+          name="fromLocationId"
+          defaultValue=""
+          options={placeOptions}
+          error={form.fieldErrors.fromLocationId}
+        />
+        <SelectField
+          label="To"
+          name="toLocationId"
+          defaultValue=""
+          options={placeOptions}
+          error={form.fieldErrors.toLocationId}
+        />
       </div>
       <ol className="space-y-3" aria-label="Transfer lines">
         {lineKeys.map((key, i) => (
           <li key={key} className="rounded-lg border border-line bg-canvas p-3">
             <fieldset className="grid gap-3 sm:grid-cols-[2fr_1fr]">
               <legend className="mb-1 font-semibold">Line {i + 1}</legend>
-              <SelectField label="Product" name={`lines.${i}.productId`} defaultValue="" options={productOptions} error={form.fieldErrors[`lines.${i}.productId`]} />
-              <TextField label="Quantity (packs)" name={`lines.${i}.quantity`} type="number" inputMode="numeric" min={1} step={1} error={form.fieldErrors[`lines.${i}.quantity`]} />
+              <SelectField
+                label="Product"
+                name={`lines.${i}.productId`}
+                defaultValue=""
+                options={productOptions}
+                error={form.fieldErrors[`lines.${i}.productId`]}
+              />
+              <TextField
+                label="Quantity (packs)"
+                name={`lines.${i}.quantity`}
+                type="number"
+                inputMode="numeric"
+                min={1}
+                step={1}
+                error={form.fieldErrors[`lines.${i}.quantity`]}
+              />
             </fieldset>
             {lineKeys.length > 1 ? (
-              <Button variant="quiet" className="mt-1 px-0" onClick={() => setLineKeys((keys) => keys.filter((k) => k !== key))}>
+              <Button
+                variant="quiet"
+                className="mt-1 px-0"
+                onClick={() => setLineKeys((keys) => keys.filter((k) => k !== key))}
+              >
                 Remove line {i + 1}
               </Button>
             ) : null}

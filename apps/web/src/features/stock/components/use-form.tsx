@@ -22,7 +22,15 @@ function prepare(values: Record<string, string | undefined>) {
 }
 
 /** Stock used outside a job (a job's chemicals come off with the job), taken first expiry first. */
-export function UseForm({ places, products, defaultPlaceId }: { places: StockPlace[]; products: Product[]; defaultPlaceId?: number | undefined }) {
+export function UseForm({
+  places,
+  products,
+  defaultPlaceId,
+}: {
+  places: StockPlace[];
+  products: Product[];
+  defaultPlaceId?: number | undefined;
+}) {
   const [done, setDone] = useState<string | null>(null);
   const movement = useStockMovement();
   const idempotency = useIdempotencyKey();
@@ -56,17 +64,31 @@ export function UseForm({ places, products, defaultPlaceId }: { places: StockPla
           label="From"
           name="locationId"
           defaultValue={defaultPlaceId !== undefined ? String(defaultPlaceId) : onlyOne ? String(places[0]!.id) : ''}
-          options={[...(onlyOne ? [] : [{ value: '', label: 'Choose a place…' }]), ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) }))]}
+          options={[
+            ...(onlyOne ? [] : [{ value: '', label: 'Choose a place…' }]),
+            ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) })),
+          ]}
           error={form.fieldErrors.locationId}
         />
         <SelectField
           label="Product"
           name="productId"
           defaultValue=""
-          options={[{ value: '', label: 'Choose a product…' }, ...products.map((p) => ({ value: String(p.id), label: p.name }))]}
+          options={[
+            { value: '', label: 'Choose a product…' },
+            ...products.map((p) => ({ value: String(p.id), label: p.name })),
+          ]}
           error={form.fieldErrors.productId}
         />
-        <TextField label="Quantity (packs)" name="quantity" type="number" inputMode="numeric" min={1} step={1} error={form.fieldErrors.quantity} />
+        <TextField
+          label="Quantity (packs)"
+          name="quantity"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          step={1}
+          error={form.fieldErrors.quantity}
+        />
         <TextField label="What it was used for" name="reason" maxLength={300} error={form.fieldErrors.reason} />
       </div>
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}

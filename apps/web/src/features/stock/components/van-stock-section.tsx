@@ -17,7 +17,9 @@ export function VanStockSection() {
   if (mine.isError) return <QueryErrorNotice error={mine.error} onRetry={() => void mine.refetch()} />;
   const { van, stock, batches } = mine.data;
   if (!van) return null;
-  const rows = [...stock].sort((a, b) => lowFirst[a.health] - lowFirst[b.health] || a.productName.localeCompare(b.productName));
+  const rows = [...stock].sort(
+    (a, b) => lowFirst[a.health] - lowFirst[b.health] || a.productName.localeCompare(b.productName),
+  );
   const low = rows.filter((r) => r.health === 'empty' || r.health === 'below_minimum');
   const expired = batches.filter((b) => b.expired);
   return (
@@ -32,7 +34,8 @@ export function VanStockSection() {
       {expired.length > 0 ? (
         <Alert tone="error" title="Expired stock on board">
           Do not use:{' '}
-          {expired.map((b) => `${b.product.name} lot ${b.batch.lotNumber} (${packsText(b.quantity)})`).join(', ')}. Hand it back to be written off.
+          {expired.map((b) => `${b.product.name} lot ${b.batch.lotNumber} (${packsText(b.quantity)})`).join(', ')}. Hand
+          it back to be written off.
         </Alert>
       ) : null}
       {rows.length === 0 ? (
@@ -52,16 +55,17 @@ export function VanStockSection() {
                 </p>
               </div>
               <div className="flex items-center gap-3">
-                <span className="text-lg font-bold">
-                  {packsText(row.usable)}
-                </span>
+                <span className="text-lg font-bold">{packsText(row.usable)}</span>
                 <HealthBadge health={row.health} />
               </div>
             </li>
           ))}
         </ul>
       )}
-      <Link to={paths.stockUse.getHref()} className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4">
+      <Link
+        to={paths.stockUse.getHref()}
+        className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4"
+      >
         Record stock used off the van
       </Link>
     </div>

@@ -15,7 +15,11 @@ import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';
 
 const fields = ['locationId', 'batchId', 'quantity', 'reason', 'note'] as const;
-const reasonLabels: Record<(typeof writeOffReasons)[number], string> = { expired: 'Expired', damaged: 'Damaged', spilled: 'Spilled' };
+const reasonLabels: Record<(typeof writeOffReasons)[number], string> = {
+  expired: 'Expired',
+  damaged: 'Damaged',
+  spilled: 'Spilled',
+};
 
 function prepare(values: Record<string, string | undefined>) {
   return {
@@ -63,7 +67,10 @@ export function WriteOffForm({ places }: { places: StockPlace[] }) {
           name="locationId"
           value={placeId === null ? '' : String(placeId)}
           onChange={(event) => setPlaceId(event.target.value ? Number(event.target.value) : null)}
-          options={[{ value: '', label: 'Choose a place…' }, ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) }))]}
+          options={[
+            { value: '', label: 'Choose a place…' },
+            ...places.map((p) => ({ value: String(p.id), label: placeLabel(p) })),
+          ]}
           error={form.fieldErrors.locationId}
         />
         <SelectField
@@ -72,7 +79,10 @@ export function WriteOffForm({ places }: { places: StockPlace[] }) {
           defaultValue=""
           disabled={placeId === null || batches.isPending}
           options={[
-            { value: '', label: placeId === null ? 'Choose the place first' : batches.isPending ? 'Loading…' : 'Choose a batch…' },
+            {
+              value: '',
+              label: placeId === null ? 'Choose the place first' : batches.isPending ? 'Loading…' : 'Choose a batch…',
+            },
             ...(batches.data ?? []).map((row) => ({
               value: String(row.batch.id),
               label: `${row.product.name}, lot ${row.batch.lotNumber} (${row.expired ? 'expired' : 'use by'} ${formatCalendarDate(row.batch.expiresOn)}): ${row.quantity} held`,
@@ -80,13 +90,31 @@ export function WriteOffForm({ places }: { places: StockPlace[] }) {
           ]}
           error={form.fieldErrors.batchId}
         />
-        <TextField label="Quantity (packs)" name="quantity" type="number" inputMode="numeric" min={1} step={1} error={form.fieldErrors.quantity} />
+        <TextField
+          label="Quantity (packs)"
+          name="quantity"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          step={1}
+          error={form.fieldErrors.quantity}
+        />
       </div>
-      <ChoiceGroup legend="Why" name="reason" options={writeOffReasons.map((r) => ({ value: r, label: reasonLabels[r] }))} error={form.fieldErrors.reason} />
+      <ChoiceGroup
+        legend="Why"
+        name="reason"
+        options={writeOffReasons.map((r) => ({ value: r, label: reasonLabels[r] }))}
+        error={form.fieldErrors.reason}
+      />
       <TextField label="Note (optional)" name="note" maxLength={300} error={form.fieldErrors.note} />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       {done ? <Alert tone="success">{done}</Alert> : null}
-      <Button type="submit" variant="danger" busy={movement.isPending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">
+      <Button
+        type="submit"
+        variant="danger"
+        busy={movement.isPending}
+        className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48"
+      >
         Write off
       </Button>
     </form>

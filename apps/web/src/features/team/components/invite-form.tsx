@@ -50,7 +50,13 @@ export function InviteForm({ firmId }: { firmId: number }) {
           required
           error={form.fieldErrors.email}
         />
-        <SelectField label="Role" name="role" options={roleOptions} defaultValue={defaultRole} error={form.fieldErrors.role} />
+        <SelectField
+          label="Role"
+          name="role"
+          options={roleOptions}
+          defaultValue={defaultRole}
+          error={form.fieldErrors.role}
+        />
       </div>
       <Button type="submit" busy={create.isPending}>
         Send invitation

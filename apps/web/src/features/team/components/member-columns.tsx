@@ -13,7 +13,12 @@ interface MemberColumnsContext {
   canManage: boolean;
 }
 
-export function buildMemberColumns({ firmId, timeZone, currentUserId, canManage }: MemberColumnsContext): DataTableColumns<Member> {
+export function buildMemberColumns({
+  firmId,
+  timeZone,
+  currentUserId,
+  canManage,
+}: MemberColumnsContext): DataTableColumns<Member> {
   const columns = helper.columns([
     helper.accessor('name', {
       header: 'Name',
@@ -21,7 +26,9 @@ export function buildMemberColumns({ firmId, timeZone, currentUserId, canManage 
       cell: (info) => (
         <span className="font-semibold">
           {info.getValue()}
-          {info.row.original.userId === currentUserId ? <span className="font-normal text-ink-muted"> (you)</span> : null}
+          {info.row.original.userId === currentUserId ? (
+            <span className="font-normal text-ink-muted"> (you)</span>
+          ) : null}
         </span>
       ),
     }),
@@ -80,7 +87,11 @@ export function buildMemberColumns({ firmId, timeZone, currentUserId, canManage 
       header: () => <span className="sr-only">Actions</span>,
       meta: { hideCellLabel: true },
       cell: (info) => (
-        <MemberStatusAction member={info.row.original} firmId={firmId} isYou={info.row.original.userId === currentUserId} />
+        <MemberStatusAction
+          member={info.row.original}
+          firmId={firmId}
+          isYou={info.row.original.userId === currentUserId}
+        />
       ),
     }),
   ];

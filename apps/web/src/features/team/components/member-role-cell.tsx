@@ -54,7 +54,9 @@ export function MemberStatusAction({ member, firmId, isYou }: MemberCellProps) {
         disabled={update.isPending}
         onClick={() => update.mutate({ id: member.id, active: !member.active })}
         className={`min-h-11 rounded-md border px-3 font-semibold disabled:opacity-60 ${
-          member.active ? 'border-danger-700 text-danger-700 hover:bg-danger-50' : 'border-brand-600 text-brand-700 hover:bg-brand-50'
+          member.active
+            ? 'border-danger-700 text-danger-700 hover:bg-danger-50'
+            : 'border-brand-600 text-brand-700 hover:bg-brand-50'
         }`}
       >
         {member.active ? 'Deactivate' : 'Reactivate'}

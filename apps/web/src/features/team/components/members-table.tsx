@@ -9,7 +9,15 @@ import { buildMemberColumns } from '@/features/team/components/member-columns';
 
 const initialSorting = [{ id: 'name', desc: false }];
 
-export function MembersTable({ firmId, timeZone, currentUserId }: { firmId: number; timeZone: string; currentUserId: number }) {
+export function MembersTable({
+  firmId,
+  timeZone,
+  currentUserId,
+}: {
+  firmId: number;
+  timeZone: string;
+  currentUserId: number;
+}) {
   const ability = useAbility();
   const canManage = ability.can('update', 'Member');
   const members = useQuery(memberQueries.list());

@@ -13,7 +13,8 @@ function PendingInvitation({ invitation, timeZone }: { invitation: Invitation; t
       <div className="min-w-0">
         <p className="font-semibold [overflow-wrap:anywhere]">{invitation.email}</p>
         <p className="text-sm text-ink-muted">
-          {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {formatDate(invitation.expiresAt, timeZone)}
+          {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires{' '}
+          {formatDate(invitation.expiresAt, timeZone)}
         </p>
         {withdraw.isError ? (
           <p role="alert" className="text-sm font-semibold text-danger-700">
@@ -36,7 +37,8 @@ function PendingInvitation({ invitation, timeZone }: { invitation: Invitation; t
 export function PendingInvitations({ timeZone }: { timeZone: string }) {
   const invitations = useQuery(invitationQueries.pending());
   if (invitations.isPending) return <PageSpinner label="Loading invitations…" />;
-  if (invitations.isError) return <QueryErrorNotice error={invitations.error} onRetry={() => void invitations.refetch()} />;
+  if (invitations.isError)
+    return <QueryErrorNotice error={invitations.error} onRetry={() => void invitations.refetch()} />;
   if (invitations.data.length === 0) return <p className="text-ink-muted">No invitations are waiting for an answer.</p>;
 
   return (

@@ -1,5 +1,10 @@
 import { queryOptions } from '@tanstack/react-query';
-import { depotListResponseSchema, myVanResponseSchema, vanDetailResponseSchema, vanListResponseSchema } from '@heatfleet/domain';
+import {
+  depotListResponseSchema,
+  myVanResponseSchema,
+  vanDetailResponseSchema,
+  vanListResponseSchema,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-keys';
 

@@ -12,7 +12,10 @@ export function buildVanColumns(timeZone: string): DataTableColumns<Van> {
       header: 'Van',
       sortFn: 'alphanumeric',
       cell: (info) => (
-        <Link to={paths.van.getHref(info.row.original.id)} className="font-semibold text-brand-700 underline underline-offset-4">
+        <Link
+          to={paths.van.getHref(info.row.original.id)}
+          className="font-semibold text-brand-700 underline underline-offset-4"
+        >
           {info.getValue()}
         </Link>
       ),
@@ -43,7 +46,11 @@ export function buildVanColumns(timeZone: string): DataTableColumns<Van> {
       cell: (info) => {
         const next = info.row.original.nextDue;
         return (
-          <VanDueDate label={next?.what === 'service' ? 'Service' : next ? 'MOT' : 'MOT or service'} date={next?.on ?? null} timeZone={timeZone} />
+          <VanDueDate
+            label={next?.what === 'service' ? 'Service' : next ? 'MOT' : 'MOT or service'}
+            date={next?.on ?? null}
+            timeZone={timeZone}
+          />
         );
       },
     }),

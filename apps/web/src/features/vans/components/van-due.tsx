@@ -13,6 +13,11 @@ export function VanDueDate({ label, date, timeZone }: { label: string; date: str
   const days = daysUntil(date, timeZone);
   const text = `${label} ${formatCalendarDate(date)}`;
   if (days < 0) return <Badge tone="danger">{text} · overdue</Badge>;
-  if (days <= VAN_DUE_WINDOW_DAYS) return <Badge tone="warn">{text} · in {days === 0 ? 'today' : `${days} d`}</Badge>;
+  if (days <= VAN_DUE_WINDOW_DAYS)
+    return (
+      <Badge tone="warn">
+        {text} · in {days === 0 ? 'today' : `${days} d`}
+      </Badge>
+    );
   return <span className="whitespace-nowrap">{text}</span>;
 }

@@ -34,7 +34,10 @@ export function VanForm({ engineers, van, onSaved }: VanFormProps) {
   const update = useUpdateVan();
   const form = useSchemaForm(van ? updateVanInputSchema : createVanInputSchema, fields, prepare);
   const pending = create.isPending || update.isPending;
-  const engineerOptions = [{ value: '', label: 'Nobody yet' }, ...engineers.map((e) => ({ value: String(e.memberId), label: e.name }))];
+  const engineerOptions = [
+    { value: '', label: 'Nobody yet' },
+    ...engineers.map((e) => ({ value: String(e.memberId), label: e.name })),
+  ];
 
   return (
     <form
@@ -56,7 +59,14 @@ export function VanForm({ engineers, van, onSaved }: VanFormProps) {
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Name" name="name" defaultValue={van?.name} required error={form.fieldErrors.name} autoComplete="off" />
+        <TextField
+          label="Name"
+          name="name"
+          defaultValue={van?.name}
+          required
+          error={form.fieldErrors.name}
+          autoComplete="off"
+        />
         <TextField
           label="Registration"
           name="registration"
@@ -73,7 +83,13 @@ export function VanForm({ engineers, van, onSaved }: VanFormProps) {
           defaultValue={van?.engineer ? String(van.engineer.memberId) : ''}
           error={form.fieldErrors.engineerMemberId}
         />
-        <TextField label="MOT due" name="motDueOn" type="date" defaultValue={van?.motDueOn ?? ''} error={form.fieldErrors.motDueOn} />
+        <TextField
+          label="MOT due"
+          name="motDueOn"
+          type="date"
+          defaultValue={van?.motDueOn ?? ''}
+          error={form.fieldErrors.motDueOn}
+        />
         <TextField
           label="Service due"
           name="serviceDueOn"
@@ -81,7 +97,13 @@ export function VanForm({ engineers, van, onSaved }: VanFormProps) {
           defaultValue={van?.serviceDueOn ?? ''}
           error={form.fieldErrors.serviceDueOn}
         />
-        <TextField label="Notes" name="notes" defaultValue={van?.notes ?? ''} error={form.fieldErrors.notes} autoComplete="off" />
+        <TextField
+          label="Notes"
+          name="notes"
+          defaultValue={van?.notes ?? ''}
+          error={form.fieldErrors.notes}
+          autoComplete="off"
+        />
       </div>
       <Button type="submit" busy={pending}>
         {van ? 'Save van' : 'Add van'}
