@@ -1,54 +1,47 @@
-import { randomUUID } from 'node:crypto';
-import { expect, test, type Page } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
+import type { Page } from '@playwright/test';
+import type { ProductInput } from '@heatfleet/domain';
+import { firmWithCrew } from './support/crew-fixtures';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test } from './support/fixture-test';
+import { addCustomer, addSite, bookJob } from './support/job-fixtures';
+import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './support/stock-fixtures';
 
-// Demo accounts seeded by the API's db-cli (invented data); the seed books three jobs for the engineer.
-const password = 'heatfleet-demo-2026';
-const stores = 'stores@brackenford.example';
-const engineer = 'engineer@brackenford.example';
-
-interface PlannedDose {
-  product: { id: number; name: string };
-  packs: number;
-  shortfall: number;
-}
+// Invented products with the demo's figures: 1 L packs dosed at 1 L per 100 L, or one pack per 10 radiators.
+const systemCleaner: ProductInput = { name: 'HFL System Cleaner', kind: 'cleaner', packSize: 1, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10, shelfLifeMonths: 36, minCirculationMinutes: 60 };
+const inhibitor: ProductInput = {
+  name: 'HFL Inhibitor', kind: 'inhibitor', packSize: 1, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10, shelfLifeMonths: 48, targetMin: 1, targetMax: 1.5, targetUnit: '% v/v', testMethod: 'Refractometer',
+};
 
 /**
- * Picks one of the engineer's booked demo jobs and makes sure their van holds what it needs: the demo
- * van has used its chemicals. A fresh delivery of the same amount keeps the depot's totals as seeded,
- * so the other browser tests see the stock they expect.
+ * A fresh firm whose engineer drives "Van 1", with a job booked for them: a combi with nine radiators
+ * and no sizes (the quick estimate), a cleaner and an inhibitor, and the packs its plan needs
+ * received at the depot and sent to the van.
  */
 async function prepareJob(baseURL: string) {
-  const asEngineer = await signInToApi(baseURL, engineer);
-  const { jobs } = (await (await asEngineer.api.get('/api/jobs')).json()) as { jobs: { id: number; status: string; customerName: string; address: string }[] };
-  const job = jobs.find((j) => j.status === 'planned');
-  expect(job, 'the engineer has a booked demo job').toBeDefined();
-  const detail = (await (await asEngineer.api.get(`/api/jobs/${job!.id}`)).json()) as { doses: PlannedDose[]; job: { vanLocationId: number } };
-  await asEngineer.api.dispose();
-  expect(detail.doses.length, 'the demo job doses a cleaner and an inhibitor').toBe(2);
+  const { owner, engineer, van, depot } = await firmWithCrew(baseURL);
+  const session = owner.session;
+  const products = [await createProduct(session, systemCleaner), await createProduct(session, inhibitor)];
+  const customer = await addCustomer(session, { name: 'Odile Farrant', email: 'odile@customer.example' });
+  const site = await addSite(session, customer.id, { address: '14 Weir Cottages, Brackenford BF2 4LN', accessNotes: 'Ring ahead; parking on the street.' });
+  const booked = await bookJob(session, {
+    siteId: site.id,
+    scheduledOn: isoDaysFromNow(2),
+    engineerMemberId: engineer.memberId,
+    survey: {
+      systemType: 'sealed', boilerKind: 'combi', fuel: 'gas',
+      radiators: Array.from({ length: 9 }, (_, i) => ({ room: `Room ${i + 1}`, panel: i % 3 === 0 ? ('double' as const) : ('single' as const) })),
+      pipeRuns: [],
+    },
+    productIds: products.map((p) => p.id),
+  });
+  expect(booked.doses.length, 'the job doses a cleaner and an inhibitor').toBe(2);
+  expect(booked.job.vanLocationId).toBe(van.id);
 
-  const { api, csrf } = await signInToApi(baseURL, stores);
-  const grid = (await (await api.get('/api/stock')).json()) as { locations: { id: number; kind: string }[] };
-  const depot = grid.locations.find((l) => l.kind === 'depot');
-  expect(depot, 'the demo firm has a depot').toBeDefined();
-  const short = detail.doses.filter((d) => d.shortfall > 0);
-  if (short.length > 0) {
-    const lot = `J${runId().slice(-6).toUpperCase()}`;
-    const expiresOn = new Date(Date.now() + 400 * 86_400_000).toISOString().slice(0, 10);
-    const lines = short.map((d) => ({ productId: d.product.id, quantity: d.shortfall }));
-    const received = await api.post('/api/stock/receipts', {
-      data: { locationId: depot!.id, reference: `Job test ${lot}`, lines: lines.map((l) => ({ ...l, lotNumber: lot, expiresOn })) },
-      headers: { 'X-CSRF-Token': csrf, 'Idempotency-Key': randomUUID() },
-    });
-    expect(received.status(), await received.text()).toBe(201);
-    const moved = await api.post('/api/stock/transfers', {
-      data: { fromLocationId: depot!.id, toLocationId: detail.job.vanLocationId, lines },
-      headers: { 'X-CSRF-Token': csrf, 'Idempotency-Key': randomUUID() },
-    });
-    expect(moved.status(), await moved.text()).toBe(201);
-  }
-  await api.dispose();
-  return { job: job!, doses: detail.doses };
+  const lot = `J${runId().slice(-6).toUpperCase()}`;
+  const lines = booked.doses.map((d) => ({ productId: d.product.id, quantity: d.packs }));
+  await receiveStock(session, { locationId: depot.id, reference: `Job test ${lot}`, lines: lines.map((l) => ({ ...l, lotNumber: lot, expiresOn: isoDaysFromNow(400) })) });
+  await transferStock(session, { fromLocationId: depot.id, toLocationId: van.id, lines });
+  return { job: { address: site.address }, doses: booked.doses, engineer };
 }
 
 async function expectNoOverflow(page: Page, what: string) {
@@ -59,19 +52,19 @@ async function expectNoOverflow(page: Page, what: string) {
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
 
 test('the engineer opens a booked job, reads the plan and the cautions, and completes it', async ({ page, baseURL }, testInfo) => {
-  const { job, doses } = await prepareJob(baseURL!);
+  const { job, doses, engineer } = await prepareJob(baseURL!);
 
-  await signIn(page, engineer, password);
+  await signIn(page, engineer.email, engineer.password);
   await mainNav(page).getByRole('link', { name: 'Jobs' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Jobs' })).toBeVisible();
   await page.screenshot({ path: testInfo.outputPath('jobs-360.png'), fullPage: true });
   await expectNoOverflow(page, 'the jobs list');
-  // The demo has a year of jobs: find this one by its address rather than paging.
+  // Found by its address, as an engineer with a long list of jobs would.
   await page.getByRole('searchbox', { name: 'Find a customer or address' }).fill(job.address);
   await page.getByRole('row').filter({ hasText: job.address }).getByRole('link').click();
 
   await expect(page.getByRole('heading', { level: 1, name: `Job at ${job.address}` })).toBeVisible();
-  // The demo survey has no sizes, so the volume is the quick estimate and says so.
+  // The survey has no sizes, so the volume is the quick estimate and says so.
   const volume = page.getByLabel('System volume');
   await expect(volume.getByText(/^System volume \d+\.\d L$/)).toBeVisible();
   await expect(volume.getByText('Estimate', { exact: true })).toBeVisible();
@@ -103,8 +96,10 @@ test('the engineer opens a booked job, reads the plan and the cautions, and comp
   await expectNoOverflow(page, 'the completed job');
 });
 
-test('booking a job: the live volume follows the radiators and pipe run as they are typed', async ({ page }, testInfo) => {
-  await signIn(page, engineer, password);
+test('booking a job: the live volume follows the radiators and pipe run as they are typed', async ({ page, baseURL }, testInfo) => {
+  const { owner, engineer } = await firmWithCrew(baseURL!);
+  await createProduct(owner.session, inhibitor);
+  await signIn(page, engineer.email, engineer.password);
   await page.goto('/jobs/new');
   await expect(page.getByRole('heading', { level: 1, name: 'Book a job' })).toBeVisible();
   const live = page.getByRole('status', { name: 'Live system volume' });

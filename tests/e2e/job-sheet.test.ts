@@ -1,14 +1,12 @@
-import { randomUUID } from 'node:crypto';
 import { statSync, writeFileSync, readFileSync } from 'node:fs';
 import { deflateSync, crc32 } from 'node:zlib';
-import { expect, test, type Locator, type Page } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
-
-// Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1", which carries Rig 1.
-const password = 'heatfleet-demo-2026';
-const owner = 'owner@brackenford.example';
-const engineer = 'engineer@brackenford.example';
-const engineerName = 'Jory Pennock';
+import type { Locator, Page } from '@playwright/test';
+import type { ProductInput } from '@heatfleet/domain';
+import { firmWithCrew } from './support/crew-fixtures';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test } from './support/fixture-test';
+import { addKitItem, checkOutKit, createKit, itemKindNamed, setVibration } from './support/fleet-fixtures';
+import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './support/stock-fixtures';
 
 // The sheet's words, pinned here so a change to them is a visible decision.
 const steps = {
@@ -30,48 +28,30 @@ const cautions = {
 };
 
 /**
- * As the owner: a cleaner (60 minutes hot) and an inhibitor (1 to 1.5 % v/v) of this run's own, one
- * pack of each on Van 1 (the demo van has used its chemicals), and a vibration figure on Rig 1's
- * agitator, so every figure the test checks comes from data it set.
+ * A fresh firm whose engineer drives "Van 1", and as its owner: a cleaner (60 minutes hot) and an
+ * inhibitor (1 to 1.5 % v/v) with one pack of each on Van 1, and Rig 1 (a filtration rig and an
+ * agitator head of 10 m/s²) checked out to Van 1, so every figure the test checks comes from data it set.
  */
 async function prepare(baseURL: string) {
-  const { api, csrf } = await signInToApi(baseURL, owner);
-  const headers = { 'X-CSRF-Token': csrf };
+  const { owner, engineer, van, depot } = await firmWithCrew(baseURL);
+  const session = owner.session;
   const id = runId().toUpperCase();
-  const createProduct = async (data: Record<string, unknown>) => {
-    const created = await api.post('/api/products', { data: { packSize: 1, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10, shelfLifeMonths: 24, ...data }, headers });
-    expect(created.status(), await created.text()).toBe(201);
-    return ((await created.json()) as { product: { id: number; name: string } }).product;
-  };
-  const cleaner = await createProduct({ name: `Trial cleaner ${id}`, kind: 'cleaner', minCirculationMinutes: 60 });
-  const inhibitor = await createProduct({ name: `Trial inhibitor ${id}`, kind: 'inhibitor', targetMin: 1, targetMax: 1.5, targetUnit: '% v/v', testMethod: 'Refractometer' });
+  const product = (data: Pick<ProductInput, 'name' | 'kind'> & Partial<ProductInput>) =>
+    createProduct(session, { packSize: 1, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10, shelfLifeMonths: 24, ...data });
+  const cleaner = await product({ name: `Trial cleaner ${id}`, kind: 'cleaner', minCirculationMinutes: 60 });
+  const inhibitor = await product({ name: `Trial inhibitor ${id}`, kind: 'inhibitor', targetMin: 1, targetMax: 1.5, targetUnit: '% v/v', testMethod: 'Refractometer' });
 
-  const grid = (await (await api.get('/api/stock')).json()) as { locations: { id: number; kind: string; name: string }[] };
-  const van = grid.locations.find((l) => l.kind === 'van' && l.name === 'Van 1');
-  const depot = grid.locations.find((l) => l.kind === 'depot');
-  expect(van, 'the demo firm has Van 1').toBeDefined();
-  expect(depot, 'the demo firm has a depot').toBeDefined();
   const lines = [cleaner, inhibitor].map((p) => ({ productId: p.id, quantity: 1 }));
   const lot = `S${id.slice(-6)}`;
-  const expiresOn = new Date(Date.now() + 400 * 86_400_000).toISOString().slice(0, 10);
-  const received = await api.post('/api/stock/receipts', {
-    data: { locationId: depot!.id, reference: `Job sheet test ${lot}`, lines: lines.map((l) => ({ ...l, lotNumber: lot, expiresOn })) },
-    headers: { ...headers, 'Idempotency-Key': randomUUID() },
-  });
-  expect(received.status(), await received.text()).toBe(201);
-  const moved = await api.post('/api/stock/transfers', {
-    data: { fromLocationId: depot!.id, toLocationId: van!.id, lines },
-    headers: { ...headers, 'Idempotency-Key': randomUUID() },
-  });
-  expect(moved.status(), await moved.text()).toBe(201);
+  await receiveStock(session, { locationId: depot.id, reference: `Job sheet test ${lot}`, lines: lines.map((l) => ({ ...l, lotNumber: lot, expiresOn: isoDaysFromNow(400) })) });
+  await transferStock(session, { fromLocationId: depot.id, toLocationId: van.id, lines });
 
-  const onVan = (await (await api.get(`/api/kit-items?locationId=${van!.id}&q=AGI`)).json()) as { items: { id: number; assetTag: string }[] };
-  const agitator = onVan.items[0];
-  expect(agitator, 'Van 1 carries an agitator head').toBeDefined();
-  const patched = await api.patch(`/api/kit-items/${agitator!.id}`, { data: { vibrationMs2: 10 }, headers });
-  expect(patched.status(), await patched.text()).toBe(200);
-  await api.dispose();
-  return { cleaner, inhibitor, agitatorTag: agitator!.assetTag };
+  const rig = await createKit(session, 'Rig 1');
+  await addKitItem(session, { assetTag: 'RIG1', kindId: (await itemKindNamed(session, 'Filtration rig')).id, kitId: rig.id, serialNumber: 'SN-1010' });
+  const agitator = await addKitItem(session, { assetTag: 'RIG1-AGI', kindId: (await itemKindNamed(session, 'Agitator head')).id, kitId: rig.id, serialNumber: 'SN-1014' });
+  await setVibration(session, agitator.id, 10);
+  await checkOutKit(session, rig.id, van.id);
+  return { cleaner, inhibitor, agitatorTag: agitator.assetTag, engineer };
 }
 
 /** A small PNG (8 x 8, one colour) built byte by byte, so the test needs no image file in the repo. */
@@ -128,11 +108,12 @@ test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true
 
 test('an engineer on a phone records a cleaning job from the survey to the report', async ({ page, baseURL }, testInfo) => {
   test.setTimeout(180_000);
-  const { cleaner, inhibitor, agitatorTag } = await prepare(baseURL!);
+  const { cleaner, inhibitor, agitatorTag, engineer } = await prepare(baseURL!);
+  const engineerName = engineer.name;
   const shot = (name: string) => page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
 
   // The survey: two sized radiators with their rated outputs, one pipe run, a cleaner and an inhibitor.
-  await signIn(page, engineer, password);
+  await signIn(page, engineer.email, engineer.password);
   await mainNav(page).getByRole('link', { name: 'Jobs' }).click();
   await page.getByRole('link', { name: 'Book a job' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Book a job' })).toBeVisible();

@@ -1,10 +1,7 @@
-import { expect, test } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
-
-// Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1".
-const password = 'heatfleet-demo-2026';
-const stores = 'stores@brackenford.example';
-const engineer = 'engineer@brackenford.example';
+import { firmWithCrew } from './support/crew-fixtures';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test } from './support/fixture-test';
+import { addKitItem, createKit, itemKinds, kitLabels } from './support/fleet-fixtures';
 
 // A tiny PNG made here rather than kept as a file: a phone photo stands in for the real thing.
 const photoPng = Buffer.from(
@@ -12,47 +9,36 @@ const photoPng = Buffer.from(
   'base64',
 );
 
-/** Stores makes a fresh kit with two items for this run, so the test never depends on where the demo kits are. */
+/** A fresh firm whose engineer drives "Van 1"; its stores person makes a kit with two items at the depot. */
 async function prepareKit(baseURL: string) {
-  const { api, csrf } = await signInToApi(baseURL, stores);
-  const headers = { 'X-CSRF-Token': csrf };
-  const kinds = (await (await api.get('/api/item-kinds')).json()) as { itemKinds: { id: number; name: string }[] };
-  expect(kinds.itemKinds.length).toBeGreaterThan(0);
+  const { engineer, stores } = await firmWithCrew(baseURL, { stores: true });
+  const session = stores!.session;
+  const kinds = await itemKinds(session);
+  expect(kinds.length).toBeGreaterThan(0);
   const run = runId().toUpperCase();
-
-  const kitAnswer = await api.post('/api/kits', { data: { name: `Test rig ${run}` }, headers });
-  expect(kitAnswer.status(), await kitAnswer.text()).toBe(201);
-  const { kit } = (await kitAnswer.json()) as { kit: { id: number; name: string } };
-
-  for (const [n, kind] of kinds.itemKinds.slice(0, 2).entries()) {
-    const answer = await api.post('/api/kit-items', {
-      data: { assetTag: `T${run}-${n + 1}`.slice(0, 32), kindId: kind.id, kitId: kit.id, serialNumber: `SN-${run}-${n + 1}` },
-      headers,
-    });
-    expect(answer.status(), await answer.text()).toBe(201);
+  const kit = await createKit(session, `Test rig ${run}`);
+  for (const [n, kind] of kinds.slice(0, 2).entries()) {
+    await addKitItem(session, { assetTag: `T${run}-${n + 1}`.slice(0, 32), kindId: kind.id, kitId: kit.id, serialNumber: `SN-${run}-${n + 1}` });
   }
 
   // The URL printed in the QR code, exactly as the label sheet gets it.
-  const labels = (await (await api.get(`/api/kit-items/labels?kitId=${kit.id}`)).json()) as {
-    labels: { assetTag: string; url: string; qrSvgDataUrl: string }[];
-  };
-  expect(labels.labels).toHaveLength(Math.min(2, kinds.itemKinds.length));
-  expect(labels.labels[0]!.qrSvgDataUrl).toMatch(/^data:image\/svg\+xml/);
-  await api.dispose();
-  return { kit, label: labels.labels[0]! };
+  const labels = await kitLabels(session, kit.id);
+  expect(labels).toHaveLength(Math.min(2, kinds.length));
+  expect(labels[0]!.qrSvgDataUrl).toMatch(/^data:image\/svg\+xml/);
+  return { kit, label: labels[0]!, stores: stores!, engineer };
 }
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
 
 test('an engineer on a phone checks a kit out from its label and back in with a photo', async ({ page, browser, baseURL }, testInfo) => {
-  const { kit, label } = await prepareKit(baseURL!);
+  const { kit, label, stores, engineer } = await prepareKit(baseURL!);
   const labelPath = new URL(label.url).pathname;
   expect(labelPath).toMatch(/^\/kit-items\/\d+$/);
 
   await test.step('stores sees the kit on the label sheet, ready to print', async () => {
     const desk = await browser.newContext({ viewport: { width: 1024, height: 900 }, locale: 'en-GB' });
     const sheet = await desk.newPage();
-    await signIn(sheet, stores, password);
+    await signIn(sheet, stores.email, stores.password);
     await sheet.goto(`/labels?kitId=${kit.id}`);
     const labels = sheet.getByRole('list', { name: 'Labels' }).getByRole('listitem');
     await expect(labels.first()).toContainText(label.assetTag);
@@ -67,8 +53,8 @@ test('an engineer on a phone checks a kit out from its label and back in with a 
   // Scanning the label while signed out leads through sign-in and back to the item.
   await page.goto(labelPath);
   await expect(page).toHaveURL(/\/sign-in\?next=/);
-  await page.getByLabel('E-mail', { exact: true }).fill(engineer);
-  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByLabel('E-mail', { exact: true }).fill(engineer.email);
+  await page.getByLabel('Password', { exact: true }).fill(engineer.password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(new RegExp(`${labelPath}$`));
   await expect(page.getByRole('heading', { level: 1, name: label.assetTag })).toBeVisible();

@@ -1,16 +1,35 @@
-import { expect, test } from '@playwright/test';
+import { firmWithCrew } from './support/crew-fixtures';
 import { horizontalOverflow, mainNav, signIn } from './support/e2e-helpers';
+import { callApi } from './support/api-session';
+import { expect, test } from './support/fixture-test';
+import { addKitItem, createKit, createVan, itemKinds } from './support/fleet-fixtures';
+import { isoDaysFromNow } from './support/stock-fixtures';
 
-// The demo firm's Owner, seeded by the API's db-cli (invented data).
-const demoOwner = { email: 'owner@brackenford.example', password: 'heatfleet-demo-2026' };
+/**
+ * A firm with something on every screen: three members, two vans (Van 1's MOT due within the
+ * reminder window, so the scan sends one), a kit of three items and the reminders it sent.
+ */
+async function prepareFirm(baseURL: string) {
+  const crew = await firmWithCrew(baseURL, { stores: true, motDueOn: isoDaysFromNow(12) });
+  const session = crew.owner.session;
+  await createVan(session, { name: 'Van 2', registration: 'HF70 BRK', motDueOn: isoDaysFromNow(200), serviceDueOn: isoDaysFromNow(25) });
+  const kit = await createKit(session, 'Rig 1');
+  for (const [n, kind] of (await itemKinds(session)).slice(0, 3).entries()) {
+    await addKitItem(session, { assetTag: `RIG1-${n + 1}`, kindId: kind.id, kitId: kit.id, serialNumber: `SN-10${n + 1}` });
+  }
+  const { sent } = await callApi<{ sent: number }>(session, 'post', '/api/reminders/scan', { status: 200 });
+  expect(sent, 'the scan reminds of Van 1\'s MOT').toBeGreaterThan(0);
+  return crew.owner;
+}
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
-test('at 360 px the demo Owner can sign in and no screen scrolls sideways', async ({ page }, testInfo) => {
+test('at 360 px the Owner can sign in and no screen scrolls sideways', async ({ page, baseURL }, testInfo) => {
+  const owner = await prepareFirm(baseURL!);
   await page.goto('/sign-in');
   expect((await horizontalOverflow(page)).scrollWidth).toBeLessThanOrEqual(360);
 
-  await signIn(page, demoOwner.email, demoOwner.password);
+  await signIn(page, owner.email, owner.password);
   await expect(page.getByRole('heading', { name: 'Your role: Owner' })).toBeVisible();
 
   const tables: Record<string, string> = {

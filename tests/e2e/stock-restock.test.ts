@@ -1,36 +1,20 @@
-import { expect, test, type Page } from '@playwright/test';
-import { horizontalOverflow, mainNav, runId, signIn, signInToApi } from './support/e2e-helpers';
-
-// Demo accounts seeded by the API's db-cli (invented data); the engineer drives "Van 1".
-const password = 'heatfleet-demo-2026';
-const stores = 'stores@brackenford.example';
-const engineer = 'engineer@brackenford.example';
+import type { Page } from '@playwright/test';
+import { firmWithCrew } from './support/crew-fixtures';
+import { horizontalOverflow, mainNav, runId, signIn } from './support/e2e-helpers';
+import { expect, test } from './support/fixture-test';
+import { createProduct, isoDaysFromNow, setParLevel } from './support/stock-fixtures';
 
 /**
- * A product of its own for this run, with par levels on the engineer's van, so the numbers the test
- * checks do not depend on what the demo stock happens to hold.
+ * A fresh firm whose engineer drives "Van 1", and a product of its own with par levels on that van,
+ * so the numbers the test checks follow from what it set.
  */
 async function prepareProduct(baseURL: string) {
-  const { api, csrf } = await signInToApi(baseURL, stores);
-  const headers = { 'X-CSRF-Token': csrf };
+  const { stores, engineer, van, depot } = await firmWithCrew(baseURL, { stores: true });
+  const session = stores!.session;
   const name = `Trial cleaner ${runId().toUpperCase()}`;
-  const created = await api.post('/api/products', { data: { name, kind: 'cleaner', packSize: 1, packUnit: 'l', shelfLifeMonths: 24 }, headers });
-  expect(created.status(), await created.text()).toBe(201);
-  const { product } = (await created.json()) as { product: { id: number } };
-
-  const grid = (await (await api.get('/api/stock')).json()) as { locations: { id: number; kind: string; name: string }[] };
-  const van = grid.locations.find((l) => l.kind === 'van' && l.name === 'Van 1');
-  const depot = grid.locations.find((l) => l.kind === 'depot');
-  expect(van, 'the demo firm has Van 1').toBeDefined();
-  expect(depot, 'the demo firm has a depot').toBeDefined();
-  const par = await api.put('/api/par-levels', { data: { locationId: van!.id, productId: product.id, minimum: 2, target: 4 }, headers });
-  expect(par.status(), await par.text()).toBe(200);
-  await api.dispose();
-  return { name, depotName: depot!.name };
-}
-
-function isoDaysFromNow(days: number): string {
-  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+  const product = await createProduct(session, { name, kind: 'cleaner', packSize: 1, packUnit: 'l', shelfLifeMonths: 24 });
+  await setParLevel(session, { locationId: van.id, productId: product.id, minimum: 2, target: 4 });
+  return { name, depotName: depot.name, stores: stores!, engineer };
 }
 
 async function expectNoOverflow(page: Page, what: string) {
@@ -41,10 +25,10 @@ async function expectNoOverflow(page: Page, what: string) {
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
 
 test('stores receives a delivery, runs a restock and the engineer sees it on My van', async ({ page, browser, baseURL }, testInfo) => {
-  const { name, depotName } = await prepareProduct(baseURL!);
+  const { name, depotName, stores, engineer } = await prepareProduct(baseURL!);
   const lot = `T${runId().slice(-6).toUpperCase()}`;
 
-  await signIn(page, stores, password);
+  await signIn(page, stores.email, stores.password);
   await mainNav(page).getByRole('link', { name: 'Stock' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Stock' })).toBeVisible();
   // The new product has no stock anywhere yet, and Van 1 is below its minimum of it.
@@ -96,7 +80,7 @@ test('stores receives a delivery, runs a restock and the engineer sees it on My 
 
   const engineerContext = await browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true, locale: 'en-GB', timezoneId: 'Europe/London' });
   const phone = await engineerContext.newPage();
-  await signIn(phone, engineer, password);
+  await signIn(phone, engineer.email, engineer.password);
   await mainNav(phone).getByRole('link', { name: 'My van' }).click();
   const onBoard = phone.getByRole('list', { name: 'Stock on my van' });
   const row = onBoard.getByRole('listitem').filter({ hasText: name });

@@ -1,4 +1,4 @@
-import { expect, request as playwrightRequest, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, type Page } from '@playwright/test';
 
 /** Unique per run, so the test can run again against the same database without clashing. */
 export function runId(): string {
@@ -35,18 +35,4 @@ export async function horizontalOverflow(page: Page): Promise<{ scrollWidth: num
     }
     return { scrollWidth: root.scrollWidth, widest };
   });
-}
-
-/** The demo accounts' password (invented, seeded by `npm start` and `npm test`). */
-export const DEMO_PASSWORD = 'heatfleet-demo-2026';
-
-/** A signed-in API client (session cookie and CSRF token), for preparing a test's own data as another member. */
-export async function signInToApi(baseURL: string, email: string, password = DEMO_PASSWORD): Promise<{ api: APIRequestContext; csrf: string }> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const first = await api.get('/api/auth/csrf');
-  expect(first.ok()).toBe(true);
-  const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const signedIn = await api.post('/api/auth/sign-in', { data: { email, password }, headers: { 'X-CSRF-Token': csrfToken } });
-  expect(signedIn.status(), await signedIn.text()).toBe(200);
-  return { api, csrf: ((await signedIn.json()) as { csrfToken: string }).csrfToken };
 }
