@@ -122,6 +122,18 @@ describe('rate limits on every route that takes a secret or sends mail', () => {
     }
   });
 
+  it('invitation e-mails per signed-in person', async () => {
+    const limited = createTestApp({ limits: { invitationsPerAccount: 2 } });
+    try {
+      const { client } = await signUpFirm(limited.app, 'invite-flood');
+      const statuses = [];
+      for (let i = 0; i < 3; i += 1) statuses.push((await client.post('/api/invitations', { email: uniqueEmail('invitee'), role: 'engineer' })).status);
+      expect(statuses).toEqual([201, 201, 429]);
+    } finally {
+      await limited.close();
+    }
+  });
+
   it('wrong current passwords at a password change, per account', async () => {
     const limited = createTestApp({ limits: { passwordChangeFailuresPerAccount: 3 } });
     try {

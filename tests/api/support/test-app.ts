@@ -29,7 +29,7 @@ export interface TestApp {
  * and reset e-mails, which count every request, are lifted here; tests/api/rate-limit.test.ts and
  * security-hardening.test.ts set them back to test them.
  */
-export const testRateLimits: Partial<RateLimits> = { signUpsPerAddress: 100_000, resetsPerAddress: 100_000 };
+export const testRateLimits: Partial<RateLimits> = { signUpsPerAddress: 100_000, resetsPerAddress: 100_000, invitationsPerAddress: 100_000 };
 
 export function createTestApp(opts: { env?: Partial<Record<keyof Env, string>>; limits?: Partial<RateLimits> } = {}): TestApp {
   const env = parseEnv({ ...process.env, LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'error', ...opts.env });

@@ -23,6 +23,9 @@ export interface RateLimits {
   /** Failed uses of a link (sign-up confirmation, password reset, invitation) per link and per client address. */
   linkFailuresPerLink: number;
   linkFailuresPerAddress: number;
+  /** Invitation e-mails sent, per signed-in person and per client address, per hour. */
+  invitationsPerAccount: number;
+  invitationsPerAddress: number;
   /** Wrong current passwords at a password change, per account and per client address. */
   passwordChangeFailuresPerAccount: number;
   passwordChangeFailuresPerAddress: number;
@@ -38,6 +41,8 @@ export const defaultRateLimits: RateLimits = {
   signUpsPerAddress: 20,
   linkFailuresPerLink: 5,
   linkFailuresPerAddress: 20,
+  invitationsPerAccount: 50,
+  invitationsPerAddress: 200,
   passwordChangeFailuresPerAccount: 5,
   passwordChangeFailuresPerAddress: 20,
 };
@@ -54,6 +59,8 @@ export interface RateLimiters {
   linkByAddress: RequestHandler;
   passwordChangeByAccount: RequestHandler;
   passwordChangeByAddress: RequestHandler;
+  invitationByAccount: RequestHandler;
+  invitationByAddress: RequestHandler;
 }
 
 const HOUR_MS = 60 * 60 * 1000;
@@ -194,6 +201,20 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       key: addressKey,
       failuresOnly: true,
       message: 'Too many wrong current passwords from this network.',
+    }),
+    invitationByAccount: limiter({
+      windowMs: HOUR_MS,
+      limit: l.invitationsPerAccount,
+      key: signedInUserKey,
+      failuresOnly: false,
+      message: 'Too many invitations sent from your account.',
+    }),
+    invitationByAddress: limiter({
+      windowMs: HOUR_MS,
+      limit: l.invitationsPerAddress,
+      key: addressKey,
+      failuresOnly: false,
+      message: 'Too many invitations sent from this network.',
     }),
   };
 }

@@ -44,7 +44,10 @@ export const invitationRoutes: RouteDefinition[] = [
     responses: {
       201: { description: 'Invited', schema: invitationResponseSchema },
       409: { description: 'Already a member' },
+      429: { description: 'Too many invitations sent' },
     },
+    // Each invitation sends an e-mail: limited per person and per client address.
+    before: (deps) => [deps.limiters.invitationByAddress, deps.limiters.invitationByAccount],
     handle: async ({ body, res, deps, actor }) => {
       res.status(201).json({ invitation: await createInvitation(deps, actor, body) });
     },
