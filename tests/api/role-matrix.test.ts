@@ -87,6 +87,7 @@ const allowed: Record<string, Role[]> = {
   // The probe's job is the seeded engineer's own: they may complete it; so may the office.
   'POST /jobs/:id/complete': everyone,
   'GET /jobs/:id/report.pdf': everyone,
+  'GET /jobs/:id/customer-report.pdf': everyone,
   // The job sheet's writes: the probe's job is the seeded engineer's own, so every role may write it.
   'PUT /jobs/:id/steps/:step': everyone,
   'PUT /jobs/:id/radiators/:index/readings/:phase': everyone,

@@ -3,6 +3,7 @@ import { healthRoutes } from '../modules/health/health-router.ts';
 import { invitationRoutes } from '../modules/invitations/invitation-router.ts';
 import { customerRoutes } from '../modules/jobs/customer-router.ts';
 import { jobRoutes } from '../modules/jobs/job-router.ts';
+import { jobReportRoutes } from '../modules/jobs/job-report-router.ts';
 import { jobSheetRoutes } from '../modules/jobs/job-sheet-router.ts';
 import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
 import { kitItemRoutes } from '../modules/kits/kit-item-router.ts';
@@ -42,6 +43,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...restockRoutes,
   ...customerRoutes,
   ...jobRoutes,
+  ...jobReportRoutes,
   ...jobSheetRoutes,
   ...reminderRoutes,
   ...firmRoutes,

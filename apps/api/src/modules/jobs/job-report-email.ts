@@ -8,11 +8,11 @@ import { findSite } from '../sites/site-dal.ts';
 import { renderReportFor } from './job-report-service.ts';
 
 /**
- * Stores the completion report and writes the e-mail that carries it to the customer, in the
- * completion's transaction. A customer without an e-mail address gets none (the report can still be
- * downloaded from the job). The object is written before the row, so an e-mail never points at a
- * missing file; a completion rolled back leaves at most an unreferenced object. With storage down
- * the job still completes and no e-mail is written.
+ * Stores the customer's report (customer-report.ts, never the firm's record) and writes the e-mail that
+ * carries it to the customer, in the completion's transaction. A customer without an e-mail address
+ * gets none (the report can still be downloaded from the job). The object is written before the row,
+ * so an e-mail never points at a missing file; a completion rolled back leaves at most an unreferenced
+ * object. With storage down the job still completes and no e-mail is written.
  */
 export async function queueJobReportEmail(
   trx: Knex.Transaction,
@@ -23,7 +23,7 @@ export async function queueJobReportEmail(
   const customer = (await findSite(trx, actor.firmId, detail.job.site.id))?.customer;
   if (!customer?.email) return null;
   const firmName = (await findFirm(trx, actor.firmId))?.name ?? '';
-  const pdf = await renderReportFor(deps, trx, actor.firmId, detail);
+  const pdf = await renderReportFor(deps, trx, actor.firmId, detail, 'customer-report');
   const key = `firms/${actor.firmId}/reports/job-${detail.job.id}-${randomUUID()}.pdf`;
   try {
     await deps.objectStore.put(key, pdf, 'application/pdf');

@@ -3,7 +3,6 @@ import { createJobInputSchema, idParamSchema, jobDetailSchema, jobListResponseSc
 import { idempotencyKeyOf } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { completeJob } from './job-completion-service.ts';
-import { jobReportPdf } from './job-report-service.ts';
 import { createJob, getJob, listJobs } from './job-service.ts';
 
 export const jobRoutes: RouteDefinition[] = [
@@ -66,23 +65,6 @@ export const jobRoutes: RouteDefinition[] = [
     handle: async ({ params, req, res, deps, actor }) => {
       const out = await completeJob(deps, actor, params.id, idempotencyKeyOf(req));
       res.status(out.status).json(out.body);
-    },
-  }),
-  defineRoute({
-    method: 'get',
-    path: '/jobs/:id/report.pdf',
-    tag: 'Jobs',
-    access: 'member',
-    tenantData: true,
-    summary:
-      'The completion report as a PDF (firm, customer, system, volume, chemicals with lots, radiator table, water tests, kit, steps, photos, cautions, next check)',
-    request: { params: idParamSchema },
-    responses: { 200: { description: 'PDF' } },
-    handle: async ({ params, res, deps, actor }) => {
-      const pdf = await jobReportPdf(deps, actor, params.id);
-      res.setHeader('Content-Type', 'application/pdf');
-      res.setHeader('Content-Disposition', `attachment; filename="cleaning-report-${params.id}.pdf"`);
-      res.send(pdf);
     },
   }),
 ];

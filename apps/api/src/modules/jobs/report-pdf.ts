@@ -22,16 +22,25 @@ export interface ReportPdf {
   left: number;
   /** Starts a new page when fewer than `height` points are left on this one. */
   room(height: number): void;
-  heading(text: string): void;
+  /** A section heading, moved to a new page unless `keepWith` points fit under it. */
+  heading(text: string, keepWith?: number): void;
   line(label: string, value: string): void;
   /** A plain table: bold header row, thin rules, a new page (with the header again) when it runs out. */
   table(columns: TableColumn[], rows: string[][]): void;
-  /** Ends the document; resolves with its bytes. */
-  finish(): Promise<Buffer>;
+  /** A framed panel of label and value lines under a title, kept on one page. */
+  box(title: string, rows: [label: string, value: string][]): void;
+  /** Ends the document, with `footer(page, pages)` printed at the foot of every page; resolves with its bytes. */
+  finish(footer?: (page: number, pages: number) => string): Promise<Buffer>;
 }
 
 export function createReportPdf(info: { title: string; author: string }): ReportPdf {
-  const doc = new PDFDocument({ size: 'A4', margin: 50, info: { Title: info.title, Author: info.author } });
+  // Pages are kept until the end so each can carry "Page X of Y" once the count is known.
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: 50,
+    bufferPages: true,
+    info: { Title: info.title, Author: info.author },
+  });
   doc.registerFont('body', fontRegular);
   doc.registerFont('bold', fontBold);
   const chunks: Buffer[] = [];
@@ -84,12 +93,68 @@ export function createReportPdf(info: { title: string; author: string }): Report
     doc.moveDown(0.3);
   };
 
+  const box = (title: string, rows: [string, string][]) => {
+    const pad = 8;
+    const labelWidth = 150;
+    const valueWidth = contentWidth - labelWidth - 2 * pad;
+    doc.font('bold').fontSize(10);
+    const heights = rows.map(([label, value]) =>
+      Math.max(
+        doc.font('bold').heightOfString(label, { width: labelWidth - 6 }),
+        doc.font('body').heightOfString(value, { width: valueWidth }),
+      ),
+    );
+    const titleHeight = doc
+      .font('bold')
+      .fontSize(12)
+      .heightOfString(title, { width: contentWidth - 2 * pad });
+    const height = pad * 2 + titleHeight + 4 + heights.reduce((n, h) => n + h + 3, 0);
+    doc.moveDown(0.6);
+    room(height + 10);
+    const top = doc.y;
+    doc.roundedRect(left, top, contentWidth, height, 4).lineWidth(1.2).strokeColor(HEAD).stroke();
+    doc
+      .font('bold')
+      .fontSize(12)
+      .fillColor(HEAD)
+      .text(title, left + pad, top + pad, { width: contentWidth - 2 * pad });
+    let y = top + pad + titleHeight + 4;
+    doc.fontSize(10).fillColor(INK);
+    rows.forEach(([label, value], i) => {
+      doc.font('bold').text(label, left + pad, y, { width: labelWidth - 6 });
+      doc.font('body').text(value, left + pad + labelWidth, y, { width: valueWidth });
+      y += heights[i]! + 3;
+    });
+    doc.x = left;
+    doc.y = top + height + 4;
+  };
+
+  const footers = (footer: (page: number, pages: number) => string) => {
+    const { start, count } = doc.bufferedPageRange();
+    for (let i = start; i < start + count; i++) {
+      doc.switchToPage(i);
+      // Writing below the bottom margin would start a new page: lift the margin while the footer is drawn.
+      const bottomMargin = doc.page.margins.bottom;
+      doc.page.margins.bottom = 0;
+      doc
+        .font('body')
+        .fontSize(8.5)
+        .fillColor(MUTED)
+        .text(footer(i - start + 1, count), left, doc.page.height - bottomMargin + 18, {
+          width: contentWidth,
+          align: 'center',
+          lineBreak: false,
+        });
+      doc.page.margins.bottom = bottomMargin;
+    }
+  };
+
   return {
     doc,
     left,
     room,
-    heading: (text) => {
-      room(60);
+    heading: (text, keepWith = 40) => {
+      room(keepWith + 30);
       doc
         .moveDown(0.8)
         .font('bold')
@@ -105,7 +170,9 @@ export function createReportPdf(info: { title: string; author: string }): Report
       doc.font('bold').text(`${label}: `, left, undefined, { continued: true }).font('body').text(value);
     },
     table,
-    finish: () => {
+    box,
+    finish: (footer) => {
+      if (footer) footers(footer);
       doc.end();
       return done;
     },

@@ -3,58 +3,42 @@ import {
   cautionKeys,
   cautionTexts,
   havDay,
-  jobPhotoTagLabels,
   litresToImperialGallons,
-  type JobDetail,
   type ReadingFigures,
 } from '@heatfleet/domain';
-import { createReportPdf, HEAD, INK, MUTED, type ReportPdf } from './report-pdf.ts';
+import type { ReportData } from './job-report-data.ts';
+import { one, packSize, ukDateTime, ukTime, yesNo } from './report-format.ts';
+import { createReportPdf, HEAD, INK, MUTED } from './report-pdf.ts';
+import { drawReasons, drawSignatures, photosSection, type Draw } from './report-sections.ts';
 
-/** A job photo for the report: JPEG and PNG are drawn; pdfkit cannot draw WebP, so it is listed. */
-export interface ReportPhoto {
-  tag: string | null;
-  caption: string | null;
-  contentType: string;
-  image: Buffer | null;
-}
+// The firm's internal record of a job: everything the sheet holds, who did what and when, the engineer's
+// vibration points and the kit's asset tags. The customer gets customer-report.ts instead.
 
-export interface ReportContext {
-  firmName: string;
-  engineerName: string | null;
-  timeZone: string;
-  photos: ReportPhoto[];
-}
-
-type Draw = (pdf: ReportPdf, detail: JobDetail, ctx: ReportContext) => void;
-
-const one = (n: number | null | undefined) => (n === null || n === undefined ? '-' : n.toFixed(1));
-
-const timeOf = (iso: string, timeZone: string) =>
-  new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    day: 'numeric',
-    month: 'short',
-    hour: '2-digit',
-    minute: '2-digit',
-    hour12: false,
-  }).format(new Date(iso));
-
-const drawVisit: Draw = ({ doc, heading, line }, detail, ctx) => {
+const drawVisit: Draw = ({ doc, heading, line }, { detail, firm, engineerName, reportNumber, visitKind }) => {
   doc.font('bold').fontSize(18).fillColor(HEAD).text('System cleaning report');
-  doc.font('body').fontSize(10).fillColor(INK).text(ctx.firmName);
+  doc.font('body').fontSize(10).fillColor(INK).text(firm.name);
+  doc.fillColor(MUTED).text(`The firm's record, report ${reportNumber}: for the firm, not the customer.`);
+  doc.fillColor(INK);
   heading('Visit');
   const { job } = detail;
+  line('Visit', visitKind === 'inhibitor_only' ? 'Inhibitor only' : 'Full clean');
   line('Customer', job.site.customerName);
   line('Address', `${job.site.address}${job.site.postcode ? `, ${job.site.postcode}` : ''}`);
-  line('Engineer', ctx.engineerName ?? 'Not recorded');
-  line('Date', job.completedAt ? calendarDateIn(new Date(job.completedAt), ctx.timeZone) : job.scheduledOn);
+  line('Engineer', engineerName ?? 'Not recorded');
+  line('Date', job.completedAt ? calendarDateIn(new Date(job.completedAt), firm.timeZone) : job.scheduledOn);
+  if (job.completedAt) line('Completed', ukDateTime(job.completedAt, firm.timeZone));
   line('Next inhibitor check due', job.nextCheckOn ?? 'Not set');
 };
 
-const drawSystem: Draw = ({ doc, heading, line }, detail) => {
+const drawSystem: Draw = ({ doc, heading, line }, { detail, system }) => {
   heading('System');
   const s = detail.survey;
   line('System', `${s.systemType === 'sealed' ? 'Sealed' : 'Open-vented'}, ${s.boilerKind} boiler, ${s.fuel}`);
+  const boiler = [system.boilerMake, system.boilerModel].filter(Boolean).join(' ');
+  if (boiler || system.boilerLocation)
+    line('Boiler', [boiler, system.boilerLocation && `in the ${system.boilerLocation}`].filter(Boolean).join(', '));
+  line('Magnetic filter fitted', yesNo(system.magneticFilterFitted));
+  if (s.systemType === 'open_vented') line('Cistern', system.cisternCondition ?? 'Not recorded');
   line('Radiators', String(s.radiators.length));
   const v = detail.volume;
   line(
@@ -67,11 +51,13 @@ const drawSystem: Draw = ({ doc, heading, line }, detail) => {
   );
 };
 
-const drawChemicals: Draw = ({ doc, heading }, detail) => {
+const drawChemicals: Draw = ({ doc, heading }, { detail, chemicals }) => {
   heading('Chemicals used');
-  if (detail.chemicalsUsed.length === 0) doc.text('None recorded.');
-  for (const c of detail.chemicalsUsed)
-    doc.text(`${c.product}: ${c.packs} pack(s), lot ${c.lotNumber}, use by ${c.expiresOn}`);
+  if (chemicals.length === 0) doc.text('None recorded.');
+  for (const c of chemicals)
+    doc.text(
+      `${c.product}: ${c.packs} pack(s) of ${packSize(c.packSizeMl)}, lot ${c.lotNumber}, use by ${c.expiresOn}`,
+    );
   for (const d of detail.doses) {
     doc.text(
       `${d.product.name}: plan ${d.packs} pack(s) (${d.decidedBy === 'radiators' ? 'by the radiators rule' : 'by system volume'}${d.litres !== null ? `, ${d.litres.toFixed(2)} L by label rate` : ''}).`,
@@ -79,11 +65,11 @@ const drawChemicals: Draw = ({ doc, heading }, detail) => {
   }
 };
 
-const drawSteps: Draw = ({ doc, heading }, { sheet }, ctx) => {
+const drawSteps: Draw = ({ doc, heading }, { detail: { sheet }, firm }) => {
   heading('Steps of the visit');
   for (const st of sheet.steps)
     doc.text(
-      `${st.doneAt ? timeOf(st.doneAt, ctx.timeZone) : 'Not ticked'}  ${st.label}${st.doneByName ? ` (${st.doneByName})` : ''}`,
+      `${st.doneAt ? timeOf(st.doneAt, firm.timeZone) : 'Not ticked'}  ${st.label}${st.doneByName ? ` (${st.doneByName})` : ''}`,
     );
   const c = sheet.circulation;
   if (c.elapsedMinutes !== null) {
@@ -93,7 +79,11 @@ const drawSteps: Draw = ({ doc, heading }, { sheet }, ctx) => {
   }
 };
 
-const drawRadiators: Draw = ({ doc, heading, table }, { sheet }, ctx) => {
+/** "3 Dec, 14:05": the record's steps and flushes, short. */
+const timeOf = (iso: string, timeZone: string) =>
+  `${new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'short' }).format(new Date(iso))}, ${ukTime(iso, timeZone)}`;
+
+const drawRadiators: Draw = ({ doc, heading, table }, { detail: { sheet }, firm }) => {
   heading('Radiators');
   doc
     .fillColor(MUTED)
@@ -130,7 +120,7 @@ const drawRadiators: Draw = ({ doc, heading, table }, { sheet }, ctx) => {
       r.agitation ? String(r.agitation.minutes) : '-',
     ]),
   );
-  const agitations = sheet.radiators.flatMap((r) => (r.agitation ? [r.agitation] : []));
+  const agitations = sheet.radiators.flatMap((r) => (r.agitation ? [{ room: r.room, ...r.agitation }] : []));
   if (agitations.length) {
     const minutes = agitations.reduce((n, a) => n + a.minutes, 0);
     // From the raw minutes, as the day's total is, so the two never disagree by rounding.
@@ -138,17 +128,19 @@ const drawRadiators: Draw = ({ doc, heading, table }, { sheet }, ctx) => {
     doc.text(
       `Agitation: ${minutes} minutes in all; ${points} hand-arm vibration points on this visit (HSE points system; 100 is the exposure action value, 400 the limit value).`,
     );
+    const tools = agitations.filter((a) => a.kitItemTag);
+    if (tools.length) doc.text(`Tools: ${tools.map((a) => `${a.room} ${a.kitItemTag}`).join('; ')}.`);
     doc.text(`The engineer\u2019s day (${sheet.hav.day}): ${sheet.hav.message}`);
   }
   const flushed = sheet.radiators.filter((r) => r.flushedAt);
   doc.text(
     flushed.length
-      ? `Flushed until clear: ${flushed.map((r) => `${r.room} ${timeOf(r.flushedAt!, ctx.timeZone)}`).join('; ')}${flushed.length < sheet.radiators.length ? ` (${sheet.radiators.length - flushed.length} not recorded)` : ''}.`
+      ? `Flushed until clear: ${flushed.map((r) => `${r.room} ${timeOf(r.flushedAt!, firm.timeZone)}`).join('; ')}${flushed.length < sheet.radiators.length ? ` (${sheet.radiators.length - flushed.length} not recorded)` : ''}.`
       : 'No radiator was recorded as flushed until clear.',
   );
 };
 
-const drawWaterTests: Draw = ({ heading, line }, { sheet }) => {
+const drawWaterTests: Draw = ({ heading, line }, { detail: { sheet }, inhibitorTestMethod }) => {
   heading('Water tests');
   const w = sheet.water;
   const result = (ok: boolean) => (ok ? 'PASS' : 'FAIL');
@@ -181,53 +173,34 @@ const drawWaterTests: Draw = ({ heading, line }, { sheet }) => {
         : 'Not tested',
     );
   }
+  if (inhibitorTestMethod) line('Inhibitor test method', inhibitorTestMethod);
   line('pH', w.ph !== null ? String(w.ph) : 'Not taken');
 };
 
-const drawKitAndNotes: Draw = ({ doc, heading }, { sheet }) => {
+const drawKitAndNotes: Draw = ({ doc, heading }, { detail: { sheet }, recommendation }) => {
   heading('Kit used');
   if (sheet.kitUsed.length === 0) doc.text('None recorded.');
   for (const k of sheet.kitUsed) doc.text(`${k.assetTag}: ${k.kindName}${k.kitName ? ` (${k.kitName})` : ''}`);
   heading('Notes');
   doc.text(sheet.notes || 'None.');
+  if (recommendation) doc.text(`Recommended to the customer: ${recommendation}`);
 };
 
-const drawPhotos: Draw = ({ doc, left, room, heading }, _detail, ctx) => {
-  if (!ctx.photos.length) return;
-  heading('Photos');
-  const label = (p: ReportPhoto) =>
-    [p.tag ? (jobPhotoTagLabels[p.tag as keyof typeof jobPhotoTagLabels] ?? p.tag) : null, p.caption]
-      .filter(Boolean)
-      .join(': ') || 'Photo';
-  for (const p of ctx.photos) {
-    if (p.image) {
-      room(200);
-      doc.font('bold').text(label(p), left);
-      doc.font('body');
-      const y = doc.y;
-      try {
-        doc.image(p.image, left, y, { fit: [240, 170] });
-        doc.y = y + 175;
-      } catch {
-        doc.text('(this photo could not be drawn)', left, y);
-      }
-    } else {
-      doc.text(
-        `${label(p)} (${p.contentType === 'image/webp' ? 'WebP photo, kept with the job: not printable here' : 'photo not available'})`,
-        left,
-      );
-    }
-  }
-};
+const drawPhotos = photosSection((p) =>
+  p.contentType === 'image/webp' ? 'WebP photo, kept with the job: not printable here' : 'photo not available',
+);
 
 const drawSafety: Draw = ({ doc, left, heading }) => {
   heading('Safety');
   for (const key of cautionKeys) doc.text(`\u2022 ${cautionTexts[key]}`, left);
 };
 
-/** The completion report a customer keeps: our own plain layout, A4, one section after another. */
-export function renderJobReport(detail: JobDetail, ctx: ReportContext): Promise<Buffer> {
-  const pdf = createReportPdf({ title: `Heatfleet cleaning report, job ${detail.job.id}`, author: ctx.firmName });
+/** The firm's record of a job: our own plain layout, A4, one section after another. */
+export function renderFirmRecord(data: ReportData): Promise<Buffer> {
+  const pdf = createReportPdf({
+    title: `Heatfleet cleaning record, report ${data.reportNumber}`,
+    author: data.firm.name,
+  });
   for (const draw of [
     drawVisit,
     drawSystem,
@@ -235,10 +208,14 @@ export function renderJobReport(detail: JobDetail, ctx: ReportContext): Promise<
     drawSteps,
     drawRadiators,
     drawWaterTests,
+    drawReasons,
     drawKitAndNotes,
+    drawSignatures,
     drawPhotos,
     drawSafety,
   ])
-    draw(pdf, detail, ctx);
-  return pdf.finish();
+    draw(pdf, data);
+  return pdf.finish(
+    (page, pages) => `${data.firm.name} \u00b7 the firm's record ${data.reportNumber} \u00b7 Page ${page} of ${pages}`,
+  );
 }
