@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { singleLineName } from '../lib/text.ts';
+import { heatExchangerDefaultsSchema } from '../jobs/heat-exchanger.ts';
+import { optionalPlainText, singleLineName } from '../lib/text.ts';
 
 export const volumeUnits = ['litres', 'imperial_gallons'] as const;
 export type VolumeUnit = (typeof volumeUnits)[number];
@@ -48,6 +49,23 @@ export const firmSettingsInputSchema = z.strictObject({
     .max(COLD_BOTTOM_THRESHOLD_MAX_K, {
       error: `The cold-bottom threshold must be between ${COLD_BOTTOM_THRESHOLD_MIN_K} and ${COLD_BOTTOM_THRESHOLD_MAX_K} K.`,
     }),
+  // The contact details and registrations the customer's report prints. Left out: unchanged.
+  phone: z
+    .string()
+    .trim()
+    .max(40, { error: 'The phone number must be at most 40 characters.' })
+    .regex(/^[0-9+() -]*$/, { error: 'A phone number has digits, spaces, +, ( ) and - only.' })
+    .transform((s) => (s === '' ? null : s))
+    .nullable()
+    .optional(),
+  email: z
+    .union([z.literal(''), z.email({ error: 'That is not an e-mail address.' }).max(254)])
+    .transform((s) => (s === '' ? null : s.toLowerCase()))
+    .nullable()
+    .optional(),
+  /** Free text, for example a trade scheme's registration number; printed as typed. */
+  registrationNumbers: optionalPlainText('Registration numbers', 300),
+  /** Heat exchanger content by fuel and boiler kind; null goes back to the built-in defaults. */
+  heatExchangerDefaults: heatExchangerDefaultsSchema.nullable().optional(),
 });
 export type FirmSettingsInput = z.infer<typeof firmSettingsInputSchema>;
-export type FirmSettings = Omit<FirmSettingsInput, 'address'> & { id: number; address: string | null };

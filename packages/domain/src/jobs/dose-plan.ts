@@ -34,7 +34,14 @@ export function dosePlan(volumeLitres: number, radiators: number, rule: DoseRule
   const r = packsByRadiators ?? 0;
   const packs = Math.max(v, r);
   const decidedBy = packs === 0 ? 'none' : v >= r ? 'volume' : 'radiators';
-  return { litres, packsByVolume, packsByRadiators, packs, decidedBy };
+  // Litres are shown to two decimals beside the packs; the packs were counted from the unrounded figure.
+  return {
+    litres: litres === null ? null : Math.round(litres * 100) / 100,
+    packsByVolume,
+    packsByRadiators,
+    packs,
+    decidedBy,
+  };
 }
 
 function finiteOrNull(n: number): number | null {

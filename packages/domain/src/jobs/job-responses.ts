@@ -2,10 +2,20 @@ import { z } from 'zod';
 import { havLevels } from './hav-day.ts';
 import { panelTypes, surveySchema } from './job-schemas.ts';
 import { jobSteps } from './job-sheet.ts';
+import {
+  completionIssueSchema,
+  completionReasonSchema,
+  flushOrderSchema,
+  jobCancellationSchema,
+  jobSignatureSchema,
+  systemDetailsAnswerSchema,
+  visitCautionSchema,
+  visitKindSchema,
+} from './visit-responses.ts';
 
 // The success bodies of the job routes: the API declares them, the client's queries parse with them.
 
-export const jobStatuses = ['planned', 'completed'] as const;
+export const jobStatuses = ['planned', 'completed', 'cancelled'] as const;
 export const jobStatusSchema = z.enum(jobStatuses);
 export type JobStatus = z.infer<typeof jobStatusSchema>;
 
@@ -16,6 +26,12 @@ export const jobListRowSchema = z.object({
   address: z.string(),
   customerName: z.string(),
   nextCheckOn: z.string().nullable(),
+  postcode: z.string().nullable(),
+  engineerMemberId: z.number().nullable(),
+  engineerName: z.string().nullable(),
+  visitKind: visitKindSchema,
+  systemType: z.enum(['open_vented', 'sealed']),
+  radiatorCount: z.number(),
 });
 export type JobListRow = z.infer<typeof jobListRowSchema>;
 export const jobListResponseSchema = z.object({ jobs: z.array(jobListRowSchema) });
@@ -29,6 +45,8 @@ export const volumeBreakdownSchema = z.object({
   otherLitres: z.number(),
   totalLitres: z.number(),
   estimate: z.boolean(),
+  label: z.enum(['Calculated from the survey', 'Estimated']),
+  heatExchangerFrom: z.enum(['survey', 'default']),
   howReached: z.string(),
 });
 
@@ -108,14 +126,23 @@ export type SheetRadiator = z.infer<typeof sheetRadiatorSchema>;
 /** The on-site record of a visit (see job-sheet.ts): what was ticked, read, tested and used, with its figures. */
 export const jobSheetSchema = z.object({
   editable: z.boolean(),
+  visitKind: visitKindSchema,
+  /** The steps of this visit (see `visitSteps`), each with the cautions that belong beside it. */
   steps: z.array(
     z.object({
       step: z.enum(jobSteps),
       label: z.string(),
+      cautions: z.array(visitCautionSchema),
       doneAt: z.string().nullable(),
       doneByName: z.string().nullable(),
     }),
   ),
+  /** The visit's cautions in one list, only those that fit the system, fuel and visit (see `visitCautions`). */
+  cautions: z.array(visitCautionSchema),
+  flushOrder: flushOrderSchema,
+  signatures: z.array(jobSignatureSchema),
+  /** What completing now would ask a reason for (see `completionChecks`). */
+  completionIssues: z.array(completionIssueSchema),
   circulation: z.object({
     minimumMinutes: z.number().nullable(),
     startedAt: z.string().nullable(),
@@ -181,6 +208,14 @@ export const jobDetailSchema = z.object({
     completedAt: z.string().nullable(),
     nextCheckOn: z.string().nullable(),
     site: jobSiteSchema,
+    visitKind: visitKindSchema,
+    engineerName: z.string().nullable(),
+    systemDetails: systemDetailsAnswerSchema,
+    /** Given at completion (see `formatReportNumber`); null until then. */
+    reportNumber: z.string().nullable(),
+    cancellation: jobCancellationSchema.nullable(),
+    /** The reasons given at completion for anything not done. */
+    completionReasons: z.array(completionReasonSchema),
   }),
   survey: surveySchema,
   volume: volumeBreakdownSchema,

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
+import { boilerKinds, fuels, heatExchangerDefaultLitres, type HeatExchangerDefaults } from './heat-exchanger.ts';
 import {
   copperTubes,
   pipeWaterContentLitresPerMetre,
@@ -60,18 +61,53 @@ export const surveyPipeRunSchema = z
     path: ['boreMm'],
   });
 
-export const boilerKinds = ['combi', 'system', 'regular'] as const;
-/** Heat exchanger water content by boiler kind, litres: defaults to edit (from memory, not a standard). */
+/**
+ * Heat exchanger water content of a gas boiler by kind, litres (from memory, not a standard). Other
+ * fuels and a firm's own figures: `heatExchangerDefaultLitres` in heat-exchanger.ts.
+ */
 export const defaultHeatExchangerLitres: Record<(typeof boilerKinds)[number], number> = {
   combi: 1,
   system: 2,
   regular: 3,
 };
 
+/** A full clean (cleaner, hot circulation, agitation, flush, inhibitor, tests) or an inhibitor visit (dose, circulate, test). */
+export const visitKinds = ['full_clean', 'inhibitor_only'] as const;
+export type VisitKind = (typeof visitKinds)[number];
+export const visitKindLabels: Record<VisitKind, string> = {
+  full_clean: 'Full clean',
+  inhibitor_only: 'Inhibitor only',
+};
+
+/** The state of an open-vented system's feed-and-expansion cistern, as found on the visit. */
+export const cisternConditions = ['clean', 'dirty_cleaned', 'needs_attention'] as const;
+export type CisternCondition = (typeof cisternConditions)[number];
+export const cisternConditionLabels: Record<CisternCondition, string> = {
+  clean: 'Clean',
+  dirty_cleaned: 'Dirty: cleaned on the visit',
+  needs_attention: 'Needs attention',
+};
+
+/** What the report says about the system; every field may wait until the visit. */
+export const systemDetailsSchema = z.strictObject({
+  boilerMake: text('Boiler make', 80),
+  boilerModel: text('Boiler model', 80),
+  boilerLocation: text('Boiler location', 120),
+  magneticFilterFitted: z.boolean({ error: 'Say yes or no: is a magnetic filter fitted?' }).nullable().optional(),
+  /** Open-vented systems only: a sealed system has no feed-and-expansion cistern. */
+  cisternCondition: z
+    .enum(cisternConditions, {
+      error: () => ({ message: `The cistern's condition must be one of: ${cisternConditions.join(', ')}.` }),
+    })
+    .nullable()
+    .optional(),
+});
+export type SystemDetails = z.infer<typeof systemDetailsSchema>;
+
 export const surveySchema = z.strictObject({
   systemType: z.enum(['open_vented', 'sealed']),
   boilerKind: z.enum(boilerKinds),
-  fuel: z.enum(['gas', 'oil', 'other']),
+  fuel: z.enum(fuels),
   heatExchangerLitres: z.number().min(0).max(100).nullable().optional(),
   cylinderCoilLitres: z.number().min(0).max(100).nullable().optional(),
   otherLitres: z.number().min(0).max(2000).nullable().optional(),
@@ -89,6 +125,10 @@ export interface VolumeBreakdown {
   totalLitres: number;
   /** True when the survey was too short and the quick estimate was used. */
   estimate: boolean;
+  /** Never "measured": a volume from a survey is calculated, or estimated when the survey is short. */
+  label: 'Calculated from the survey' | 'Estimated';
+  /** Where the heat exchanger figure came from: typed on the survey, or a default for the boiler kind and fuel. */
+  heatExchangerFrom: 'survey' | 'default';
   howReached: string;
 }
 
@@ -96,9 +136,14 @@ export interface VolumeBreakdown {
  * The system volume from a survey, each part shown; when radiators lack sizes or litres and no pipe
  * runs were measured, the quick estimate stands in (and says so).
  */
-export function surveyVolume(survey: Survey): VolumeBreakdown {
+export function surveyVolume(
+  survey: Survey,
+  heatExchangerDefaults: HeatExchangerDefaults | null = null,
+): VolumeBreakdown {
   const sized = survey.radiators.filter((r) => r.litres != null || (r.heightMm && r.lengthMm));
-  const heatExchangerLitres = survey.heatExchangerLitres ?? defaultHeatExchangerLitres[survey.boilerKind];
+  const heatExchangerFrom = survey.heatExchangerLitres == null ? 'default' : 'survey';
+  const heatExchangerLitres =
+    survey.heatExchangerLitres ?? heatExchangerDefaultLitres(survey.boilerKind, survey.fuel, heatExchangerDefaults);
   const cylinderCoilLitres = survey.cylinderCoilLitres ?? 0;
   const otherLitres = survey.otherLitres ?? 0;
   if (survey.radiators.length > 0 && (sized.length < survey.radiators.length || survey.pipeRuns.length === 0)) {
@@ -112,7 +157,9 @@ export function surveyVolume(survey: Survey): VolumeBreakdown {
       otherLitres,
       totalLitres,
       estimate: true,
-      howReached: `Estimate: about 10 L per single-panel equivalent, pipework included (${survey.radiators.length} radiators), plus the boiler and other parts.`,
+      label: 'Estimated',
+      heatExchangerFrom,
+      howReached: `Estimated: about 10 L per single-panel equivalent, pipework included (${survey.radiators.length} radiators), plus the boiler and other parts.`,
     };
   }
   const radiatorsLitres = survey.radiators.reduce(
@@ -129,8 +176,10 @@ export function surveyVolume(survey: Survey): VolumeBreakdown {
     ...parts,
     totalLitres: systemVolumeLitres(parts),
     estimate: false,
+    label: 'Calculated from the survey',
+    heatExchangerFrom,
     howReached:
-      'Measured: radiators by size or stated litres, pipework by tube size and length, plus the boiler, cylinder coil and other parts.',
+      'Calculated from the survey: radiators by size or stated litres, pipework by tube size and length, plus the boiler, cylinder coil and other parts.',
   };
 }
 
@@ -141,5 +190,10 @@ export const createJobInputSchema = z.strictObject({
   survey: surveySchema,
   /** The products to dose (a cleaner, an inhibitor). */
   productIds: z.array(z.number().int().positive()).max(6).default([]),
+  /** A full clean when left out. */
+  visitKind: z
+    .enum(visitKinds, { error: () => ({ message: 'The visit must be a full clean or inhibitor only.' }) })
+    .optional(),
+  systemDetails: systemDetailsSchema.optional(),
 });
 export type CreateJobInput = z.infer<typeof createJobInputSchema>;

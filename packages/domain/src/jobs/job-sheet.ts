@@ -17,7 +17,10 @@ import {
  * engineer enters and answers with the figures computed here; the sheet shows the same figures live.
  */
 
-/** The steps of a visit, in the order they are usually done. Labels are ours. */
+/**
+ * Every step a visit may have. Which of them a visit has, in what order, with which label and
+ * cautions, depends on the system, the fuel and the kind of visit: `visitSteps` in visit-steps.ts.
+ */
 export const jobSteps = [
   'isolate_connect',
   'dose_cleaner',
@@ -26,6 +29,12 @@ export const jobSteps = [
   'flush',
   'dose_inhibitor',
   'reinstate',
+  'depressurise',
+  'check_expansion_vessel',
+  'check_cistern',
+  'latch_zone_valves',
+  'circulate_inhibitor',
+  'test_water',
 ] as const;
 export type JobStep = (typeof jobSteps)[number];
 export const jobStepLabels: Record<JobStep, string> = {
@@ -36,6 +45,12 @@ export const jobStepLabels: Record<JobStep, string> = {
   flush: 'Flush each radiator until clear',
   dose_inhibitor: 'Dose the inhibitor',
   reinstate: 'Reinstate: refill, vent, pressurise and check for leaks',
+  depressurise: 'Release the system pressure before opening the system',
+  check_expansion_vessel: 'Check the expansion vessel’s charge',
+  check_cistern: 'Check and clean the feed-and-expansion cistern',
+  latch_zone_valves: 'Latch open any motorised zone valve for the flush',
+  circulate_inhibitor: 'Circulate to mix the inhibitor through the system',
+  test_water: 'Test the system water',
 };
 
 /** Where a caution belongs on the sheet: shown beside the step it protects. */
@@ -115,12 +130,20 @@ export const jobKitInputSchema = z.strictObject({ kitItemIds: z.array(z.number()
 export const jobNotesInputSchema = z.strictObject({
   notes: z.string().trim().max(4000, { error: 'Notes must be at most 4,000 characters.' }),
 });
-export const jobPhotoTags = ['magnet_before', 'magnet_after', 'system', 'test_result', 'other'] as const;
+export const jobPhotoTags = [
+  'magnet_before',
+  'magnet_after',
+  'system',
+  'test_result',
+  'thermal_image',
+  'other',
+] as const;
 export const jobPhotoTagLabels: Record<(typeof jobPhotoTags)[number], string> = {
   magnet_before: 'Filter magnet before',
   magnet_after: 'Filter magnet after',
   system: 'The system',
   test_result: 'Test result',
+  thermal_image: 'Thermal image',
   other: 'Other',
 };
 

@@ -11,7 +11,16 @@ export const customerSchema = z.object({
   contact: z.string().nullable(),
 });
 export type Customer = z.infer<typeof customerSchema>;
-export const customerListResponseSchema = z.object({ customers: z.array(customerSchema) });
+/** A site in a customer list or search answer: enough to book a job on it. */
+export const customerSiteBriefSchema = z.object({
+  id: z.number(),
+  address: z.string(),
+  postcode: z.string().nullable(),
+});
+/** Customers with their sites; a search (`?q=`) answers at most 10, best matches first. */
+export const customerListResponseSchema = z.object({
+  customers: z.array(customerSchema.extend({ sites: z.array(customerSiteBriefSchema) })),
+});
 
 export const customerSiteSchema = z.object({
   id: z.number(),
