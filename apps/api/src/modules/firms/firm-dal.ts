@@ -1,10 +1,13 @@
 import type { Knex } from 'knex';
 import {
+  builtInHeatExchangerLitres,
   DEFAULT_COLD_BOTTOM_THRESHOLD_K,
   DEFAULT_TIME_ZONE,
   defaultItemKinds,
+  heatExchangerDefaultsSchema,
   type FirmSettings,
   type FirmSettingsInput,
+  type HeatExchangerDefaults,
 } from '@heatfleet/domain';
 
 export interface FirmRow {
@@ -45,13 +48,45 @@ interface FirmSettingsRow {
   time_zone: string;
   volume_unit: FirmSettings['volumeUnit'];
   cold_bottom_threshold_k: string | number | null;
+  phone: string | null;
+  email: string | null;
+  registration_numbers: string | null;
+  heat_exchanger_defaults: string | HeatExchangerDefaults | null;
+}
+
+/** A JSON column as MariaDB hands it back (a string), parsed against the domain's schema; null if unset or unreadable. */
+function parseHeatExchangerDefaults(v: string | HeatExchangerDefaults | null): HeatExchangerDefaults | null {
+  if (v === null) return null;
+  const parsed = heatExchangerDefaultsSchema.safeParse(typeof v === 'string' ? JSON.parse(v) : v);
+  return parsed.success ? parsed.data : null;
+}
+
+/** The firm's own heat exchanger defaults, or null while it uses the built-in ones. */
+export async function findHeatExchangerDefaults(
+  db: Knex | Knex.Transaction,
+  firmId: number,
+): Promise<HeatExchangerDefaults | null> {
+  const row = (await db('firms').where({ id: firmId }).first('heat_exchanger_defaults')) as
+    Pick<FirmSettingsRow, 'heat_exchanger_defaults'> | undefined;
+  return row ? parseHeatExchangerDefaults(row.heat_exchanger_defaults) : null;
 }
 
 export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: number): Promise<FirmSettings | undefined> {
   const row = (await db('firms')
     .where({ id: firmId })
-    .first('id', 'name', 'address', 'time_zone', 'volume_unit', 'cold_bottom_threshold_k')) as
-    FirmSettingsRow | undefined;
+    .first(
+      'id',
+      'name',
+      'address',
+      'time_zone',
+      'volume_unit',
+      'cold_bottom_threshold_k',
+      'phone',
+      'email',
+      'registration_numbers',
+      'heat_exchanger_defaults',
+    )) as FirmSettingsRow | undefined;
+  const own = row ? parseHeatExchangerDefaults(row.heat_exchanger_defaults) : null;
   return (
     row && {
       id: row.id,
@@ -61,6 +96,11 @@ export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: numb
       volumeUnit: row.volume_unit,
       coldBottomThresholdK:
         row.cold_bottom_threshold_k === null ? DEFAULT_COLD_BOTTOM_THRESHOLD_K : Number(row.cold_bottom_threshold_k),
+      phone: row.phone,
+      email: row.email,
+      registrationNumbers: row.registration_numbers,
+      heatExchangerDefaults: own ?? builtInHeatExchangerLitres,
+      heatExchangerDefaultsOwn: own !== null,
     }
   );
 }
@@ -78,5 +118,13 @@ export async function updateFirmSettings(
       time_zone: input.timeZone,
       volume_unit: input.volumeUnit,
       cold_bottom_threshold_k: input.coldBottomThresholdK,
+      // Left out of the input: unchanged (clients that predate these fields keep them).
+      ...(input.phone !== undefined && { phone: input.phone }),
+      ...(input.email !== undefined && { email: input.email }),
+      ...(input.registrationNumbers !== undefined && { registration_numbers: input.registrationNumbers }),
+      ...(input.heatExchangerDefaults !== undefined && {
+        heat_exchanger_defaults:
+          input.heatExchangerDefaults === null ? null : JSON.stringify(input.heatExchangerDefaults),
+      }),
     });
 }

@@ -1,5 +1,11 @@
 import { ForbiddenError, subject } from '@casl/ability';
-import { surveySchema, type Survey } from '@heatfleet/domain';
+import {
+  surveySchema,
+  systemDetailsSchema,
+  type Survey,
+  type SystemDetails,
+  type SystemDetailsAnswer,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor } from '../../app-deps.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
@@ -8,6 +14,7 @@ import { findJobRow, type JobRow } from './job-dal.ts';
 // The job row as the services see it: found in the firm or 404, who may change it, its survey.
 
 export const COMPLETED_MESSAGE = 'This job is completed; its record can no longer change.';
+export const CANCELLED_MESSAGE = 'This job was cancelled; its record can no longer change.';
 
 export async function requireJob(
   db: Knex | Knex.Transaction,
@@ -22,6 +29,19 @@ export async function requireJob(
 
 export function parseSurvey(row: JobRow): Survey {
   return surveySchema.parse(typeof row.survey === 'string' ? JSON.parse(row.survey) : row.survey);
+}
+
+/** The system details as the answer shows them: every field present, null where nobody has said. */
+export function parseSystemDetails(row: JobRow): SystemDetailsAnswer {
+  const raw: unknown = typeof row.system_details === 'string' ? JSON.parse(row.system_details) : row.system_details;
+  const d: SystemDetails = raw === null ? {} : systemDetailsSchema.parse(raw);
+  return {
+    boilerMake: d.boilerMake ?? null,
+    boilerModel: d.boilerModel ?? null,
+    boilerLocation: d.boilerLocation ?? null,
+    magneticFilterFitted: d.magneticFilterFitted ?? null,
+    cisternCondition: d.cisternCondition ?? null,
+  };
 }
 
 function jobSubject(actor: Actor, row: JobRow) {
@@ -44,5 +64,6 @@ export async function lockOpenJob(trx: Knex.Transaction, actor: Actor, jobId: nu
   const row = await requireJob(trx, actor.firmId, jobId, { forUpdate: true });
   throwUnlessMayUpdateJob(actor, row);
   if (row.status === 'completed') throw conflict(COMPLETED_MESSAGE);
+  if (row.status === 'cancelled') throw conflict(CANCELLED_MESSAGE);
   return row;
 }

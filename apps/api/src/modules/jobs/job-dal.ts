@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { JobListRow, Survey } from '@heatfleet/domain';
+import type { JobListQuery, JobListRow, Survey, SystemDetails, VisitKind } from '@heatfleet/domain';
 
 type Db = Knex | Knex.Transaction;
 
@@ -9,11 +9,17 @@ export interface JobRow {
   engineer_member_id: number | null;
   van_location_id: number | null;
   scheduled_on: string;
-  status: 'planned' | 'completed';
+  status: 'planned' | 'completed' | 'cancelled';
+  visit_kind: VisitKind;
   survey: string | Survey;
+  system_details: string | SystemDetails | null;
   completed_at: Date | null;
   next_check_on: string | null;
   notes: string | null;
+  report_number: number | null;
+  cancelled_at: Date | null;
+  cancelled_by_user_id: number | null;
+  cancellation_reason: string | null;
 }
 
 export async function findJobRow(
@@ -27,22 +33,45 @@ export async function findJobRow(
   return (await q) as JobRow | undefined;
 }
 
-/** The firm's jobs, latest date first (the newest 500). */
-export async function listJobRows(db: Db, firmId: number): Promise<JobListRow[]> {
-  return (await db('jobs as j')
+/**
+ * The firm's jobs (at most 500), filtered by status, engineer and date. Newest date first, or with
+ * `upcoming` the planned ones soonest first, then the rest newest first.
+ */
+export async function listJobRows(db: Db, firmId: number, filter: JobListQuery = {}): Promise<JobListRow[]> {
+  const q = db('jobs as j')
     .join('sites as s', (j) => j.on('s.id', '=', 'j.site_id').andOn('s.firm_id', '=', 'j.firm_id'))
     .join('customers as c', (j) => j.on('c.id', '=', 's.customer_id').andOn('c.firm_id', '=', 's.firm_id'))
+    .leftJoin('memberships as m', (j) => j.on('m.id', '=', 'j.engineer_member_id').andOn('m.firm_id', '=', 'j.firm_id'))
+    .leftJoin('users as u', 'u.id', 'm.user_id')
     .where('j.firm_id', firmId)
-    .orderBy('j.scheduled_on', 'desc')
     .limit(500)
     .select(
       'j.id',
       'j.status',
       'j.scheduled_on as scheduledOn',
       's.address',
+      's.postcode',
       'c.name as customerName',
       'j.next_check_on as nextCheckOn',
-    )) as JobListRow[];
+      'j.engineer_member_id as engineerMemberId',
+      'u.name as engineerName',
+      'j.visit_kind as visitKind',
+      db.raw("JSON_UNQUOTE(JSON_EXTRACT(j.survey, '$.systemType')) AS systemType"),
+      db.raw("COALESCE(JSON_LENGTH(j.survey, '$.radiators'), 0) AS radiatorCount"),
+    );
+  if (filter.status) q.where('j.status', filter.status);
+  if (filter.engineerMemberId !== undefined) q.where('j.engineer_member_id', filter.engineerMemberId);
+  if (filter.from) q.where('j.scheduled_on', '>=', filter.from);
+  if (filter.to) q.where('j.scheduled_on', '<=', filter.to);
+  if (filter.sort === 'upcoming') {
+    q.orderByRaw("j.status = 'planned' DESC, CASE WHEN j.status = 'planned' THEN j.scheduled_on END ASC")
+      .orderBy('j.scheduled_on', 'desc')
+      .orderBy('j.id', 'desc');
+  } else {
+    q.orderBy('j.scheduled_on', 'desc').orderBy('j.id', 'desc');
+  }
+  const rows = (await q) as (Omit<JobListRow, 'radiatorCount'> & { radiatorCount: number | string })[];
+  return rows.map((r) => ({ ...r, radiatorCount: Number(r.radiatorCount) }));
 }
 
 export async function insertJob(
@@ -54,6 +83,8 @@ export async function insertJob(
     vanLocationId: number | null;
     scheduledOn: string;
     survey: Survey;
+    visitKind: VisitKind;
+    systemDetails: SystemDetails | null;
   },
 ): Promise<number> {
   const [id] = await db('jobs').insert({
@@ -63,6 +94,8 @@ export async function insertJob(
     van_location_id: row.vanLocationId,
     scheduled_on: row.scheduledOn,
     survey: JSON.stringify(row.survey),
+    visit_kind: row.visitKind,
+    system_details: row.systemDetails === null ? null : JSON.stringify(row.systemDetails),
   });
   return id as number;
 }
@@ -133,14 +166,12 @@ export async function markJobCompleted(
   jobId: number,
   done: { at: Date; byUserId: number; nextCheckOn: string },
 ): Promise<void> {
-  await trx('jobs')
-    .where({ firm_id: firmId, id: jobId })
-    .update({
-      status: 'completed',
-      completed_at: done.at,
-      completed_by_user_id: done.byUserId,
-      next_check_on: done.nextCheckOn,
-    });
+  await trx('jobs').where({ firm_id: firmId, id: jobId }).update({
+    status: 'completed',
+    completed_at: done.at,
+    completed_by_user_id: done.byUserId,
+    next_check_on: done.nextCheckOn,
+  });
 }
 
 export async function updateJobNotes(db: Db, firmId: number, jobId: number, notes: string): Promise<void> {

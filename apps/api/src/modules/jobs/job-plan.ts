@@ -8,6 +8,7 @@ import {
 } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { AppDeps } from '../../app-deps.ts';
+import { findHeatExchangerDefaults } from '../firms/firm-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { balancesAt } from '../stock/stock-ledger.ts';
 import { parseSurvey } from './job-access.ts';
@@ -31,7 +32,7 @@ export async function planJob(
   row: JobRow,
 ): Promise<JobPlan> {
   const survey = parseSurvey(row);
-  const volume = surveyVolume(survey);
+  const volume = surveyVolume(survey, await findHeatExchangerDefaults(db, firmId));
   const today = await firmToday(db, firmId, deps.clock.now());
   const products = await listJobDoseProducts(db, firmId, row.id);
   const vanStock = row.van_location_id ? await balancesAt(db, firmId, row.van_location_id) : [];

@@ -1,21 +1,41 @@
 import { ForbiddenError } from '@casl/ability';
-import { roleLabels, type CreateJobInput, type JobDetail, type JobListRow } from '@heatfleet/domain';
+import {
+  completionCodeLabels,
+  formatReportNumber,
+  roleLabels,
+  type CreateJobInput,
+  type JobDetail,
+  type JobListQuery,
+  type JobListRow,
+  type Survey,
+  type SystemDetails,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { notAllowed, notFound, ruleBroken } from '../../lib/http-error.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
 import { findMember } from '../members/member-dal.ts';
 import { findJobSite, siteExists } from '../sites/site-dal.ts';
-import { requireJob } from './job-access.ts';
+import { parseSystemDetails, requireJob } from './job-access.ts';
 import { findFirmProductIds, insertJob, insertJobProducts, listChemicalsUsed, listJobRows } from './job-dal.ts';
 import { planJob } from './job-plan.ts';
+import { memberName } from './job-sheet-dal.ts';
 import { buildSheet } from './job-sheet-read.ts';
+import { listCompletionReasons, userName } from './visit-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
-export async function listJobs(deps: AppDeps, actor: Actor): Promise<JobListRow[]> {
+export async function listJobs(deps: AppDeps, actor: Actor, filter: JobListQuery = {}): Promise<JobListRow[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Job');
-  return listJobRows(deps.db, actor.firmId);
+  return listJobRows(deps.db, actor.firmId, filter);
+}
+
+/** A sealed system has no feed-and-expansion cistern, so it has no cistern condition to report. */
+export function checkSystemDetails(survey: Survey, details: SystemDetails | undefined): void {
+  if (details?.cisternCondition != null && survey.systemType === 'sealed') {
+    const message = 'A sealed system has no feed-and-expansion cistern: leave its condition empty.';
+    throw ruleBroken(message, [{ path: 'systemDetails.cisternCondition', message }]);
+  }
 }
 
 /**
@@ -23,7 +43,7 @@ export async function listJobs(deps: AppDeps, actor: Actor): Promise<JobListRow[
  * their van). An engineer books for themself only; the office names any active engineer of the
  * firm, or nobody yet. Another firm's member is simply not found.
  */
-async function bookedEngineer(db: Db, actor: Actor, named: number | null | undefined): Promise<number | null> {
+export async function bookedEngineer(db: Db, actor: Actor, named: number | null | undefined): Promise<number | null> {
   if (actor.role === 'engineer' && named != null && named !== actor.memberId) {
     throw notAllowed(
       'An engineer books jobs for themself only: leave yourself as the engineer, or ask the office to book it for someone else.',
@@ -45,6 +65,7 @@ async function bookedEngineer(db: Db, actor: Actor, named: number | null | undef
 /** Books a job with its survey; the job takes its engineer's van. One transaction. */
 export async function createJob(deps: AppDeps, actor: Actor, input: CreateJobInput): Promise<JobDetail> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Job');
+  checkSystemDetails(input.survey, input.systemDetails);
   const id = await deps.db.transaction(async (trx) => {
     if (!(await siteExists(trx, actor.firmId, input.siteId))) throw notFound('That site');
     const engineerMemberId = await bookedEngineer(trx, actor, input.engineerMemberId);
@@ -59,6 +80,8 @@ export async function createJob(deps: AppDeps, actor: Actor, input: CreateJobInp
       vanLocationId: van?.id ?? null,
       scheduledOn: input.scheduledOn,
       survey: input.survey,
+      visitKind: input.visitKind ?? 'full_clean',
+      systemDetails: input.systemDetails ?? null,
     });
     await insertJobProducts(trx, actor.firmId, jobId, productIds);
     return jobId;
@@ -76,8 +99,13 @@ export async function loadJobDetail(db: Db, deps: AppDeps, actor: Actor, id: num
   const row = await requireJob(db, actor.firmId, id);
   const site = await findJobSite(db, actor.firmId, row.site_id);
   if (!site) throw notFound('That site');
-  const chemicalsUsed = await listChemicalsUsed(db, actor.firmId, id);
-  const plan = await planJob(db, deps, actor.firmId, row);
+  const [chemicalsUsed, plan, reasons, engineerName, cancelledBy] = await Promise.all([
+    listChemicalsUsed(db, actor.firmId, id),
+    planJob(db, deps, actor.firmId, row),
+    listCompletionReasons(db, actor.firmId, id),
+    row.engineer_member_id === null ? null : memberName(db, actor.firmId, row.engineer_member_id),
+    userName(db, row.cancelled_by_user_id),
+  ]);
   const sheet = await buildSheet(db, deps, actor, row, plan.survey);
   return {
     job: {
@@ -89,6 +117,14 @@ export async function loadJobDetail(db: Db, deps: AppDeps, actor: Actor, id: num
       completedAt: row.completed_at?.toISOString() ?? null,
       nextCheckOn: row.next_check_on,
       site,
+      visitKind: row.visit_kind,
+      engineerName,
+      systemDetails: parseSystemDetails(row),
+      reportNumber: row.report_number === null ? null : formatReportNumber(row.report_number),
+      cancellation: row.cancelled_at
+        ? { at: row.cancelled_at.toISOString(), byName: cancelledBy, reason: row.cancellation_reason ?? '' }
+        : null,
+      completionReasons: reasons.map((r) => ({ ...r, label: completionCodeLabels[r.code] })),
     },
     ...plan,
     chemicalsUsed,

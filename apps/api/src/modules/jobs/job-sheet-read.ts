@@ -4,11 +4,13 @@ import {
   calendarDateIn,
   circulationClock,
   circulationMinimumMinutes,
+  completionChecks,
   DEFAULT_COLD_BOTTOM_THRESHOLD_K,
+  flushOrderFor,
   havDay,
-  jobStepLabels,
-  jobSteps,
   readingFigures,
+  visitCautions,
+  visitSteps,
   waterTestFigures,
   type JobSheet,
   type ReadingPhase,
@@ -19,7 +21,9 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { mayUpdateJob, parseSurvey, requireJob } from './job-access.ts';
 import type { JobRow } from './job-dal.ts';
+import { findSiteFlushOrder } from '../sites/site-dal.ts';
 import { agitationsOfDay, findInhibitor, loadSheetRows, memberName } from './job-sheet-dal.ts';
+import { listSignatures } from './visit-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -35,16 +39,22 @@ export async function buildSheet(
   survey: Survey = parseSurvey(row),
 ): Promise<JobSheet> {
   const now = deps.clock.now();
-  const rows = await loadSheetRows(db, actor.firmId, row);
+  const [rows, signatures, keptFlushOrder] = await Promise.all([
+    loadSheetRows(db, actor.firmId, row),
+    listSignatures(db, actor.firmId, row.id),
+    findSiteFlushOrder(db, actor.firmId, row.site_id),
+  ]);
+  const shape = { systemType: survey.systemType, fuel: survey.fuel, visitKind: row.visit_kind };
   const thresholdK = rows.firm.coldBottomThresholdK ?? DEFAULT_COLD_BOTTOM_THRESHOLD_K;
   const today = calendarDateIn(now, rows.firm.timeZone);
 
   const stepOf = new Map(rows.steps.map((s) => [s.step, s]));
-  const steps = jobSteps.map((step) => {
+  const steps = visitSteps(shape).map(({ step, label, cautions }) => {
     const done = stepOf.get(step);
     return {
       step,
-      label: jobStepLabels[step],
+      label,
+      cautions,
       doneAt: done?.doneAt.toISOString() ?? null,
       doneByName: done?.doneByName ?? null,
     };
@@ -128,8 +138,21 @@ export async function buildSheet(
   const water = { ...w, figures: waterTestFigures(w, range) };
 
   return {
-    editable: row.status !== 'completed' && mayUpdateJob(actor, row),
+    editable: row.status === 'planned' && mayUpdateJob(actor, row),
+    visitKind: row.visit_kind,
     steps,
+    cautions: visitCautions(shape),
+    flushOrder: flushOrderFor(
+      keptFlushOrder,
+      survey.radiators.map((r) => r.room),
+    ),
+    signatures: signatures.map((s) => ({
+      kind: s.kind,
+      name: s.signer_name,
+      signedAt: s.signed_at.toISOString(),
+      url: `/api/jobs/${row.id}/signatures/${s.kind}`,
+    })),
+    completionIssues: completionChecks({ visitKind: row.visit_kind, circulation, radiators, water }),
     circulation,
     coldBottomThresholdK: thresholdK,
     radiators,

@@ -157,3 +157,19 @@ export async function findJobSite(db: Db, firmId: number, siteId: number) {
     .first('s.id', 's.address', 's.postcode', 'c.id as customerId', 'c.name as customerName')) as
     { id: number; address: string; postcode: string | null; customerId: number; customerName: string } | undefined;
 }
+
+/** The rooms of the site's radiators in the order they are flushed, as the engineer last set it; null if never set. */
+export async function findSiteFlushOrder(db: Db, firmId: number, siteId: number): Promise<string[] | null> {
+  const row = (await db('sites').where({ firm_id: firmId, id: siteId }).first('flush_order')) as
+    { flush_order: string | string[] | null } | undefined;
+  const v = row?.flush_order ?? null;
+  if (v === null) return null;
+  const parsed: unknown = typeof v === 'string' ? JSON.parse(v) : v;
+  return Array.isArray(parsed) ? parsed.filter((r): r is string => typeof r === 'string') : null;
+}
+
+export async function setSiteFlushOrder(db: Db, firmId: number, siteId: number, rooms: string[]): Promise<void> {
+  await db('sites')
+    .where({ firm_id: firmId, id: siteId })
+    .update({ flush_order: JSON.stringify(rooms) });
+}
