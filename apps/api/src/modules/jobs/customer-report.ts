@@ -74,10 +74,7 @@ const drawSystem: Draw = (pdf, { detail, system }) => {
   pdf.line('Magnetic filter fitted', yesNo(system.magneticFilterFitted));
   if (s.systemType === 'open_vented') pdf.line('Cistern condition', system.cisternCondition ?? 'Not recorded');
   pdf.line('Radiators', String(s.radiators.length));
-  pdf.line(
-    'Water in the system',
-    `about ${Math.round(v.totalLitres)} litres, ${v.estimate ? 'estimated' : 'calculated from the survey'}`,
-  );
+  pdf.line('Water in the system', `about ${Math.round(v.totalLitres)} litres, ${v.label.toLowerCase()}`);
 };
 
 interface RadiatorColumn extends TableColumn {

@@ -1,9 +1,8 @@
 import {
   calendarDateIn,
-  cautionKeys,
-  cautionTexts,
   havDay,
   litresToImperialGallons,
+  visitKindLabels,
   type ReadingFigures,
 } from '@heatfleet/domain';
 import type { ReportData } from './job-report-data.ts';
@@ -21,7 +20,7 @@ const drawVisit: Draw = ({ doc, heading, line }, { detail, firm, engineerName, r
   doc.fillColor(INK);
   heading('Visit');
   const { job } = detail;
-  line('Visit', visitKind === 'inhibitor_only' ? 'Inhibitor only' : 'Full clean');
+  line('Visit', visitKindLabels[visitKind]);
   line('Customer', job.site.customerName);
   line('Address', `${job.site.address}${job.site.postcode ? `, ${job.site.postcode}` : ''}`);
   line('Engineer', engineerName ?? 'Not recorded');
@@ -43,7 +42,7 @@ const drawSystem: Draw = ({ doc, heading, line }, { detail, system }) => {
   const v = detail.volume;
   line(
     'System water volume',
-    `${v.totalLitres.toFixed(1)} litres (${litresToImperialGallons(v.totalLitres).toFixed(1)} imperial gallons)${v.estimate ? ', estimated' : ''}`,
+    `${v.totalLitres.toFixed(1)} litres (${litresToImperialGallons(v.totalLitres).toFixed(1)} imperial gallons), ${v.label.toLowerCase()}`,
   );
   doc.text(v.howReached);
   doc.text(
@@ -60,7 +59,7 @@ const drawChemicals: Draw = ({ doc, heading }, { detail, chemicals }) => {
     );
   for (const d of detail.doses) {
     doc.text(
-      `${d.product.name}: plan ${d.packs} pack(s) (${d.decidedBy === 'radiators' ? 'by the radiators rule' : 'by system volume'}${d.litres !== null ? `, ${d.litres.toFixed(2)} L by label rate` : ''}).`,
+      `${d.product.name}: plan ${d.packs} pack(s) of ${packSize(d.product.packSizeMl)} (${d.decidedBy === 'radiators' ? 'by the radiators rule' : 'by system volume'}${d.litres !== null ? `, ${d.litres.toFixed(2)} L by label rate` : ''}).`,
     );
   }
 };
@@ -190,9 +189,10 @@ const drawPhotos = photosSection((p) =>
   p.contentType === 'image/webp' ? 'WebP photo, kept with the job: not printable here' : 'photo not available',
 );
 
-const drawSafety: Draw = ({ doc, left, heading }) => {
+/** The cautions that fit this system, fuel and visit, as the sheet showed them. */
+const drawSafety: Draw = ({ doc, left, heading }, { detail: { sheet } }) => {
   heading('Safety');
-  for (const key of cautionKeys) doc.text(`\u2022 ${cautionTexts[key]}`, left);
+  for (const c of sheet.cautions) doc.text(`\u2022 ${c.text}`, left);
 };
 
 /** The firm's record of a job: our own plain layout, A4, one section after another. */

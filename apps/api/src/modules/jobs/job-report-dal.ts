@@ -7,11 +7,17 @@ type Db = Knex | Knex.Transaction;
 export interface ReportFirmRow {
   name: string;
   address: string | null;
+  phone: string | null;
+  email: string | null;
+  registration_numbers: string | null;
   time_zone: string;
 }
 
+/** The firm as its reports print it: name, contact details and registrations, and its time zone. */
 export async function findReportFirm(db: Db, firmId: number): Promise<ReportFirmRow | undefined> {
-  return (await db('firms').where({ id: firmId }).first('name', 'address', 'time_zone')) as ReportFirmRow | undefined;
+  return (await db('firms')
+    .where({ id: firmId })
+    .first('name', 'address', 'phone', 'email', 'registration_numbers', 'time_zone')) as ReportFirmRow | undefined;
 }
 
 export interface ReportChemicalRow {
@@ -45,4 +51,12 @@ export async function findTestMethod(db: Db, firmId: number, productId: number):
   const row = (await db('products').where({ firm_id: firmId, id: productId }).first('test_method')) as
     { test_method: string | null } | undefined;
   return row?.test_method ?? null;
+}
+
+/** Where each of a job's drawn signatures is stored (the sheet's answer has the name and time). */
+export async function listSignatureObjects(db: Db, firmId: number, jobId: number) {
+  return (await db('job_signatures').where({ firm_id: firmId, job_id: jobId }).select('kind', 'object_key')) as {
+    kind: string;
+    object_key: string;
+  }[];
 }

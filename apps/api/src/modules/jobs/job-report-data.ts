@@ -1,9 +1,9 @@
 import type { Readable } from 'node:stream';
-import { DEFAULT_TIME_ZONE, type JobDetail } from '@heatfleet/domain';
+import { cisternConditionLabels, DEFAULT_TIME_ZONE, type JobDetail, type VisitKind } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { AppDeps } from '../../app-deps.ts';
-import { findReportFirm, findTestMethod, listReportChemicals } from './job-report-dal.ts';
-import { listJobPhotoObjects, memberName } from './job-sheet-dal.ts';
+import { findReportFirm, findTestMethod, listReportChemicals, listSignatureObjects } from './job-report-dal.ts';
+import { listJobPhotoObjects } from './job-sheet-dal.ts';
 
 /** A picture for a report: JPEG and PNG are drawn; pdfkit cannot draw WebP, so it is listed. */
 export interface ReportPhoto {
@@ -31,10 +31,10 @@ export interface ReportData {
     registrationNumbers: string | null;
     timeZone: string;
   };
-  /** The firm's number for this job's report (per firm sequence); the job's id until one is given. */
+  /** The firm's number for this job's report (per firm sequence), given at completion; a draft's says so. */
   reportNumber: string;
   engineerName: string | null;
-  visitKind: 'full_clean' | 'inhibitor_only';
+  visitKind: VisitKind;
   system: {
     boilerMake: string | null;
     boilerModel: string | null;
@@ -53,8 +53,8 @@ export interface ReportData {
   inhibitorTestMethod: string | null;
   photos: ReportPhoto[];
   signatures: ReportSignature[];
-  /** Reasons the engineer gave at completion for what was not done. */
-  reasons: { code: string; label: string; reason: string }[];
+  /** Reasons the engineer gave at completion for what was not done, with what was found. */
+  reasons: { code: string; label: string; found: string; reason: string }[];
   /** What the engineer recommends, in their words, if they wrote any. */
   recommendation: string | null;
 }
@@ -84,10 +84,10 @@ export async function loadReportData(
   detail: JobDetail,
 ): Promise<ReportData> {
   const { job, sheet } = detail;
-  const [firm, engineerName, photoRows, chemicals, inhibitorTestMethod] = await Promise.all([
+  const [firm, photoRows, signatureRows, chemicals, inhibitorTestMethod] = await Promise.all([
     findReportFirm(db, firmId),
-    job.engineerMemberId ? memberName(db, firmId, job.engineerMemberId) : null,
     listJobPhotoObjects(db, firmId, job.id),
+    listSignatureObjects(db, firmId, job.id),
     listReportChemicals(db, firmId, job.id),
     sheet.water.inhibitorProductId ? findTestMethod(db, firmId, sheet.water.inhibitorProductId) : null,
   ]);
@@ -99,25 +99,29 @@ export async function loadReportData(
       image: await readImage(deps, r.object_key, r.content_type),
     })),
   );
+  const signatures = await Promise.all(
+    sheet.signatures.map(async (sig): Promise<ReportSignature> => {
+      const key = signatureRows.find((r) => r.kind === sig.kind)?.object_key;
+      return { ...sig, image: key ? await readImage(deps, key, 'image/png') : null };
+    }),
+  );
+  const { systemDetails: system } = job;
   return {
     detail,
     firm: {
       name: firm?.name ?? '',
       address: firm?.address ?? null,
-      phone: null,
-      email: null,
-      registrationNumbers: null,
+      phone: firm?.phone ?? null,
+      email: firm?.email ?? null,
+      registrationNumbers: firm?.registration_numbers ?? null,
       timeZone: firm?.time_zone ?? DEFAULT_TIME_ZONE,
     },
-    reportNumber: String(job.id),
-    engineerName,
-    visitKind: 'full_clean',
+    reportNumber: job.reportNumber ?? `draft (job ${job.id}, not completed)`,
+    engineerName: job.engineerName,
+    visitKind: job.visitKind,
     system: {
-      boilerMake: null,
-      boilerModel: null,
-      boilerLocation: null,
-      magneticFilterFitted: null,
-      cisternCondition: null,
+      ...system,
+      cisternCondition: system.cisternCondition && cisternConditionLabels[system.cisternCondition],
     },
     chemicals: chemicals.map((c) => ({
       product: c.product,
@@ -129,8 +133,8 @@ export async function loadReportData(
     })),
     inhibitorTestMethod,
     photos,
-    signatures: [],
-    reasons: [],
+    signatures,
+    reasons: job.completionReasons,
     recommendation: null,
   };
 }

@@ -8,10 +8,9 @@ import { MUTED, INK, type ReportPdf } from './report-pdf.ts';
 export type Draw = (pdf: ReportPdf, data: ReportData) => void;
 
 export function photoLabel(p: ReportPhoto): string {
-  const tag = p.tag ? ((jobPhotoTagLabels as Record<string, string>)[p.tag] ?? tagFallback[p.tag] ?? p.tag) : null;
+  const tag = p.tag ? ((jobPhotoTagLabels as Record<string, string>)[p.tag] ?? p.tag) : null;
   return [tag, p.caption].filter(Boolean).join(': ') || 'Photo';
 }
-const tagFallback: Record<string, string> = { thermal_image: 'Thermal image' };
 
 /** Draws an image between its heading and caption, the three kept on one page; a note if pdfkit cannot read it. */
 function figure(pdf: ReportPdf, heading: string, image: Buffer, fit: [number, number], caption?: string): void {
@@ -61,13 +60,14 @@ export const drawSignatures: Draw = (pdf, { signatures, firm }) => {
   }
 };
 
-/** The reasons given at completion for anything not done (none: the section is left out). */
+/** The reasons given at completion for anything not done, with what was found (none: the section is left out). */
 export const drawReasons: Draw = (pdf, { reasons }) => {
   if (!reasons.length) return;
   pdf.heading('Not done, and why');
   for (const r of reasons) {
-    pdf.doc.font('bold').text(`${r.label}: `, pdf.left, undefined, { continued: true });
-    pdf.doc.font('body').text(r.reason);
+    pdf.doc.font('bold').text(r.label, pdf.left);
+    pdf.doc.font('body').text(`Found: ${r.found}`, pdf.left);
+    pdf.doc.text(`Reason given: ${r.reason}`, pdf.left).moveDown(0.3);
   }
 };
 
