@@ -1,3 +1,4 @@
+import { withTransactionRetry } from '../../db/with-retry.ts';
 import { ForbiddenError, subject } from '@casl/ability';
 import {
   passwordSchema,
@@ -50,25 +51,28 @@ export async function createInvitation(deps: AppDeps, actor: Actor, input: Creat
   const { token, tokenHash } = createToken();
   const expiresAt = new Date(now.getTime() + INVITATION_LIFETIME_MS);
   const link = new URL(`/invitations/${token}`, deps.env.APP_ORIGIN).toString();
-  const { invitation, emailId } = await deps.db.transaction(async (trx) => {
-    await withdrawPendingFor(trx, actor.firmId, input.email, now);
-    const id = await insertInvitation(trx, {
-      firmId: actor.firmId,
-      email: input.email,
-      role: input.role,
-      tokenHash,
-      invitedBy: actor.userId,
-      expiresAt,
-    });
-    const emailId = await insertEmail(trx, {
-      firmId: actor.firmId,
-      to: input.email,
-      purpose: 'invitation',
-      ...invitationEmail({ firmName: firm!.name, inviterName: inviter!.name, role: input.role, link, expiresAt }),
-    });
-    const [invitation] = await listPendingInvitations(trx, actor.firmId, now, id);
-    return { invitation: invitation!, emailId };
-  });
+  // Two invitations at once in one firm can deadlock on the pending-invitation rows: retried whole.
+  const { invitation, emailId } = await withTransactionRetry(() =>
+    deps.db.transaction(async (trx) => {
+      await withdrawPendingFor(trx, actor.firmId, input.email, now);
+      const id = await insertInvitation(trx, {
+        firmId: actor.firmId,
+        email: input.email,
+        role: input.role,
+        tokenHash,
+        invitedBy: actor.userId,
+        expiresAt,
+      });
+      const emailId = await insertEmail(trx, {
+        firmId: actor.firmId,
+        to: input.email,
+        purpose: 'invitation',
+        ...invitationEmail({ firmName: firm!.name, inviterName: inviter!.name, role: input.role, link, expiresAt }),
+      });
+      const [invitation] = await listPendingInvitations(trx, actor.firmId, now, id);
+      return { invitation: invitation!, emailId };
+    }),
+  );
   await deps.mailQueue.notify([emailId]);
   return invitation;
 }
