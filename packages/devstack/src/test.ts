@@ -97,7 +97,8 @@ async function e2ePhase(env: NodeJS.ProcessEnv): Promise<void> {
     say('No playwright.config.ts at the repository root yet: skipping the browser tests.');
     return;
   }
-  await freshDatabase(env, true);
+  // The browser tests build their own firms through the API; the demo seed is for npm start.
+  await freshDatabase(env, false);
   const server = startService({
     name: 'api',
     command: process.execPath,
