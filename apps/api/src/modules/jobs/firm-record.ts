@@ -127,8 +127,12 @@ const drawRadiators: Draw = ({ doc, heading, table }, { detail: { sheet }, firm 
     doc.text(
       `Agitation: ${minutes} minutes in all; ${points} hand-arm vibration points on this visit (HSE points system; 100 is the exposure action value, 400 the limit value).`,
     );
-    const tools = agitations.filter((a) => a.kitItemTag);
-    if (tools.length) doc.text(`Tools: ${tools.map((a) => `${a.room} ${a.kitItemTag}`).join('; ')}.`);
+    const byTool = new Map<string, number>();
+    for (const a of agitations) if (a.kitItemTag) byTool.set(a.kitItemTag, (byTool.get(a.kitItemTag) ?? 0) + 1);
+    if (byTool.size)
+      doc.text(
+        `Vibrating tools: ${[...byTool].map(([tag, n]) => `${tag} on ${n} radiator${n === 1 ? '' : 's'}`).join('; ')}.`,
+      );
     doc.text(`The engineer\u2019s day (${sheet.hav.day}): ${sheet.hav.message}`);
   }
   const flushed = sheet.radiators.filter((r) => r.flushedAt);

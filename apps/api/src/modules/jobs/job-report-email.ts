@@ -2,10 +2,11 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import type { JobDetail } from '@heatfleet/domain';
-import { findFirm } from '../firms/firm-dal.ts';
 import { insertEmail } from '../mail/mail-dal.ts';
 import { findSite } from '../sites/site-dal.ts';
+import { findReportFirm } from './job-report-dal.ts';
 import { renderReportFor } from './job-report-service.ts';
+import { ukCalendarDate } from './report-format.ts';
 
 /**
  * Stores the customer's report (customer-report.ts, never the firm's record) and writes the e-mail that
@@ -22,7 +23,8 @@ export async function queueJobReportEmail(
 ): Promise<number | null> {
   const customer = (await findSite(trx, actor.firmId, detail.job.site.id))?.customer;
   if (!customer?.email) return null;
-  const firmName = (await findFirm(trx, actor.firmId))?.name ?? '';
+  const firm = await findReportFirm(trx, actor.firmId);
+  const firmName = firm?.name ?? '';
   const pdf = await renderReportFor(deps, trx, actor.firmId, detail, 'customer-report');
   const key = `firms/${actor.firmId}/reports/job-${detail.job.id}-${randomUUID()}.pdf`;
   try {
@@ -33,15 +35,19 @@ export async function queueJobReportEmail(
     deps.logger.warn({ err, jobId: detail.job.id }, 'completion report not e-mailed: object storage unavailable');
     return null;
   }
+  const { job } = detail;
+  const work = job.visitKind === 'inhibitor_only' ? 'the inhibitor visit to' : 'the cleaning of';
+  const contact = [firm?.phone && `call ${firm.phone}`, firm?.email && `write to ${firm.email}`].filter(Boolean);
   const lines = [
     `Dear ${customer.name},`,
-    `${firmName} has completed the cleaning of your heating system at ${detail.job.site.address}. The report is attached.`,
-    detail.job.nextCheckOn ? `The inhibitor should be checked again by ${detail.job.nextCheckOn}.` : '',
+    `${firmName} has completed ${work} your heating system at ${job.site.address.replace(/\s*\n\s*/g, ', ')}. The report is attached${job.reportNumber ? ` (report number ${job.reportNumber})` : ''}.`,
+    job.nextCheckOn ? `The inhibitor should be checked again by ${ukCalendarDate(job.nextCheckOn)}.` : '',
+    contact.length ? `If you have any questions, ${contact.join(' or ')}.` : '',
   ].filter(Boolean);
   return insertEmail(trx, {
     firmId: actor.firmId,
     to: customer.email,
-    subject: `Your heating system cleaning report from ${firmName}`,
+    subject: `Your heating system ${job.visitKind === 'inhibitor_only' ? 'inhibitor' : 'cleaning'} report${job.reportNumber ? ` ${job.reportNumber}` : ''} from ${firmName}`,
     text: `${lines.join('\n\n')}\n`,
     html: null,
     purpose: 'job-report',
