@@ -1,9 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { jobSteps } from '@heatfleet/domain';
+import { completionCodes } from '@heatfleet/domain';
 import { createTestApp, signIn, type TestApp } from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
 import { tinyPng } from './support/route-probes.ts';
 import { COMPLETED, setUpJobSheet, sheetRowCounts, writes } from './support/job-sheet-setup.ts';
+
+/** A reason for everything the completion guard could ask about: these tests are about what completion does, not the guard (visit-completion.test.ts). */
+const allReasons = { confirmations: completionCodes.map((code) => ({ code, reason: 'Not the point of this test' })) };
 
 let t: TestApp;
 beforeAll(() => {
@@ -28,7 +31,7 @@ describe('who may write, and when', () => {
   it('once completed, every write answers 409 in plain words and nothing changes; the sheet is read-only', async () => {
     const s = await setUpJobSheet(t, 'writes-done');
     expect((await s.engineer.put(`/api/jobs/${s.jobId}/notes`, { notes: 'before completion' })).status).toBe(200);
-    await s.engineer.post(`/api/jobs/${s.jobId}/complete`, {}).then((r) => expect(r.status).toBe(200));
+    await s.engineer.post(`/api/jobs/${s.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
     const before = await sheetRowCounts(t, s);
     for (const [label, call] of writes(s.engineer, s)) {
       const res = await call();
@@ -95,7 +98,7 @@ describe('who may write, and when', () => {
   it('writes sent together with the completion land before it or not at all', async () => {
     const s = await setUpJobSheet(t, 'writes-together');
     const sent = writes(s.engineer, s);
-    const [completion, ...answers] = await Promise.all([s.engineer.post(`/api/jobs/${s.jobId}/complete`, {}), ...sent.map(([, call]) => call())]);
+    const [completion, ...answers] = await Promise.all([s.engineer.post(`/api/jobs/${s.jobId}/complete`, allReasons), ...sent.map(([, call]) => call())]);
     expect(completion.status).toBe(200);
     const job = await t.deps.db('jobs').where({ id: s.jobId }).first('completed_at', 'notes');
     const steps = await t.deps.db('job_steps').where({ firm_id: s.firm.firmId, job_id: s.jobId });
@@ -115,7 +118,7 @@ describe('completion sets the next check 12 calendar months on', () => {
       app.clock.advance(Date.parse('2028-01-15T12:00:00Z') - Date.now());
       const firm = await seedFirm(app.deps.db, 'next-check');
       const engineer = await signIn(app.app, firm.people.engineer.email);
-      const res = await engineer.post(`/api/jobs/${firm.jobId}/complete`, {});
+      const res = await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons);
       expect(res.status).toBe(200);
       expect(res.body.job.nextCheckOn).toBe('2029-01-15');
       expect((await app.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe('2029-01-15');
@@ -134,7 +137,8 @@ describe('the completion report with the job sheet', () => {
     const s = await setUpJobSheet(t, 'sheet-report');
     const e = s.engineer;
     const ok = (res: { status: number }) => expect(res.status).toBeLessThan(300);
-    for (const step of jobSteps) ok(await e.put(`/api/jobs/${s.jobId}/steps/${step}`, { done: true }));
+    const visitSteps = (await e.get(`/api/jobs/${s.jobId}`)).body.sheet.steps as { step: string }[];
+    for (const { step } of visitSteps) ok(await e.put(`/api/jobs/${s.jobId}/steps/${step}`, { done: true }));
     // Lounge: a cold bottom before (diff 18 K > 10), cleared after (diff 6); dT 30 then dT 60 (EN 442 factors 0.5148, 1.2675).
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/before`, { topC: 58, bottomC: 40, flowC: 55, returnC: 45, roomC: 20 }));
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/after`, { topC: 84, bottomC: 78, flowC: 85, returnC: 75, roomC: 20 }));
@@ -147,7 +151,7 @@ describe('the completion report with the job sheet', () => {
     ok(await e.put(`/api/jobs/${s.jobId}/notes`, { notes: 'Magnet heavy on the first pass; customer shown the sludge.' }));
     ok(await e.upload(`/api/jobs/${s.jobId}/photos`, { tag: 'magnet_before', caption: 'First pass' }, { field: 'photo', content: tinyPng, filename: 'm.png', contentType: 'image/png' }));
     ok(await e.upload(`/api/jobs/${s.jobId}/photos`, { tag: 'test_result', caption: 'Refractometer' }, { field: 'photo', content: tinyWebp, filename: 'r.webp', contentType: 'image/webp' }));
-    const done = await e.post(`/api/jobs/${s.jobId}/complete`, {});
+    const done = await e.post(`/api/jobs/${s.jobId}/complete`, allReasons);
     expect(done.status).toBe(200);
     const nextCheckOn = done.body.job.nextCheckOn as string;
 

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { jobSteps } from '@heatfleet/domain';
+import { visitSteps } from '@heatfleet/domain';
 import { createTestApp, signIn, type TestApp } from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
 import { minutes, setUpJobSheet } from './support/job-sheet-setup.ts';
@@ -11,13 +11,13 @@ beforeAll(() => {
 afterAll(() => t.close());
 
 describe('the job sheet in GET /api/jobs/:id', () => {
-  it('keeps the plan and adds the sheet: seven steps in order, the radiators of the survey, the firm threshold', async () => {
+  it('keeps the plan and adds the sheet: the visit\u2019s steps in order (a sealed gas full clean), the radiators of the survey, the firm threshold', async () => {
     const s = await setUpJobSheet(t, 'sheet-read');
     const res = await s.engineer.get(`/api/jobs/${s.jobId}`).expect(200);
     expect(Object.keys(res.body)).toEqual(expect.arrayContaining(['job', 'survey', 'volume', 'doses', 'today', 'chemicalsUsed', 'sheet']));
     const sheet = res.body.sheet;
     expect(sheet.editable).toBe(true);
-    expect(sheet.steps.map((x: { step: string }) => x.step)).toEqual([...jobSteps]);
+    expect(sheet.steps.map((x: { step: string }) => x.step)).toEqual(visitSteps({ systemType: 'sealed', fuel: 'gas', visitKind: 'full_clean' }).map((x) => x.step));
     expect(sheet.steps.every((x: { doneAt: null }) => x.doneAt === null)).toBe(true);
     // DEFAULT_COLD_BOTTOM_THRESHOLD_K, common practice (no source).
     expect(sheet.coldBottomThresholdK).toBe(10);
@@ -42,14 +42,14 @@ describe('the job sheet in GET /api/jobs/:id', () => {
 describe('steps', () => {
   it('a tick records the time and who; a second tick keeps the first time; clearing removes it', async () => {
     const s = await setUpJobSheet(t, 'steps');
-    const first = await s.engineer.put(`/api/jobs/${s.jobId}/steps/isolate_connect`, { done: true });
+    const first = await s.engineer.put(`/api/jobs/${s.jobId}/steps/depressurise`, { done: true });
     expect(first.status).toBe(200);
     const step = first.body.sheet.steps[0];
-    expect(step).toMatchObject({ step: 'isolate_connect', label: expect.any(String), doneByName: expect.stringContaining('engineer') });
+    expect(step).toMatchObject({ step: 'depressurise', label: expect.any(String), doneByName: expect.stringContaining('engineer') });
     t.clock.advance(minutes(2));
-    const again = await s.engineer.put(`/api/jobs/${s.jobId}/steps/isolate_connect`, { done: true });
+    const again = await s.engineer.put(`/api/jobs/${s.jobId}/steps/depressurise`, { done: true });
     expect(again.body.sheet.steps[0].doneAt).toBe(step.doneAt);
-    const cleared = await s.engineer.put(`/api/jobs/${s.jobId}/steps/isolate_connect`, { done: false });
+    const cleared = await s.engineer.put(`/api/jobs/${s.jobId}/steps/depressurise`, { done: false });
     expect(cleared.body.sheet.steps[0]).toMatchObject({ doneAt: null, doneByName: null });
     expect((await s.engineer.put(`/api/jobs/${s.jobId}/steps/sing_a_song`, { done: true })).status).toBe(422);
   });

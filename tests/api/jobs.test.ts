@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { completionCodes } from '@heatfleet/domain';
 import { randomUUID } from 'node:crypto';
 import { createTestApp, signIn, type TestApp } from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
@@ -6,6 +7,9 @@ import { startTestEmailWorker } from './support/email-worker.ts';
 import { waitForEmail } from './support/outbox.ts';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
+
+/** A reason for everything the completion guard could ask about: these tests are about what completion does, not the guard (visit-completion.test.ts). */
+const allReasons = { confirmations: completionCodes.map((code) => ({ code, reason: 'Not the point of this test' })) };
 
 let t: TestApp;
 beforeAll(() => {
@@ -55,9 +59,9 @@ describe('jobs', () => {
     await t.deps.db('products').where({ id: firm.product.id }).update({ radiators_per_pack: 10 });
     const res = await stores.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '2026-12-12', engineerMemberId: firm.people.engineer.memberId, productIds: [firm.product.id], survey });
     expect(res.status).toBe(201);
-    // 22 single-panel equivalents x 10 L = 220 L (common trade practice), plus 3 L for a regular boiler (from memory).
-    expect(res.body.volume).toMatchObject({ estimate: true, radiatorsLitres: 220, totalLitres: 223 });
-    // 223 L at 1 L/100 L is 2.23 L -> 3 packs; 18 radiators at one pack per 10 -> 2 packs: volume wins.
+    // 22 single-panel equivalents x 10 L = 220 L (common trade practice), plus 15 L for a regular oil boiler (from memory).
+    expect(res.body.volume).toMatchObject({ estimate: true, label: 'Estimated', radiatorsLitres: 220, heatExchangerLitres: 15, totalLitres: 235 });
+    // 235 L at 1 L/100 L is 2.35 L -> 3 packs; 18 radiators at one pack per 10 -> 2 packs: volume wins.
     expect(res.body.doses[0]).toMatchObject({ packsByVolume: 3, packsByRadiators: 2, packs: 3, decidedBy: 'volume' });
     // The van holds 2: one short.
     expect(res.body.doses[0].shortfall).toBe(1);
@@ -68,7 +72,7 @@ describe('jobs', () => {
     const engineer = await signIn(t.app, firm.people.engineer.email);
     await engineer.refreshCsrf();
     const key = randomUUID();
-    const send = () => engineer.agent.post(`/api/jobs/${firm.jobId}/complete`).set('X-CSRF-Token', engineer.csrfToken).set('Idempotency-Key', key).send({});
+    const send = () => engineer.agent.post(`/api/jobs/${firm.jobId}/complete`).set('X-CSRF-Token', engineer.csrfToken).set('Idempotency-Key', key).send(allReasons);
     const [a, b] = await Promise.all([send(), send()]);
     expect([a.status, b.status]).toEqual([200, 200]);
     expect(b.body).toEqual(a.body);
@@ -79,7 +83,7 @@ describe('jobs', () => {
     const van = await t.deps.db('stock_balances').where({ firm_id: firm.firmId, location_id: firm.van.id, batch_id: firm.product.batchId }).first();
     expect(van.quantity).toBe(1);
     // A completion sent again without the key changes nothing.
-    const again = await engineer.post(`/api/jobs/${firm.jobId}/complete`, {});
+    const again = await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons);
     expect(again.status).toBe(409);
     expect(await t.deps.db('stock_movements').where({ firm_id: firm.firmId, job_id: firm.jobId })).toHaveLength(1);
     const site = await t.deps.db('sites').where({ id: firm.siteId }).first();
@@ -89,7 +93,7 @@ describe('jobs', () => {
   it('only the job\u2019s own engineer (or the office) may complete it', async () => {
     const firm = await seedFirm(t.deps.db, 'job-own');
     const other = await signIn(t.app, firm.target.email);
-    expect((await other.post(`/api/jobs/${firm.jobId}/complete`, {})).status).toBe(403);
+    expect((await other.post(`/api/jobs/${firm.jobId}/complete`, allReasons)).status).toBe(403);
     expect(await t.deps.db('stock_movements').where({ firm_id: firm.firmId, job_id: firm.jobId })).toHaveLength(0);
   });
 });
@@ -99,7 +103,7 @@ describe('the completion report', () => {
     const { PDFParse } = await import('pdf-parse');
     const firm = await seedFirm(t.deps.db, 'job-report');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    await engineer.post(`/api/jobs/${firm.jobId}/complete`, {}).then((r) => expect(r.status).toBe(200));
+    await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
     const res = await engineer.get(`/api/jobs/${firm.jobId}/report.pdf`).buffer(true).parse((r, cb) => {
       const parts: Buffer[] = [];
       r.on('data', (c: Buffer) => parts.push(c));
@@ -125,7 +129,7 @@ describe('the report e-mail', () => {
       const firm = await seedFirm(t.deps.db, 'job-mail');
       const customer = (await t.deps.db('customers').where({ id: firm.customerId }).first('email')).email as string;
       const engineer = await signIn(t.app, firm.people.engineer.email);
-      await engineer.post(`/api/jobs/${firm.jobId}/complete`, {}).then((r) => expect(r.status).toBe(200));
+      await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
       const mail = await waitForEmail(customer, { subject: /cleaning report/ });
       expect(mail.text).toContain('The report is attached');
       const raw = await readFile(path.join(process.env.OUTBOX_DIR!, `${mail.id}.eml`), 'utf8');

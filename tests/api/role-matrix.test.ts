@@ -97,6 +97,12 @@ const allowed: Record<string, Role[]> = {
   'PUT /jobs/:id/kit': everyone,
   'PUT /jobs/:id/notes': everyone,
   'POST /jobs/:id/photos': everyone,
+  // Editing, cancelling, the flush order and signatures: the probe's job is the seeded engineer's own.
+  'PATCH /jobs/:id': everyone,
+  'POST /jobs/:id/cancel': everyone,
+  'PUT /jobs/:id/flush-order': everyone,
+  'POST /jobs/:id/signatures': everyone,
+  'GET /jobs/:id/signatures/:kind': everyone,
   'GET /reminders': ['owner', 'admin', 'stores'],
   'POST /reminders/scan': managers,
   'GET /reminder-settings': managers,

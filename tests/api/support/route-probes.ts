@@ -1,3 +1,4 @@
+import { completionCodes } from '@heatfleet/domain';
 import type { RouteDefinition } from '@heatfleet/api/routes/route-registry.ts';
 import type { SeededFirm } from './seed-firm.ts';
 import { uniqueEmail, type Client } from './test-app.ts';
@@ -26,6 +27,7 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'jobs:step': () => 'dose_cleaner',
   'jobs:index': () => '0',
   'jobs:phase': () => 'before',
+  'jobs:kind': () => 'acknowledgement',
   'sites:id': (f) => String(f.siteId),
 };
 
@@ -70,7 +72,12 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'POST /customers': () => ({ name: 'Probe customer' }),
   'POST /customers/:id/sites': () => ({ address: '1 Probe Street' }),
   'POST /jobs': (f) => ({ siteId: f.siteId, scheduledOn: '2026-12-20', productIds: [f.product.id], survey: { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'double' }], pipeRuns: [] } }),
-  'POST /jobs/:id/complete': () => ({}),
+  // Every reason the guard could ask for, so the probe reaches the completion itself.
+  'POST /jobs/:id/complete': () => ({ confirmations: completionCodes.map((code) => ({ code, reason: 'Probe reason' })) }),
+  'PATCH /jobs/:id': () => ({ scheduledOn: '2026-12-21' }),
+  'POST /jobs/:id/cancel': () => ({ reason: 'Probe cancellation' }),
+  'PUT /jobs/:id/flush-order': () => ({ radiatorIndexes: [0] }),
+  'POST /jobs/:id/signatures': () => ({ kind: 'acknowledgement', name: 'Probe Signer', imagePngDataUrl: `data:image/png;base64,${tinyPng.toString('base64')}` }),
   'PUT /jobs/:id/steps/:step': () => ({ done: true }),
   'PUT /jobs/:id/radiators/:index/readings/:phase': () => ({ topC: 62, bottomC: 41.5, flowC: 65, returnC: 55, roomC: 19 }),
   'PUT /jobs/:id/radiators/:index/agitation': () => ({ minutes: 5 }),
@@ -87,6 +94,8 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
 
 /** Query strings per route, built from a firm's records. */
 const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
+  'GET /jobs': (f) => ({ status: 'planned', engineerMemberId: String(f.people.engineer.memberId), from: '2026-01-01', to: '2027-12-31', sort: 'upcoming' }),
+  'GET /customers': () => ({ q: 'Quarry' }),
   'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
   'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
   'GET /stock/batches': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),

@@ -5,6 +5,7 @@ import { customerRoutes } from '../modules/jobs/customer-router.ts';
 import { jobRoutes } from '../modules/jobs/job-router.ts';
 import { jobReportRoutes } from '../modules/jobs/job-report-router.ts';
 import { jobSheetRoutes } from '../modules/jobs/job-sheet-router.ts';
+import { visitRoutes } from '../modules/jobs/visit-router.ts';
 import { itemKindRoutes } from '../modules/item-kinds/item-kind-router.ts';
 import { kitItemRoutes } from '../modules/kits/kit-item-router.ts';
 import { kitRoutes } from '../modules/kits/kit-router.ts';
@@ -45,6 +46,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...jobRoutes,
   ...jobReportRoutes,
   ...jobSheetRoutes,
+  ...visitRoutes,
   ...reminderRoutes,
   ...firmRoutes,
   ...overviewRoutes,

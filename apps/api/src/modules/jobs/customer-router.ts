@@ -1,5 +1,6 @@
 import {
   customerInputSchema,
+  customerListQuerySchema,
   customerListResponseSchema,
   customerResponseSchema,
   idParamSchema,
@@ -17,11 +18,12 @@ export const customerRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Customers',
-    request: {},
+    summary:
+      'Customers with their sites; with q, the type-ahead: at most 10 whose name, address or postcode holds the text',
+    request: { query: customerListQuerySchema },
     responses: { 200: { description: 'Customers', schema: customerListResponseSchema } },
-    handle: async ({ res, deps, actor }) => {
-      res.json({ customers: await listCustomers(deps, actor) });
+    handle: async ({ query, res, deps, actor }) => {
+      res.json({ customers: await listCustomers(deps, actor, query) });
     },
   }),
   defineRoute({

@@ -1,5 +1,11 @@
-import { z } from 'zod';
-import { createJobInputSchema, idParamSchema, jobDetailSchema, jobListResponseSchema } from '@heatfleet/domain';
+import {
+  completeJobInputSchema,
+  createJobInputSchema,
+  idParamSchema,
+  jobDetailSchema,
+  jobListQuerySchema,
+  jobListResponseSchema,
+} from '@heatfleet/domain';
 import { idempotencyKeyOf } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { completeJob } from './job-completion-service.ts';
@@ -12,11 +18,12 @@ export const jobRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Cleaning jobs, newest first',
-    request: {},
+    summary:
+      'Cleaning jobs (at most 500), newest first or upcoming first; filtered by status, engineer and dates (from, to: YYYY-MM-DD)',
+    request: { query: jobListQuerySchema },
     responses: { 200: { description: 'Jobs', schema: jobListResponseSchema } },
-    handle: async ({ res, deps, actor }) => {
-      res.json({ jobs: await listJobs(deps, actor) });
+    handle: async ({ query, res, deps, actor }) => {
+      res.json({ jobs: await listJobs(deps, actor, query) });
     },
   }),
   defineRoute({
@@ -56,14 +63,16 @@ export const jobRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Complete a job: its chemicals come off the van by batch, exactly once (send an Idempotency-Key)',
-    request: { params: idParamSchema, body: z.strictObject({}).optional() },
+    summary:
+      'Complete a job: its chemicals come off the van by batch, exactly once (send an Idempotency-Key). Anything not done (short circulation, no water test, radiators without after readings or flush ticks, unsaved input) needs a reason in confirmations; the reasons are kept and printed on the report',
+    request: { params: idParamSchema, body: completeJobInputSchema.optional() },
     responses: {
       200: { description: 'Completed', schema: jobDetailSchema },
-      409: { description: 'Already completed, or the van is short' },
+      409: { description: 'Already completed or cancelled, or the van is short' },
+      422: { description: 'Something not done needs a reason: details list each, path confirmations.<code>' },
     },
-    handle: async ({ params, req, res, deps, actor }) => {
-      const out = await completeJob(deps, actor, params.id, idempotencyKeyOf(req));
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      const out = await completeJob(deps, actor, params.id, body ?? {}, idempotencyKeyOf(req));
       res.status(out.status).json(out.body);
     },
   }),

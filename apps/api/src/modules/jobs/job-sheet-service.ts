@@ -1,12 +1,13 @@
-import type {
-  AgitationInput,
-  JobPhoto,
-  JobSheet,
-  JobStep,
-  RadiatorReadingInput,
-  ReadingPhase,
-  Survey,
-  WaterTestsInput,
+import {
+  visitSteps,
+  type AgitationInput,
+  type JobPhoto,
+  type JobSheet,
+  type JobStep,
+  type RadiatorReadingInput,
+  type ReadingPhase,
+  type Survey,
+  type WaterTestsInput,
 } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
@@ -35,7 +36,7 @@ import {
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
 
-async function writeSheet(
+export async function writeSheet(
   deps: AppDeps,
   actor: Actor,
   jobId: number,
@@ -60,7 +61,15 @@ function checkRadiator(row: JobRow, index: number): Survey {
 const invalid = (path: string, message: string) => new HttpError(422, message, 'ValidationFailed', [{ path, message }]);
 
 export function setStep(deps: AppDeps, actor: Actor, jobId: number, step: JobStep, done: boolean) {
-  return writeSheet(deps, actor, jobId, async (trx) => {
+  return writeSheet(deps, actor, jobId, async (trx, row) => {
+    const survey = parseSurvey(row);
+    const steps = visitSteps({ systemType: survey.systemType, fuel: survey.fuel, visitKind: row.visit_kind });
+    if (!steps.some((s) => s.step === step)) {
+      throw invalid(
+        'step',
+        `That step is not part of this visit: its steps are ${steps.map((s) => s.step).join(', ')}.`,
+      );
+    }
     if (done) await tickStep(trx, actor.firmId, jobId, step, actor.userId, deps.clock.now());
     else await untickStep(trx, actor.firmId, jobId, step);
   });

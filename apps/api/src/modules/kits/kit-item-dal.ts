@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { ItemCondition } from '@heatfleet/domain';
 import { toLocationRef } from '../locations/location-dal.ts';
+import { usesSinceInspection } from './kit-use-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -77,13 +78,7 @@ export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
       'l.engineer_member_id as loc_engineer_member_id',
       'u.name as loc_engineer_name',
       lastInspection.clone().max('ins.inspected_on').as('last_inspected_on'),
-      db('custody_events as e')
-        .whereRaw('e.firm_id = i.firm_id')
-        .whereRaw('e.item_id = i.id')
-        .where('e.action', 'check_in')
-        .whereRaw("e.created_at > COALESCE((?), '1970-01-01')", [lastInspection.clone().max('ins.created_at')])
-        .count('*')
-        .as('uses_since_inspection'),
+      usesSinceInspection(db, lastInspection.clone().max('ins.created_at')),
     )
     .orderBy('i.asset_tag');
   if (filter.ids) q.whereIn('i.id', filter.ids);

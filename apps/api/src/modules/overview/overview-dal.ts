@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { jobUsesByItem } from '../kits/kit-use-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -43,11 +44,11 @@ export interface ItemDueInputs {
 /**
  * The due computation's inputs for every item with an inspection rule. Four flat queries for the whole
  * firm, joined here by id: as one statement with nested derived tables MariaDB re-read them per item
- * and took minutes at 5,000 items. Uses are counted as the kit screens count them: check-ins recorded
- * after the item's last inspection was.
+ * and took minutes at 5,000 items. Uses are counted as the kit screens count them: check-ins and
+ * uses on completed jobs recorded after the item's last inspection was.
  */
 export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDueInputs[]> {
-  const [items, kinds, places, inspections, uses] = await Promise.all([
+  const [items, kinds, places, inspections, uses, jobUses] = await Promise.all([
     db('kit_items')
       .where('firm_id', firmId)
       .whereNot('condition', 'out_of_service')
@@ -81,6 +82,7 @@ export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDue
       .groupBy('e.item_id')
       .select('e.item_id')
       .count({ n: '*' }) as Promise<{ item_id: number; n: number | string }[]>,
+    jobUsesByItem(db, firmId),
   ]);
   const kindById = new Map(
     kinds.filter((k) => k.interval_days !== null || k.interval_uses !== null).map((k) => [k.id, k]),
@@ -88,6 +90,7 @@ export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDue
   const placeById = new Map(places.map((p) => [p.id, p.name]));
   const lastOn = new Map(inspections.map((r) => [r.item_id, r.last_on]));
   const usesOf = new Map(uses.map((r) => [r.item_id, Number(r.n)]));
+  for (const r of jobUses) usesOf.set(r.item_id, (usesOf.get(r.item_id) ?? 0) + Number(r.n));
   return items.flatMap((i) => {
     const kind = kindById.get(i.kind_id);
     if (!kind) return [];

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { usesSinceInspection } from '../kits/kit-use-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -51,13 +52,7 @@ export async function listItemsForScan(db: Db, firmId: number): Promise<ItemForS
       'l.engineer_member_id',
       inspectionsOf().max('ins.inspected_on').as('last_inspected_on'),
       inspectionsOf().count('*').as('inspection_count'),
-      db('custody_events as e')
-        .whereRaw('e.firm_id = i.firm_id')
-        .whereRaw('e.item_id = i.id')
-        .where('e.action', 'check_in')
-        .whereRaw("e.created_at > COALESCE((?), '1970-01-01')", [inspectionsOf().max('ins.created_at')])
-        .count('*')
-        .as('uses_since_inspection'),
+      usesSinceInspection(db, inspectionsOf().max('ins.created_at')),
     )
     .orderBy('i.asset_tag')) as {
     id: number;
