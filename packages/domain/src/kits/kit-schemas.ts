@@ -165,7 +165,10 @@ export const custodyEventSchema = z.object({
   note: z.string().nullable(),
   overdueReason: z.string().nullable(),
   photoId: z.number().nullable(),
+  /** When it reached the server. */
   createdAt: z.string(),
+  /** When the engineer tapped (X-Tapped-At), if the phone said: earlier than createdAt for a write sent from its queue. */
+  tappedAt: z.string().nullable(),
 });
 export type CustodyEvent = z.infer<typeof custodyEventSchema>;
 

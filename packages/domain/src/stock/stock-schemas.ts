@@ -228,7 +228,10 @@ export const movementSchema = z.object({
   reference: z.string().nullable(),
   reversesMovementId: z.number().nullable(),
   byName: z.string(),
+  /** When it reached the server. */
   createdAt: z.string(),
+  /** When the engineer tapped (X-Tapped-At), for stock used by hand from the phone; null otherwise. */
+  tappedAt: z.string().nullable(),
 });
 export type Movement = z.infer<typeof movementSchema>;
 

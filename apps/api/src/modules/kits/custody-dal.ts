@@ -19,6 +19,8 @@ export async function insertCustodyEvents(
     overdue_reason: string | null;
     photo_id: number | null;
     created_at: Date;
+    /** When the engineer tapped (X-Tapped-At), if the request said. */
+    tapped_at: Date | null;
   }[],
 ): Promise<void> {
   if (rows.length) await trx('custody_events').insert(rows);
@@ -84,5 +86,6 @@ export async function listCustodyEvents(
     overdueReason: (r.overdue_reason as string | null) ?? null,
     photoId: (r.photo_id as number | null) ?? null,
     createdAt: (r.created_at as Date).toISOString(),
+    tappedAt: r.tapped_at ? (r.tapped_at as Date).toISOString() : null,
   }));
 }

@@ -78,6 +78,7 @@ async function recordCustody(
   target: CustodyTarget,
   action: CustodyAction,
   input: CustodyInput,
+  tappedAt: Date | null,
 ): Promise<void> {
   const now = deps.clock.now();
   const ids = await lockItems(
@@ -169,6 +170,7 @@ async function recordCustody(
       overdue_reason: overdueReason,
       photo_id: checkIn?.photoId ?? null,
       created_at: now,
+      tapped_at: tappedAt,
     })),
   );
   // The cached whereabouts follow the event just written, in the same transaction.
@@ -187,10 +189,11 @@ export function moveKit(
   action: CustodyAction,
   input: CustodyInput,
   idempotencyKey: IdempotencyKey | undefined,
+  tappedAt: Date | null = null,
 ): Promise<CustodyAnswer<KitDetailResponse>> {
   return withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `${action} kit ${kitId}`, async (trx) => {
-      await recordCustody(trx, deps, actor, { kitId }, action, input);
+      await recordCustody(trx, deps, actor, { kitId }, action, input, tappedAt);
       return { status: 200, body: await getKitDetail(deps, actor, kitId, trx) };
     }),
   );
@@ -204,10 +207,11 @@ export function moveItem(
   action: CustodyAction,
   input: CustodyInput,
   idempotencyKey: IdempotencyKey | undefined,
+  tappedAt: Date | null = null,
 ): Promise<CustodyAnswer<ItemCustodyResponse>> {
   return withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `${action} item ${itemId}`, async (trx) => {
-      await recordCustody(trx, deps, actor, { itemId }, action, input);
+      await recordCustody(trx, deps, actor, { itemId }, action, input, tappedAt);
       return {
         status: 200,
         body: {

@@ -16,6 +16,8 @@ const movementColumns = [
   'reason',
   'reference',
   'by',
+  // Last, so a sheet built on the earlier columns keeps reading them: when the engineer tapped, if the phone said.
+  'tapped',
 ];
 
 export function movementsCsv(rows: Movement[]): string {
@@ -33,6 +35,7 @@ export function movementsCsv(rows: Movement[]): string {
       m.reason ?? '',
       m.reference ?? '',
       m.byName,
+      m.tappedAt ?? '',
     ]),
   );
 }

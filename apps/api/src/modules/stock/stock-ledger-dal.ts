@@ -29,6 +29,8 @@ export interface NewMovementRow {
   job_id: number | null;
   by_user_id: number;
   created_at: Date;
+  /** When the engineer tapped (X-Tapped-At), if the request said. */
+  tapped_at: Date | null;
 }
 
 /**

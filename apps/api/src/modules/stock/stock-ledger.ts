@@ -24,6 +24,8 @@ export interface MovementLine {
   reference?: string | null;
   reversesMovementId?: number | null;
   jobId?: number | null;
+  /** When the engineer tapped (X-Tapped-At), for stock used by hand. */
+  tappedAt?: Date | null;
 }
 
 /** Describes a place, product and batch in words, for a refusal. */
@@ -83,6 +85,7 @@ export async function applyMovements(
       job_id: l.jobId ?? null,
       by_user_id: userId,
       created_at: now,
+      tapped_at: l.tappedAt ?? null,
     })),
   );
   return groupId;

@@ -68,6 +68,7 @@ function toMovement(r: Record<string, unknown>): Movement {
     reversesMovementId: r.reverses_movement_id === null ? null : Number(r.reverses_movement_id),
     byName: r.by_name as string,
     createdAt: (r.created_at as Date).toISOString(),
+    tappedAt: r.tapped_at ? (r.tapped_at as Date).toISOString() : null,
   };
 }
 

@@ -14,6 +14,7 @@ import {
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { idempotencyKeyOf } from '../../lib/idempotency.ts';
+import { readTappedAt, tappedAtOf } from '../../middleware/tapped-at.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { sendCsv } from './stock-csv.ts';
 import { recordMovement } from './stock-movement-service.ts';
@@ -32,7 +33,7 @@ type MovementWork<I> = (
   deps: AppDeps,
   actor: Actor,
   input: I,
-  params: { id?: number },
+  params: { id?: number; tappedAt?: Date | null },
 ) => Promise<string>;
 
 /** A stock-changing route: idempotent by header, retried on deadlock, answering with the movements written. */
@@ -42,6 +43,7 @@ function movementRoute<B extends z.ZodType>(
   summary: string,
   work: MovementWork<z.infer<B>>,
   params?: z.ZodType,
+  options: { tapTime?: boolean } = {},
 ) {
   return defineRoute({
     method: 'post',
@@ -55,8 +57,9 @@ function movementRoute<B extends z.ZodType>(
       201: { description: 'Moved', schema: stockMovedSchema },
       409: { description: 'Not enough usable stock, or an expired batch' },
     },
+    ...(options.tapTime && { before: (deps: AppDeps) => [readTappedAt(deps)] }),
     handle: async ({ body: input, params: p, req, res, deps, actor }) => {
-      const given = (p ?? {}) as { id?: number };
+      const given = { ...((p ?? {}) as { id?: number }), tappedAt: tappedAtOf(res) };
       const { status, moved } = await recordMovement(
         deps,
         actor,
@@ -110,7 +113,14 @@ export const stockMovementRoutes: RouteDefinition[] = [
     'Move stock between places (depot to van, van to van, van to depot).',
     transferStock,
   ),
-  movementRoute('/stock/usages', usageInputSchema, 'Record stock used by hand, with a reason.', useStock),
+  movementRoute(
+    '/stock/usages',
+    usageInputSchema,
+    'Record stock used by hand, with a reason; X-Tapped-At (ISO 8601) records when it was used.',
+    useStock,
+    undefined,
+    { tapTime: true },
+  ),
   movementRoute(
     '/stock/stocktakes',
     stocktakeInputSchema,

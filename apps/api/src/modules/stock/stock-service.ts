@@ -134,7 +134,13 @@ export async function transferStock(trx: Trx, deps: AppDeps, actor: Actor, input
 }
 
 /** Stock used by hand (not on a job), first expiry first unless a batch is named. */
-export async function useStock(trx: Trx, deps: AppDeps, actor: Actor, input: UsageInput): Promise<string> {
+export async function useStock(
+  trx: Trx,
+  deps: AppDeps,
+  actor: Actor,
+  input: UsageInput,
+  given: { tappedAt?: Date | null } = {},
+): Promise<string> {
   const loc = await place(trx, actor, input.locationId);
   if (
     actor.ability.cannot(
@@ -180,6 +186,7 @@ export async function useStock(trx: Trx, deps: AppDeps, actor: Actor, input: Usa
       batchId: pick.batchId,
       quantityDelta: -pick.quantity,
       reason: input.reason,
+      tappedAt: given.tappedAt ?? null,
     })),
     deps.clock.now(),
   );
