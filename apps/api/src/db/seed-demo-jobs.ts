@@ -6,9 +6,12 @@ import {
   calendarDateIn,
   dosePlan,
   inhibitorCheck,
+  completionChecks,
   surveySchema,
   surveyVolume,
+  systemDetailsSchema,
   type Survey,
+  type SystemDetails,
 } from '@heatfleet/domain';
 
 type Trx = Knex.Transaction;
@@ -149,6 +152,22 @@ function surveyFor(r: ReturnType<typeof randomFrom>): Survey {
   });
 }
 
+// Invented makers and models: no real brand.
+const boilerMakes = ['Fennick Heat', 'Oldcastle Thermal', 'Marrowby Boilers'];
+const boilerLocations = ['Kitchen', 'Utility', 'Airing cupboard', 'Garage', 'Loft'];
+
+/** What the report says about the system, as an engineer would note it on the visit. */
+function systemDetailsFor(r: ReturnType<typeof randomFrom>, survey: Survey): SystemDetails {
+  return systemDetailsSchema.parse({
+    boilerMake: r.pick(boilerMakes),
+    boilerModel: `${r.pick(['FH', 'OT', 'MB'])} ${r.int(18, 35)}${survey.boilerKind === 'combi' ? 'c' : ''}`,
+    boilerLocation: r.pick(boilerLocations),
+    magneticFilterFitted: r.next() < 0.6,
+    cisternCondition:
+      survey.systemType === 'open_vented' ? r.pick(['clean', 'dirty_cleaned', 'needs_attention']) : null,
+  });
+}
+
 const at = (day: string, hourUtc: number) => new Date(`${day}T${String(hourUtc).padStart(2, '0')}:00:00Z`);
 
 /**
@@ -213,6 +232,7 @@ export async function seedDemoJobs(
     cleaner: (typeof productRows)[number];
     customer: string;
     address: string;
+    postcode: string;
   };
   const visits: Visit[] = [];
   const start = addDays(today, -364);
@@ -231,7 +251,8 @@ export async function seedDemoJobs(
         survey: surveyFor(r),
         cleaner: r.next() < 0.8 ? byName.get('HFL System Cleaner')! : byName.get('HFL Rapid Cleaner')!,
         customer: `${r.pick(firstNames)} ${r.pick(surnames)}`,
-        address: `${houseNumber} ${r.pick(streets)}, Brackenford BF${r.int(1, 4)} ${r.int(1, 9)}${r.pick(['AX', 'LN', 'QD', 'TW', 'HR', 'PE'])}`,
+        address: `${houseNumber} ${r.pick(streets)}, Brackenford`,
+        postcode: `BF${r.int(1, 4)} ${r.int(1, 9)}${r.pick(['AX', 'LN', 'QD', 'TW', 'HR', 'PE'])}`,
       });
     }
   }
@@ -249,12 +270,14 @@ export async function seedDemoJobs(
     firm_id: firmId,
     customer_id: customerIds[i]!,
     address: v.address,
+    postcode: v.postcode,
     access_notes: r.next() < 0.3 ? 'Key with the neighbour at number 2.' : null,
     system_notes: null,
   }));
   const firstSiteId = ((await trx('sites').insert(siteRows)) as number[])[0]!;
   const siteIds = await consecutiveIds(trx, 'sites', firmId, firstSiteId, visits.length);
 
+  // Report numbers in the order the visits were completed (the visits are in date order), HF-000001 on.
   const jobRows = visits.map((v, i) => {
     const completedOn = v.day;
     return {
@@ -264,14 +287,39 @@ export async function seedDemoJobs(
       van_location_id: v.crew.van_id,
       scheduled_on: v.day,
       status: 'completed',
+      visit_kind: 'full_clean',
       survey: JSON.stringify(v.survey),
+      system_details: JSON.stringify(systemDetailsFor(r, v.survey)),
       completed_at: at(completedOn, 15),
       completed_by_user_id: v.crew.user_id,
       next_check_on: addMonths(completedOn, 12),
+      report_number: i + 1,
     };
   });
   const firstJobId = ((await trx('jobs').insert(jobRows)) as number[])[0]!;
   const jobIds = await consecutiveIds(trx, 'jobs', firmId, firstJobId, visits.length);
+  await trx('firms').where({ id: firmId }).update({ last_report_number: visits.length });
+
+  // About one visit in twelve was completed without its water test, with the engineer's reason.
+  const noTest = completionChecks({
+    visitKind: 'full_clean',
+    circulation: { minimumMinutes: null, startedAt: null, elapsedMinutes: null, met: null },
+    radiators: [],
+    water: { mainsTdsPpm: null, systemTdsPpm: null, inhibitorReading: null },
+  })[0]!;
+  const reasonRows = jobIds
+    .filter((_, i) => i % 12 === 5)
+    .map((jobId, n) => ({
+      firm_id: firmId,
+      job_id: jobId,
+      code: noTest.code,
+      found: noTest.found,
+      reason:
+        n % 2
+          ? 'Test kit left at the depot; customer to be rung with the result of a sample.'
+          : 'Customer had to leave; sample taken for testing at the depot.',
+    }));
+  if (reasonRows.length) await trx('job_completion_reasons').insert(reasonRows);
 
   // Chemicals per job by the same dose plan the app uses, grouped by month and van for the deliveries.
   const used: { jobIndex: number; product: (typeof productRows)[number]; packs: number }[] = [];
@@ -431,6 +479,13 @@ export async function seedDemoJobs(
     );
   }
 
+  // The contact details the customer's report prints (01632 960 is a range kept for drama, never a real line).
+  await trx('firms').where({ id: firmId }).update({
+    phone: '01632 960 418',
+    email: 'office@brackenford.example',
+    registration_numbers: 'Heating trade scheme no. 000418 (invented)',
+  });
+
   await seedBookedVisits(trx, firmId, today);
 }
 
@@ -466,9 +521,23 @@ async function seedBookedVisits(trx: Trx, firmId: number, today: string): Promis
     .whereIn('name', ['HFL System Cleaner', 'HFL Inhibitor'])
     .select('id')) as { id: number }[];
   const visits = [
-    { name: 'Odile Farrant', address: '14 Weir Cottages, Brackenford BF2 4LN', in: 2, rads: 9 },
-    { name: 'Harlan Strood', address: '3 Sluice Row, Brackenford BF1 8QD', in: 5, rads: 14 },
-    { name: 'Tamsin Vell', address: 'Flat 2, 40 Mill Hill, Brackenford BF3 1AX', in: 9, rads: 6 },
+    {
+      name: 'Odile Farrant',
+      address: '14 Weir Cottages, Brackenford',
+      postcode: 'BF2 4LN',
+      in: 2,
+      rads: 9,
+      oil: false,
+    },
+    { name: 'Harlan Strood', address: '3 Sluice Row, Brackenford', postcode: 'BF1 8QD', in: 5, rads: 14, oil: true },
+    {
+      name: 'Tamsin Vell',
+      address: 'Flat 2, 40 Mill Hill, Brackenford',
+      postcode: 'BF3 1AX',
+      in: 9,
+      rads: 6,
+      oil: false,
+    },
   ];
   for (const v of visits) {
     const [customerId] = (await trx('customers').insert({
@@ -476,29 +545,42 @@ async function seedBookedVisits(trx: Trx, firmId: number, today: string): Promis
       name: v.name,
       email: `${v.name.split(' ')[0]!.toLowerCase()}@customer.example`,
     })) as number[];
+    const roomNames = Array.from({ length: v.rads }, (_, i) => `Room ${i + 1}`);
     const [siteId] = (await trx('sites').insert({
       firm_id: firmId,
       customer_id: customerId,
       address: v.address,
+      postcode: v.postcode,
       access_notes: 'Ring ahead; parking on the street.',
+      // The oil system was cleaned before: its flush order, furthest from the rig first, is kept.
+      flush_order: v.oil ? JSON.stringify([...roomNames].reverse()) : null,
     })) as number[];
+    // An open-vented oil system with a floor-standing regular boiler, or a sealed gas combi.
     const survey = {
-      systemType: 'sealed',
-      boilerKind: 'combi',
-      fuel: 'gas',
-      radiators: Array.from({ length: v.rads }, (_, i) => ({
-        room: `Room ${i + 1}`,
-        panel: i % 3 === 0 ? 'double' : 'single',
-      })),
+      systemType: v.oil ? 'open_vented' : 'sealed',
+      boilerKind: v.oil ? 'regular' : 'combi',
+      fuel: v.oil ? 'oil' : 'gas',
+      radiators: roomNames.map((room, i) => ({ room, panel: i % 3 === 0 ? 'double' : 'single' })),
       pipeRuns: [],
     };
+    const systemDetails = v.oil
+      ? {
+          boilerMake: 'Oldcastle Thermal',
+          boilerModel: 'OT 26',
+          boilerLocation: 'Utility',
+          magneticFilterFitted: false,
+          cisternCondition: null,
+        }
+      : { boilerMake: 'Fennick Heat', boilerLocation: 'Kitchen', magneticFilterFitted: true };
     const [jobId] = (await trx('jobs').insert({
       firm_id: firmId,
       site_id: siteId,
       engineer_member_id: engineer.id,
       van_location_id: van.id,
       scheduled_on: addDays(today, v.in),
+      visit_kind: 'full_clean',
       survey: JSON.stringify(survey),
+      system_details: JSON.stringify(systemDetailsSchema.parse(systemDetails)),
     })) as number[];
     await trx('job_products').insert(products.map((p) => ({ firm_id: firmId, job_id: jobId, product_id: p.id })));
   }
