@@ -17,8 +17,21 @@ import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { useSchemaForm } from '@/lib/form';
 import { firmSettingsQueries, useSaveFirmSettings } from '@/features/firms/api/firm-settings-queries';
+import { HeatExchangerFields } from '@/features/firms/components/heat-exchanger-fields';
+import { heatExchangerFieldNames, heatExchangerInput } from '@/features/firms/components/heat-exchanger-input';
+import { SettingsField } from '@/features/firms/components/settings-field';
 
-const fields = ['name', 'address', 'timeZone', 'volumeUnit', 'coldBottomThresholdK'] as const;
+const fields = [
+  'name',
+  'address',
+  'timeZone',
+  'volumeUnit',
+  'coldBottomThresholdK',
+  'phone',
+  'email',
+  'registrationNumbers',
+  ...heatExchangerFieldNames,
+] as const;
 
 function prepare(values: Record<string, string | undefined>) {
   return {
@@ -27,6 +40,10 @@ function prepare(values: Record<string, string | undefined>) {
     timeZone: values.timeZone ?? '',
     volumeUnit: values.volumeUnit,
     coldBottomThresholdK: values.coldBottomThresholdK?.trim() ? Number(values.coldBottomThresholdK) : undefined,
+    phone: values.phone ?? '',
+    email: values.email ?? '',
+    registrationNumbers: values.registrationNumbers ?? '',
+    heatExchangerDefaults: heatExchangerInput(values),
   };
 }
 
@@ -81,6 +98,38 @@ function Form({ firm }: { firm: FirmSettings }) {
         hint="Printed on the cleaning reports."
         error={form.fieldErrors.address}
       />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SettingsField
+          label="Phone"
+          name="phone"
+          type="tel"
+          inputMode="tel"
+          autoComplete="tel"
+          maxLength={40}
+          defaultValue={firm.phone ?? ''}
+          hint="Printed on the customer’s report."
+          error={form.fieldErrors.phone}
+        />
+        <SettingsField
+          label="E-mail"
+          name="email"
+          type="email"
+          inputMode="email"
+          autoComplete="email"
+          maxLength={254}
+          defaultValue={firm.email ?? ''}
+          hint="Printed on the customer’s report."
+          error={form.fieldErrors.email}
+        />
+      </div>
+      <SettingsField
+        label="Registration numbers"
+        name="registrationNumbers"
+        maxLength={300}
+        defaultValue={firm.registrationNumbers ?? ''}
+        hint="As they should appear on the report, for example a trade scheme’s registration number."
+        error={form.fieldErrors.registrationNumbers}
+      />
       <ChoiceGroup
         legend="Volumes shown in"
         name="volumeUnit"
@@ -102,7 +151,12 @@ function Form({ firm }: { firm: FirmSettings }) {
         error={form.fieldErrors.coldBottomThresholdK}
         className="sm:max-w-xs"
       />
-      <Button type="submit" busy={save.isPending} className="w-full sm:w-auto">
+      <HeatExchangerFields
+        defaults={firm.heatExchangerDefaults}
+        own={firm.heatExchangerDefaultsOwn}
+        errors={form.fieldErrors}
+      />
+      <Button type="submit" busy={save.isPending} className="min-h-12 w-full sm:w-auto">
         Save firm settings
       </Button>
     </form>
