@@ -117,6 +117,10 @@ const drawRadiators: Draw = (pdf, { detail: { sheet }, firm }) => {
 const drawWater: Draw = (pdf, { detail: { sheet }, inhibitorTestMethod }) => {
   const w = sheet.water;
   pdf.heading('Water tests');
+  if ([w.mainsTdsPpm, w.systemTdsPpm, w.waterClear, w.inhibitorReading, w.ph].every((v) => v === null)) {
+    pdf.doc.text('No water test was taken on this visit.');
+    return;
+  }
   if (w.mainsTdsPpm !== null) pdf.line('Mains water, dissolved solids', `${w.mainsTdsPpm} ppm`);
   if (w.systemTdsPpm !== null) pdf.line('System water, dissolved solids', `${w.systemTdsPpm} ppm`);
   if (w.waterClear !== null) pdf.line('System water clear', yesNo(w.waterClear));
@@ -133,10 +137,12 @@ const drawWater: Draw = (pdf, { detail: { sheet }, inhibitorTestMethod }) => {
 const drawPhotos = photosSection(() => 'kept on file: ask us for a copy');
 
 /** For the householder, in plain words; the engineer's own cautions stay on the firm's record. */
-const drawSafety: Draw = (pdf, { detail, firm }) => {
+const drawSafety: Draw = (pdf, { detail, firm, visitKind }) => {
   const { fuel, systemType } = detail.survey;
   const points = [
-    'Cleaning can show up radiators, valves or joints that were already weak. Over the next few days, look for drips or damp under radiators and valves; if you find a leak, turn the heating off and call us.',
+    visitKind === 'full_clean'
+      ? 'Cleaning can show up radiators, valves or joints that were already weak. Over the next few days, look for drips or damp under radiators and valves; if you find a leak, turn the heating off and call us.'
+      : 'If you find drips or damp under a radiator or valve, turn the heating off and call us.',
     systemType === 'sealed'
       ? 'If the pressure gauge on your boiler falls well below its usual reading, or the boiler shows a pressure fault, call us rather than topping it up again and again.'
       : 'Do not add anything to the small cistern in the loft that feeds the heating, and keep its lid on.',

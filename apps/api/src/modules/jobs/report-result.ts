@@ -59,6 +59,8 @@ function recommendation(data: ReportData, r: { flushFailed: boolean; inhibitor: 
   if (r.flushFailed) lines.push('A further flush, as the water was not yet as clean as the mains.');
   if (r.inhibitor === 'low') lines.push("Top up the inhibitor to the maker's target and test again.");
   if (r.inhibitor === 'high') lines.push('No action for the inhibitor now; test again at the next check.');
+  if (r.inhibitor === null && data.detail.sheet.water.inhibitorReading === null)
+    lines.push('Have the inhibitor level tested: it was not tested on this visit.');
   const next = data.detail.job.nextCheckOn;
   if (next) lines.push(`Have the inhibitor checked by ${ukCalendarDate(next)}.`);
   return lines.join(' ') || 'No further work needed.';
