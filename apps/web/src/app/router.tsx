@@ -92,6 +92,14 @@ export const router = createBrowserRouter([
             lazy: () => import('@/app/routes/jobs/job-page').then((m) => ({ Component: m.JobPage })),
           },
           {
+            path: paths.editJob.path,
+            lazy: () => import('@/app/routes/jobs/edit-job-page').then((m) => ({ Component: m.EditJobPage })),
+          },
+          {
+            path: paths.account.path,
+            lazy: () => import('@/app/routes/account/account-page').then((m) => ({ Component: m.AccountPage })),
+          },
+          {
             path: paths.customers.path,
             lazy: () => import('@/app/routes/customers/customers-page').then((m) => ({ Component: m.CustomersPage })),
           },

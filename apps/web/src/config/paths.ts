@@ -46,8 +46,10 @@ export const paths = {
   jobs: { path: '/jobs', getHref: () => '/jobs' },
   newJob: { path: '/jobs/new', getHref: () => '/jobs/new' },
   job: { path: '/jobs/:id', getHref: (id: number) => `/jobs/${id}` },
+  editJob: { path: '/jobs/:id/edit', getHref: (id: number) => `/jobs/${id}/edit` },
   customers: { path: '/customers', getHref: () => '/customers' },
   site: { path: '/sites/:id', getHref: (id: number) => `/sites/${id}` },
+  account: { path: '/account', getHref: () => '/account' },
   outbox: { path: '/outbox', getHref: () => '/outbox' },
   outboxMessage: { path: '/outbox/:id', getHref: (id: string) => `/outbox/${encodeURIComponent(id)}` },
 } as const;

@@ -84,9 +84,13 @@ function SignedInHeader({ me }: { me: Me }) {
             <Wordmark />
           </Link>
           <div className="flex min-w-0 items-center gap-2">
-            <span className="min-w-0 truncate text-sm text-brand-100" title={me.user.email}>
+            <Link
+              to={paths.account.getHref()}
+              className="inline-flex min-h-11 min-w-0 items-center truncate text-sm text-brand-100 underline-offset-4 hover:text-white hover:underline"
+              title={`Your account (${me.user.email})`}
+            >
               {me.user.name}
-            </span>
+            </Link>
             <SignOutButton />
           </div>
         </div>

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
-import { roleLabels, roleSummaries } from '@heatfleet/domain';
+import { calendarDateIn, roleLabels, roleSummaries } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -9,8 +9,8 @@ import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { paths } from '@/config/paths';
 import { useSignedInMe } from '@/lib/auth';
-import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { FirmList } from '@/features/firms/components/firm-list';
+import { MyJobs } from '@/features/jobs/components/my-jobs';
 import { MyHavToday, OwnerOverview } from '@/features/overview/components/owner-overview';
 import { vanQueries } from '@/features/vans/api/van-queries';
 import { VanSummary } from '@/features/vans/components/van-summary';
@@ -47,11 +47,10 @@ function AccountCards() {
       <Card title="Your firms" description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}>
         <FirmList me={me} />
       </Card>
-      <Card
-        title="Change your password"
-        description="Other devices signed in as you are signed out when you change it."
-      >
-        <ChangePasswordForm email={me.user.email} />
+      <Card title="Your account">
+        <Link to={paths.account.getHref()} className={buttonClasses('secondary', 'min-h-12 w-full sm:w-auto')}>
+          Your account and password
+        </Link>
       </Card>
     </>
   );
@@ -78,6 +77,9 @@ export function HomePage() {
       <div className="grid gap-5 lg:grid-cols-2">
         {me.role === 'engineer' ? (
           <>
+            <Card title="Your jobs" description="Today's first, then the next ones.">
+              <MyJobs memberId={me.memberId} today={calendarDateIn(new Date(), me.activeFirm.timeZone)} />
+            </Card>
             <MyVanCard timeZone={me.activeFirm.timeZone} />
             <Card
               title="Hand-arm vibration today"

@@ -1,25 +1,82 @@
 import { subject } from '@casl/ability';
 import { useQuery } from '@tanstack/react-query';
-import { useParams } from 'react-router-dom';
-import { Badge } from '@/components/ui/badge';
+import { Link, useParams } from 'react-router-dom';
+import { visitKindLabels, type JobDetail } from '@heatfleet/domain';
 import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
+import { paths } from '@/config/paths';
 import { useAbility } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
 import { jobQueries } from '@/features/jobs/api/job-queries';
+import { AutosaveProvider } from '@/features/jobs/components/autosave-context';
+import { CancelJobForm } from '@/features/jobs/components/cancel-job-form';
 import { ChemicalsUsed } from '@/features/jobs/components/chemicals-used';
 import { CompleteJobPanel } from '@/features/jobs/components/complete-job-panel';
-import { JobCautions } from '@/features/jobs/components/job-cautions';
 import { JobPlan } from '@/features/jobs/components/job-plan';
 import { JobSheetSections } from '@/features/jobs/components/job-sheet';
+import { JobStatusBadge } from '@/features/jobs/components/job-status-badge';
+import { SheetSection } from '@/features/jobs/components/sheet-section';
+import { StartVisit, startSummary } from '@/features/jobs/components/start-visit';
 import type { InhibitorChoice } from '@/features/jobs/components/water-tests-form';
 import { productQueries } from '@/features/stock/api/stock-queries';
 
-/** The job sheet: the plan, then the visit section by section, then completion and the report. */
+function visitStarted(detail: JobDetail): boolean {
+  const { sheet } = detail;
+  return (
+    sheet.signatures.length > 0 ||
+    sheet.steps.some((s) => s.doneAt) ||
+    sheet.radiators.some((r) => r.before || r.after || r.flushedAt || r.agitation)
+  );
+}
+
+function DoneCard({ detail, timeZone }: { detail: JobDetail; timeZone: string }) {
+  const row = detail.job;
+  return (
+    <Card
+      title="Done"
+      description={
+        row.completedAt
+          ? `Completed ${formatDateTime(row.completedAt, timeZone)}${row.reportNumber ? `, report ${row.reportNumber}` : ''}. The sheet below is the record and can no longer change.`
+          : undefined
+      }
+    >
+      <div className="space-y-3">
+        <h3 className="font-bold text-brand-900">Chemicals used</h3>
+        <ChemicalsUsed used={detail.chemicalsUsed} />
+        {row.completionReasons.length ? (
+          <>
+            <h3 className="font-bold text-brand-900">Reasons given for what was not done</h3>
+            <ul className="list-disc space-y-1 pl-5">
+              {row.completionReasons.map((r) => (
+                <li key={r.code}>
+                  <span className="font-semibold">{r.label}:</span> {r.reason}
+                </li>
+              ))}
+            </ul>
+          </>
+        ) : null}
+        <p>
+          Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
+        </p>
+        <p>
+          <a
+            className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')}
+            href={`/api/jobs/${row.id}/report.pdf`}
+            download
+          >
+            Download the report (PDF)
+          </a>
+        </p>
+      </div>
+    </Card>
+  );
+}
+
+/** The job sheet: the booking and its plan, the visit in the order of the work, then completion and the report. */
 export function JobPage() {
   const id = Number(useParams().id);
   const me = useSignedInMe();
@@ -29,63 +86,64 @@ export function JobPage() {
   const products = useQuery(productQueries.list());
   if (job.isPending) return <PageSpinner label="Loading the job…" />;
   if (job.isError) return <QueryErrorNotice error={job.error} onRetry={() => void job.refetch()} />;
-  const { job: row } = job.data;
-  const completed = row.status === 'completed';
-  const canComplete = ability.can(
+  const detail = job.data;
+  const row = detail.job;
+  const planned = row.status === 'planned';
+  const canChange = ability.can(
     'update',
     subject('Job', { firmId: me.activeFirm.id, engineerMemberId: row.engineerMemberId }),
   );
   const inhibitors: InhibitorChoice[] = (products.data ?? [])
-    .filter((p) => p.kind === 'inhibitor' && (p.active || p.id === job.data.sheet.water.inhibitorProductId))
+    .filter((p) => p.kind === 'inhibitor' && (p.active || p.id === detail.sheet.water.inhibitorProductId))
     .map((p) => ({ id: p.id, name: p.name, targetMin: p.targetMin, targetMax: p.targetMax, targetUnit: p.targetUnit }));
   const timeZone = me.activeFirm.timeZone;
+  const started = visitStarted(detail);
   return (
     <>
       <PageHeader title={`Job at ${row.site.address}`}>
         <span className="flex flex-wrap items-center gap-2">
           <span>
-            {row.site.customerName} · {formatCalendarDate(row.scheduledOn)}
+            {row.site.customerName} · {formatCalendarDate(row.scheduledOn)} · {visitKindLabels[row.visitKind]}
+            {row.engineerName ? ` · ${row.engineerName}` : ''}
           </span>
-          {completed ? <Badge tone="ok">Completed</Badge> : <Badge tone="neutral">Booked</Badge>}
+          <JobStatusBadge status={row.status} />
         </span>
       </PageHeader>
-      <div className="space-y-5">
-        {completed ? (
-          <Card
-            title="Done"
-            description={
-              row.completedAt
-                ? `Completed ${formatDateTime(row.completedAt, timeZone)}. The sheet below is the record and can no longer change.`
-                : undefined
-            }
-          >
-            <div className="space-y-3">
-              <h3 className="font-bold text-brand-900">Chemicals used</h3>
-              <ChemicalsUsed used={job.data.chemicalsUsed} />
+      <AutosaveProvider>
+        <div className="space-y-5">
+          {row.cancellation ? (
+            <Card title="Cancelled">
               <p>
-                Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
+                {formatDateTime(row.cancellation.at, timeZone)}
+                {row.cancellation.byName ? ` by ${row.cancellation.byName}` : ''}: {row.cancellation.reason}
               </p>
-              <p>
-                <a
-                  className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')}
-                  href={`/api/jobs/${row.id}/report.pdf`}
-                  download
-                >
-                  Download the report (PDF)
-                </a>
-              </p>
-            </div>
-          </Card>
-        ) : null}
-        <JobPlan detail={job.data} />
-        {completed ? null : <JobCautions />}
-        <JobSheetSections detail={job.data} timeZone={timeZone} inhibitors={inhibitors} />
-        {!completed && canComplete ? (
-          <Card title="Complete the job">
-            <CompleteJobPanel detail={job.data} />
-          </Card>
-        ) : null}
-      </div>
+            </Card>
+          ) : null}
+          {row.status === 'completed' ? <DoneCard detail={detail} timeZone={timeZone} /> : null}
+          <JobPlan detail={detail} defaultOpen={planned && !started} />
+          {row.status === 'cancelled' ? null : (
+            <>
+              <SheetSection title="Before you start" summary={startSummary(detail)} defaultOpen={planned}>
+                <StartVisit detail={detail} timeZone={timeZone} />
+              </SheetSection>
+              <JobSheetSections detail={detail} timeZone={timeZone} inhibitors={inhibitors} />
+            </>
+          )}
+          {planned && canChange ? (
+            <Card title="Complete the job">
+              <CompleteJobPanel detail={detail} timeZone={timeZone} />
+            </Card>
+          ) : null}
+          {planned && canChange ? (
+            <SheetSection title="Change the booking" summary="Edit, reschedule or cancel" defaultOpen={false}>
+              <Link to={paths.editJob.getHref(row.id)} className={buttonClasses('secondary', 'min-h-12 w-full')}>
+                Edit or reschedule the job
+              </Link>
+              <CancelJobForm jobId={row.id} />
+            </SheetSection>
+          ) : null}
+        </div>
+      </AutosaveProvider>
     </>
   );
 }

@@ -3,7 +3,10 @@ import {
   customerResponseSchema,
   jobDetailSchema,
   newSiteResponseSchema,
+  type CancelJobInput,
+  type CompleteJobInput,
   type CreateJobInput,
+  type UpdateJobInput,
   type CustomerInput,
   type SiteInput,
 } from '@heatfleet/domain';
@@ -14,8 +17,8 @@ import { customerQueries, jobQueries } from '@/features/jobs/api/job-queries';
 export function useCompleteJob(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ idempotencyKey }: { idempotencyKey: string }) =>
-      apiClient.post(`/api/jobs/${id}/complete`, {}, jobDetailSchema, { idempotencyKey }),
+    mutationFn: ({ input, idempotencyKey }: { input: CompleteJobInput; idempotencyKey: string }) =>
+      apiClient.post(`/api/jobs/${id}/complete`, input, jobDetailSchema, { idempotencyKey }),
     onSuccess: (detail) => {
       queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
       // The van's stock and the site's next check changed too.
@@ -52,5 +55,28 @@ export function useCreateSite(customerId: number | null) {
     mutationFn: async (input: SiteInput) =>
       (await apiClient.post(`/api/customers/${customerId}/sites`, input, newSiteResponseSchema)).site,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
+  });
+}
+
+/** Edit or reschedule a booked job: only the fields sent change. */
+export function useUpdateJob(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpdateJobInput) => apiClient.patch(`/api/jobs/${id}`, input, jobDetailSchema),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
+      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
+    },
+  });
+}
+
+export function useCancelJob(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CancelJobInput) => apiClient.post(`/api/jobs/${id}/cancel`, input, jobDetailSchema),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
+      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
+    },
   });
 }

@@ -1,29 +1,53 @@
+import { useCallback } from 'react';
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import {
   jobPhotoResponseSchema,
   jobSheetResponseSchema,
-  type AgitationInput,
+  jobSignatureResponseSchema,
+  type SignatureInput,
   type JobDetail,
   type JobSheet,
   type JobStep,
-  type RadiatorReadingInput,
-  type ReadingPhase,
-  type WaterTestsInput,
 } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { jobQueries } from '@/features/jobs/api/job-queries';
 
-// Every sheet write answers with the whole sheet, so the job's cached detail takes it as it is.
-function storeSheet(queryClient: QueryClient, jobId: number, sheet: JobSheet) {
+// Every sheet write answers with the whole sheet, so the job's cached detail takes it as it is. Writes
+// overlap (a reading saving while a flush is ticked): an answer that started before the last one stored
+// may not hold that one's change, so it is not stored, and the job is read again instead.
+let writesStarted = 0;
+const lastStored = new Map<number, number>();
+
+async function writeSheet(queryClient: QueryClient, jobId: number, write: () => Promise<{ sheet: JobSheet }>) {
+  const seq = ++writesStarted;
+  const { sheet } = await write();
+  if (seq < (lastStored.get(jobId) ?? 0)) {
+    void queryClient.invalidateQueries({ queryKey: jobQueries.detail(jobId).queryKey });
+    return sheet;
+  }
+  lastStored.set(jobId, seq);
   queryClient.setQueryData<JobDetail>(jobQueries.detail(jobId).queryKey, (old) => (old ? { ...old, sheet } : old));
+  return sheet;
 }
 
 function useSheetWrite<V>(jobId: number, write: (variables: V) => Promise<{ sheet: JobSheet }>) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (variables: V) => (await write(variables)).sheet,
-    onSuccess: (sheet) => storeSheet(queryClient, jobId, sheet),
+    mutationFn: (variables: V) => writeSheet(queryClient, jobId, () => write(variables)),
   });
+}
+
+/** One PUT under the job (a path like `/radiators/2/readings/before`), its answer stored: for the fields that save themselves. */
+export function useSheetPut(jobId: number) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    async (path: string, body: unknown): Promise<void> => {
+      await writeSheet(queryClient, jobId, () =>
+        apiClient.put(`/api/jobs/${jobId}${path}`, body, jobSheetResponseSchema),
+      );
+    },
+    [jobId, queryClient],
+  );
 }
 
 export function useTickStep(jobId: number) {
@@ -32,41 +56,9 @@ export function useTickStep(jobId: number) {
   );
 }
 
-export function useSaveReading(jobId: number) {
-  return useSheetWrite(
-    jobId,
-    ({ index, phase, reading }: { index: number; phase: ReadingPhase; reading: RadiatorReadingInput }) =>
-      apiClient.put(`/api/jobs/${jobId}/radiators/${index}/readings/${phase}`, reading, jobSheetResponseSchema),
-  );
-}
-
 export function useTickFlushed(jobId: number) {
   return useSheetWrite(jobId, ({ index, done }: { index: number; done: boolean }) =>
     apiClient.put(`/api/jobs/${jobId}/radiators/${index}/flushed`, { done }, jobSheetResponseSchema),
-  );
-}
-
-export function useSaveAgitation(jobId: number) {
-  return useSheetWrite(jobId, ({ index, agitation }: { index: number; agitation: AgitationInput }) =>
-    apiClient.put(`/api/jobs/${jobId}/radiators/${index}/agitation`, agitation, jobSheetResponseSchema),
-  );
-}
-
-export function useSaveWaterTests(jobId: number) {
-  return useSheetWrite(jobId, (tests: WaterTestsInput) =>
-    apiClient.put(`/api/jobs/${jobId}/water-tests`, tests, jobSheetResponseSchema),
-  );
-}
-
-export function useSaveKitUsed(jobId: number) {
-  return useSheetWrite(jobId, (kitItemIds: number[]) =>
-    apiClient.put(`/api/jobs/${jobId}/kit`, { kitItemIds }, jobSheetResponseSchema),
-  );
-}
-
-export function useSaveNotes(jobId: number) {
-  return useSheetWrite(jobId, (notes: string) =>
-    apiClient.put(`/api/jobs/${jobId}/notes`, { notes }, jobSheetResponseSchema),
   );
 }
 
@@ -85,6 +77,35 @@ export function useUploadJobPhoto(jobId: number) {
       queryClient.setQueryData<JobDetail>(jobQueries.detail(jobId).queryKey, (old) =>
         old
           ? { ...old, sheet: { ...old.sheet, photos: [...old.sheet.photos.filter((p) => p.id !== photo.id), photo] } }
+          : old,
+      );
+    },
+  });
+}
+
+/** The flush order, set once: kept on the site, so the next visit starts with it. */
+export function useSetFlushOrder(jobId: number) {
+  return useSheetWrite(jobId, (radiatorIndexes: number[]) =>
+    apiClient.put(`/api/jobs/${jobId}/flush-order`, { radiatorIndexes }, jobSheetResponseSchema),
+  );
+}
+
+/** The customer's drawn signature; signing again replaces it. The sheet lists it at once. */
+export function useAddSignature(jobId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: SignatureInput) =>
+      (await apiClient.post(`/api/jobs/${jobId}/signatures`, input, jobSignatureResponseSchema)).signature,
+    onSuccess: (signature) => {
+      queryClient.setQueryData<JobDetail>(jobQueries.detail(jobId).queryKey, (old) =>
+        old
+          ? {
+              ...old,
+              sheet: {
+                ...old.sheet,
+                signatures: [...old.sheet.signatures.filter((s) => s.kind !== signature.kind), signature],
+              },
+            }
           : old,
       );
     },

@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import type { JobListRow } from '@heatfleet/domain';
-import { Badge } from '@/components/ui/badge';
 import { createDataTableColumnHelper, type DataTableColumns } from '@/components/ui/data-table-columns';
 import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/format';
+import { JobStatusBadge } from '@/features/jobs/components/job-status-badge';
 
 const helper = createDataTableColumnHelper<JobListRow>();
 
@@ -25,11 +25,16 @@ export function buildJobColumns(): DataTableColumns<JobListRow> {
     }),
     helper.accessor('customerName', { header: 'Customer', sortFn: 'text' }),
     helper.accessor('address', { header: 'Address', sortFn: 'text' }),
+    helper.accessor((job) => job.engineerName ?? '', {
+      id: 'engineer',
+      header: 'Engineer',
+      sortFn: 'text',
+      cell: (info) => info.getValue() || <span className="text-ink-muted">Nobody yet</span>,
+    }),
     helper.accessor('status', {
       header: 'Status',
       sortFn: 'text',
-      cell: (info) =>
-        info.getValue() === 'completed' ? <Badge tone="ok">Completed</Badge> : <Badge tone="neutral">Booked</Badge>,
+      cell: (info) => <JobStatusBadge status={info.getValue()} />,
     }),
     helper.accessor((job) => job.nextCheckOn ?? '9999-12-31', {
       id: 'nextCheck',

@@ -1,50 +1,43 @@
-import { useState, type FormEvent } from 'react';
 import { jobNotesInputSchema, type JobSheet } from '@heatfleet/domain';
-import { Button } from '@/components/ui/button';
 import { TextareaField } from '@/components/ui/textarea-field';
-import { useSaveNotes } from '@/features/jobs/api/use-job-sheet-mutations';
-import { SaveFeedback } from '@/features/jobs/components/save-feedback';
+import { useSheetPut } from '@/features/jobs/api/use-job-sheet-mutations';
+import { useAutosave } from '@/features/jobs/components/autosave-context';
+import { SavedMark } from '@/features/jobs/components/saved-mark';
 
+/** The notes save themselves a moment after typing stops, and when the box is left. */
 export function JobNotesForm({ jobId, sheet }: { jobId: number; sheet: JobSheet }) {
-  const [notes, setNotes] = useState(sheet.notes);
-  const [error, setError] = useState<string | undefined>();
-  const save = useSaveNotes(jobId);
-  const dirty = notes !== sheet.notes;
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = jobNotesInputSchema.safeParse({ notes });
-    if (!parsed.success) {
-      setError(parsed.error.issues[0]?.message);
-      return;
-    }
-    setError(undefined);
-    save.mutate(parsed.data.notes, { onSuccess: (next) => setNotes(next.notes) });
-  };
-
+  const put = useSheetPut(jobId);
+  const slot = useAutosave('notes', () => sheet.notes, {
+    label: 'Notes',
+    delayMs: 1500,
+    parse: (notes: string) => {
+      const parsed = jobNotesInputSchema.safeParse({ notes });
+      return parsed.success
+        ? { ok: true, input: parsed.data.notes }
+        : { ok: false, empty: false, errors: { notes: parsed.error.issues[0]?.message ?? 'Too long.' } };
+    },
+    send: (notes: string) => put('/notes', { notes }),
+    savedInput: sheet.notes,
+  });
   return (
-    <form aria-label="Notes" noValidate onSubmit={submit} className="space-y-3">
+    <div role="group" aria-label="Notes" className="space-y-2">
       <TextareaField
         label="Notes for the record"
         name="notes"
         rows={4}
         hint="What you found and did, and anything the customer or the next engineer should know. Printed on the report."
         readOnly={!sheet.editable}
-        value={notes}
-        onChange={(e) => {
-          save.reset();
-          setNotes(e.target.value);
-        }}
-        error={error}
+        value={slot.draft}
+        onChange={(e) => slot.edit(e.target.value)}
+        onBlur={() => void slot.flush()}
+        error={slot.errors.notes}
       />
-      {sheet.editable ? (
-        <>
-          <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
-          <Button type="submit" variant="secondary" className="min-h-12 w-full sm:w-auto" busy={save.isPending}>
-            Save the notes
-          </Button>
-        </>
-      ) : null}
-    </form>
+      <SavedMark
+        status={slot.status}
+        stored={slot.stored && slot.draft !== ''}
+        failure={slot.failure}
+        onRetry={() => void slot.flush()}
+      />
+    </div>
   );
 }

@@ -13,13 +13,13 @@ function packs(n: number): string {
 }
 
 /** The API's plan for a job: volume, doses, and what to take from the van first. */
-export function JobPlan({ detail }: { detail: JobDetail }) {
+export function JobPlan({ detail, defaultOpen }: { detail: JobDetail; defaultOpen: boolean }) {
   const { withGallons, toggle } = useGallonsToggle();
   const radiators = detail.survey.radiators.length;
   const completed = detail.job.status === 'completed';
-  const summary = `${formatLitres(detail.volume.totalLitres, false)} · ${detail.doses.map((d) => `${d.product.name} ${packs(d.packs)}`).join(', ') || 'no products'}`;
+  const summary = `${formatLitres(detail.volume.totalLitres, false)} ${detail.volume.label.toLowerCase()} · ${detail.doses.map((d) => `${d.product.name} ${packs(d.packs)}`).join(', ') || 'no products'}`;
   return (
-    <SheetSection title="The plan" summary={summary} defaultOpen={!completed}>
+    <SheetSection title="The plan" summary={summary} defaultOpen={defaultOpen}>
       <div className="space-y-3">
         <h3 className="font-bold text-brand-900">System volume</h3>
         {toggle}

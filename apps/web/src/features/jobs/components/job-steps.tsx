@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { circulationClock, stepCautions, type JobSheet } from '@heatfleet/domain';
+import { circulationClock, type JobSheet } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -80,14 +80,15 @@ function StepRow({
   sheet,
   timeZone,
   tick,
+  withCautions,
 }: {
   step: Step;
   n: number;
   sheet: JobSheet;
   timeZone: string;
   tick: ReturnType<typeof useTickStep>;
+  withCautions: boolean;
 }) {
-  const cautions = stepCautions[step.step] ?? [];
   const busy = tick.isPending && tick.variables.step === step.step;
   const failed = tick.isError && tick.variables.step === step.step;
   const done = step.doneAt !== null;
@@ -96,7 +97,7 @@ function StepRow({
     : null;
   return (
     <li className="space-y-2 border-t border-line pt-4 first:border-t-0 first:pt-0">
-      <StepCautions keys={cautions} label={`Cautions before step ${n}`} />
+      {withCautions ? <StepCautions cautions={step.cautions} label={`Cautions before step ${n}`} /> : null}
       {sheet.editable && !done ? (
         <button
           type="button"
@@ -145,18 +146,61 @@ function StepRow({
   );
 }
 
-export function JobSteps({ jobId, sheet, timeZone }: { jobId: number; sheet: JobSheet; timeZone: string }) {
+/** The steps given (a part of the sheet's list), numbered as in the whole list, each ticked with one tap. */
+export function JobSteps({
+  jobId,
+  sheet,
+  timeZone,
+  steps,
+  withCautions = true,
+}: {
+  jobId: number;
+  sheet: JobSheet;
+  timeZone: string;
+  steps: readonly Step['step'][];
+  /** False where the steps' cautions are already shown above them (the radiators' own steps). */
+  withCautions?: boolean;
+}) {
   const tick = useTickStep(jobId);
   return (
     <ol className="space-y-4">
-      {sheet.steps.map((step, i) => (
-        <StepRow key={step.step} step={step} n={i + 1} sheet={sheet} timeZone={timeZone} tick={tick} />
-      ))}
+      {sheet.steps.map((step, i) =>
+        steps.includes(step.step) ? (
+          <StepRow
+            key={step.step}
+            step={step}
+            n={i + 1}
+            sheet={sheet}
+            timeZone={timeZone}
+            tick={tick}
+            withCautions={withCautions}
+          />
+        ) : null,
+      )}
     </ol>
   );
 }
 
-export function stepsSummary(sheet: JobSheet): string {
-  const done = sheet.steps.filter((s) => s.doneAt !== null).length;
-  return `${done} of ${sheet.steps.length} ticked`;
+/** The sheet's steps in three parts: before the radiators, the radiators' own (agitate, flush), after them. */
+export function stepGroups(sheet: JobSheet): {
+  before: Step['step'][];
+  radiators: Step['step'][];
+  after: Step['step'][];
+} {
+  const keys = sheet.steps.map((s) => s.step);
+  const first = keys.findIndex((k) => k === 'agitate' || k === 'flush');
+  if (first < 0) return { before: keys, radiators: [], after: [] };
+  const radiators = keys.filter((k) => k === 'agitate' || k === 'flush');
+  const rest = keys.filter((k) => k !== 'agitate' && k !== 'flush');
+  return {
+    before: rest.filter((k) => keys.indexOf(k) < first),
+    radiators,
+    after: rest.filter((k) => keys.indexOf(k) > first),
+  };
+}
+
+export function stepsSummary(sheet: JobSheet, only?: readonly Step['step'][]): string {
+  const steps = only ? sheet.steps.filter((s) => only.includes(s.step)) : sheet.steps;
+  const done = steps.filter((s) => s.doneAt !== null).length;
+  return `${done} of ${steps.length} ticked`;
 }

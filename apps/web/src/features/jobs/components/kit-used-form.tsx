@@ -1,31 +1,26 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId } from 'react';
 import type { JobSheet } from '@heatfleet/domain';
-import { Button } from '@/components/ui/button';
-import { useSaveKitUsed } from '@/features/jobs/api/use-job-sheet-mutations';
-import { SaveFeedback } from '@/features/jobs/components/save-feedback';
+import { useSheetPut } from '@/features/jobs/api/use-job-sheet-mutations';
+import { useAutosave } from '@/features/jobs/components/autosave-context';
+import { SavedMark } from '@/features/jobs/components/saved-mark';
 
-function sameSet(a: number[], b: number[]): boolean {
-  return a.length === b.length && a.every((id) => b.includes(id));
-}
-
-/** The kit used on the job, chosen from what the van holds now; saved as a whole set. */
+/** The kit used on the job, chosen from what the van holds now; each tick saves the set. */
 export function KitUsedForm({ jobId, sheet }: { jobId: number; sheet: JobSheet }) {
   const id = useId();
-  const savedIds = sheet.kitUsed.map((k) => k.id);
-  const [chosen, setChosen] = useState<number[]>(savedIds);
-  const save = useSaveKitUsed(jobId);
-  const dirty = !sameSet(chosen, savedIds);
+  const put = useSheetPut(jobId);
+  const slot = useAutosave('kit', () => sheet.kitUsed.map((k) => k.id), {
+    label: 'Kit used',
+    parse: (ids: number[]) => ({ ok: true, input: [...ids].sort((a, b) => a - b) }),
+    send: (kitItemIds: number[]) => put('/kit', { kitItemIds }),
+    savedInput: sheet.kitUsed.map((k) => k.id).sort((a, b) => a - b),
+  });
+  const chosen = slot.draft;
   // Items recorded earlier stay listed even once they have left the van.
   const items = [...sheet.kitOnVan, ...sheet.kitUsed.filter((k) => !sheet.kitOnVan.some((v) => v.id === k.id))];
 
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    save.mutate(chosen, { onSuccess: (next) => setChosen(next.kitUsed.map((k) => k.id)) });
-  };
-
   if (items.length === 0) return <p className="text-ink-muted">The job&apos;s van holds no kit items just now.</p>;
   return (
-    <form aria-label="Kit used" noValidate onSubmit={submit} className="space-y-3">
+    <div role="group" aria-label="Kit used" className="space-y-3">
       <fieldset disabled={!sheet.editable} className="space-y-2">
         <legend className="mb-1 text-ink-muted">Tick each item used on this job.</legend>
         {items.map((item) => (
@@ -40,8 +35,8 @@ export function KitUsedForm({ jobId, sheet }: { jobId: number; sheet: JobSheet }
               className="size-6 shrink-0 accent-brand-700"
               checked={chosen.includes(item.id)}
               onChange={(e) => {
-                save.reset();
-                setChosen((c) => (e.target.checked ? [...c, item.id] : c.filter((x) => x !== item.id)));
+                slot.edit(e.target.checked ? [...chosen, item.id] : chosen.filter((x) => x !== item.id));
+                void slot.flush();
               }}
             />
             <span className="min-w-0">
@@ -53,14 +48,12 @@ export function KitUsedForm({ jobId, sheet }: { jobId: number; sheet: JobSheet }
           </label>
         ))}
       </fieldset>
-      {sheet.editable ? (
-        <>
-          <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
-          <Button type="submit" variant="secondary" className="min-h-12 w-full sm:w-auto" busy={save.isPending}>
-            Save the kit used
-          </Button>
-        </>
-      ) : null}
-    </form>
+      <SavedMark
+        status={slot.status}
+        stored={slot.stored && chosen.length > 0}
+        failure={slot.failure}
+        onRetry={() => void slot.flush()}
+      />
+    </div>
   );
 }

@@ -1,4 +1,4 @@
-import { dosePlan, surveyVolume, type Survey } from '@heatfleet/domain';
+import { dosePlan, surveyVolume, type HeatExchangerDefaults, type Survey } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import {
   DoseSummary,
@@ -16,10 +16,49 @@ export interface DoseProduct {
   radiatorsPerPack: number | null;
 }
 
+/** The plan in a few lines, right above the booking button: the volume, its label, and packs per product. */
+export function PlanLine({
+  survey,
+  products,
+  heatExchangerDefaults,
+}: {
+  survey: Survey;
+  products: DoseProduct[];
+  heatExchangerDefaults: HeatExchangerDefaults | null;
+}) {
+  const volume = surveyVolume(survey, heatExchangerDefaults);
+  const radiators = survey.radiators.length;
+  return (
+    <div role="status" aria-label="The plan" className="space-y-1 rounded-lg bg-brand-50 px-3 py-2 text-brand-900">
+      <p className="font-bold">
+        System volume {formatLitres(volume.totalLitres, false)}{' '}
+        <span className="font-normal">({volume.label.toLowerCase()})</span>
+      </p>
+      {products.map((p) => {
+        const plan = dosePlan(volume.totalLitres, radiators, p);
+        return (
+          <p key={p.id}>
+            {p.name}: {plan.packs} pack{plan.packs === 1 ? '' : 's'}
+            {plan.litres === null ? '' : ` (${plan.litres.toFixed(2)} L)`}
+          </p>
+        );
+      })}
+    </div>
+  );
+}
+
 /** Worked out in the browser as the survey is typed; the API works it out again when the job is booked. */
-export function LivePlanPanel({ survey, products }: { survey: Survey; products: DoseProduct[] }) {
+export function LivePlanPanel({
+  survey,
+  products,
+  heatExchangerDefaults,
+}: {
+  survey: Survey;
+  products: DoseProduct[];
+  heatExchangerDefaults: HeatExchangerDefaults | null;
+}) {
   const { withGallons, toggle } = useGallonsToggle();
-  const volume = surveyVolume(survey);
+  const volume = surveyVolume(survey, heatExchangerDefaults);
   const radiators = survey.radiators.length;
   return (
     <>
@@ -60,7 +99,7 @@ export function LivePlanPanel({ survey, products }: { survey: Survey; products: 
           className="flex flex-wrap items-center gap-2 font-bold text-brand-900"
         >
           <span>Volume {formatLitres(volume.totalLitres, withGallons)}</span>
-          {volume.estimate ? <Badge tone="warn">Estimate</Badge> : null}
+          {volume.estimate ? <Badge tone="warn">Estimated</Badge> : null}
         </p>
       </div>
     </>

@@ -7,6 +7,11 @@ import { panelTypes } from '@heatfleet/domain';
 
 const panelOptions = panelTypes.map((p) => ({ value: p, label: panelLabels[p] }));
 
+/** "Same as the previous radiator": its kind, size and rated output, not its room. */
+function sameAs(r: RadiatorDraft): Partial<RadiatorDraft> {
+  return { panel: r.panel, heightMm: r.heightMm, lengthMm: r.lengthMm, litres: r.litres, ratedWatts: r.ratedWatts };
+}
+
 export function RadiatorRows({
   rows,
   onChange,
@@ -20,9 +25,10 @@ export function RadiatorRows({
     onChange(rows.map((r) => (r.key === key ? { ...r, ...patch } : r)));
   return (
     <fieldset className="space-y-3">
-      <legend className="text-lg font-bold text-brand-900">Radiators</legend>
+      <legend className="sr-only">Radiators one by one</legend>
       <p className="text-ink-muted">
-        Give the height and length, or the litres from the maker&apos;s data. Without sizes the volume is estimated.
+        Name the rooms and refine any radiator: the height and length, or the litres from the maker&apos;s data. Without
+        sizes the volume is estimated.
       </p>
       {rows.map((row, i) => {
         const at = `survey.radiators.${i}`;
@@ -34,15 +40,28 @@ export function RadiatorRows({
             aria-label={`Radiator ${n}`}
             className="space-y-3 rounded-lg border border-line-strong p-3"
           >
-            <div className="flex items-center justify-between gap-2">
+            <div className="flex flex-wrap items-center justify-between gap-2">
               <p className="font-bold">Radiator {n}</p>
-              <Button
-                variant="danger"
-                onClick={() => onChange(rows.filter((r) => r.key !== row.key))}
-                aria-label={`Remove radiator ${n}`}
-              >
-                Remove
-              </Button>
+              <span className="flex gap-2">
+                {i > 0 ? (
+                  <Button
+                    variant="secondary"
+                    className="min-h-12"
+                    aria-label={`Radiator ${n} the same as radiator ${n - 1}`}
+                    onClick={() => update(row.key, sameAs(rows[i - 1]!))}
+                  >
+                    Same as {n - 1}
+                  </Button>
+                ) : null}
+                <Button
+                  variant="danger"
+                  className="min-h-12"
+                  onClick={() => onChange(rows.filter((r) => r.key !== row.key))}
+                  aria-label={`Remove radiator ${n}`}
+                >
+                  Remove
+                </Button>
+              </span>
             </div>
             <div className="grid gap-3 sm:grid-cols-2">
               <TextField
@@ -102,7 +121,14 @@ export function RadiatorRows({
           </div>
         );
       })}
-      <Button variant="secondary" className="w-full sm:w-auto" onClick={() => onChange([...rows, emptyRadiator()])}>
+      <Button
+        variant="secondary"
+        className="min-h-12 w-full sm:w-auto"
+        onClick={() => {
+          const last = rows[rows.length - 1];
+          onChange([...rows, last ? { ...emptyRadiator(), ...sameAs(last) } : emptyRadiator()]);
+        }}
+      >
         Add a radiator
       </Button>
     </fieldset>

@@ -1,4 +1,4 @@
-import { defaultHeatExchangerLitres, panelTypes, type Survey } from '@heatfleet/domain';
+import { panelTypes, type Survey } from '@heatfleet/domain';
 
 export type PanelType = (typeof panelTypes)[number];
 export type TubeSize = '8' | '10' | '15' | '22' | '28' | 'plastic';
@@ -44,6 +44,10 @@ export const panelLabels: Record<PanelType, string> = {
   other: 'Other',
 };
 
+export function panelLabel(panel: string): string {
+  return panel in panelLabels ? panelLabels[panel as PanelType] : panel;
+}
+
 export const tubeLabels: Record<TubeSize, string> = {
   '8': 'Copper 8 mm',
   '10': 'Copper 10 mm',
@@ -80,7 +84,8 @@ export function initialSurveyDraft(): SurveyDraft {
     systemType: 'sealed',
     boilerKind: 'combi',
     fuel: 'gas',
-    heatExchangerLitres: String(defaultHeatExchangerLitres.combi),
+    // Empty: the firm's default for the boiler kind and fuel (the API fills it in the same way).
+    heatExchangerLitres: '',
     cylinderCoilLitres: '',
     otherLitres: '',
     radiators: [],
@@ -153,5 +158,97 @@ export function draftToLiveSurvey(draft: SurveyDraft): Survey {
       const boreMm = usable(p.boreMm, 5, 60);
       return boreMm === null ? [] : [{ tube: p.tube, boreMm, lengthM }];
     }),
+  };
+}
+
+/** A radiator size to tap instead of typing: height x length in mm (a towel rail: height x width). */
+export interface SizePreset {
+  key: string;
+  label: string;
+  heightMm: number | null;
+  lengthMm: number | null;
+}
+
+const size = (heightMm: number, lengthMm: number): SizePreset => ({
+  key: `${heightMm}x${lengthMm}`,
+  label: `${heightMm} × ${lengthMm}`,
+  heightMm,
+  lengthMm,
+});
+export const noSize: SizePreset = { key: 'none', label: 'No size', heightMm: null, lengthMm: null };
+export const panelSizePresets: SizePreset[] = [
+  size(600, 400),
+  size(600, 600),
+  size(600, 800),
+  size(600, 1000),
+  size(600, 1200),
+  size(450, 1000),
+  size(300, 1200),
+  noSize,
+];
+export const towelRailSizePresets: SizePreset[] = [size(800, 500), size(1200, 500), size(1600, 500), noSize];
+
+export function sizePresetsFor(panel: PanelType): SizePreset[] {
+  return panel === 'towel_rail' ? towelRailSizePresets : panelSizePresets;
+}
+
+/**
+ * `count` radiators of one kind and size, named "Double panel 3" and so on after those of that kind
+ * already listed; the rooms can be named later, one by one.
+ */
+export function radiatorsByCount(
+  existing: readonly RadiatorDraft[],
+  panel: PanelType,
+  count: number,
+  preset: SizePreset,
+): RadiatorDraft[] {
+  const label = panelLabels[panel];
+  const already = existing.filter((r) => r.panel === panel).length;
+  return Array.from({ length: count }, (_, i) => ({
+    ...emptyRadiator(),
+    room: `${label} ${already + i + 1}`,
+    panel,
+    heightMm: preset.heightMm === null ? '' : String(preset.heightMm),
+    lengthMm: preset.lengthMm === null ? '' : String(preset.lengthMm),
+  }));
+}
+
+/** "10 double panel 600 × 1000, 6 single panel 600 × 800, 2 towel rail": the list in a line. */
+export function radiatorCountLine(rows: readonly RadiatorDraft[]): string {
+  const groups = new Map<string, number>();
+  for (const r of rows) {
+    const sized = r.heightMm && r.lengthMm ? ` ${r.heightMm} × ${r.lengthMm}` : '';
+    const key = `${panelLabels[r.panel].toLowerCase()}${sized}`;
+    groups.set(key, (groups.get(key) ?? 0) + 1);
+  }
+  return [...groups].map(([key, n]) => `${n} ${key}`).join(', ');
+}
+
+/** A saved survey back into the form's text boxes, to edit a booked job. */
+export function surveyToDraft(survey: Survey): SurveyDraft {
+  const text = (n: number | null | undefined) => (n == null ? '' : String(n));
+  return {
+    systemType: survey.systemType,
+    boilerKind: survey.boilerKind,
+    fuel: survey.fuel,
+    heatExchangerLitres: text(survey.heatExchangerLitres),
+    cylinderCoilLitres: text(survey.cylinderCoilLitres),
+    otherLitres: text(survey.otherLitres),
+    radiators: survey.radiators.map((r) => ({
+      key: newRowKey(),
+      room: r.room,
+      panel: r.panel,
+      heightMm: text(r.heightMm),
+      lengthMm: text(r.lengthMm),
+      litres: text(r.litres),
+      ratedWatts: text(r.ratedWatts),
+      coldSpotNote: r.coldSpotNote ?? '',
+    })),
+    pipeRuns: survey.pipeRuns.map((p) => ({
+      key: newRowKey(),
+      tube: p.tube,
+      boreMm: text(p.boreMm),
+      lengthM: text(p.lengthM),
+    })),
   };
 }

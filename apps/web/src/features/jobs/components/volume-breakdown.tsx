@@ -30,9 +30,14 @@ export function useGallonsToggle() {
 
 export function VolumeBreakdown({ volume, withGallons }: { volume: Volume; withGallons: boolean }) {
   const parts: [string, number][] = [
-    [volume.estimate ? 'Radiators and pipework (estimate)' : 'Radiators', volume.radiatorsLitres],
+    [volume.estimate ? 'Radiators and pipework (estimated)' : 'Radiators', volume.radiatorsLitres],
     ...(volume.estimate ? [] : [['Pipework', volume.pipeworkLitres] as [string, number]]),
-    ['Boiler heat exchanger', volume.heatExchangerLitres],
+    [
+      volume.heatExchangerFrom === 'default'
+        ? 'Boiler heat exchanger (default for the boiler)'
+        : 'Boiler heat exchanger',
+      volume.heatExchangerLitres,
+    ],
     ['Cylinder coil', volume.cylinderCoilLitres],
     ['Other', volume.otherLitres],
   ];
@@ -40,7 +45,7 @@ export function VolumeBreakdown({ volume, withGallons }: { volume: Volume; withG
     <div role="group" className="space-y-2" aria-label="System volume">
       <p className="flex flex-wrap items-center gap-2 text-xl font-bold text-brand-900">
         <span>System volume {formatLitres(volume.totalLitres, withGallons)}</span>
-        {volume.estimate ? <Badge tone="warn">Estimate</Badge> : <Badge tone="ok">Measured</Badge>}
+        {volume.estimate ? <Badge tone="warn">{volume.label}</Badge> : <Badge tone="ok">{volume.label}</Badge>}
       </p>
       <dl className="divide-y divide-line rounded-md border border-line">
         {parts.map(([label, litres]) => (
@@ -62,6 +67,10 @@ export interface DoseFigures {
   packsByRadiators: number | null;
   packs: number;
   decidedBy: 'volume' | 'radiators' | 'none';
+}
+
+function packSizeText(ml: number): string {
+  return ml >= 1000 ? `${Number((ml / 1000).toFixed(2))} L` : `${ml} ml`;
 }
 
 function packsText(n: number): string {
@@ -90,12 +99,20 @@ export function DoseSummary({
     <div className="space-y-1">
       <p className="font-bold text-brand-900">
         {dose.product.name}: {packsText(dose.packs)}
+        <span className="font-normal text-ink">
+          {' '}
+          · {dose.litres === null ? 'no rate' : `${dose.litres.toFixed(2)} L`}, packs of{' '}
+          {packSizeText(dose.product.packSizeMl)}
+        </span>
       </p>
       <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-base">
         <dt className="text-ink-muted">Product by volume</dt>
         <dd className="tabular-nums">
-          {dose.litres === null ? 'No rate set' : formatLitres(dose.litres, withGallons)}
+          {dose.litres === null ? 'No rate set' : `${dose.litres.toFixed(2)} L`}
+          {withGallons && dose.litres !== null ? ` (${litresToImperialGallons(dose.litres).toFixed(2)} gal)` : ''}
         </dd>
+        <dt className="text-ink-muted">Pack size</dt>
+        <dd className="tabular-nums">{packSizeText(dose.product.packSizeMl)}</dd>
         <dt className="text-ink-muted">Packs by volume</dt>
         <dd className="tabular-nums">{dose.packsByVolume ?? 'None'}</dd>
         <dt className="text-ink-muted">Packs by radiators</dt>

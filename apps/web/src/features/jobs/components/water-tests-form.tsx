@@ -1,13 +1,18 @@
-import { useState, type FormEvent } from 'react';
-import { waterTestFigures, waterTestsInputSchema, type WaterTestFigures, type JobSheet } from '@heatfleet/domain';
-import { Button } from '@/components/ui/button';
+import {
+  waterTestFigures,
+  waterTestsInputSchema,
+  type JobSheet,
+  type WaterTestFigures,
+  type WaterTestsInput,
+} from '@heatfleet/domain';
 import { ChoiceGroup } from '@/components/ui/choice-group';
+import { NumberField } from '@/components/ui/number-field';
 import { SelectField } from '@/components/ui/select-field';
-import { TextField } from '@/components/ui/text-field';
-import { firstErrorPerField, type FieldErrors } from '@/lib/form';
-import { useSaveWaterTests } from '@/features/jobs/api/use-job-sheet-mutations';
+import type { Parsed } from '@/features/jobs/api/autosave-store';
+import { useSheetPut } from '@/features/jobs/api/use-job-sheet-mutations';
+import { useAutosave } from '@/features/jobs/components/autosave-context';
 import { JudgementNote } from '@/features/jobs/components/job-cautions';
-import { SaveFeedback } from '@/features/jobs/components/save-feedback';
+import { SavedMark } from '@/features/jobs/components/saved-mark';
 import { decimalOrNull, finiteOrNull, numberText } from '@/features/jobs/components/sheet-format';
 
 /** An inhibitor the firm stocks, with the range its label gives for a correct dose. */
@@ -100,6 +105,26 @@ function InhibitorResult({
   return <p className={`rounded-md border-l-4 px-3 py-2 font-semibold ${tone}`}>{`${words} (${target}).`}</p>;
 }
 
+function parseWater(draft: WaterDraft): Parsed<WaterTestsInput> {
+  const values = {
+    mainsTdsPpm: decimalOrNull(draft.mainsTdsPpm),
+    systemTdsPpm: decimalOrNull(draft.systemTdsPpm),
+    waterClear: draft.waterClear === '' ? null : draft.waterClear === 'yes',
+    inhibitorProductId: draft.inhibitorProductId ? Number(draft.inhibitorProductId) : null,
+    inhibitorReading: decimalOrNull(draft.inhibitorReading),
+    ph: decimalOrNull(draft.ph),
+  };
+  const parsed = waterTestsInputSchema.safeParse(values);
+  if (parsed.success) return { ok: true, input: parsed.data };
+  const errors: Record<string, string> = {};
+  for (const issue of parsed.error.issues) errors[String(issue.path[0])] ??= issue.message;
+  return { ok: false, empty: false, errors };
+}
+
+/**
+ * The flush and inhibitor tests: each box saves the set on its own (one PUT of the whole set, so a
+ * repeat is harmless); the verdicts appear as the figures are typed.
+ */
 export function WaterTestsForm({
   jobId,
   sheet,
@@ -111,18 +136,29 @@ export function WaterTestsForm({
   inhibitors: InhibitorChoice[];
   defaultInhibitorId: number | null;
 }) {
-  const savedDraft = waterDraft(sheet.water, defaultInhibitorId);
-  const [draft, setDraft] = useState<WaterDraft>(savedDraft);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const save = useSaveWaterTests(jobId);
-  const set = (patch: Partial<WaterDraft>) => {
-    save.reset();
-    setDraft((d) => ({ ...d, ...patch }));
+  const put = useSheetPut(jobId);
+  const { water } = sheet;
+  const slot = useAutosave('water', () => waterDraft(water, defaultInhibitorId), {
+    label: 'Water tests',
+    parse: parseWater,
+    send: (input: WaterTestsInput) => put('/water-tests', input),
+    savedInput: {
+      mainsTdsPpm: water.mainsTdsPpm,
+      systemTdsPpm: water.systemTdsPpm,
+      waterClear: water.waterClear,
+      inhibitorProductId: water.inhibitorProductId,
+      inhibitorReading: water.inhibitorReading,
+      ph: water.ph,
+    },
+  });
+  const draft = slot.draft;
+  const set = (patch: Partial<WaterDraft>, now = false) => {
+    slot.edit({ ...draft, ...patch });
+    if (now) void slot.flush();
   };
   const product = inhibitors.find((p) => String(p.id) === draft.inhibitorProductId);
   const range = rangeOf(product);
-  const dirty = JSON.stringify(draft) !== JSON.stringify(savedDraft);
-  const live = waterTestFigures(
+  const figures = waterTestFigures(
     {
       mainsTdsPpm: finiteOrNull(draft.mainsTdsPpm),
       systemTdsPpm: finiteOrNull(draft.systemTdsPpm),
@@ -131,107 +167,62 @@ export function WaterTestsForm({
     },
     range,
   );
-  // Saved and unchanged: the API's figures are the record.
-  const figures = dirty ? live : sheet.water.figures;
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    const parsed = waterTestsInputSchema.safeParse({
-      mainsTdsPpm: decimalOrNull(draft.mainsTdsPpm),
-      systemTdsPpm: decimalOrNull(draft.systemTdsPpm),
-      waterClear: draft.waterClear === '' ? null : draft.waterClear === 'yes',
-      inhibitorProductId: draft.inhibitorProductId ? Number(draft.inhibitorProductId) : null,
-      inhibitorReading: decimalOrNull(draft.inhibitorReading),
-      ph: decimalOrNull(draft.ph),
-    });
-    if (!parsed.success) {
-      setErrors(firstErrorPerField(parsed.error.issues));
-      return;
-    }
-    setErrors({});
-    save.mutate(parsed.data, { onSuccess: (next) => setDraft(waterDraft(next.water, defaultInhibitorId)) });
-  };
-
   const unit = range?.unit ? ` (${range.unit})` : '';
+  const box = (key: 'mainsTdsPpm' | 'systemTdsPpm' | 'inhibitorReading' | 'ph', label: string) => (
+    <NumberField
+      label={label}
+      name={key}
+      value={draft[key]}
+      onValueChange={(value) => set({ [key]: value })}
+      onEnter={() => void slot.flush()}
+      onBlur={() => void slot.flush()}
+      error={slot.errors[key]}
+      disabled={!sheet.editable}
+    />
+  );
   return (
-    <form aria-label="Water tests" noValidate onSubmit={submit} className="space-y-4">
-      <JudgementNote />
+    <div role="group" aria-label="Water tests" data-field-scope="" className="space-y-4">
+      <div className="flex justify-end">
+        <SavedMark status={slot.status} stored={slot.stored} failure={slot.failure} onRetry={() => void slot.flush()} />
+      </div>
       <fieldset disabled={!sheet.editable} className="space-y-4">
-        <div className="grid grid-cols-2 gap-3">
-          <TextField
-            label="Mains TDS (ppm)"
-            name="mainsTdsPpm"
-            inputMode="decimal"
-            autoComplete="off"
-            value={draft.mainsTdsPpm}
-            onChange={(e) => set({ mainsTdsPpm: e.target.value })}
-            error={errors.mainsTdsPpm}
-          />
-          <TextField
-            label="System TDS (ppm)"
-            name="systemTdsPpm"
-            inputMode="decimal"
-            autoComplete="off"
-            value={draft.systemTdsPpm}
-            onChange={(e) => set({ systemTdsPpm: e.target.value })}
-            error={errors.systemTdsPpm}
-          />
-        </div>
-        <p className="text-sm text-ink-muted">System TDS after the final flush, before the inhibitor goes in.</p>
         <ChoiceGroup
           legend="Water runs clear?"
           name={`water-clear-${jobId}`}
           columns={2}
           value={draft.waterClear}
-          onChange={(value) => set({ waterClear: value as WaterDraft['waterClear'] })}
+          onChange={(value) => set({ waterClear: value as WaterDraft['waterClear'] }, true)}
           options={[
             { value: 'yes', label: 'Yes, clear' },
             { value: 'no', label: 'No, still dirty' },
           ]}
-          error={errors.waterClear}
+          error={slot.errors.waterClear}
         />
+        <div className="grid grid-cols-2 gap-3">
+          {box('mainsTdsPpm', 'Mains TDS (ppm)')}
+          {box('systemTdsPpm', 'System TDS (ppm)')}
+        </div>
+        <p className="text-sm text-ink-muted">System TDS after the final flush, before the inhibitor goes in.</p>
         <FlushResult flush={figures.flush} waterClear={draft.waterClear} />
         <SelectField
           label="Inhibitor"
+          className="[&_select]:min-h-12"
           value={draft.inhibitorProductId}
-          onChange={(e) => set({ inhibitorProductId: e.target.value })}
+          onChange={(e) => set({ inhibitorProductId: e.target.value }, true)}
           options={[
             { value: '', label: 'Choose the inhibitor' },
             ...inhibitors.map((p) => ({ value: String(p.id), label: p.name })),
           ]}
-          error={errors.inhibitorProductId}
+          error={slot.errors.inhibitorProductId}
         />
-        <div className="grid gap-3 sm:grid-cols-2">
-          <TextField
-            label={`Inhibitor reading${unit}`}
-            name="inhibitorReading"
-            inputMode="decimal"
-            autoComplete="off"
-            value={draft.inhibitorReading}
-            onChange={(e) => set({ inhibitorReading: e.target.value })}
-            error={errors.inhibitorReading}
-          />
-          <TextField
-            label="pH, if taken"
-            name="ph"
-            inputMode="decimal"
-            autoComplete="off"
-            value={draft.ph}
-            onChange={(e) => set({ ph: e.target.value })}
-            error={errors.ph}
-          />
+        <div className="grid grid-cols-2 gap-3">
+          {box('inhibitorReading', `Inhibitor reading${unit}`)}
+          {box('ph', 'pH, if taken')}
         </div>
         <InhibitorResult figures={figures.inhibitor} range={range} hasReading={draft.inhibitorReading.trim() !== ''} />
       </fieldset>
-      {sheet.editable ? (
-        <>
-          <SaveFeedback error={save.error} saved={save.isSuccess && !dirty} />
-          <Button type="submit" variant="secondary" className="min-h-12 w-full sm:w-auto" busy={save.isPending}>
-            Save the water tests
-          </Button>
-        </>
-      ) : null}
-    </form>
+      <JudgementNote />
+    </div>
   );
 }
 

@@ -1,0 +1,82 @@
+import { useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { updateJobInputSchema, type HeatExchangerDefaults, type JobDetail } from '@heatfleet/domain';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { firstErrorPerField, type FieldErrors } from '@/lib/form';
+import { useUpdateJob } from '@/features/jobs/api/use-job-mutations';
+import {
+  JobForm,
+  jobFormInput,
+  systemDetailsDraft,
+  type EngineerChoice,
+  type JobFormValues,
+} from '@/features/jobs/components/job-form';
+import type { DoseProduct } from '@/features/jobs/components/live-plan-panel';
+import { surveyToDraft } from '@/features/jobs/components/survey-draft';
+
+/** Edits or reschedules a booked job: the same form as booking, the site fixed. */
+export function EditJobForm({
+  detail,
+  products,
+  engineers,
+  heatExchangerDefaults,
+  ownDefaults,
+}: {
+  detail: JobDetail;
+  products: DoseProduct[];
+  engineers: EngineerChoice[];
+  heatExchangerDefaults: HeatExchangerDefaults | null;
+  ownDefaults: boolean;
+}) {
+  const navigate = useNavigate();
+  const update = useUpdateJob(detail.job.id);
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const [initial] = useState<JobFormValues>(() => ({
+    scheduledOn: detail.job.scheduledOn,
+    engineerId: detail.job.engineerMemberId ? String(detail.job.engineerMemberId) : '',
+    visitKind: detail.job.visitKind,
+    survey: surveyToDraft(detail.survey),
+    systemDetails: systemDetailsDraft(detail.job.systemDetails),
+    productIds: detail.doses.map((d) => d.product.id),
+  }));
+
+  const submit = (values: JobFormValues) => {
+    const parsed = updateJobInputSchema.safeParse(jobFormInput(values));
+    if (!parsed.success) {
+      setErrors(firstErrorPerField(parsed.error.issues));
+      setFormError('Some fields need attention: see the messages beside them.');
+      return;
+    }
+    setErrors({});
+    setFormError(null);
+    update.mutate(parsed.data, {
+      onSuccess: () => navigate(paths.job.getHref(detail.job.id)),
+      onError: (error) => {
+        if (isApiError(error) && error.details.length) setErrors(firstErrorPerField(error.details));
+        setFormError(error.message);
+      },
+    });
+  };
+
+  return (
+    <JobForm
+      initial={initial}
+      products={products}
+      engineers={engineers}
+      heatExchangerDefaults={heatExchangerDefaults}
+      ownDefaults={ownDefaults}
+      customerPicker={
+        <p className="rounded-lg bg-brand-50 px-3 py-2 font-semibold text-brand-900">
+          {detail.job.site.customerName}, {detail.job.site.address}
+        </p>
+      }
+      submitLabel="Save the changes"
+      busy={update.isPending}
+      formError={formError}
+      errors={errors}
+      onSubmit={submit}
+    />
+  );
+}
