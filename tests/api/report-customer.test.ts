@@ -134,7 +134,8 @@ describe("the customer's report and the firm's record", () => {
       reason: reasons[i.code] ?? 'Agreed with the householder on the day.',
     }));
     expect(confirmations.map((c) => c.code)).toEqual(expect.arrayContaining(Object.keys(reasons)));
-    const done = await e.post(`/api/jobs/${s.jobId}/complete`, { confirmations });
+    const recommendation = 'Have the landing radiator flushed once the cupboard is moved.';
+    const done = await e.post(`/api/jobs/${s.jobId}/complete`, { confirmations, recommendation });
     ok(done);
     const reportNumber = done.body.job.reportNumber as string;
     expect(reportNumber).toMatch(/^HF-\d{6}$/);
@@ -158,7 +159,7 @@ describe("the customer's report and the firm's record", () => {
       'System cleaned Yes',
       'Flush complete Yes',
       'Inhibitor at target Yes: reading 1.2 % v/v',
-      'Recommended',
+      `Recommended ${recommendation}`,
       'Next inhibitor check by 2 July 2028',
       // The system, the chemicals with pack sizes and lots, the test method.
       'Make and model: Examplemake Model 30',

@@ -216,6 +216,8 @@ export const jobDetailSchema = z.object({
     cancellation: jobCancellationSchema.nullable(),
     /** The reasons given at completion for anything not done. */
     completionReasons: z.array(completionReasonSchema),
+    /** What the engineer recommends to the customer, given at completion. */
+    recommendation: z.string().nullable(),
   }),
   survey: surveySchema,
   volume: volumeBreakdownSchema,

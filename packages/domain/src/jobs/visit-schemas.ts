@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { calendarDateSchema, calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
-import { plainText, singleLineName } from '../lib/text.ts';
+import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
 import { surveySchema, systemDetailsSchema, visitKinds } from './job-schemas.ts';
 
 // The inputs of the visit (issue 12): editing, rescheduling and cancelling a booked job, the jobs
@@ -114,5 +114,7 @@ export const completeJobInputSchema = z.strictObject({
     .optional(),
   /** The page held input it had not saved when Complete was tapped. */
   unsavedInput: z.boolean().optional(),
+  /** What the engineer recommends to the customer; printed in the customer's report's result box. */
+  recommendation: optionalPlainText('The recommendation', 500),
 });
 export type CompleteJobInput = z.infer<typeof completeJobInputSchema>;

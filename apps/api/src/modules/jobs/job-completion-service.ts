@@ -102,7 +102,12 @@ async function takeChemicalsAndComplete(
   );
   const nextCheckOn = addMonths(plan.today, NEXT_CHECK_MONTHS);
   const now = deps.clock.now();
-  await markJobCompleted(trx, actor.firmId, id, { at: now, byUserId: actor.userId, nextCheckOn });
+  await markJobCompleted(trx, actor.firmId, id, {
+    at: now,
+    byUserId: actor.userId,
+    nextCheckOn,
+    recommendation: input.recommendation,
+  });
   await setSiteNextCheck(trx, actor.firmId, row.site_id, nextCheckOn);
   await insertCompletionReasons(trx, actor.firmId, id, reasons);
   await setJobReportNumber(trx, actor.firmId, id, await takeReportNumber(trx, actor.firmId));

@@ -20,6 +20,7 @@ export interface JobRow {
   cancelled_at: Date | null;
   cancelled_by_user_id: number | null;
   cancellation_reason: string | null;
+  recommendation: string | null;
 }
 
 export async function findJobRow(
@@ -164,14 +165,17 @@ export async function markJobCompleted(
   trx: Knex.Transaction,
   firmId: number,
   jobId: number,
-  done: { at: Date; byUserId: number; nextCheckOn: string },
+  done: { at: Date; byUserId: number; nextCheckOn: string; recommendation?: string | null },
 ): Promise<void> {
-  await trx('jobs').where({ firm_id: firmId, id: jobId }).update({
-    status: 'completed',
-    completed_at: done.at,
-    completed_by_user_id: done.byUserId,
-    next_check_on: done.nextCheckOn,
-  });
+  await trx('jobs')
+    .where({ firm_id: firmId, id: jobId })
+    .update({
+      status: 'completed',
+      completed_at: done.at,
+      completed_by_user_id: done.byUserId,
+      next_check_on: done.nextCheckOn,
+      recommendation: done.recommendation ?? null,
+    });
 }
 
 export async function updateJobNotes(db: Db, firmId: number, jobId: number, notes: string): Promise<void> {

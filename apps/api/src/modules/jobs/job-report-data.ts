@@ -55,7 +55,7 @@ export interface ReportData {
   signatures: ReportSignature[];
   /** Reasons the engineer gave at completion for what was not done, with what was found. */
   reasons: { code: string; label: string; found: string; reason: string }[];
-  /** What the engineer recommends, in their words, if they wrote any. */
+  /** What the engineer recommends, in their words (given at completion), if they wrote any. */
   recommendation: string | null;
 }
 
@@ -135,6 +135,6 @@ export async function loadReportData(
     photos,
     signatures,
     reasons: job.completionReasons,
-    recommendation: null,
+    recommendation: job.recommendation,
   };
 }

@@ -125,6 +125,7 @@ export async function loadJobDetail(db: Db, deps: AppDeps, actor: Actor, id: num
         ? { at: row.cancelled_at.toISOString(), byName: cancelledBy, reason: row.cancellation_reason ?? '' }
         : null,
       completionReasons: reasons.map((r) => ({ ...r, label: completionCodeLabels[r.code] })),
+      recommendation: row.recommendation ?? null,
     },
     ...plan,
     chemicalsUsed,
