@@ -5,9 +5,9 @@ import { createReportPdf, HEAD, INK, MUTED, type TableColumn } from './report-pd
 import { reportResult, visitTimes } from './report-result.ts';
 import { drawChemicalsTable, drawReasons, drawSignatures, note, photosSection, type Draw } from './report-sections.ts';
 
-// The report the customer keeps (and is e-mailed): what a householder, an insurer, a boiler maker or the
-// next engineer needs. It leaves out the engineer's vibration figures, the firm's asset tags and the
-// instructions meant for the engineer; the firm's record (firm-record.ts) keeps those.
+// The report the customer keeps (and is e-mailed), as DEVELOPERS.md, Product rules, "Two documents from one
+// job" sets out: it leaves out the engineer's vibration figures, the firm's asset tags and the instructions
+// meant for the engineer; the firm's record (firm-record.ts) keeps those.
 
 const drawHeader: Draw = ({ doc, left }, { firm, reportNumber, visitKind }) => {
   doc.font('bold').fontSize(16).fillColor(HEAD).text(firm.name, left);
@@ -147,7 +147,8 @@ const drawSafety: Draw = (pdf, { detail, firm, visitKind }) => {
       ? 'If the pressure gauge on your boiler falls well below its usual reading, or the boiler shows a pressure fault, call us rather than topping it up again and again.'
       : 'Do not add anything to the small cistern in the loft that feeds the heating, and keep its lid on.',
     fuel === 'gas'
-      ? 'Only a Gas Safe registered engineer may work on a gas boiler. If you smell gas, open doors and windows, do not use electrical switches, and call the gas emergency number, 0800 111 999.'
+      ? // The free gas emergency numbers as commonly published: 0800 111 999 in Great Britain, 0800 002 001 in Northern Ireland.
+        'Only a Gas Safe registered engineer may work on a gas boiler. If you smell gas, open doors and windows, do not use electrical switches, and call the gas emergency number from outside: 0800 111 999 (England, Scotland and Wales) or 0800 002 001 (Northern Ireland).'
       : 'Have your boiler worked on only by a competent engineer registered for its fuel.',
     'The inhibitor in your system protects it from corrosion. Do not add other products to the system without asking us, and have the inhibitor checked every year.',
   ];

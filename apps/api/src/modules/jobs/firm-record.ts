@@ -11,7 +11,8 @@ import { createReportPdf, HEAD, INK, MUTED } from './report-pdf.ts';
 import { drawReasons, drawSignatures, photosSection, type Draw } from './report-sections.ts';
 
 // The firm's internal record of a job: everything the sheet holds, who did what and when, the engineer's
-// vibration points and the kit's asset tags. The customer gets customer-report.ts instead.
+// vibration points and the kit's asset tags (DEVELOPERS.md, Product rules, "Two documents from one job").
+// The customer gets customer-report.ts instead.
 
 const drawVisit: Draw = ({ doc, heading, line }, { detail, firm, engineerName, reportNumber, visitKind }) => {
   doc.font('bold').fontSize(18).fillColor(HEAD).text('System cleaning report');
