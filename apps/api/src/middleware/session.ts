@@ -1,4 +1,5 @@
 import session, { type SessionOptions } from 'express-session';
+import type { RequestHandler } from 'express';
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
@@ -63,7 +64,7 @@ class SessionStore extends ConnectSessionKnexStore {
   }
 }
 
-export function createSessionMiddleware(env: Env, knex: Knex, logger: Logger) {
+export function createSessionMiddleware(env: Env, knex: Knex, logger: Logger): RequestHandler {
   const options: SessionOptions = {
     name: SESSION_COOKIE,
     secret: env.SESSION_SECRET,
