@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fuels } from './heat-exchanger.ts';
 import { jobSteps } from './job-sheet.ts';
-import { visitCautions, visitSteps, type VisitShape } from './visit-steps.ts';
+import { visitCautions, visitDosesProduct, visitSteps, type VisitShape } from './visit-steps.ts';
 
 const keysOf = (shape: VisitShape) => visitSteps(shape).map((s) => s.step);
 const allText = (shape: VisitShape) =>
@@ -118,5 +118,16 @@ describe('visitSteps: the steps fit the system, the fuel and the visit', () => {
       for (const fuel of fuels)
         for (const visitKind of ['full_clean', 'inhibitor_only'] as const)
           for (const s of visitSteps({ systemType, fuel, visitKind })) expect(jobSteps).toContain(s.step);
+  });
+});
+
+describe('the products a visit doses', () => {
+  // An inhibitor visit is dose, circulate and test: no cleaner (DEVELOPERS.md, Product rules).
+  it('a full clean doses every product booked; an inhibitor visit only the inhibitor', () => {
+    expect(visitDosesProduct('full_clean', 'cleaner')).toBe(true);
+    expect(visitDosesProduct('full_clean', 'inhibitor')).toBe(true);
+    expect(visitDosesProduct('inhibitor_only', 'cleaner')).toBe(false);
+    expect(visitDosesProduct('inhibitor_only', 'descaler')).toBe(false);
+    expect(visitDosesProduct('inhibitor_only', 'inhibitor')).toBe(true);
   });
 });

@@ -156,3 +156,12 @@ export function visitCautions({ systemType, fuel, visitKind }: VisitShape): Visi
   ];
   return keys.map(caution);
 }
+
+/**
+ * Which products a visit doses: a full clean uses every product booked on it; an inhibitor visit
+ * doses, circulates and tests the inhibitor only, so a cleaner booked on it is neither planned nor
+ * taken off the van (DEVELOPERS.md, Product rules: the visit fitted to the system).
+ */
+export function visitDosesProduct(visitKind: VisitShape['visitKind'], productKind: string): boolean {
+  return visitKind === 'full_clean' || productKind === 'inhibitor';
+}

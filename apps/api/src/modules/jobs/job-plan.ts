@@ -5,6 +5,7 @@ import {
   type JobDose,
   type Survey,
   type VolumeBreakdown,
+  visitDosesProduct,
 } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { AppDeps } from '../../app-deps.ts';
@@ -34,7 +35,9 @@ export async function planJob(
   const survey = parseSurvey(row);
   const volume = surveyVolume(survey, await findHeatExchangerDefaults(db, firmId));
   const today = await firmToday(db, firmId, deps.clock.now());
-  const products = await listJobDoseProducts(db, firmId, row.id);
+  const products = (await listJobDoseProducts(db, firmId, row.id)).filter((p) =>
+    visitDosesProduct(row.visit_kind, p.kind),
+  );
   const vanStock = row.van_location_id ? await balancesAt(db, firmId, row.van_location_id) : [];
   const doses = products.map((p) => {
     const plan = dosePlan(volume.totalLitres, survey.radiators.length, {
