@@ -92,7 +92,7 @@ export function AgitationFields({
   // The same rule the API applies to the saved agitation (HSE points system).
   const points = parsed.ok ? agitationPoints(magnitude, parsed.input.minutes) : (saved?.points ?? 0);
   return (
-    <div role="group" aria-label="Agitation" data-field-scope="" className="space-y-3">
+    <div role="group" aria-label="Agitation" className="space-y-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h4 className="font-bold">Agitation</h4>
         <SavedMark status={slot.status} stored={slot.stored} failure={slot.failure} onRetry={() => void slot.flush()} />

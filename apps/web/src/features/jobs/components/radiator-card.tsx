@@ -61,7 +61,10 @@ function Part({
         </span>
         <span className="min-w-0 truncate text-right text-sm text-ink-muted group-open:hidden">{summary}</span>
       </summary>
-      <div className="space-y-3 px-3 pb-3">{children}</div>
+      {/* One scope per part: Enter in its last box moves on to what follows in it, then to "Next radiator". */}
+      <div data-field-scope="" className="space-y-3 px-3 pb-3">
+        {children}
+      </div>
     </details>
   );
 }

@@ -16,20 +16,17 @@ function Chips({ radiator }: { radiator: SheetRadiator }) {
         done(radiator) ? (
           <span key={key} className="rounded-full bg-ok-700 py-0.5 text-center text-sm font-semibold text-white">
             {word}
+            <span className="sr-only"> done,</span>
           </span>
         ) : (
           <span key={key} className="rounded-full border border-line-strong py-0.5 text-center text-sm text-ink-muted">
             {word}
+            <span className="sr-only"> not yet,</span>
           </span>
         ),
       )}
     </span>
   );
-}
-
-function statusWords(r: SheetRadiator): string {
-  const done = chips.filter(([, , is]) => is(r)).map(([, word]) => word.toLowerCase());
-  return done.length ? `done: ${done.join(', ')}` : 'nothing recorded';
 }
 
 /**
@@ -78,7 +75,6 @@ export function RadiatorList({
             <button
               type="button"
               onClick={() => onOpen(r.index)}
-              aria-label={`${nameOf(r)}, ${statusWords(r)}`}
               className="block min-h-14 w-full space-y-1 rounded-lg border-2 border-line-strong bg-card px-2 py-2 text-left"
             >
               <span className="flex items-center gap-2">
