@@ -2,13 +2,52 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const repoRoot = fileURLToPath(new URL('.', import.meta.url));
+
+// Installable and usable without signal (README, Working offline): the web app manifest and our service worker
+// (apps/web/sw), built with Workbox's precache manifest of the app shell. A new version is offered in the app,
+// never applied by itself, so registration is the app's (apps/web/src/lib/offline/app-update.ts).
+const pwa = VitePWA({
+  strategies: 'injectManifest',
+  srcDir: 'apps/web/sw',
+  filename: 'service-worker.ts',
+  registerType: 'prompt',
+  injectRegister: false,
+  manifest: {
+    id: '/',
+    name: 'Heatfleet',
+    short_name: 'Heatfleet',
+    description: 'Vans, cleaning kits, chemical stock and jobs for heating firms.',
+    lang: 'en-GB',
+    start_url: '/',
+    scope: '/',
+    display: 'standalone',
+    orientation: 'portrait',
+    // The theme's brand-900 and canvas (apps/web/src/index.css).
+    theme_color: '#0c3236',
+    background_color: '#f4f2ec',
+    icons: [
+      { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+      { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+      { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      { src: '/icons/icon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+    ],
+  },
+  injectManifest: {
+    globPatterns: ['**/*.{js,css,html,woff2,svg,png}'],
+    // English text needs the Latin subsets of the font; the others load only if such text is ever shown.
+    globIgnores: ['**/noto-sans-{cyrillic,cyrillic-ext,greek,greek-ext,devanagari,vietnamese}-*'],
+    maximumFileSizeToCacheInBytes: 3 * 1024 * 1024,
+  },
+  devOptions: { enabled: false },
+});
 
 export default defineConfig({
   root: repoRoot,
   publicDir: 'apps/web/public',
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), ...(process.env.VITEST ? [] : [pwa])],
   resolve: {
     alias: { '@': fileURLToPath(new URL('./apps/web/src', import.meta.url)) },
   },

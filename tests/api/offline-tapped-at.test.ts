@@ -29,9 +29,21 @@ describe('X-Tapped-At on custody', () => {
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const tappedAt = minutesAgo(95);
     const key = randomUUID();
-    const first = await queuedPost(engineer, `/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id }, tappedAt, key);
+    const first = await queuedPost(
+      engineer,
+      `/api/kits/${firm.kit.id}/check-out`,
+      { toLocationId: firm.van.id },
+      tappedAt,
+      key,
+    );
     expect(first.status).toBe(200);
-    const again = await queuedPost(engineer, `/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id }, tappedAt, key);
+    const again = await queuedPost(
+      engineer,
+      `/api/kits/${firm.kit.id}/check-out`,
+      { toLocationId: firm.van.id },
+      tappedAt,
+      key,
+    );
     expect(again.status).toBe(200);
 
     const rows = await t.deps.db('custody_events').where({ firm_id: firm.firmId, kit_id: firm.kit.id });
@@ -48,7 +60,9 @@ describe('X-Tapped-At on custody', () => {
   it('without the header the event has no tap time (sent straight from the form, as before)', async () => {
     const firm = await seedFirm(t.deps.db, 'tap-none');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    expect((await queuedPost(engineer, `/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id })).status).toBe(200);
+    expect(
+      (await queuedPost(engineer, `/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id })).status,
+    ).toBe(200);
     const rows = await t.deps.db('custody_events').where({ firm_id: firm.firmId, kit_id: firm.kit.id });
     expect(rows.every((r) => r.tapped_at === null)).toBe(true);
     const item = await engineer.get(`/api/kit-items/${firm.kit.itemIds[0]}`).expect(200);
@@ -88,7 +102,12 @@ describe('X-Tapped-At on custody', () => {
     try {
       // Signed in after the clock moved, so the session is not past its lifetime.
       const engineer = await signIn(t.app, firm.people.engineer.email);
-      const res = await queuedPost(engineer, `/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id }, tappedAt);
+      const res = await queuedPost(
+        engineer,
+        `/api/kits/${firm.kit.id}/check-out`,
+        { toLocationId: firm.van.id },
+        tappedAt,
+      );
       expect(res.status).toBe(422);
     } finally {
       t.clock.advance(-2 * 86_400_000);
@@ -101,7 +120,12 @@ describe('X-Tapped-At on stock used by hand', () => {
     const firm = await seedFirm(t.deps.db, 'tap-use');
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const tappedAt = minutesAgo(40);
-    const used = await queuedPost(engineer, '/api/stock/usages', { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaning job' }, tappedAt);
+    const used = await queuedPost(
+      engineer,
+      '/api/stock/usages',
+      { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaning job' },
+      tappedAt,
+    );
     expect(used.status).toBe(201);
     expect(used.body.movements).toEqual([expect.objectContaining({ kind: 'used', tappedAt })]);
 
@@ -123,10 +147,18 @@ describe('X-Tapped-At on stock used by hand', () => {
   it('refuses a stock use tapped in the future and takes nothing off the van', async () => {
     const firm = await seedFirm(t.deps.db, 'tap-use-bad');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    const res = await queuedPost(engineer, '/api/stock/usages', { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaning job' }, minutesAgo(-10));
+    const res = await queuedPost(
+      engineer,
+      '/api/stock/usages',
+      { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaning job' },
+      minutesAgo(-10),
+    );
     expect(res.status).toBe(422);
     expect(await t.deps.db('stock_movements').where({ firm_id: firm.firmId, kind: 'used' })).toHaveLength(0);
-    const balance = await t.deps.db('stock_balances').where({ firm_id: firm.firmId, location_id: firm.van.id }).first('quantity');
+    const balance = await t.deps
+      .db('stock_balances')
+      .where({ firm_id: firm.firmId, location_id: firm.van.id })
+      .first('quantity');
     expect(balance.quantity).toBe(2);
   });
 });

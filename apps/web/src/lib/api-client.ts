@@ -1,5 +1,9 @@
 import { apiErrorBodySchema, csrfResponseSchema, type ApiErrorDetail } from '@heatfleet/domain';
 import type { z } from 'zod';
+import { FROM_CACHE_HEADER, SCOPE_HEADER } from '@/lib/offline/api-cache-rules';
+import { noteAnswer } from '@/lib/offline/data-age';
+import { activeScope, scopeHeaderValue } from '@/lib/offline/scope';
+import { withOutboxLock } from '@/lib/offline/outbox-lock';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
@@ -40,6 +44,12 @@ let csrfTokenRequest: Promise<string> | null = null;
 
 export function setCsrfToken(token: string | null): void {
   csrfToken = token;
+}
+
+/** A token fetched now, for a queue sent after a while (the session may have been renewed meanwhile). */
+export async function refreshCsrfToken(): Promise<void> {
+  setCsrfToken(null);
+  await getCsrfToken();
 }
 
 async function getCsrfToken(): Promise<string> {
@@ -93,6 +103,23 @@ async function toApiError(response: Response): Promise<ApiError> {
 export interface RequestOptions {
   /** Sent as the Idempotency-Key header: the same key on a retry makes the server replay its first answer. */
   idempotencyKey?: string;
+  /** Sent as X-Tapped-At: when the engineer tapped, for a write sent later from the queue (lib/offline). */
+  tappedAt?: string;
+  /** A read that must come from the server, never from the service worker's copy. */
+  fresh?: boolean;
+}
+
+// Requests that change whose session it is or which firm it acts for wait while the write queue is being sent,
+// so a queued write never goes out under another firm (lib/offline/outbox-lock.ts).
+const sessionChanging = new Set(['/api/me/active-firm', '/api/auth/sign-out', '/api/auth/sign-in']);
+
+/** Notes, for an API read, whether the service worker answered from its cache and when the answer was made. */
+function noteRead(path: string, response: Response): void {
+  const date = Date.parse(response.headers.get('Date') ?? '');
+  noteAnswer(path, {
+    fromCache: response.headers.get(FROM_CACHE_HEADER) === '1',
+    madeAt: Number.isNaN(date) ? null : date,
+  });
 }
 
 async function send(
@@ -108,6 +135,10 @@ async function send(
   if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (token) headers['X-CSRF-Token'] = token;
   if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey;
+  if (options.tappedAt) headers['X-Tapped-At'] = options.tappedAt;
+  const scope = activeScope();
+  // Without the scope header the service worker neither keeps nor answers from its copy.
+  if (method === 'GET' && scope && !options.fresh) headers[SCOPE_HEADER] = scopeHeaderValue(scope);
 
   let response: Response;
   try {
@@ -121,6 +152,7 @@ async function send(
     throw new ApiError({ status: 0, code: 'NetworkError', message: UNREACHABLE_MESSAGE });
   }
 
+  if (method === 'GET') noteRead(path, response);
   if (!response.ok) throw await toApiError(response);
   if (response.status === 204) return undefined;
   const text = await response.text();
@@ -128,7 +160,12 @@ async function send(
 }
 
 async function request(method: Method, path: string, body?: unknown, options?: RequestOptions): Promise<unknown> {
-  if (method === 'GET') return send(method, path, undefined, undefined);
+  if (method === 'GET') return send(method, path, undefined, undefined, options);
+  if (sessionChanging.has(path)) return withOutboxLock(() => writeOnce(method, path, body, options));
+  return writeOnce(method, path, body, options);
+}
+
+async function writeOnce(method: Method, path: string, body?: unknown, options?: RequestOptions): Promise<unknown> {
   try {
     return await send(method, path, body, await getCsrfToken(), options);
   } catch (error) {
@@ -146,7 +183,8 @@ function parseWith<T extends z.ZodType>(schema: T, data: unknown): z.infer<T> {
 }
 
 export const apiClient = {
-  get: async <T extends z.ZodType>(path: string, schema: T) => parseWith(schema, await request('GET', path)),
+  get: async <T extends z.ZodType>(path: string, schema: T, options?: Pick<RequestOptions, 'fresh'>) =>
+    parseWith(schema, await request('GET', path, undefined, options)),
   post: async <T extends z.ZodType>(path: string, body: unknown, schema: T, options?: RequestOptions) =>
     parseWith(schema, await request('POST', path, body, options)),
   /** A multipart upload (a photo); the body is FormData. */
@@ -160,4 +198,7 @@ export const apiClient = {
   send: async (method: Exclude<Method, 'GET'>, path: string, body?: unknown): Promise<void> => {
     await request(method, path, body);
   },
+  /** A write from the phone's queue (lib/offline): its answer unparsed, for the form that queued it to read. */
+  write: (method: Exclude<Method, 'GET'>, path: string, body: unknown, options: RequestOptions) =>
+    request(method, path, body, options),
 };

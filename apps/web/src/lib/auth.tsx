@@ -4,6 +4,7 @@ import { Navigate, useLocation } from 'react-router-dom';
 import { meEnvelopeSchema, type Me, type SessionEnvelope } from '@heatfleet/domain';
 import { apiClient, isApiError, setCsrfToken } from '@/lib/api-client';
 import { paths, safeNextPath } from '@/config/paths';
+import { forgetPerson, moveToFirm } from '@/lib/offline/start-offline';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 
@@ -50,11 +51,14 @@ export function renewSession(client: QueryClient, { me, csrfToken }: SessionEnve
 
 export function endSession(client: QueryClient): void {
   setCsrfToken(null);
+  // Signing out wipes this person's data on the phone (README, Working offline).
+  void forgetPerson();
   client.clear();
   client.setQueryData(sessionQueries.me().queryKey, null);
 }
 
 export function changeActiveFirm(client: QueryClient, me: Me): void {
+  moveToFirm(me);
   client.setQueryData(sessionQueries.me().queryKey, me);
   // Reset rather than invalidate: stale rows of the previous firm must not flash under the new firm's name.
   void client.resetQueries({ predicate: (query) => !isSessionQuery(query) });
@@ -71,9 +75,10 @@ export function RequireSession({ children }: { children: (me: Me) => ReactNode }
   const location = useLocation();
   const me = useQuery(sessionQueries.me());
   if (me.isPending) return <PageSpinner />;
+  // With no signal the last answer (kept on the phone) stands: a failed refresh is not a sign-out.
+  if (me.data) return children(me.data);
   if (me.isError) return <QueryErrorNotice error={me.error} onRetry={() => void me.refetch()} />;
-  if (!me.data) return <Navigate to={paths.signIn.getHref(location.pathname + location.search)} replace />;
-  return children(me.data);
+  return <Navigate to={paths.signIn.getHref(location.pathname + location.search)} replace />;
 }
 
 export function RedirectIfSignedIn({ children }: { children: ReactNode }) {

@@ -1,6 +1,6 @@
 import { useCallback, useRef } from 'react';
 
-function randomUuid(): string {
+export function randomUuid(): string {
   // randomUUID exists only in secure contexts; a phone on the office network over plain http has none.
   if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
   const bytes = crypto.getRandomValues(new Uint8Array(16));

@@ -6,6 +6,8 @@ declare module '@tanstack/react-query' {
     queryMeta: {
       /** Marks the query that says who is signed in; it is refetched when any request finds the session gone. */
       session?: boolean;
+      /** false: not kept on the phone for offline use (lib/offline/query-persistence.ts). */
+      persist?: boolean;
     };
   }
 }
@@ -23,6 +25,8 @@ export const queryClient: QueryClient = new QueryClient({
     queries: {
       // Others change the same records (a colleague joins, stock moves): show the cache at once, then refetch on every visit.
       staleTime: 0,
+      // Tried once even with no signal: the service worker may answer from its copy (lib/offline). Retries wait for the signal.
+      networkMode: 'offlineFirst',
       // A 4xx will not change on retry; network blips and 5xx might.
       retry: (failureCount, error) => {
         if (isApiError(error) && error.status >= 400 && error.status < 500) return false;

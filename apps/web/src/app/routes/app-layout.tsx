@@ -1,11 +1,16 @@
-import { Suspense } from 'react';
+import { Suspense, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import type { Me } from '@heatfleet/domain';
+import { OfflineStatus } from '@/components/offline/offline-status';
+import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { Wordmark } from '@/components/ui/wordmark';
 import { paths } from '@/config/paths';
 import { Can, MemberAbilityProvider, useAbility } from '@/lib/ability';
+import { outboxWrites } from '@/lib/offline/outbox';
+import { changesText } from '@/lib/offline/outbox-actions';
+import { sendOutbox } from '@/lib/offline/outbox-sender';
 import { RequireSession, sessionQueries } from '@/lib/auth';
 import { useSignOut } from '@/features/auth/api/use-sign-out';
 import { FirmSwitcher } from '@/features/firms/components/firm-switcher';
@@ -34,20 +39,63 @@ function SkipLink() {
   );
 }
 
+/**
+ * Signing out wipes this person's data on the phone, so what is waiting is sent first; anything that cannot go
+ * (no signal, refused, or for another firm) is named, and only dropped if the engineer says so.
+ */
 function SignOutButton() {
   const navigate = useNavigate();
   const signOut = useSignOut();
+  const [sending, setSending] = useState(false);
+  const [unsent, setUnsent] = useState<number | null>(null);
+  const finish = () =>
+    signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) });
+  const start = async () => {
+    if (outboxWrites().length > 0) {
+      setSending(true);
+      await sendOutbox();
+      setSending(false);
+    }
+    const left = outboxWrites().length;
+    if (left > 0) setUnsent(left);
+    else finish();
+  };
   return (
-    <button
-      type="button"
-      disabled={signOut.isPending}
-      onClick={() =>
-        signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) })
-      }
-      className="min-h-11 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
-    >
-      Sign out
-    </button>
+    <>
+      <button
+        type="button"
+        disabled={signOut.isPending || sending}
+        onClick={() => void start()}
+        className="min-h-11 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
+      >
+        {sending ? 'Sending…' : 'Sign out'}
+      </button>
+      {unsent !== null ? (
+        <div
+          role="alertdialog"
+          aria-labelledby="unsent-title"
+          className="fixed inset-x-0 top-0 z-20 bg-card p-4 text-ink shadow-lg"
+        >
+          <div className="mx-auto max-w-5xl space-y-3">
+            <p id="unsent-title" className="font-semibold">
+              {changesText(unsent)} {unsent === 1 ? 'has' : 'have'} not reached the server. Signing out deletes{' '}
+              {unsent === 1 ? 'it' : 'them'} from this phone.
+            </p>
+            <div className="flex flex-col gap-2 sm:flex-row">
+              <Button onClick={() => setUnsent(null)}>Stay signed in</Button>
+              <Button variant="danger" busy={signOut.isPending} onClick={finish}>
+                Sign out and delete {unsent === 1 ? 'it' : 'them'}
+              </Button>
+            </div>
+            {signOut.isError ? (
+              <p role="alert" className="text-danger-700">
+                {signOut.error.message}
+              </p>
+            ) : null}
+          </div>
+        </div>
+      ) : null}
+    </>
   );
 }
 
@@ -153,6 +201,7 @@ export function AppLayout() {
           <div className="flex min-h-dvh flex-col">
             <SkipLink />
             <SignedInHeader me={me} />
+            <OfflineStatus me={me} />
             <Main />
           </div>
         </MemberAbilityProvider>

@@ -1,12 +1,7 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import {
-  itemCustodyResponseSchema,
-  kitDetailResponseSchema,
-  type CheckInInput,
-  type CheckOutInput,
-  type MoveInput,
-} from '@heatfleet/domain';
-import { apiClient } from '@/lib/api-client';
+import type { CheckInInput, CheckOutInput, LocationRef, MoveInput } from '@heatfleet/domain';
+import { useSignedInMe } from '@/lib/auth';
+import { useOutbox, type QueuedWrite } from '@/lib/offline/outbox';
+import { useQueueWrite } from '@/lib/offline/queue-write';
 import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 
 export type CustodyScope = { kind: 'kit'; id: number } | { kind: 'item'; id: number };
@@ -16,34 +11,63 @@ export type CustodyRequest =
   | { action: 'check-in'; input: CheckInInput }
   | { action: 'move'; input: MoveInput };
 
-/** The kit or the item as it now stands, with its custody timeline. */
-export async function sendCustody(scope: CustodyScope, request: CustodyRequest, idempotencyKey: string) {
-  if (scope.kind === 'kit')
-    return apiClient.post(`/api/kits/${scope.id}/${request.action}`, request.input, kitDetailResponseSchema, {
-      idempotencyKey,
-    });
-  return apiClient.post(`/api/kit-items/${scope.id}/${request.action}`, request.input, itemCustodyResponseSchema, {
-    idempotencyKey,
-  });
+/** What a custody write waiting on the phone carries, so the kit's page can show where it is going. */
+export interface CustodyMeta {
+  scope: CustodyScope;
+  action: CustodyRequest['action'];
+  to: LocationRef | null;
 }
 
-export function useCustody() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: ({
-      scope,
-      request,
-      idempotencyKey,
-    }: {
-      scope: CustodyScope;
-      request: CustodyRequest;
-      idempotencyKey: string;
-    }) => sendCustody(scope, request, idempotencyKey),
-    // A kit's check-out moves every item in it, so both kits and items change.
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: kitQueries.all() }),
-        queryClient.invalidateQueries({ queryKey: kitItemQueries.all() }),
-      ]),
-  });
+const custodyGroup = 'custody';
+
+/**
+ * Custody through the phone's write queue (lib/offline): made at the tap with its Idempotency-Key and tap time,
+ * sent at once with signal, kept and sent later without. A check-in's photo is shrunk and uploaded first.
+ */
+export function useQueuedCustody() {
+  const me = useSignedInMe();
+  const { queue, isPending } = useQueueWrite();
+  const send = (
+    scope: CustodyScope,
+    request: CustodyRequest,
+    options: {
+      label: string;
+      to: LocationRef | null;
+      draftKey: string;
+      href: string;
+      photo?: { file: File; itemId: number | undefined } | null;
+    },
+  ) =>
+    queue(
+      {
+        path: `/api/${scope.kind === 'kit' ? 'kits' : 'kit-items'}/${scope.id}/${request.action}`,
+        body: request.input,
+        label: options.label,
+        href: options.href,
+        group: custodyGroup,
+        meta: { scope, action: request.action, to: options.to } satisfies CustodyMeta,
+        draftKey: options.draftKey,
+        invalidate: [kitQueries.all(), kitItemQueries.all()],
+        ...(options.photo && {
+          photo: {
+            path: '/api/photos',
+            field: 'photo',
+            file: options.photo.file,
+            ...(options.photo.itemId !== undefined && { fields: { itemId: String(options.photo.itemId) } }),
+            idFrom: 'photo.id',
+            bodyKey: 'photoId',
+          },
+        }),
+      },
+      me,
+    );
+  return { send, isPending };
+}
+
+/** Custody writes of this kit or item still on the phone (waiting, or refused and needing attention), oldest first. */
+export function usePendingCustody(targets: { kitId: number | null; itemId: number | null }) {
+  const writes = useOutbox();
+  return writes
+    .filter((write): write is QueuedWrite & { meta: CustodyMeta } => write.group === custodyGroup)
+    .filter(({ meta: { scope } }) => (scope.kind === 'kit' ? scope.id === targets.kitId : scope.id === targets.itemId));
 }

@@ -1,4 +1,5 @@
-import { useRef, useState } from 'react';
+import { useState } from 'react';
+import { useLocation } from 'react-router-dom';
 import { checkInInputSchema, itemConditionLabels, itemConditions } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -7,13 +8,15 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
-import { useIdempotencyKey } from '@/lib/idempotency';
-import { uploadPhoto } from '@/features/kits/api/upload-photo';
-import { useCustody, type CustodyScope } from '@/features/kits/api/use-custody';
+import { useFormDraft } from '@/lib/offline/use-form-draft';
+import { useQueuedCustody, type CustodyScope } from '@/features/kits/api/use-custody';
 import {
+  custodyDraftKey,
   defaultScope,
+  reportOutcome,
   ScopeChoice,
   type CustodyDepot,
+  type CustodyFinish,
   type CustodyTargets,
 } from '@/features/kits/components/custody-shared';
 import { PhotoField } from '@/features/kits/components/photo-field';
@@ -33,19 +36,25 @@ const conditionHints = {
 interface CheckInFormProps {
   targets: CustodyTargets;
   depots: CustodyDepot[];
-  onDone: (message: string) => void;
+  onDone: CustodyFinish;
   onCancel: () => void;
 }
 
+/** What the check-in keeps in state beside its fields, saved in its draft too. */
+interface CheckInExtra {
+  scope: CustodyScope;
+  photo: File | null;
+}
+
 export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormProps) {
-  const [scope, setScope] = useState<CustodyScope>(() => defaultScope(targets));
-  const [photo, setPhoto] = useState<File | null>(null);
-  const [uploading, setUploading] = useState(false);
-  // A retry after a dropped signal must not upload the photo again (a second photo, a new body, a new key).
-  const uploaded = useRef<{ file: File; id: number } | null>(null);
-  const custody = useCustody();
-  const idempotency = useIdempotencyKey();
+  const [extra, setExtra] = useState<CheckInExtra>(() => ({ scope: defaultScope(targets), photo: null }));
+  const { scope, photo } = extra;
+  const custody = useQueuedCustody();
+  const href = useLocation().pathname;
   const form = useSchemaForm(checkInInputSchema, fields, prepare);
+  const draftKey = custodyDraftKey(targets, 'check-in');
+  useFormDraft(form.formRef, draftKey, { value: extra, restore: setExtra });
+  const what = scope.kind === 'kit' ? (targets.kit?.name ?? 'the kit') : (targets.item?.assetTag ?? 'the item');
 
   return (
     <form
@@ -54,42 +63,35 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
       className="space-y-4"
       aria-label="Check in"
       onSubmit={form.handleSubmit(async (input) => {
-        let photoId: number | undefined;
-        if (photo) {
-          if (uploaded.current?.file !== photo) {
-            setUploading(true);
-            try {
-              const sent = await uploadPhoto(photo, targets.item?.id);
-              uploaded.current = { file: photo, id: sent.id };
-            } catch (error) {
-              form.showError(error);
-              return;
-            } finally {
-              setUploading(false);
-            }
-          }
-          photoId = uploaded.current.id;
-        }
-        const body = {
-          scope,
-          request: { action: 'check-in' as const, input: { ...input, ...(photoId ? { photoId } : {}) } },
-        };
-        custody.mutate(
-          { ...body, idempotencyKey: idempotency.keyFor(body) },
-          {
-            onSuccess: () => {
-              idempotency.done();
-              const depot = depots.find((d) => d.id === input.toLocationId) ?? depots[0];
-              onDone(
-                `Checked in${depot ? ` to ${depot.name}` : ''}, ${itemConditionLabels[input.condition].toLowerCase()}.`,
-              );
+        const depot = depots.find((d) => d.id === input.toLocationId) ?? depots[0];
+        const to = depot
+          ? { id: depot.id, kind: 'depot' as const, name: depot.name, registration: null, engineerName: null }
+          : null;
+        try {
+          // The photo is shrunk on the phone and uploaded just before the check-in, which then carries its id.
+          const outcome = await custody.send(
+            scope,
+            { action: 'check-in', input },
+            {
+              label: `Check in ${what}${depot ? ` to ${depot.name}` : ''}${photo ? ' with a photo' : ''}`,
+              to,
+              draftKey,
+              href,
+              photo: photo ? { file: photo, itemId: targets.item?.id } : null,
             },
-            onError: form.showError,
-          },
-        );
+          );
+          reportOutcome(
+            outcome,
+            `Checked in${depot ? ` to ${depot.name}` : ''}, ${itemConditionLabels[input.condition].toLowerCase()}.`,
+            'the check-in',
+            onDone,
+          );
+        } catch (error) {
+          form.showError(error);
+        }
       })}
     >
-      <ScopeChoice targets={targets} scope={scope} onChange={setScope} />
+      <ScopeChoice targets={targets} scope={scope} onChange={(next) => setExtra((was) => ({ ...was, scope: next }))} />
       <ChoiceGroup
         legend="Condition"
         name="condition"
@@ -112,11 +114,16 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
         error={form.fieldErrors.missingParts}
       />
       <TextareaField label="Note (optional)" name="note" error={form.fieldErrors.note} />
-      <PhotoField label="Photo (optional)" file={photo} onChange={setPhoto} error={form.fieldErrors.photoId} />
+      <PhotoField
+        label="Photo (optional)"
+        file={photo}
+        onChange={(next) => setExtra((was) => ({ ...was, photo: next }))}
+        error={form.fieldErrors.photoId}
+      />
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       <div className="flex flex-col gap-2 sm:flex-row">
-        <Button type="submit" busy={uploading || custody.isPending} className="min-h-14 text-lg sm:min-w-48">
-          {uploading ? 'Sending photo…' : 'Check in'}
+        <Button type="submit" busy={custody.isPending} className="min-h-14 text-lg sm:min-w-48">
+          {custody.isPending && photo ? 'Sending photo…' : 'Check in'}
         </Button>
         <Button variant="secondary" onClick={onCancel} className="min-h-14">
           Cancel

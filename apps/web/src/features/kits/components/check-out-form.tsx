@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { useLocation } from 'react-router-dom';
 import { checkOutInputSchema, type KitItem } from '@heatfleet/domain';
 import { z } from 'zod';
 import { Alert } from '@/components/ui/alert';
@@ -8,13 +9,16 @@ import { TextareaField } from '@/components/ui/textarea-field';
 import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { useSchemaForm } from '@/lib/form';
-import { useIdempotencyKey } from '@/lib/idempotency';
-import { useCustody, type CustodyScope } from '@/features/kits/api/use-custody';
+import { useFormDraft } from '@/lib/offline/use-form-draft';
+import { useQueuedCustody, type CustodyScope } from '@/features/kits/api/use-custody';
 import {
+  custodyDraftKey,
   defaultScope,
   isInspectionOverdue,
+  reportOutcome,
   ScopeChoice,
   vanLabel,
+  type CustodyFinish,
   type CustodyTargets,
   type CustodyVan,
 } from '@/features/kits/components/custody-shared';
@@ -43,15 +47,15 @@ interface CheckOutFormProps {
   vans: CustodyVan[];
   /** The items that would go, to warn about any overdue for inspection before sending. */
   items: KitItem[];
-  onDone: (message: string) => void;
+  onDone: CustodyFinish;
   onCancel: () => void;
 }
 
 export function CheckOutForm({ targets, vans, items, onDone, onCancel }: CheckOutFormProps) {
   const [scope, setScope] = useState<CustodyScope>(() => defaultScope(targets));
   const [serverOverdue, setServerOverdue] = useState<{ path: string; message: string }[] | null>(null);
-  const custody = useCustody();
-  const idempotency = useIdempotencyKey();
+  const custody = useQueuedCustody();
+  const href = useLocation().pathname;
 
   const going = scope.kind === 'kit' ? items : items.filter((item) => item.id === scope.id);
   const overdue = going.filter((item) => item.inspection.state === 'overdue');
@@ -59,7 +63,10 @@ export function CheckOutForm({ targets, vans, items, onDone, onCancel }: CheckOu
   const needsReason = (overdue.length > 0 && blocked.length < overdue.length) || serverOverdue !== null;
   const schema = useMemo(() => (needsReason ? withReasonSchema : checkOutInputSchema), [needsReason]);
   const form = useSchemaForm(schema, fields, prepare);
+  const draftKey = custodyDraftKey(targets, 'check-out');
+  useFormDraft(form.formRef, draftKey, { value: scope, restore: setScope });
   const only = vans.length === 1 ? vans[0] : undefined;
+  const what = scope.kind === 'kit' ? (targets.kit?.name ?? 'the kit') : (targets.item?.assetTag ?? 'the item');
 
   return (
     <form
@@ -67,27 +74,25 @@ export function CheckOutForm({ targets, vans, items, onDone, onCancel }: CheckOu
       noValidate
       className="space-y-4"
       aria-label="Check out"
-      onSubmit={form.handleSubmit((input) => {
-        const body = { scope, request: { action: 'check-out' as const, input } };
-        custody.mutate(
-          { ...body, idempotencyKey: idempotency.keyFor(body) },
-          {
-            onSuccess: () => {
-              idempotency.done();
-              const van = vans.find((v) => v.id === input.toLocationId);
-              onDone(`Checked out to ${van ? vanLabel(van) : 'the van'}.`);
-            },
-            onError: (error) => {
-              // Asked for a reason we did not give (our copy of the due dates was stale): ask, then send again.
-              if (isInspectionOverdue(error) && isApiError(error) && !input.overdueReason) {
-                setServerOverdue(error.details);
-                form.clearErrors();
-                return;
-              }
-              form.showError(error);
-            },
-          },
-        );
+      onSubmit={form.handleSubmit(async (input) => {
+        const van = vans.find((v) => v.id === input.toLocationId);
+        const to = van ? { ...van, kind: 'van' as const } : null;
+        try {
+          const outcome = await custody.send(
+            scope,
+            { action: 'check-out', input },
+            { label: `Check out ${what} to ${van?.name ?? 'a van'}`, to, draftKey, href },
+          );
+          reportOutcome(outcome, `Checked out to ${van ? vanLabel(van) : 'the van'}.`, 'the check-out', onDone);
+        } catch (error) {
+          // Asked for a reason we did not give (our copy of the due dates was stale): ask, then send again.
+          if (isInspectionOverdue(error) && isApiError(error) && !input.overdueReason) {
+            setServerOverdue(error.details);
+            form.clearErrors();
+            return;
+          }
+          form.showError(error);
+        }
       })}
     >
       <ScopeChoice targets={targets} scope={scope} onChange={setScope} />

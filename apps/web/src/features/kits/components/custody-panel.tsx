@@ -3,11 +3,14 @@ import type { KitItem, LocationRef } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useAbility } from '@/lib/ability';
+import { shortTime } from '@/lib/offline/outbox-actions';
+import { usePendingCustody } from '@/features/kits/api/use-custody';
 import { CheckInForm } from '@/features/kits/components/check-in-form';
 import { CheckOutForm } from '@/features/kits/components/check-out-form';
 import {
   canHandleVan,
   type CustodyDepot,
+  type CustodyFinish,
   type CustodyTargets,
   type CustodyVan,
 } from '@/features/kits/components/custody-shared';
@@ -32,11 +35,15 @@ const bigButton = 'min-h-14 w-full text-lg sm:w-auto sm:min-w-44';
  * The actions first, as large buttons, because a phone that has just scanned a label is here to
  * check something out or in. Only what this member may do is offered.
  */
-export function CustodyPanel({ firmId, targets, location, vans, depots, items }: CustodyPanelProps) {
+export function CustodyPanel({ firmId, targets, location: recorded, vans, depots, items }: CustodyPanelProps) {
   const ability = useAbility();
   const [open, setOpen] = useState<Open>(null);
-  const [done, setDone] = useState<string | null>(null);
+  const [done, setDone] = useState<{ message: string; final: boolean } | null>(null);
   const doneRef = useRef<HTMLDivElement>(null);
+  // Writes still on the phone move the kit ahead of the server: the next action starts from where it will be.
+  const pending = usePendingCustody({ kitId: targets.kit?.id ?? null, itemId: targets.item?.id ?? null });
+  const waiting = pending.filter((write) => write.state === 'waiting');
+  const location = waiting.length > 0 ? (waiting.at(-1)!.meta.to ?? recorded) : recorded;
 
   useEffect(() => {
     if (done) doneRef.current?.focus();
@@ -51,9 +58,12 @@ export function CustodyPanel({ firmId, targets, location, vans, depots, items }:
     setDone(null);
     setOpen(what);
   };
-  const finish = (message: string) => {
+  const finish: CustodyFinish = (message, whenSent) => {
     setOpen(null);
-    setDone(message);
+    setDone({ message, final: !whenSent });
+    void whenSent?.then((sent) => {
+      if (sent) setDone((shown) => (shown?.message === message ? { message: sent, final: true } : shown));
+    });
   };
   const cancel = () => setOpen(null);
 
@@ -62,11 +72,24 @@ export function CustodyPanel({ firmId, targets, location, vans, depots, items }:
       <p>
         <span className="font-semibold">Now: </span>
         <LocationText location={location} />
+        {waiting.length > 0 ? <span className="text-ink-muted"> (waiting to send)</span> : null}
       </p>
       {done ? (
         <div ref={doneRef} tabIndex={-1}>
-          <Alert tone="success">{done}</Alert>
+          <Alert tone={done.final ? 'success' : 'info'}>{done.message}</Alert>
         </div>
+      ) : null}
+      {pending.length > 0 ? (
+        <ul aria-label="Custody waiting to send" className="space-y-1 text-sm">
+          {pending.map((write) => (
+            <li key={write.id} className={write.state === 'attention' ? 'text-danger-700' : 'text-ink-muted'}>
+              {write.label}, done at {shortTime(write.tappedAt)}:{' '}
+              {write.state === 'attention'
+                ? `refused: ${write.problem?.message ?? 'see Needs your attention'}`
+                : 'waiting to send'}
+            </li>
+          ))}
+        </ul>
       ) : null}
       {open === null ? (
         <div className="flex flex-col gap-2 sm:flex-row">

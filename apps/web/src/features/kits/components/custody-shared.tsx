@@ -1,6 +1,7 @@
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@heatfleet/domain';
 import { isApiError } from '@/lib/api-client';
+import { queuedMessage, type WriteOutcome } from '@/lib/offline/queue-write';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import type { CustodyScope } from '@/features/kits/api/use-custody';
 
@@ -78,4 +79,20 @@ export function ScopeChoice({
 
 export function isInspectionOverdue(error: unknown): boolean {
   return isApiError(error, 409) && error.code === 'InspectionOverdue';
+}
+
+/** How a custody form tells its panel it is done: at once, or kept on the phone with the message for when it goes. */
+export type CustodyFinish = (message: string, whenSent?: Promise<string | null>) => void;
+
+export function reportOutcome(outcome: WriteOutcome, success: string, what: string, finish: CustodyFinish): void {
+  if (outcome.status === 'sent') return finish(success);
+  finish(
+    queuedMessage(what, outcome.why),
+    outcome.settled.then((settled) => (settled === 'sent' ? success : null)),
+  );
+}
+
+/** The draft of one custody form for this kit or item (lib/offline/use-form-draft.ts). */
+export function custodyDraftKey(targets: CustodyTargets, action: string): string {
+  return `custody:${targets.kit?.id ?? '-'}:${targets.item?.id ?? '-'}:${action}`;
 }

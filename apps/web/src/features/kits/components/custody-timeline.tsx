@@ -8,6 +8,20 @@ const marks: Record<CustodyEvent['action'], string> = {
   move: 'bg-ember-500',
 };
 
+/** The engineer's time first: when it was done on the phone, and when it arrived if that was a minute or more later. */
+function When({ event, timeZone }: { event: CustodyEvent; timeZone: string }) {
+  const tapped = event.tappedAt;
+  if (!tapped || Date.parse(event.createdAt) - Date.parse(tapped) < 60_000) {
+    return <time dateTime={tapped ?? event.createdAt}>{formatDateTime(tapped ?? event.createdAt, timeZone)}</time>;
+  }
+  return (
+    <>
+      Done <time dateTime={tapped}>{formatDateTime(tapped, timeZone)}</time> (sent from the phone{' '}
+      <time dateTime={event.createdAt}>{formatDateTime(event.createdAt, timeZone)}</time>)
+    </>
+  );
+}
+
 function route(event: CustodyEvent): string {
   const from = event.from ? locationText(event.from) : null;
   const to = event.to ? locationText(event.to) : null;
@@ -60,7 +74,7 @@ export function CustodyTimeline({
             <span className="font-normal"> · {route(event)}</span>
           </p>
           <p className="text-sm text-ink-muted">
-            <time dateTime={event.createdAt}>{formatDateTime(event.createdAt, timeZone)}</time> by {event.byName}
+            <When event={event} timeZone={timeZone} /> by {event.byName}
             {groupByKit ? ` · ${tags.length === 1 ? tags[0] : `${tags.length} items`}` : ''}
           </p>
           {event.condition ? <p className="text-sm">Condition: {itemConditionLabels[event.condition]}</p> : null}

@@ -1,16 +1,20 @@
 import { useState } from 'react';
+import { useLocation } from 'react-router-dom';
 import { moveInputSchema } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { useSchemaForm } from '@/lib/form';
-import { useIdempotencyKey } from '@/lib/idempotency';
-import { useCustody, type CustodyScope } from '@/features/kits/api/use-custody';
+import { useFormDraft } from '@/lib/offline/use-form-draft';
+import { useQueuedCustody, type CustodyScope } from '@/features/kits/api/use-custody';
 import {
+  custodyDraftKey,
   defaultScope,
+  reportOutcome,
   ScopeChoice,
   vanLabel,
+  type CustodyFinish,
   type CustodyTargets,
   type CustodyVan,
 } from '@/features/kits/components/custody-shared';
@@ -25,15 +29,18 @@ interface MoveFormProps {
   targets: CustodyTargets;
   /** Every other van it could go on to. */
   vans: CustodyVan[];
-  onDone: (message: string) => void;
+  onDone: CustodyFinish;
   onCancel: () => void;
 }
 
 export function MoveForm({ targets, vans, onDone, onCancel }: MoveFormProps) {
   const [scope, setScope] = useState<CustodyScope>(() => defaultScope(targets));
-  const custody = useCustody();
-  const idempotency = useIdempotencyKey();
+  const custody = useQueuedCustody();
+  const href = useLocation().pathname;
   const form = useSchemaForm(moveInputSchema, fields, prepare);
+  const draftKey = custodyDraftKey(targets, 'move');
+  useFormDraft(form.formRef, draftKey, { value: scope, restore: setScope });
+  const what = scope.kind === 'kit' ? (targets.kit?.name ?? 'the kit') : (targets.item?.assetTag ?? 'the item');
 
   return (
     <form
@@ -41,19 +48,23 @@ export function MoveForm({ targets, vans, onDone, onCancel }: MoveFormProps) {
       noValidate
       className="space-y-4"
       aria-label="Move to another van"
-      onSubmit={form.handleSubmit((input) => {
-        const body = { scope, request: { action: 'move' as const, input } };
-        custody.mutate(
-          { ...body, idempotencyKey: idempotency.keyFor(body) },
-          {
-            onSuccess: () => {
-              idempotency.done();
-              const van = vans.find((v) => v.id === input.toLocationId);
-              onDone(`Moved to ${van ? vanLabel(van) : 'the other van'}.`);
+      onSubmit={form.handleSubmit(async (input) => {
+        const van = vans.find((v) => v.id === input.toLocationId);
+        try {
+          const outcome = await custody.send(
+            scope,
+            { action: 'move', input },
+            {
+              label: `Move ${what} to ${van?.name ?? 'another van'}`,
+              to: van ? { ...van, kind: 'van' as const } : null,
+              draftKey,
+              href,
             },
-            onError: form.showError,
-          },
-        );
+          );
+          reportOutcome(outcome, `Moved to ${van ? vanLabel(van) : 'the other van'}.`, 'the move', onDone);
+        } catch (error) {
+          form.showError(error);
+        }
       })}
     >
       <ScopeChoice targets={targets} scope={scope} onChange={setScope} />

@@ -30,7 +30,19 @@ export function buildMovementColumns(
       header: 'When',
       sortFn: 'text',
       enableGlobalFilter: false,
-      cell: (info) => <span className="whitespace-nowrap">{formatDateTime(info.getValue(), timeZone)}</span>,
+      cell: (info) => {
+        // Stock used from a phone carries when it was used (X-Tapped-At); shown first when it arrived later.
+        const { tappedAt } = info.row.original;
+        const late = tappedAt !== null && Date.parse(info.getValue()) - Date.parse(tappedAt) >= 60_000;
+        return (
+          <span className="whitespace-nowrap">
+            {formatDateTime(late ? tappedAt : info.getValue(), timeZone)}
+            {late ? (
+              <span className="block text-xs text-ink-muted">sent {formatDateTime(info.getValue(), timeZone)}</span>
+            ) : null}
+          </span>
+        );
+      },
     }),
     helper.accessor((m) => movementKindLabels[m.kind], { id: 'kind', header: 'What', sortFn: 'text' }),
     helper.accessor((m) => m.location.name, { id: 'place', header: 'Place', sortFn: 'alphanumeric' }),

@@ -1,16 +1,20 @@
 import { useState } from 'react';
+import { useLocation } from 'react-router-dom';
 import { usageInputSchema, type Product, type StockPlace } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { useSignedInMe } from '@/lib/auth';
 import { useSchemaForm } from '@/lib/form';
-import { useIdempotencyKey } from '@/lib/idempotency';
+import { useFormDraft } from '@/lib/offline/use-form-draft';
+import { queuedMessage, useQueueWrite } from '@/lib/offline/queue-write';
+import { stockQueries } from '@/features/stock/api/stock-queries';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
-import { useStockMovement } from '@/features/stock/api/use-stock-movement';
 import { packsText } from '@/features/stock/components/stock-health';
 
 const fields = ['locationId', 'productId', 'quantity', 'reason'] as const;
+const DRAFT_KEY = 'stock:use';
 
 function prepare(values: Record<string, string | undefined>) {
   return {
@@ -31,10 +35,12 @@ export function UseForm({
   products: Product[];
   defaultPlaceId?: number | undefined;
 }) {
-  const [done, setDone] = useState<string | null>(null);
-  const movement = useStockMovement();
-  const idempotency = useIdempotencyKey();
+  const [done, setDone] = useState<{ message: string; final: boolean } | null>(null);
+  const me = useSignedInMe();
+  const write = useQueueWrite();
+  const href = useLocation().pathname;
   const form = useSchemaForm(usageInputSchema, fields, prepare);
+  useFormDraft(form.formRef, DRAFT_KEY);
   const onlyOne = places.length === 1;
   return (
     <form
@@ -42,21 +48,36 @@ export function UseForm({
       noValidate
       aria-label="Record stock used"
       className="space-y-4"
-      onSubmit={form.handleSubmit((input) => {
+      onSubmit={form.handleSubmit(async (input) => {
         setDone(null);
-        const request = { action: 'usages' as const, input };
-        movement.mutate(
-          { request, idempotencyKey: idempotency.keyFor(request) },
-          {
-            onSuccess: () => {
-              idempotency.done();
-              const product = products.find((p) => p.id === input.productId);
-              setDone(`Recorded ${packsText(input.quantity)} of ${product?.name ?? 'the product'} used.`);
-              form.formRef.current?.reset();
+        const product = products.find((p) => p.id === input.productId)?.name ?? 'the product';
+        const place = places.find((p) => p.id === input.locationId)?.name ?? 'the van';
+        const success = `Recorded ${packsText(input.quantity)} of ${product} used.`;
+        try {
+          // Through the phone's queue (lib/offline): with no signal it is kept and sent later, with its tap time.
+          const outcome = await write.queue(
+            {
+              path: '/api/stock/usages',
+              body: input,
+              label: `Use ${packsText(input.quantity)} of ${product} from ${place}`,
+              href,
+              group: 'stock-use',
+              draftKey: DRAFT_KEY,
+              invalidate: [stockQueries.all()],
             },
-            onError: form.showError,
-          },
-        );
+            me,
+          );
+          form.formRef.current?.reset();
+          if (outcome.status === 'sent') return setDone({ message: success, final: true });
+          const message = queuedMessage('the stock use', outcome.why);
+          setDone({ message, final: false });
+          void outcome.settled.then((settled) => {
+            if (settled === 'sent')
+              setDone((shown) => (shown?.message === message ? { message: success, final: true } : shown));
+          });
+        } catch (error) {
+          form.showError(error);
+        }
       })}
     >
       <div className="grid gap-4 sm:grid-cols-2">
@@ -92,8 +113,8 @@ export function UseForm({
         <TextField label="What it was used for" name="reason" maxLength={300} error={form.fieldErrors.reason} />
       </div>
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
-      {done ? <Alert tone="success">{done}</Alert> : null}
-      <Button type="submit" busy={movement.isPending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">
+      {done ? <Alert tone={done.final ? 'success' : 'info'}>{done.message}</Alert> : null}
+      <Button type="submit" busy={write.isPending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">
         Record use
       </Button>
     </form>
