@@ -54,15 +54,8 @@ export async function requestSignUp(deps: AppDeps, input: SignUpInput): Promise<
   const existing = await findUserByEmail(deps.db, input.email);
   const now = deps.clock.now();
   const emailId = await deps.db.transaction(async (trx) => {
-    if (existing) {
-      const link = new URL('/sign-in', deps.env.APP_ORIGIN).toString();
-      return insertEmail(trx, {
-        firmId: null,
-        to: existing.email,
-        purpose: 'sign-up',
-        ...signUpExistingAccountEmail({ name: existing.name, link }),
-      });
-    }
+    // Both paths write one request row and one e-mail, so they cost the same: for an address that
+    // already has an account the row is a record of the attempt, ended at once, and its link is never sent.
     const { token, tokenHash } = createToken();
     await insertSignUpRequest(trx, {
       email: input.email,
@@ -71,7 +64,17 @@ export async function requestSignUp(deps: AppDeps, input: SignUpInput): Promise<
       passwordHash,
       tokenHash,
       expiresAt: new Date(now.getTime() + SIGN_UP_LIFETIME_MS),
+      ...(existing ? { usedAt: now } : {}),
     });
+    if (existing) {
+      const signInLink = new URL('/sign-in', deps.env.APP_ORIGIN).toString();
+      return insertEmail(trx, {
+        firmId: null,
+        to: existing.email,
+        purpose: 'sign-up',
+        ...signUpExistingAccountEmail({ name: existing.name, link: signInLink }),
+      });
+    }
     const link = new URL(`/sign-up/confirm/${token}`, deps.env.APP_ORIGIN).toString();
     return insertEmail(trx, {
       firmId: null,

@@ -13,7 +13,15 @@ export interface SignUpRequestRow {
 
 export async function insertSignUpRequest(
   trx: Knex.Transaction,
-  row: { email: string; name: string; firmName: string; passwordHash: string; tokenHash: string; expiresAt: Date },
+  row: {
+    email: string;
+    name: string;
+    firmName: string;
+    passwordHash: string;
+    tokenHash: string;
+    expiresAt: Date;
+    usedAt?: Date;
+  },
 ): Promise<void> {
   await trx('sign_up_requests').insert({
     email: row.email,
@@ -22,6 +30,7 @@ export async function insertSignUpRequest(
     password_hash: row.passwordHash,
     token_hash: row.tokenHash,
     expires_at: row.expiresAt,
+    used_at: row.usedAt ?? null,
   });
 }
 
