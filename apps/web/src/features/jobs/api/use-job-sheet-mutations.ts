@@ -13,21 +13,44 @@ import { apiClient } from '@/lib/api-client';
 import { jobQueries } from '@/features/jobs/api/job-queries';
 
 // Every sheet write answers with the whole sheet, so the job's cached detail takes it as it is. Writes
-// overlap (a reading saving while a flush is ticked): an answer that started before the last one stored
-// may not hold that one's change, so it is not stored, and the job is read again instead.
-let writesStarted = 0;
-const lastStored = new Map<number, number>();
+// overlap (a reading saving while a flush is ticked), so per job: an answer older than the one stored
+// is not stored; a read of the job in flight when a write starts is cancelled (it may predate the
+// write); and in either case the job is read again once no write is in flight, so it settles on the
+// server's last word.
+interface SheetWrites {
+  started: number;
+  lastStored: number;
+  inFlight: number;
+  readAgain: boolean;
+}
+const writesByJob = new Map<number, SheetWrites>();
 
 async function writeSheet(queryClient: QueryClient, jobId: number, write: () => Promise<{ sheet: JobSheet }>) {
-  const seq = ++writesStarted;
-  const { sheet } = await write();
-  if (seq < (lastStored.get(jobId) ?? 0)) {
-    void queryClient.invalidateQueries({ queryKey: jobQueries.detail(jobId).queryKey });
-    return sheet;
+  const writes = writesByJob.get(jobId) ?? { started: 0, lastStored: 0, inFlight: 0, readAgain: false };
+  writesByJob.set(jobId, writes);
+  const key = jobQueries.detail(jobId).queryKey;
+  const seq = ++writes.started;
+  writes.inFlight += 1;
+  if (queryClient.isFetching({ queryKey: key }) > 0) {
+    void queryClient.cancelQueries({ queryKey: key });
+    writes.readAgain = true;
   }
-  lastStored.set(jobId, seq);
-  queryClient.setQueryData<JobDetail>(jobQueries.detail(jobId).queryKey, (old) => (old ? { ...old, sheet } : old));
-  return sheet;
+  try {
+    const { sheet } = await write();
+    if (seq > writes.lastStored) {
+      writes.lastStored = seq;
+      queryClient.setQueryData<JobDetail>(key, (old) => (old ? { ...old, sheet } : old));
+    } else {
+      writes.readAgain = true;
+    }
+    return sheet;
+  } finally {
+    writes.inFlight -= 1;
+    if (writes.inFlight === 0 && writes.readAgain) {
+      writes.readAgain = false;
+      void queryClient.invalidateQueries({ queryKey: key });
+    }
+  }
 }
 
 function useSheetWrite<V>(jobId: number, write: (variables: V) => Promise<{ sheet: JobSheet }>) {

@@ -64,7 +64,7 @@ function AddPhotoForm({ jobId }: { jobId: number }) {
       aria-label="Add a photo"
       noValidate
       onSubmit={submit}
-      className="space-y-3 rounded-lg border border-line-strong p-3"
+      className="space-y-3 rounded-lg border border-line-strong p-3 [&_input:not([type=file])]:min-h-12 [&_select]:min-h-12"
     >
       <div className="flex flex-col gap-1">
         <label htmlFor={`job-${jobId}-photo`} className="font-semibold">
