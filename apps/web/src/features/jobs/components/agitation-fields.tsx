@@ -93,8 +93,7 @@ export function AgitationFields({
   const points = parsed.ok ? agitationPoints(magnitude, parsed.input.minutes) : (saved?.points ?? 0);
   return (
     <div role="group" aria-label="Agitation" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h4 className="font-bold">Agitation</h4>
+      <div className="flex flex-wrap items-center justify-end gap-2">
         <SavedMark status={slot.status} stored={slot.stored} failure={slot.failure} onRetry={() => void slot.flush()} />
       </div>
       <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] items-start gap-3">

@@ -43,8 +43,14 @@ export function JobSheetSections({
       {radiatorWork ? (
         <SheetSection title="Radiators" summary={radiatorsSummary(sheet)}>
           <StepCautions cautions={radiatorCautions} label="Cautions before flushing" />
-          <RadiatorLog jobId={jobId} sheet={sheet} timeZone={timeZone} />
-          <JobSteps jobId={jobId} sheet={sheet} timeZone={timeZone} steps={groups.radiators} withCautions={false} />
+          <RadiatorLog
+            jobId={jobId}
+            sheet={sheet}
+            timeZone={timeZone}
+            footer={
+              <JobSteps jobId={jobId} sheet={sheet} timeZone={timeZone} steps={groups.radiators} withCautions={false} />
+            }
+          />
         </SheetSection>
       ) : null}
       {groups.after.length ? (

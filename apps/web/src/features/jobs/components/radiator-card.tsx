@@ -48,7 +48,7 @@ function Part({
     <details
       open={open}
       data-part={part}
-      className={`group rounded-lg border-2 ${done ? 'border-ok-700' : 'border-line-strong'}`}
+      className={`group/part rounded-lg border-2 ${done ? 'border-ok-700' : 'border-line-strong'}`}
     >
       <summary className="flex min-h-12 cursor-pointer list-none items-center justify-between gap-3 px-3 py-1 [&::-webkit-details-marker]:hidden">
         <span className="font-bold">
@@ -59,7 +59,7 @@ function Part({
           ) : null}
           {title}
         </span>
-        <span className="min-w-0 truncate text-right text-sm text-ink-muted group-open:hidden">{summary}</span>
+        <span className="min-w-0 truncate text-right text-sm text-ink-muted group-open/part:hidden">{summary}</span>
       </summary>
       {/* One scope per part: Enter in its last box moves on to what follows in it, then to "Next radiator". */}
       <div data-field-scope="" className="space-y-3 px-3 pb-3">

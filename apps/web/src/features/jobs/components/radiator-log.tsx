@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from 'react';
+import { useMemo, useRef, useState, type ReactNode } from 'react';
 import { flushSync } from 'react-dom';
 import type { JobSheet, SheetRadiator } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
@@ -25,7 +25,18 @@ export function radiatorName(r: SheetRadiator): string {
  * The radiators: the list is the home, a tap opens one card, and "Next radiator" walks the flush
  * order. Opening a card puts the cursor in the box to fill next, so the keypad is up at once.
  */
-export function RadiatorLog({ jobId, sheet, timeZone }: { jobId: number; sheet: JobSheet; timeZone: string }) {
+export function RadiatorLog({
+  jobId,
+  sheet,
+  timeZone,
+  footer,
+}: {
+  jobId: number;
+  sheet: JobSheet;
+  timeZone: string;
+  /** Shown under the list, not under a card: the radiators' own steps. */
+  footer?: ReactNode;
+}) {
   const [open, setOpen] = useState<{ index: number; stage: RadiatorStage } | null>(null);
   const [ordering, setOrdering] = useState(false);
   const flushOrder = sheet.flushOrder.radiatorIndexes;
@@ -92,6 +103,7 @@ export function RadiatorLog({ jobId, sheet, timeZone }: { jobId: number; sheet: 
         nameOf={radiatorName}
         onOpen={openRadiator}
       />
+      {footer}
       {sheet.editable ? (
         <div className="flex flex-wrap items-center gap-3">
           <p className="min-w-0 flex-1 text-sm text-ink-muted">

@@ -138,8 +138,7 @@ export function ReadingFields({
   );
   return (
     <div role="group" aria-label={`Readings ${phase}`} data-field-scope="" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h4 className="font-bold">{phase === 'before' ? 'Before the clean' : 'After the clean'}</h4>
+      <div className="flex flex-wrap items-center justify-end gap-2">
         <SavedMark
           status={slot.status}
           stored={slot.stored}
