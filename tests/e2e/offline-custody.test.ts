@@ -51,6 +51,9 @@ test('with no signal an engineer checks a kit out from its label and back in wit
   await page.goto(labelPath);
   await expect(page.getByRole('heading', { level: 1, name: label.assetTag })).toBeVisible();
   await waitForServiceWorker(page);
+  // From now on the service worker sees the page's reads and keeps a copy of each: load the page once more.
+  await page.reload();
+  await expect(page.getByRole('heading', { level: 1, name: label.assetTag })).toBeVisible();
   await expect(statusLine(page)).toHaveText('All saved');
   // What the label's page needs offline is kept on the phone: the item, the vans and depots.
   await expectSaved(page, ['kit-items', 'detail', itemId], ['vans', 'list'], ['depots', 'list']);
@@ -95,6 +98,13 @@ test('with no signal an engineer checks a kit out from its label and back in wit
     await expect(statusLine(page)).toHaveText(
       /^Offline · 2 changes waiting to send · showing what was saved as of \d\d:\d\d/,
     );
+    // The service worker answers API reads from its copy, marked so (the app says "as of" from its Date).
+    const fromCache = await page.evaluate(async (path) => {
+      const scope = JSON.parse(localStorage.getItem('heatfleet.offline-scope')!) as { userId: number; firmId: number };
+      const answer = await fetch(path, { headers: { 'X-Heatfleet-Scope': `u${scope.userId}-f${scope.firmId}` } });
+      return { status: answer.status, marked: answer.headers.get('X-Heatfleet-From-Cache') };
+    }, `/api/kit-items/${itemId}`);
+    expect(fromCache).toEqual({ status: 200, marked: '1' });
     const waiting = page.getByRole('list', { name: 'Custody waiting to send' }).getByRole('listitem');
     await expect(waiting).toHaveCount(2);
     await expect(waiting.nth(0)).toContainText(`Check out ${kit.name} to Van 1`);

@@ -1,9 +1,9 @@
 import type { Page } from '@playwright/test';
-import type { Movement, Product, SessionEnvelope } from '@heatfleet/domain';
+import type { Movement, OutboxMessage, OutboxMessageSummary, Product, SessionEnvelope } from '@heatfleet/domain';
 import { callApi, openApiSession, type ApiSession } from './support/api-session';
 import { firmWithCrew, type Crew } from './support/crew-fixtures';
 import { runId, signIn } from './support/e2e-helpers';
-import { emailLink, signUpFirm, type Firm, type Person } from './support/firm-fixtures';
+import { signUpFirm, type Firm, type Person } from './support/firm-fixtures';
 import { expect, test } from './support/fixture-test';
 import { expectSaved, phone, statusLine, storedKeys, waitForServiceWorker } from './support/offline-helpers';
 import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './support/stock-fixtures';
@@ -118,9 +118,28 @@ test('a sign-out mid-queue sends what waits first and loses nothing; afterwards 
 async function joinSecondFirm(baseURL: string, person: Person): Promise<Firm> {
   const other = await signUpFirm(baseURL, 'Morwenna Hale');
   await callApi(other.owner.session, 'post', '/api/invitations', { data: { email: person.email, role: 'engineer' } });
-  const link = await emailLink(other.owner.session, person.email, '/invitations/');
+  // Their first firm's invitation went to the same address: take the one naming this firm.
+  let invitation: OutboxMessageSummary | undefined;
+  await expect
+    .poll(async () => {
+      const { messages } = await callApi<{ messages: OutboxMessageSummary[] }>(
+        other.owner.session,
+        'get',
+        '/api/outbox',
+      );
+      invitation = messages.find((m) => m.to.includes(person.email) && m.subject.includes(other.name));
+      return invitation !== undefined;
+    })
+    .toBe(true);
+  const { message } = await callApi<{ message: OutboxMessage }>(
+    other.owner.session,
+    'get',
+    `/api/outbox/${invitation!.id}`,
+  );
+  const token = new URL(message.links.find((l) => new URL(l).pathname.startsWith('/invitations/'))!).pathname
+    .split('/')
+    .pop()!;
   const session = await openApiSession(baseURL);
-  const token = new URL(link).pathname.split('/').pop()!;
   await callApi<SessionEnvelope>(session, 'post', `/api/invitations/by-token/${token}/accept`, {
     data: { password: person.password },
     status: 200,

@@ -27,12 +27,14 @@ export const queryClient: QueryClient = new QueryClient({
       staleTime: 0,
       // Tried once even with no signal: the service worker may answer from its copy (lib/offline). Retries wait for the signal.
       networkMode: 'offlineFirst',
-      // A 4xx will not change on retry; network blips and 5xx might.
+      // A 4xx will not change on retry; network blips and 5xx might. With no signal the retry waits for it, and a
+      // page keeps showing the copy it has (lib/offline) meanwhile.
       retry: (failureCount, error) => {
         if (isApiError(error) && error.status >= 400 && error.status < 500) return false;
         return failureCount < 2;
       },
     },
-    mutations: { retry: false },
+    // A write not yet through the queue (lib/offline) fails at once with no signal instead of waiting unseen.
+    mutations: { retry: false, networkMode: 'always' },
   },
 });

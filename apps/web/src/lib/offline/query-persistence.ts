@@ -2,7 +2,6 @@ import type { QueryClient } from '@tanstack/react-query';
 import {
   persistQueryClientRestore,
   persistQueryClientSave,
-  persistQueryClientSubscribe,
   type PersistedClient,
   type Persister,
 } from '@tanstack/query-persist-client-core';
@@ -18,27 +17,15 @@ const SAVE_EVERY_MS = 1_000;
 
 const cacheKey = (scope: OfflineScope) => `${scopePrefix(scope)}query-cache`;
 
-/**
- * TanStack Query's persister over IndexedDB (idb-keyval), under the active person and firm. Saves are throttled:
- * the cache changes on every fetch, and the last change within a second is the one that counts.
- */
-function createIdbPersister(): Persister & { flush(): Promise<void> } {
-  let pending: { scope: OfflineScope; client: PersistedClient } | null = null;
-  let timer: ReturnType<typeof setTimeout> | null = null;
-  const flush = async () => {
-    if (timer) clearTimeout(timer);
-    timer = null;
-    const next = pending;
-    pending = null;
-    if (next) await set(cacheKey(next.scope), next.client, queryCacheStore()).catch(() => undefined);
-  };
+/** TanStack Query's persister over IndexedDB (idb-keyval), under the person and firm active when it saves. */
+function createIdbPersister(): Persister {
   return {
-    persistClient: (client) => {
+    persistClient: async (client: PersistedClient) => {
       const scope = activeScope();
       if (!scope) return;
-      if (pending && (pending.scope.userId !== scope.userId || pending.scope.firmId !== scope.firmId)) void flush();
-      pending = { scope, client };
-      timer ??= setTimeout(() => void flush(), SAVE_EVERY_MS);
+      await set(cacheKey(scope), client, queryCacheStore()).catch(() => undefined);
+      // Signed out while it was being written: it must not outlive the sign-out's wipe.
+      if (!activeScope()) await del(cacheKey(scope), queryCacheStore()).catch(() => undefined);
     },
     restoreClient: async () => {
       const scope = activeScope();
@@ -48,7 +35,6 @@ function createIdbPersister(): Persister & { flush(): Promise<void> } {
       const scope = activeScope();
       if (scope) await del(cacheKey(scope), queryCacheStore());
     },
-    flush,
   };
 }
 
@@ -70,16 +56,29 @@ export async function restoreQueryCache(queryClient: QueryClient): Promise<void>
   await persistQueryClientRestore({ queryClient, ...options, maxAge: MAX_AGE_MS }).catch(() => undefined);
 }
 
-/** Keeps saving the cache as it changes; also saved at once when the page is hidden (a closed tab, a locked phone). */
+/**
+ * Keeps saving the cache as it changes, at most once a second (the cache changes on every fetch, and writing the
+ * whole of it each time would cost the phone's time for nothing); at once when the page is hidden (a closed tab, a
+ * locked phone).
+ */
 export function persistQueryCache(queryClient: QueryClient): () => void {
-  const unsubscribe = persistQueryClientSubscribe({ queryClient, ...options });
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  const save = () => {
+    if (timer) clearTimeout(timer);
+    timer = null;
+    void persistQueryClientSave({ queryClient, ...options });
+  };
+  const unsubscribe = queryClient.getQueryCache().subscribe((event) => {
+    if (event.type === 'added' || event.type === 'removed' || event.type === 'updated')
+      timer ??= setTimeout(save, SAVE_EVERY_MS);
+  });
   const onHide = () => {
-    if (document.visibilityState === 'hidden')
-      void persistQueryClientSave({ queryClient, ...options }).then(persister.flush);
+    if (document.visibilityState === 'hidden' && timer) save();
   };
   document.addEventListener('visibilitychange', onHide);
   return () => {
     unsubscribe();
+    if (timer) clearTimeout(timer);
     document.removeEventListener('visibilitychange', onHide);
   };
 }

@@ -80,5 +80,6 @@ export async function startOffline(client: QueryClient): Promise<void> {
     void sendOutbox();
     void askPersistentStorage();
   }
-  startServiceWorker();
+  // The dev server serves no service worker (vite.config.ts: devOptions), so there is none to register.
+  if (import.meta.env.PROD) startServiceWorker();
 }
