@@ -2,7 +2,7 @@ import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, totalmem } from 'node:os';
 import { join, relative } from 'node:path';
 import { createPool, type Pool } from 'mysql2/promise';
-import { addDays, calendarDateIn } from '@heatfleet/domain';
+import { addDays, calendarDateIn, DEFAULT_TIME_ZONE } from '@heatfleet/domain';
 import { apiFiles, toolFiles } from '@heatfleet/devstack/src/api-files.ts';
 import { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import {
@@ -292,7 +292,7 @@ async function main(): Promise<void> {
   const [spreadProduct, hotProduct] = [ids.products[0]!, ids.products[1]!];
   const spreadVans = ids.vans.slice(0, 64);
   const hotVan = ids.vans[ids.vans.length - 1]!;
-  const expiresOn = addDays(calendarDateIn(new Date(), 'Europe/London'), 700);
+  const expiresOn = addDays(calendarDateIn(new Date(), DEFAULT_TIME_ZONE), 700);
   const stamp = Date.now().toString(36);
   say('\nRefilling stock for the writes (a delivery to the depot, then transfers to the vans, through the API)…');
   const receipt = await postJson<{ movements: { batch: { id: number }; product: { id: number } }[] }>(

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Pool } from 'mysql2/promise';
-import { addDays, calendarDateIn, defaultItemKinds } from '@heatfleet/domain';
+import { addDays, calendarDateIn, DEFAULT_TIME_ZONE, defaultItemKinds } from '@heatfleet/domain';
 import { setUpNewFirm } from '@heatfleet/api/modules/firms/firm-dal.ts';
 import { BulkWriter, insertReturningIds } from './bulk-insert.ts';
 
@@ -135,7 +135,7 @@ export async function generateFirm(
 ): Promise<GeneratedFirm> {
   const began = Date.now();
   const rnd = randomSource(seed);
-  const today = calendarDateIn(now, 'Europe/London');
+  const today = calendarDateIn(now, DEFAULT_TIME_ZONE);
   const yearAgo = now.getTime() - 365 * dayMs;
   say(
     `${spec.name}: ${spec.vans} vans, ${spec.products} products, ${spec.movements.toLocaleString('en-GB')} movements, ${spec.kitItems.toLocaleString('en-GB')} kit items, ${spec.jobs.toLocaleString('en-GB')} jobs`,
@@ -145,7 +145,7 @@ export async function generateFirm(
     const [id] = await trx('firms').insert({
       name: spec.name,
       address: `1 ${streets[seed % streets.length]}, Bench Town BT1 1AA`,
-      time_zone: 'Europe/London',
+      time_zone: DEFAULT_TIME_ZONE,
     });
     await setUpNewFirm(trx, id as number);
     return id as number;

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { addDays, calendarDateIn } from '@heatfleet/domain';
+import { addDays, calendarDateIn, DEFAULT_TIME_ZONE } from '@heatfleet/domain';
 
 // Invented vans, kits and a few months of custody for the demo firms. Registrations are made up.
 const brackenfordVans = [
@@ -48,7 +48,7 @@ export async function seedDemoFleet(
   firmIds: { brackenford: number; tarnside: number },
   now: Date,
 ): Promise<void> {
-  const today = calendarDateIn(now, 'Europe/London');
+  const today = calendarDateIn(now, DEFAULT_TIME_ZONE);
   const daysAgo = (n: number) => new Date(now.getTime() - n * 86_400_000);
 
   // Brackenford: five vans, four rigs (three out on vans), loose cameras and a pump.

@@ -12,6 +12,7 @@ import {
   systemDetailsSchema,
   type Survey,
   type SystemDetails,
+  DEFAULT_TIME_ZONE,
 } from '@heatfleet/domain';
 
 type Trx = Knex.Transaction;
@@ -183,7 +184,7 @@ export async function seedDemoJobs(
   firmIds: { brackenford: number; tarnside: number },
   now: Date,
 ): Promise<void> {
-  const today = calendarDateIn(now, 'Europe/London');
+  const today = calendarDateIn(now, DEFAULT_TIME_ZONE);
   const firmId = firmIds.brackenford;
   const r = randomFrom(20261202);
   const depot = (await trx('locations').where({ firm_id: firmId, kind: 'depot' }).first('id')) as { id: number };

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import { addDays, calendarDateIn } from '@heatfleet/domain';
+import { addDays, calendarDateIn, DEFAULT_TIME_ZONE } from '@heatfleet/domain';
 
 // Invented products for the demo: no real brand, and the dose and target figures are made up
 // for the screens to have something to show. A firm enters its own from the product labels.
@@ -74,7 +74,7 @@ export async function seedDemoStock(
   firmIds: { brackenford: number; tarnside: number },
   now: Date,
 ): Promise<void> {
-  const today = calendarDateIn(now, 'Europe/London');
+  const today = calendarDateIn(now, DEFAULT_TIME_ZONE);
   const firmId = firmIds.brackenford;
   const depot = (await trx('locations').where({ firm_id: firmId, kind: 'depot' }).first('id')) as { id: number };
   const vans = (await trx('locations').where({ firm_id: firmId, kind: 'van' }).orderBy('id').select('id')) as {

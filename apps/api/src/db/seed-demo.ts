@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { Role } from '@heatfleet/domain';
+import { DEFAULT_TIME_ZONE, type Role } from '@heatfleet/domain';
 import { hashPassword } from '../modules/auth/password.ts';
 import { setUpNewFirm } from '../modules/firms/firm-dal.ts';
 import { seedDemoFleet } from './seed-demo-fleet.ts';
@@ -63,7 +63,7 @@ export async function seedDemoFirms(db: Knex, now = new Date()): Promise<'seeded
       const [id] = await trx('firms').insert({
         name: demoFirms[key].name,
         address: demoFirms[key].address,
-        time_zone: 'Europe/London',
+        time_zone: DEFAULT_TIME_ZONE,
       });
       firmIds[key] = id as number;
       await setUpNewFirm(trx, id as number);
