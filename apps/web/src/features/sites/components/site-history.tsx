@@ -23,7 +23,13 @@ export function SiteJobs({ jobs, timeZone }: { jobs: SiteDetail['jobs']; timeZon
                 {j.completedAt ? ` · completed ${formatDate(j.completedAt, timeZone)}` : ''}
               </span>
             </span>
-            {j.status === 'completed' ? <Badge tone="ok">Completed</Badge> : <Badge tone="neutral">Booked</Badge>}
+            {j.status === 'completed' ? (
+              <Badge tone="ok">Completed</Badge>
+            ) : j.status === 'cancelled' ? (
+              <Badge tone="danger">Cancelled</Badge>
+            ) : (
+              <Badge tone="neutral">Booked</Badge>
+            )}
           </Link>
         </li>
       ))}
