@@ -1,10 +1,10 @@
 import type { Page } from '@playwright/test';
-import type { ProductInput } from '@heatfleet/domain';
+import type { CreateJobInput, ProductInput } from '@heatfleet/domain';
 import { firmWithCrew } from './support/crew-fixtures';
 import { mainNav, runId, signIn } from './support/e2e-helpers';
 import { expect, test } from './support/fixture-test';
 import { addKitItem, checkOutKit, createKit, itemKindNamed, setVibration } from './support/fleet-fixtures';
-import { addCustomer, addSite } from './support/job-fixtures';
+import { addCustomer, addSite, bookJob } from './support/job-fixtures';
 import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './support/stock-fixtures';
 import { TapCounter } from './support/tap-counter';
 import { checkScreen } from './support/visit-checks';
@@ -276,3 +276,135 @@ test('an engineer books an 18-radiator job and records the whole visit within th
   expect(sheet.taps, 'sheet taps').toBeLessThanOrEqual(SHEET_TAPS);
   await checkScreen(page, 'the completed job');
 });
+
+test('jobs where people need them: the next ones on the engineer’s home, the flush order kept for the next visit, reschedule, cancel, filters, an inhibitor visit', async ({
+  page,
+  baseURL,
+}) => {
+  test.setTimeout(240_000);
+  const { owner, engineer, van, depot } = await firmWithCrew(baseURL!);
+  const session = owner.session;
+  const id = runId().toUpperCase();
+  const inhibitor = await createProduct(session, {
+    name: `Plain inhibitor ${id}`,
+    kind: 'inhibitor',
+    packSize: 1,
+    packUnit: 'l',
+    doseLitresPer100L: 1,
+    radiatorsPerPack: 10,
+    shelfLifeMonths: 24,
+    targetMin: 1,
+    targetMax: 1.5,
+    targetUnit: '% v/v',
+  });
+  await receiveStock(session, {
+    locationId: depot.id,
+    reference: `Plain ${id}`,
+    lines: [{ productId: inhibitor.id, quantity: 1, lotNumber: `P${id.slice(-5)}`, expiresOn: isoDaysFromNow(400) }],
+  });
+  await transferStock(session, {
+    fromLocationId: depot.id,
+    toLocationId: van.id,
+    lines: [{ productId: inhibitor.id, quantity: 1 }],
+  });
+  const customer = await addCustomer(session, { name: `Perpetua Lund ${id.slice(-4)}` });
+  const site = await addSite(session, customer.id, { address: `9 Orchard Rise, Brackenford ${id.slice(-5)}` });
+  const rooms = ['Hall', 'Lounge', 'Bedroom'];
+  const survey = {
+    systemType: 'sealed' as const,
+    boilerKind: 'combi' as const,
+    fuel: 'gas' as const,
+    radiators: rooms.map((room) => ({ room, panel: 'single' as const })),
+    pipeRuns: [],
+  };
+  const book = (days: number, patch: Partial<CreateJobInput> = {}) =>
+    bookJob(session, {
+      siteId: site.id,
+      scheduledOn: isoDaysFromNow(days),
+      engineerMemberId: engineer.memberId,
+      survey,
+      productIds: [inhibitor.id],
+      visitKind: 'full_clean',
+      ...patch,
+    });
+  // Two visits of 1 pack each against the 1 pack on the van: the first is covered, the later one would be short.
+  const later = await book(5);
+  const sooner = await book(2);
+
+  await signIn(page, engineer.email, engineer.password);
+  const mine = page.getByRole('list', { name: 'Your next jobs' });
+  await expect(mine.getByRole('link')).toHaveCount(2);
+  await expect(mine.getByRole('link').first()).toContainText(formatUkDate(sooner.job.scheduledOn));
+  await expect(mine.getByRole('link').first()).toContainText('Full clean, sealed, 3 radiators');
+  await expect(mine.getByRole('link').first()).toContainText(`1 × ${inhibitor.name}`);
+  await expect(mine.getByText('The van holds them').first()).toBeVisible();
+  await checkScreen(page, 'the engineer’s home');
+
+  // The change-password form lives on the account page, a tap on the name in the header.
+  await page.getByRole('link', { name: engineer.name }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Your account' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Change your password' })).toBeVisible();
+
+  // The flush order, set once by numbering, is kept on the site for the next visit.
+  await page.goto(`/jobs/${sooner.job.id}`);
+  const radiators = page.getByRole('region', { name: 'Radiators', exact: true });
+  await expect(radiators.getByText('The flush order is the survey’s until you set it.')).toBeVisible();
+  await radiators.getByRole('button', { name: 'Set the flush order' }).click();
+  const ordering = radiators.getByRole('group', { name: 'Flush order' });
+  for (const room of ['Bedroom', 'Hall', 'Lounge'])
+    await ordering.getByRole('button', { name: new RegExp(room) }).click();
+  await ordering.getByRole('button', { name: 'Save this order' }).click();
+  const order = radiators.getByRole('list', { name: 'Radiators in the flush order' }).getByRole('button');
+  await expect(order.nth(0)).toContainText('Bedroom');
+  await expect(order.nth(1)).toContainText('Hall');
+  await expect(radiators.getByRole('button', { name: /^Next: Radiator 3: Bedroom/ })).toBeVisible();
+  await page.goto(`/jobs/${later.job.id}`);
+  await expect(radiators.getByText('The flush order is the one kept from the last visit to this site.')).toBeVisible();
+  await expect(order.nth(0)).toContainText('Bedroom');
+
+  // Reschedule the later visit; cancel the sooner one with a reason.
+  const change = page.getByRole('region', { name: 'Change the booking' });
+  await change.getByText('Change the booking').click();
+  await change.getByRole('link', { name: 'Edit or reschedule the job' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Edit the job' })).toBeVisible();
+  const newDate = isoDaysFromNow(9);
+  await page.getByLabel('Date').fill(newDate);
+  await page.getByRole('button', { name: 'Save the changes' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: `Job at ${site.address}` })).toBeVisible();
+  await expect(page.getByText(formatUkDate(newDate)).first()).toBeVisible();
+  await page.goto(`/jobs/${sooner.job.id}`);
+  await change.getByText('Change the booking').click();
+  await change.getByLabel('Why is the job cancelled?').fill('The customer is away that week.');
+  await change.getByRole('button', { name: 'Cancel the job' }).click();
+  await expect(page.getByText('Cancelled', { exact: true }).first()).toBeVisible();
+  await expect(page.getByText(/The customer is away that week\.$/)).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Complete the job' })).toHaveCount(0);
+
+  // The jobs list: the next booked visit first, an engineer column, and filters.
+  await mainNav(page).getByRole('link', { name: 'Jobs' }).click();
+  const table = page.getByRole('table', { name: 'Cleaning jobs of the firm' });
+  // On a phone each row is a card (the header row is hidden); the engineer is a cell of its own.
+  const rows = table.getByRole('row');
+  await expect(rows.first()).toContainText(formatUkDate(newDate));
+  await expect(rows.first().locator('td[data-label="Engineer"]')).toHaveText(engineer.name);
+  await page.getByLabel('Status').selectOption('cancelled');
+  await expect(rows).toHaveCount(1);
+  await expect(rows.first()).toContainText('Cancelled');
+  await checkScreen(page, 'the jobs list');
+
+  // An inhibitor-only visit: dose, circulate, test; no cleaner, agitation or flush.
+  const inhibitorVisit = await book(3, { visitKind: 'inhibitor_only' });
+  await page.goto(`/jobs/${inhibitorVisit.job.id}`);
+  const stepList = page.getByRole('region', { name: 'Steps', exact: true });
+  await expect(stepList.locator('li button:not([aria-label^="Untick"])')).toHaveCount(3);
+  await expect(page.getByRole('region', { name: 'Radiators', exact: true })).toHaveCount(0);
+  await expect(page.getByRole('region', { name: 'Before you start' }).getByText(/foul drain/)).toHaveCount(0);
+  await expect(page.getByText('Dose the cleaner', { exact: true })).toHaveCount(0);
+});
+
+/** A calendar day as the app shows it, "8 Dec 2026". */
+function formatUkDate(iso: string): string {
+  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(`${iso}T12:00:00Z`),
+  );
+}

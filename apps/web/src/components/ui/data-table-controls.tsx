@@ -22,7 +22,7 @@ export function DataTableFilter({
         type="search"
         value={value}
         onChange={(event) => onChange(event.target.value)}
-        className="min-h-11 rounded-md border border-line-strong bg-card px-3 text-base"
+        className="min-h-12 rounded-md border border-line-strong bg-card px-3 text-base"
         autoComplete="off"
       />
     </div>
@@ -51,7 +51,7 @@ export function DataTableSortControls<TData extends object>({ table }: { table: 
           id={id}
           value={activeSort?.id ?? ''}
           onChange={(event) => table.setSorting([{ id: event.target.value, desc: activeSort?.desc ?? false }])}
-          className="min-h-11 w-full rounded-md border border-line-strong bg-card px-3 text-base"
+          className="min-h-12 w-full rounded-md border border-line-strong bg-card px-3 text-base"
         >
           {activeSort ? null : <option value="">Choose…</option>}
           {sortable.map((column) => (
@@ -63,6 +63,7 @@ export function DataTableSortControls<TData extends object>({ table }: { table: 
       </div>
       <Button
         variant="secondary"
+        className="min-h-12"
         disabled={!activeSort}
         onClick={() => activeSort && table.setSorting([{ id: activeSort.id, desc: !activeSort.desc }])}
       >

@@ -39,13 +39,23 @@ export function DataTablePager<TData extends object>({
   if (pageCount <= 1) return null;
   return (
     <nav aria-label={`Pages of ${itemsLabel}`} className="flex items-center justify-between gap-2">
-      <Button variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+      <Button
+        variant="secondary"
+        className="min-h-12"
+        onClick={() => table.previousPage()}
+        disabled={!table.getCanPreviousPage()}
+      >
         Previous
       </Button>
       <span className="text-sm text-ink-muted">
         Page {table.state.pagination.pageIndex + 1} of {pageCount}
       </span>
-      <Button variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+      <Button
+        variant="secondary"
+        className="min-h-12"
+        onClick={() => table.nextPage()}
+        disabled={!table.getCanNextPage()}
+      >
         Next
       </Button>
     </nav>

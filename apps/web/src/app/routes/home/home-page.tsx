@@ -26,7 +26,7 @@ function MyVanCard({ timeZone }: { timeZone: string }) {
       ) : mine.data.van ? (
         <div className="space-y-4">
           <VanSummary van={mine.data.van} timeZone={timeZone} />
-          <Link to={paths.myVan.getHref()} className={buttonClasses('secondary', 'w-full sm:w-auto')}>
+          <Link to={paths.myVan.getHref()} className={buttonClasses('secondary', 'min-h-12 w-full sm:w-auto')}>
             Kit and stock on {mine.data.van.name}
           </Link>
         </div>
@@ -37,16 +37,21 @@ function MyVanCard({ timeZone }: { timeZone: string }) {
   );
 }
 
-function AccountCards() {
+function AccountCards({ withFirms }: { withFirms: boolean }) {
   const me = useSignedInMe();
   return (
     <>
       <Card title={`Your role: ${roleLabels[me.role]}`}>
         <p>{roleSummaries[me.role]}</p>
       </Card>
-      <Card title="Your firms" description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}>
-        <FirmList me={me} />
-      </Card>
+      {withFirms ? (
+        <Card
+          title="Your firms"
+          description={me.memberships.length > 1 ? 'Switch to work in another firm.' : undefined}
+        >
+          <FirmList me={me} />
+        </Card>
+      ) : null}
       <Card title="Your account">
         <Link to={paths.account.getHref()} className={buttonClasses('secondary', 'min-h-12 w-full sm:w-auto')}>
           Your account and password
@@ -64,7 +69,7 @@ export function HomePage() {
         <PageHeader title={me.activeFirm.name}>The firm at a glance. Each card links to its list.</PageHeader>
         <OwnerOverview />
         <div className="mt-5 grid gap-5 lg:grid-cols-3">
-          <AccountCards />
+          <AccountCards withFirms />
         </div>
       </>
     );
@@ -89,7 +94,8 @@ export function HomePage() {
             </Card>
           </>
         ) : null}
-        <AccountCards />
+        {/* An engineer's home is the day's work; their firms are on the account page. */}
+        <AccountCards withFirms={me.role !== 'engineer'} />
       </div>
     </>
   );

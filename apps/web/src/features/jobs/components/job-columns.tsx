@@ -17,7 +17,7 @@ export function buildJobColumns(): DataTableColumns<JobListRow> {
       cell: (info) => (
         <Link
           to={paths.job.getHref(info.row.original.id)}
-          className="font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4"
+          className="inline-flex min-h-12 items-center font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4"
         >
           {formatCalendarDate(info.getValue())}
         </Link>
