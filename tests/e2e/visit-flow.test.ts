@@ -9,8 +9,8 @@ import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './su
 import { TapCounter } from './support/tap-counter';
 import { checkScreen } from './support/visit-checks';
 
-// The budget of /work/shared/VISIT-FLOW.md: booking an existing customer's job in at most 40 taps, the
-// sheet of an 18-radiator open-vented full clean in at most 160.
+// The tap budget (DEVELOPERS.md, Product rules: the visit on a phone): booking an existing customer's job in at
+// most 40 taps, the sheet of an 18-radiator open-vented full clean in at most 160.
 const BOOKING_TAPS = 40;
 const SHEET_TAPS = 160;
 const RADIATORS = 18;

@@ -1,8 +1,8 @@
 import type { Locator, Page } from '@playwright/test';
 
 /**
- * Counts what the engineer does, as VISIT-FLOW.md (/work/shared) counts it: a tap is a click or a focus
- * change (a field focused by tapping it); digits and Enter are keystrokes. Every interaction goes
+ * Counts what the engineer does (DEVELOPERS.md, Product rules: the visit on a phone): a tap is a click or a
+ * focus change (a field focused by tapping it); digits and Enter are keystrokes. Every interaction goes
  * through these helpers, and the page counts trusted pointer-downs and key-downs itself, so a step
  * that bypassed the count would show as a mismatch.
  */
