@@ -227,3 +227,34 @@ test('a write the server refuses after the signal returns waits in "needs your a
   await expect(page.getByRole('button', { name: /needs your attention/ })).toHaveCount(0);
   expect((await usedRows(crew.owner.session, product)).map((m) => m.quantityDelta)).toEqual([-2]);
 });
+
+test('when the session has ended the queue keeps its write, the app asks to sign in again, and the same engineer signing in sends it once', async ({
+  page,
+  context,
+  baseURL,
+}) => {
+  const { crew, product } = await prepareStock(baseURL!, 5);
+  await openUseForm(page, crew);
+  await context.setOffline(true);
+  await recordUse(page, product, 1, 'Before the session ran out');
+  await expect(statusLine(page)).toHaveText(/^Offline · 1 change waiting to send/);
+
+  // Meanwhile the session ends on the server (as after its idle timeout): page.request shares the browser's cookie.
+  const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  expect((await page.request.post('/api/auth/sign-out', { headers: { 'X-CSRF-Token': csrfToken } })).status()).toBe(
+    204,
+  );
+
+  await context.setOffline(false);
+  await expect(page).toHaveURL(/\/sign-in\?next=/);
+  expect(await storedKeys(page, 'outbox')).toHaveLength(1);
+  expect(await usedRows(crew.owner.session, product)).toHaveLength(0);
+
+  await page.getByLabel('E-mail', { exact: true }).fill(crew.engineer.email);
+  await page.getByLabel('Password', { exact: true }).fill(crew.engineer.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(statusLine(page)).toHaveText('All saved', { timeout: 20_000 });
+  const used = await usedRows(crew.owner.session, product);
+  expect(used.map((m) => [m.quantityDelta, m.reason])).toEqual([[-1, 'Before the session ran out']]);
+  expect(used[0]!.tappedAt).not.toBeNull();
+});

@@ -31,6 +31,8 @@ function useOldestShownData(enabled: boolean): number | null {
 }
 
 const linkClass = 'font-semibold underline underline-offset-2';
+// The phone's refusal to keep storage is told once per phone, not on every page.
+const STORAGE_NOTED_KEY = 'heatfleet.storage-refusal-noted';
 
 /**
  * Where things stand, always on screen: "Offline", "3 changes waiting to send" or "All saved"; data shown from the
@@ -39,7 +41,7 @@ const linkClass = 'font-semibold underline underline-offset-2';
 export function OfflineStatus({ me }: { me: Me }) {
   const detailsId = useId();
   const [open, setOpen] = useState(false);
-  const [storageNoted, setStorageNoted] = useState(false);
+  const [storageNoted, setStorageNoted] = useState(() => localStorage.getItem(STORAGE_NOTED_KEY) === 'yes');
   const online = useOnline();
   const writes = useOutbox();
   const sender = useSenderState();
@@ -109,7 +111,14 @@ export function OfflineStatus({ me }: { me: Me }) {
         {storage === 'refused' && !storageNoted ? (
           <span className="flex items-center gap-2 text-ink-muted">
             This phone did not agree to keep saved work for good: it may clear it when short of space.
-            <button type="button" onClick={() => setStorageNoted(true)} className={`min-h-11 ${linkClass}`}>
+            <button
+              type="button"
+              onClick={() => {
+                localStorage.setItem(STORAGE_NOTED_KEY, 'yes');
+                setStorageNoted(true);
+              }}
+              className={`min-h-11 ${linkClass}`}
+            >
               OK
             </button>
           </span>
