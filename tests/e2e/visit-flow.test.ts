@@ -140,7 +140,7 @@ test('an engineer books an 18-radiator job and records the whole visit within th
   await checkScreen(page, 'the job sheet');
   await count.sign(start.locator('canvas'));
   await count.tap(start.getByRole('button', { name: 'Signed: start the work' }));
-  await expect(start.getByText(`✓ Signed by ${customerName} at`)).toBeVisible();
+  await expect(start.getByText(`✓ Acknowledged by ${customerName} at`)).toBeVisible();
   await expect
     .poll(() =>
       start
@@ -258,6 +258,7 @@ test('an engineer books an 18-radiator job and records the whole visit within th
   await count.tap(summary.getByRole('button', { name: 'Yes, complete it' }));
   await expect(page.getByRole('heading', { name: 'Done' })).toBeVisible();
   await expect(page.getByText(/report HF-\d{6}/)).toBeVisible();
+  await expect(page.getByText(`✓ Accepted by ${customerName} at`)).toBeVisible();
   const sheet = count.phase('The sheet');
 
   const seen = await count.seenByPage();

@@ -15,6 +15,7 @@ import { jobQueries } from '@/features/jobs/api/job-queries';
 import { AutosaveProvider } from '@/features/jobs/components/autosave-context';
 import { CancelJobForm } from '@/features/jobs/components/cancel-job-form';
 import { ChemicalsUsed } from '@/features/jobs/components/chemicals-used';
+import { SignedLine } from '@/features/jobs/components/customer-signature';
 import { CompleteJobPanel } from '@/features/jobs/components/complete-job-panel';
 import { JobPlan } from '@/features/jobs/components/job-plan';
 import { JobSheetSections } from '@/features/jobs/components/job-sheet';
@@ -59,6 +60,9 @@ function DoneCard({ detail, timeZone }: { detail: JobDetail; timeZone: string })
             </ul>
           </>
         ) : null}
+        {detail.sheet.signatures.map((signature) => (
+          <SignedLine key={signature.kind} signature={signature} timeZone={timeZone} />
+        ))}
         <p>
           Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
         </p>

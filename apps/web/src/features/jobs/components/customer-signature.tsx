@@ -15,7 +15,8 @@ export function SignedLine({ signature, timeZone }: { signature: JobSignature; t
         className="h-12 w-28 rounded border border-line bg-card object-contain"
       />
       <p className="min-w-0 flex-1 font-semibold text-ok-700">
-        ✓ Signed by {signature.name} at {formatClock(signature.signedAt, timeZone)}
+        ✓ {signature.kind === 'acknowledgement' ? 'Acknowledged' : 'Accepted'} by {signature.name} at{' '}
+        {formatClock(signature.signedAt, timeZone)}
       </p>
     </div>
   );

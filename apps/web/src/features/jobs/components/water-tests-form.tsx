@@ -152,6 +152,10 @@ export function WaterTestsForm({
     },
   });
   const draft = slot.draft;
+  // The set always exists on the API; the mark says "saved" once something in it was.
+  const tested = [water.mainsTdsPpm, water.systemTdsPpm, water.waterClear, water.inhibitorReading, water.ph].some(
+    (v) => v !== null,
+  );
   const set = (patch: Partial<WaterDraft>, now = false) => {
     slot.edit({ ...draft, ...patch });
     if (now) void slot.flush();
@@ -183,7 +187,12 @@ export function WaterTestsForm({
   return (
     <div role="group" aria-label="Water tests" data-field-scope="" className="space-y-4">
       <div className="flex justify-end">
-        <SavedMark status={slot.status} stored={slot.stored} failure={slot.failure} onRetry={() => void slot.flush()} />
+        <SavedMark
+          status={slot.status}
+          stored={tested || slot.savedAt !== null}
+          failure={slot.failure}
+          onRetry={() => void slot.flush()}
+        />
       </div>
       <fieldset disabled={!sheet.editable} className="space-y-4">
         <ChoiceGroup
