@@ -409,6 +409,7 @@ test('an engineer on a phone records a cleaning job from the survey to the repor
   await page.getByRole('button', { name: 'Yes, complete it' }).click();
   await expect(summary.getByText('Give a reason (a few words).')).toBeVisible();
   await reason.fill('The customer needed the heating back on; a second visit is booked.');
+  await summary.getByLabel('What you recommend (optional)').fill('Fit a magnetic filter on the return.');
   await page.getByRole('button', { name: 'Yes, complete it' }).click();
   await expect(page.getByText('Completed', { exact: true })).toBeVisible();
   const used = page.getByRole('list', { name: 'Chemicals used' });
@@ -416,6 +417,7 @@ test('an engineer on a phone records a cleaning job from the survey to the repor
   await expect(used.getByText(`1 × ${inhibitor.name}`)).toBeVisible();
   await expect(page.getByText(/^Next annual check:/)).toBeVisible();
   await expect(page.getByText('The customer needed the heating back on; a second visit is booked.')).toBeVisible();
+  await expect(page.getByText('Recommended: Fit a magnetic filter on the return.')).toBeVisible();
   await expect(page.getByRole('button', { name: /^Untick|^Save|^Add the photo$|^Flushed until clear$/ })).toHaveCount(
     0,
   );

@@ -66,15 +66,27 @@ function DoneCard({ detail, timeZone }: { detail: JobDetail; timeZone: string })
         <p>
           Next annual check: <strong>{row.nextCheckOn ? formatCalendarDate(row.nextCheckOn) : 'not set'}</strong>
         </p>
-        <p>
+        {row.recommendation ? (
+          <p>
+            Recommended: <strong>{row.recommendation}</strong>
+          </p>
+        ) : null}
+        <div className="flex flex-col gap-3 sm:flex-row">
           <a
             className={buttonClasses('primary', 'min-h-12 w-full sm:w-auto')}
+            href={`/api/jobs/${row.id}/customer-report.pdf`}
+            download
+          >
+            Download the report for the customer (PDF)
+          </a>
+          <a
+            className={buttonClasses('secondary', 'min-h-12 w-full sm:w-auto')}
             href={`/api/jobs/${row.id}/report.pdf`}
             download
           >
-            Download the report (PDF)
+            Download the firm&apos;s record (PDF)
           </a>
-        </p>
+        </div>
       </div>
     </Card>
   );

@@ -48,6 +48,7 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
   const [flushing, setFlushing] = useState(false);
   const [reasons, setReasons] = useState<Partial<Record<CompletionCode, string>>>({});
   const [showMissing, setShowMissing] = useState(false);
+  const [recommendation, setRecommendation] = useState('');
   const [signature, setSignature] = useSignatureDraft(detail.job.site.customerName);
   const store = useAutosaveStore();
   const unsaved = useUnsavedSlots();
@@ -101,6 +102,7 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
     const input = {
       confirmations: issues.map((i) => ({ code: i.code, reason: reasonOf(i.code) })),
       ...(unsaved.length ? { unsavedInput: true } : {}),
+      ...(recommendation.trim() ? { recommendation: recommendation.trim() } : {}),
     };
     complete.mutate(
       { input, idempotencyKey: idempotency.keyFor({ complete: jobId, input }) },
@@ -158,6 +160,15 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
       ) : (
         <p className="font-semibold text-ok-700">Nothing is missing.</p>
       )}
+      <TextareaField
+        label="What you recommend (optional)"
+        name="recommendation"
+        hint="Printed in the result box of the customer's report; left empty, the report says what the results call for."
+        rows={2}
+        className="[&_textarea]:min-h-12"
+        value={recommendation}
+        onChange={(e) => setRecommendation(e.target.value)}
+      />
       {accepted ? (
         <SignedLine signature={accepted} timeZone={timeZone} />
       ) : (
