@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import type { ItemCustodyResponse } from '@heatfleet/domain';
 import { callApi } from './support/api-session';
 import { firmWithCrew } from './support/crew-fixtures';
-import { runId, signIn } from './support/e2e-helpers';
+import { horizontalOverflow, runId, signIn } from './support/e2e-helpers';
 import { expect, test } from './support/fixture-test';
 import { addKitItem, createKit, itemKinds, kitLabels } from './support/fleet-fixtures';
 import {
@@ -41,7 +41,7 @@ test('with no signal an engineer checks a kit out from its label and back in wit
   page,
   context,
   baseURL,
-}) => {
+}, testInfo) => {
   const { kit, label, engineer, owner } = await prepareKit(baseURL!);
   const labelPath = new URL(label.url).pathname;
   const itemId = Number(labelPath.split('/').pop());
@@ -83,6 +83,9 @@ test('with no signal an engineer checks a kit out from its label and back in wit
   await checkIn.getByRole('button', { name: 'Check in' }).click();
   await expect(custody.getByText('No signal: the check-in is saved on this phone')).toBeVisible();
   await expect(statusLine(page)).toHaveText(/^Offline · 2 changes waiting to send/);
+  await page.screenshot({ path: testInfo.outputPath('offline-custody-390.png'), fullPage: true });
+  const overflow = await horizontalOverflow(page);
+  expect(overflow.scrollWidth, `the item page overflows: ${overflow.widest ?? ''}`).toBeLessThanOrEqual(390);
 
   // Half-typed and never sent: a note on a new check-out survives the reload below.
   await custody.getByRole('button', { name: 'Check out' }).click();
