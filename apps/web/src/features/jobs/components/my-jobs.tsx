@@ -22,7 +22,9 @@ function PacksLine({ jobId }: { jobId: number }) {
     <span className="block space-y-1 text-sm">
       <span className="block">{doses.map((d) => `${d.packs} × ${d.product.name}`).join(', ')}</span>
       {short.length ? (
-        <Badge tone="danger">Van short: {short.map((d) => `${d.shortfall} × ${d.product.name}`).join(', ')}</Badge>
+        <span className="inline-block rounded-md bg-danger-50 px-2 py-0.5 font-semibold text-danger-700">
+          Van short: {short.map((d) => `${d.shortfall} × ${d.product.name}`).join(', ')}
+        </span>
       ) : (
         <Badge tone="ok">The van holds them</Badge>
       )}
@@ -37,10 +39,10 @@ function JobRow({ job, today }: { job: JobListRow; today: string }) {
         to={paths.job.getHref(job.id)}
         className="block min-h-14 space-y-1 rounded-lg border-2 border-line-strong bg-card px-3 py-2"
       >
-        <span className="flex flex-wrap items-center gap-2 font-bold text-brand-900">
+        <span className="block font-bold text-brand-900">
           {job.scheduledOn === today ? 'Today' : formatCalendarDate(job.scheduledOn)}
-          <span className="font-semibold text-ink">{job.address}</span>
         </span>
+        <span className="block font-semibold break-words text-ink">{job.address}</span>
         <span className="block text-sm text-ink-muted">
           {job.customerName}
           {job.postcode ? `, ${job.postcode}` : ''} · {visitKindLabels[job.visitKind]}, {systemWords[job.systemType]},{' '}
