@@ -33,7 +33,7 @@ export function JobsTable({ engineers }: { engineers: EngineerFilterChoice[] }) 
   if (jobs.isPending) return <PageSpinner label="Loading jobs…" />;
   if (jobs.isError) return <QueryErrorNotice error={jobs.error} onRetry={() => void jobs.refetch()} />;
   const toolbar = (
-    <div role="group" aria-label="Filters" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+    <div role="group" aria-label="Filters" className="grid grid-cols-2 gap-3 lg:grid-cols-4">
       <SelectField
         label="Status"
         className="[&_select]:min-h-12"
