@@ -125,7 +125,8 @@ export function JobPage() {
           <JobStatusBadge status={row.status} />
         </span>
       </PageHeader>
-      <AutosaveProvider>
+      {/* Keyed by the job: moving from one job to another starts with fresh drafts and the radiator list. */}
+      <AutosaveProvider key={row.id}>
         <div className="space-y-5">
           {row.cancellation ? (
             <Card title="Cancelled">
