@@ -1,7 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { apiErrorBodySchema } from '@heatfleet/domain';
-import { Client, createTestApp, signIn, signUpFirm, TEST_PASSWORD, uniqueEmail, type TestApp } from './support/test-app.ts';
+import {
+  Client,
+  createTestApp,
+  signIn,
+  signUpFirm,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type TestApp,
+} from './support/test-app.ts';
 
 let t: TestApp;
 beforeAll(() => {
@@ -42,17 +50,34 @@ describe('sign-up', () => {
   it('refuses a password under 12 or over 128 characters with the field named, and creates nothing', async () => {
     const client = new Client(t.app);
     const email = uniqueEmail('short');
-    const short = await client.post('/api/auth/sign-up', { firmName: 'Short Ltd', name: 'A', email, password: 'elevenchars' });
+    const short = await client.post('/api/auth/sign-up', {
+      firmName: 'Short Ltd',
+      name: 'A',
+      email,
+      password: 'elevenchars',
+    });
     expect(short.status).toBe(422);
-    expect(apiErrorBodySchema.parse(short.body).details).toEqual([{ path: 'password', message: 'Password must be at least 12 characters.' }]);
-    const long = await client.post('/api/auth/sign-up', { firmName: 'Long Ltd', name: 'A', email, password: 'x'.repeat(129) });
+    expect(apiErrorBodySchema.parse(short.body).details).toEqual([
+      { path: 'password', message: 'Password must be at least 12 characters.' },
+    ]);
+    const long = await client.post('/api/auth/sign-up', {
+      firmName: 'Long Ltd',
+      name: 'A',
+      email,
+      password: 'x'.repeat(129),
+    });
     expect(long.status).toBe(422);
     expect(await t.deps.db('users').where({ email }).first()).toBeUndefined();
   });
 
   it('accepts a 12-character password with no composition rules (NIST SP 800-63B)', async () => {
     const client = new Client(t.app);
-    const res = await client.post('/api/auth/sign-up', { firmName: 'Plain Ltd', name: 'A', email: uniqueEmail('plain'), password: 'lowercase only words' });
+    const res = await client.post('/api/auth/sign-up', {
+      firmName: 'Plain Ltd',
+      name: 'A',
+      email: uniqueEmail('plain'),
+      password: 'lowercase only words',
+    });
     expect(res.status).toBe(202);
   });
 
@@ -62,12 +87,20 @@ describe('sign-up', () => {
     expect(res.status).toBe(201);
     expect(res.body.me.activeFirm.name).toBe('Second Dupe Heating');
     expect(res.body.me.role).toBe('owner');
-    expect(res.body.me.memberships.map((m: { firmName: string }) => m.firmName).sort()).toEqual(['First Dupe Heating', 'Second Dupe Heating']);
+    expect(res.body.me.memberships.map((m: { firmName: string }) => m.firmName).sort()).toEqual([
+      'First Dupe Heating',
+      'Second Dupe Heating',
+    ]);
     expect((await client.get('/api/me')).body.me.activeFirm.name).toBe('Second Dupe Heating');
   });
 
   it('answers 422, not a database error, when an object is sent where a string is expected', async () => {
-    const res = await new Client(t.app).post('/api/auth/sign-up', { firmName: { $gt: '' }, name: 'A', email: uniqueEmail('obj'), password: TEST_PASSWORD });
+    const res = await new Client(t.app).post('/api/auth/sign-up', {
+      firmName: { $gt: '' },
+      name: 'A',
+      email: uniqueEmail('obj'),
+      password: TEST_PASSWORD,
+    });
     expect(res.status).toBe(422);
     expect(res.body.details[0].path).toBe('firmName');
     expect(JSON.stringify(res.body)).not.toMatch(/sql|ER_|stack/i);
@@ -76,7 +109,11 @@ describe('sign-up', () => {
   it('answers 400 with the error body for malformed JSON', async () => {
     const client = new Client(t.app);
     await client.refreshCsrf();
-    const res = await client.agent.post('/api/auth/sign-in').set('X-CSRF-Token', client.csrfToken).set('Content-Type', 'application/json').send('{"email":');
+    const res = await client.agent
+      .post('/api/auth/sign-in')
+      .set('X-CSRF-Token', client.csrfToken)
+      .set('Content-Type', 'application/json')
+      .send('{"email":');
     expect(res.status).toBe(400);
     expect(apiErrorBodySchema.parse(res.body).message).toBe('The request body is not valid JSON.');
   });
@@ -86,7 +123,10 @@ describe('sign-in', () => {
   it('answers the same for an unknown e-mail and a wrong password', async () => {
     const { email } = await signUpFirm(t.app, 'same');
     const wrong = await new Client(t.app).post('/api/auth/sign-in', { email, password: 'not the password at all' });
-    const unknown = await new Client(t.app).post('/api/auth/sign-in', { email: uniqueEmail('nobody'), password: 'not the password at all' });
+    const unknown = await new Client(t.app).post('/api/auth/sign-in', {
+      email: uniqueEmail('nobody'),
+      password: 'not the password at all',
+    });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     const strip = (b: Record<string, unknown>) => ({ ...b, requestId: undefined });
@@ -161,7 +201,10 @@ describe('password change', () => {
   it('ends the person\u2019s other sessions and keeps the current one', async () => {
     const { email, client: first } = await signUpFirm(t.app, 'change');
     const second = await signIn(t.app, email);
-    const res = await first.put('/api/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'a brand new passphrase' });
+    const res = await first.put('/api/me/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'a brand new passphrase',
+    });
     expect(res.status).toBe(200);
     await first.get('/api/me').expect(200);
     await second.get('/api/me').expect(401);
@@ -170,7 +213,10 @@ describe('password change', () => {
 
   it('refuses a wrong current password next to that field', async () => {
     const { client } = await signUpFirm(t.app, 'change-wrong');
-    const res = await client.put('/api/me/password', { currentPassword: 'wrong wrong wrong', newPassword: 'a brand new passphrase' });
+    const res = await client.put('/api/me/password', {
+      currentPassword: 'wrong wrong wrong',
+      newPassword: 'a brand new passphrase',
+    });
     expect(res.status).toBe(422);
     expect(res.body.details[0].path).toBe('currentPassword');
   });

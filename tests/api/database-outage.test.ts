@@ -13,7 +13,13 @@ const dbName = 'heatfleet_outage';
 const env = { DATABASE_PORT: String(port), DATABASE_NAME: dbName };
 
 async function startDb() {
-  await startMariadb({ dataDir, port, dbName, user: process.env.DATABASE_USER, password: process.env.DATABASE_PASSWORD });
+  await startMariadb({
+    dataDir,
+    port,
+    dbName,
+    user: process.env.DATABASE_USER,
+    password: process.env.DATABASE_PASSWORD,
+  });
 }
 
 let first: TestApp;

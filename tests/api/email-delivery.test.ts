@@ -10,7 +10,13 @@ beforeAll(() => {
 afterAll(() => t.close());
 
 async function storeEmail(to: string): Promise<number> {
-  const [id] = (await t.deps.db('emails').insert({ firm_id: null, to_address: to, subject: 'Delivery test', text_body: 'Hello', purpose: 'reminder' })) as number[];
+  const [id] = (await t.deps.db('emails').insert({
+    firm_id: null,
+    to_address: to,
+    subject: 'Delivery test',
+    text_body: 'Hello',
+    purpose: 'reminder',
+  })) as number[];
   return id!;
 }
 
@@ -20,7 +26,9 @@ describe('e-mail delivery', () => {
     const id = await storeEmail(to);
     const transport = createTransport(t.deps.env);
     try {
-      const results = await Promise.all([1, 2, 3].map(() => deliverEmail(t.deps.db, transport, t.deps.env.MAIL_FROM, t.clock, id)));
+      const results = await Promise.all(
+        [1, 2, 3].map(() => deliverEmail(t.deps.db, transport, t.deps.env.MAIL_FROM, t.clock, id)),
+      );
       expect(results.filter((r) => r === 'sent')).toHaveLength(1);
       await waitForEmail(to);
       expect(await deliverEmail(t.deps.db, transport, t.deps.env.MAIL_FROM, t.clock, id)).toBe('skipped');

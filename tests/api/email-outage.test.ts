@@ -40,7 +40,13 @@ describe('e-mail retries while the SMTP server is down', () => {
   });
 
   it('keeps one delivery job per e-mail, waiting out the backoff after a failed send', async () => {
-    const [id] = (await t.deps.db('emails').insert({ firm_id: null, to_address: uniqueEmail('smtp-down'), subject: 'Outage test', text_body: 'Hello', purpose: 'reminder' })) as number[];
+    const [id] = (await t.deps.db('emails').insert({
+      firm_id: null,
+      to_address: uniqueEmail('smtp-down'),
+      subject: 'Outage test',
+      text_body: 'Hello',
+      purpose: 'reminder',
+    })) as number[];
     const worker = startEmailWorker({ env: t.deps.env, db: t.deps.db, logger: t.deps.logger, clock: t.clock });
     try {
       await t.deps.mailQueue.notify([id!]);
@@ -61,7 +67,9 @@ describe('e-mail retries while the SMTP server is down', () => {
       // A second notify (or the sweep) while it waits adds no second job.
       await t.deps.mailQueue.notify([id!]);
       const jobs = await queue.getJobs(['waiting', 'delayed', 'active']);
-      expect(jobs.filter((j) => j.name === 'deliver' && (j.data as { emailId: number }).emailId === id)).toHaveLength(1);
+      expect(jobs.filter((j) => j.name === 'deliver' && (j.data as { emailId: number }).emailId === id)).toHaveLength(
+        1,
+      );
 
       const row = await t.deps.db('emails').where({ id }).first();
       expect(row.attempts).toBe(1);

@@ -13,7 +13,13 @@ afterAll(() => t.close());
 
 /** A second engineer with a van of their own in the same firm. */
 async function secondEngineer(firm: SeededFirm): Promise<{ client: Client; vanId: number }> {
-  const [vanId] = (await t.deps.db('locations').insert({ firm_id: firm.firmId, kind: 'van', name: `Second van ${firm.firmId}`, registration: `SE${firm.firmId % 100} CND`, engineer_member_id: firm.target.memberId })) as number[];
+  const [vanId] = (await t.deps.db('locations').insert({
+    firm_id: firm.firmId,
+    kind: 'van',
+    name: `Second van ${firm.firmId}`,
+    registration: `SE${firm.firmId % 100} CND`,
+    engineer_member_id: firm.target.memberId,
+  })) as number[];
   return { client: await signIn(t.app, firm.target.email), vanId: vanId! };
 }
 
@@ -29,13 +35,17 @@ describe('vans', () => {
     const bad = await stores.post('/api/vans', { name: 'Bad van', registration: 'NOT-A-REG!' });
     expect(bad.status).toBe(422);
     expect(bad.body.details[0].path).toBe('registration');
-    expect((await stores.post('/api/vans', { name: 'Bad date', registration: 'AB12 CDE', motDueOn: '2027-02-30' })).status).toBe(422);
+    expect(
+      (await stores.post('/api/vans', { name: 'Bad date', registration: 'AB12 CDE', motDueOn: '2027-02-30' })).status,
+    ).toBe(422);
   });
 
   it('an engineer sees their own van as My van, with its kits', async () => {
     const firm = await seedFirm(t.deps.db, 'myvan');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    await engineer.post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id }).then((r) => expect(r.status).toBe(200));
+    await engineer
+      .post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id })
+      .then((r) => expect(r.status).toBe(200));
     const mine = await engineer.get('/api/me/van').expect(200);
     expect(mine.body.van.registration).toBe(firm.van.registration);
     expect(mine.body.kits.map((k: { id: number }) => k.id)).toEqual([firm.kit.id]);
@@ -49,16 +59,27 @@ describe('custody', () => {
   it('a kit check-out moves all its items, is logged, and the holder is derived from the log', async () => {
     const firm = await seedFirm(t.deps.db, 'out');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    const res = await engineer.post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.van.id, note: 'For the job at 4 Quarry Lane' });
+    const res = await engineer.post(`/api/kits/${firm.kit.id}/check-out`, {
+      toLocationId: firm.van.id,
+      note: 'For the job at 4 Quarry Lane',
+    });
     expect(res.status).toBe(200);
     expect(res.body.kit.location.id).toBe(firm.van.id);
     expect(res.body.items.every((i: { location: { id: number } }) => i.location.id === firm.van.id)).toBe(true);
     const events = await t.deps.db('custody_events').where({ firm_id: firm.firmId, kit_id: firm.kit.id });
     expect(events).toHaveLength(2);
-    expect(events.every((e) => e.action === 'check_out' && e.to_location_id === firm.van.id && e.from_location_id === firm.depotId)).toBe(true);
+    expect(
+      events.every(
+        (e) => e.action === 'check_out' && e.to_location_id === firm.van.id && e.from_location_id === firm.depotId,
+      ),
+    ).toBe(true);
     // The cached whereabouts equal the latest event of each item.
     for (const itemId of firm.kit.itemIds) {
-      const latest = await t.deps.db('custody_events').where({ firm_id: firm.firmId, item_id: itemId }).orderBy('id', 'desc').first();
+      const latest = await t.deps
+        .db('custody_events')
+        .where({ firm_id: firm.firmId, item_id: itemId })
+        .orderBy('id', 'desc')
+        .first();
       const item = await t.deps.db('kit_items').where({ id: itemId }).first();
       expect(item.location_id).toBe(latest.to_location_id);
     }
@@ -89,7 +110,12 @@ describe('custody', () => {
     const engineer = await signIn(t.app, firm.people.engineer.email);
     await engineer.refreshCsrf();
     const key = randomUUID();
-    const send = () => engineer.agent.post(`/api/kits/${firm.kit.id}/check-out`).set('X-CSRF-Token', engineer.csrfToken).set('Idempotency-Key', key).send({ toLocationId: firm.van.id });
+    const send = () =>
+      engineer.agent
+        .post(`/api/kits/${firm.kit.id}/check-out`)
+        .set('X-CSRF-Token', engineer.csrfToken)
+        .set('Idempotency-Key', key)
+        .send({ toLocationId: firm.van.id });
     const [a, b] = await Promise.all([send(), send()]);
     const c = await send();
     expect([a.status, b.status, c.status]).toEqual([200, 200, 200]);
@@ -106,7 +132,9 @@ describe('custody', () => {
     const other = await engineer.post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.spareVanId });
     expect(other.status).toBe(403);
     const stores = await signIn(t.app, firm.people.stores.email);
-    expect((await stores.post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.spareVanId })).status).toBe(200);
+    expect((await stores.post(`/api/kits/${firm.kit.id}/check-out`, { toLocationId: firm.spareVanId })).status).toBe(
+      200,
+    );
     // Now on the spare van: the engineer may move it onto their own van (taking it on).
     expect((await engineer.post(`/api/kits/${firm.kit.id}/move`, { toLocationId: firm.van.id })).status).toBe(200);
   });
@@ -115,14 +143,28 @@ describe('custody', () => {
     const firm = await seedFirm(t.deps.db, 'checkin');
     const engineer = await signIn(t.app, firm.people.engineer.email);
     await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, { toLocationId: firm.van.id });
-    const upload = await engineer.upload('/api/photos', { itemId: String(firm.looseItemId) }, { field: 'photo', content: tinyPng, filename: 'hose.png', contentType: 'image/png' });
+    const upload = await engineer.upload(
+      '/api/photos',
+      { itemId: String(firm.looseItemId) },
+      { field: 'photo', content: tinyPng, filename: 'hose.png', contentType: 'image/png' },
+    );
     expect(upload.status).toBe(201);
-    const res = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-in`, { condition: 'needs_attention', missingParts: 'One 22 mm adaptor', note: 'Kinked near the coupling', photoId: upload.body.photo.id });
+    const res = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-in`, {
+      condition: 'needs_attention',
+      missingParts: 'One 22 mm adaptor',
+      note: 'Kinked near the coupling',
+      photoId: upload.body.photo.id,
+    });
     expect(res.status).toBe(200);
     expect(res.body.item.condition).toBe('needs_attention');
     expect(res.body.item.location.id).toBe(firm.depotId);
     const [latest] = res.body.events;
-    expect(latest).toMatchObject({ action: 'check_in', condition: 'needs_attention', missingParts: 'One 22 mm adaptor', photoId: upload.body.photo.id });
+    expect(latest).toMatchObject({
+      action: 'check_in',
+      condition: 'needs_attention',
+      missingParts: 'One 22 mm adaptor',
+      photoId: upload.body.photo.id,
+    });
     const image = await engineer.get(upload.body.photo.url).expect(200);
     expect(image.headers['content-type']).toBe('image/png');
     expect(image.headers['content-disposition']).toMatch(/^inline; filename="photo-\d+\.png"$/);
@@ -139,13 +181,19 @@ describe('custody', () => {
     const refused = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, { toLocationId: firm.van.id });
     expect(refused.status).toBe(409);
     expect(refused.body.error).toBe('InspectionOverdue');
-    const withReason = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, { toLocationId: firm.van.id, overdueReason: 'Only hose set left; inspect on return' });
+    const withReason = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, {
+      toLocationId: firm.van.id,
+      overdueReason: 'Only hose set left; inspect on return',
+    });
     expect(withReason.status).toBe(200);
     expect(withReason.body.events[0].overdueReason).toBe('Only hose set left; inspect on return');
 
     await t.deps.db('item_kinds').where({ id: firm.kindId }).update({ overdue_policy: 'block' });
     await engineer.post(`/api/kit-items/${firm.looseItemId}/check-in`, { condition: 'in_service' });
-    const blocked = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, { toLocationId: firm.van.id, overdueReason: 'Please' });
+    const blocked = await engineer.post(`/api/kit-items/${firm.looseItemId}/check-out`, {
+      toLocationId: firm.van.id,
+      overdueReason: 'Please',
+    });
     expect(blocked.status).toBe(409);
     expect(blocked.body.message).toMatch(/must be inspected before it goes out/);
   });
@@ -156,7 +204,10 @@ describe('inspections', () => {
     const firm = await seedFirm(t.deps.db, 'inspect');
     const stores = await signIn(t.app, firm.people.stores.email);
     // Hose set: every 180 days or 25 uses (default kinds). Inspected today: due in 180 days.
-    const passed = await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, { result: 'passed', inspectedOn: '2026-11-30' });
+    const passed = await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, {
+      result: 'passed',
+      inspectedOn: '2026-11-30',
+    });
     expect(passed.status).toBe(201);
     expect(passed.body.item.inspection.lastInspectedOn).toBe('2026-11-30');
     expect(passed.body.item.inspection.dueOn).toBe('2027-05-29');
@@ -164,16 +215,31 @@ describe('inspections', () => {
     await stores.post(`/api/kit-items/${firm.looseItemId}/check-out`, { toLocationId: firm.van.id });
     const back = await stores.post(`/api/kit-items/${firm.looseItemId}/check-in`, { condition: 'in_service' });
     expect(back.body.item.inspection.usesLeft).toBe(24);
-    const failed = await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, { result: 'failed', notes: 'Split outer sleeve' });
+    const failed = await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, {
+      result: 'failed',
+      notes: 'Split outer sleeve',
+    });
     expect(failed.body.item.condition).toBe('needs_attention');
     expect(failed.body.item.inspection.usesLeft).toBe(25);
-    expect((await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, { result: 'passed', inspectedOn: '2999-01-01' })).status).toBe(400);
+    expect(
+      (
+        await stores.post(`/api/kit-items/${firm.looseItemId}/inspections`, {
+          result: 'passed',
+          inspectedOn: '2999-01-01',
+        })
+      ).status,
+    ).toBe(400);
   });
 });
 
 async function objectsUnder(prefix: string): Promise<string[]> {
   const env = t.deps.env;
-  const s3 = new S3Client({ endpoint: env.S3_ENDPOINT, region: env.S3_REGION, forcePathStyle: env.S3_FORCE_PATH_STYLE, credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY } });
+  const s3 = new S3Client({
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION,
+    forcePathStyle: env.S3_FORCE_PATH_STYLE,
+    credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY },
+  });
   const out = await s3.send(new ListObjectsV2Command({ Bucket: env.S3_BUCKET, Prefix: prefix }));
   s3.destroy();
   return (out.Contents ?? []).map((o) => o.Key!);
@@ -186,7 +252,11 @@ describe('photos', () => {
     // An ELF header (what a Linux executable starts with), named and typed as a JPEG.
     const elf = Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 0x02, 0x01, 0x01, 0x00]), Buffer.alloc(120)]);
     const before = await t.deps.db('photos').where({ firm_id: firm.firmId }).count({ n: '*' });
-    const res = await engineer.upload('/api/photos', {}, { field: 'photo', content: elf, filename: 'magnets.jpg', contentType: 'image/jpeg' });
+    const res = await engineer.upload(
+      '/api/photos',
+      {},
+      { field: 'photo', content: elf, filename: 'magnets.jpg', contentType: 'image/jpeg' },
+    );
     expect(res.status).toBe(422);
     expect(res.body.message).toMatch(/JPEG, PNG or WebP/);
     expect(await t.deps.db('photos').where({ firm_id: firm.firmId }).count({ n: '*' })).toEqual(before);
@@ -197,7 +267,11 @@ describe('photos', () => {
     const firm = await seedFirm(t.deps.db, 'big');
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const big = Buffer.concat([tinyPng, Buffer.alloc(8 * 1024 * 1024)]);
-    const res = await engineer.upload('/api/photos', {}, { field: 'photo', content: big, filename: 'big.png', contentType: 'image/png' });
+    const res = await engineer.upload(
+      '/api/photos',
+      {},
+      { field: 'photo', content: big, filename: 'big.png', contentType: 'image/png' },
+    );
     expect(res.status).toBe(413);
     expect(await t.deps.db('photos').where({ firm_id: firm.firmId, byte_size: big.length }).first()).toBeUndefined();
     expect(await objectsUnder(`firms/${firm.firmId}/`)).toEqual([]);
@@ -207,7 +281,11 @@ describe('photos', () => {
     const a = await seedFirm(t.deps.db, 'photo-a');
     const b = await seedFirm(t.deps.db, 'photo-b');
     const owner = await signIn(t.app, a.people.owner.email);
-    const up = await owner.upload('/api/photos', {}, { field: 'photo', content: tinyPng, filename: 'a.png', contentType: 'image/png' });
+    const up = await owner.upload(
+      '/api/photos',
+      {},
+      { field: 'photo', content: tinyPng, filename: 'a.png', contentType: 'image/png' },
+    );
     expect(up.status).toBe(201);
     const key = (await t.deps.db('photos').where({ id: up.body.photo.id }).first()).object_key as string;
     expect(key.startsWith(`firms/${a.firmId}/photos/`)).toBe(true);

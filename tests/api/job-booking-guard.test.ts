@@ -11,7 +11,13 @@ beforeAll(() => {
 });
 afterAll(() => t.close());
 
-const survey = { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'single' }], pipeRuns: [] };
+const survey = {
+  systemType: 'sealed',
+  boilerKind: 'combi',
+  fuel: 'gas',
+  radiators: [{ room: 'Hall', panel: 'single' }],
+  pipeRuns: [],
+};
 const booking = (firm: SeededFirm, engineerMemberId?: number | null) => ({
   siteId: firm.siteId,
   scheduledOn: '2026-12-18',
@@ -29,7 +35,13 @@ describe('who a job is booked for', () => {
   it('an engineer cannot book a job for an Owner, nor take the Owner\u2019s van', async () => {
     const firm = await seedFirm(t.deps.db, 'book-owner');
     // The Owner has a van of their own: a booking in their name would take it.
-    const [ownerVan] = (await t.deps.db('locations').insert({ firm_id: firm.firmId, kind: 'van', name: 'Owner van', registration: `OW${firm.firmId}VAN`, engineer_member_id: firm.people.owner.memberId })) as number[];
+    const [ownerVan] = (await t.deps.db('locations').insert({
+      firm_id: firm.firmId,
+      kind: 'van',
+      name: 'Owner van',
+      registration: `OW${firm.firmId}VAN`,
+      engineer_member_id: firm.people.owner.memberId,
+    })) as number[];
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const before = await jobCount(firm.firmId);
     const res = await engineer.post('/api/jobs', booking(firm, firm.people.owner.memberId));
@@ -53,7 +65,10 @@ describe('who a job is booked for', () => {
     for (const named of [undefined, null, firm.people.engineer.memberId]) {
       const res = await engineer.post('/api/jobs', booking(firm, named));
       expect(res.status).toBe(201);
-      expect(res.body.job).toMatchObject({ engineerMemberId: firm.people.engineer.memberId, vanLocationId: firm.van.id });
+      expect(res.body.job).toMatchObject({
+        engineerMemberId: firm.people.engineer.memberId,
+        vanLocationId: firm.van.id,
+      });
     }
   });
 
@@ -62,7 +77,10 @@ describe('who a job is booked for', () => {
     const stores = await signIn(t.app, firm.people.stores.email);
     const named = await stores.post('/api/jobs', booking(firm, firm.people.engineer.memberId));
     expect(named.status).toBe(201);
-    expect(named.body.job).toMatchObject({ engineerMemberId: firm.people.engineer.memberId, vanLocationId: firm.van.id });
+    expect(named.body.job).toMatchObject({
+      engineerMemberId: firm.people.engineer.memberId,
+      vanLocationId: firm.van.id,
+    });
     const nobody = await stores.post('/api/jobs', booking(firm));
     expect(nobody.status).toBe(201);
     expect(nobody.body.job).toMatchObject({ engineerMemberId: null, vanLocationId: null });
@@ -94,6 +112,8 @@ describe('who a job is booked for', () => {
     expect(res.status).toBe(404);
     expect(res.body.message).toBe('That engineer was not found.');
     expect(await jobCount(firm.firmId)).toBe(before);
-    expect(await t.deps.db('jobs').where({ engineer_member_id: other.people.engineer.memberId, firm_id: firm.firmId })).toHaveLength(0);
+    expect(
+      await t.deps.db('jobs').where({ engineer_member_id: other.people.engineer.memberId, firm_id: firm.firmId }),
+    ).toHaveLength(0);
   });
 });

@@ -49,7 +49,9 @@ describe('who may write, and when', () => {
       await trx('jobs').where({ firm_id: s.firm.firmId, id: s.jobId }).forUpdate().first('id');
       const pending = s.engineer.put(`/api/jobs/${s.jobId}/notes`, { notes: 'racing note' });
       await new Promise((r) => setTimeout(r, 400));
-      await trx('jobs').where({ firm_id: s.firm.firmId, id: s.jobId }).update({ status: 'completed', completed_at: new Date() });
+      await trx('jobs')
+        .where({ firm_id: s.firm.firmId, id: s.jobId })
+        .update({ status: 'completed', completed_at: new Date() });
       await trx.commit();
       const res = await pending;
       expect(res.status).toBe(409);
@@ -77,9 +79,15 @@ describe('who may write, and when', () => {
     const trx = await t.deps.db.transaction();
     try {
       await trx('jobs').where({ firm_id: s.firm.firmId, id: s.jobId }).forUpdate().first('id');
-      const pending = s.engineer.upload(`/api/jobs/${s.jobId}/photos`, { tag: 'system' }, { field: 'photo', content: tinyPng, filename: 'p.png', contentType: 'image/png' });
+      const pending = s.engineer.upload(
+        `/api/jobs/${s.jobId}/photos`,
+        { tag: 'system' },
+        { field: 'photo', content: tinyPng, filename: 'p.png', contentType: 'image/png' },
+      );
       await new Promise((r) => setTimeout(r, 400));
-      await trx('jobs').where({ firm_id: s.firm.firmId, id: s.jobId }).update({ status: 'completed', completed_at: new Date() });
+      await trx('jobs')
+        .where({ firm_id: s.firm.firmId, id: s.jobId })
+        .update({ status: 'completed', completed_at: new Date() });
       await trx.commit();
       const res = await pending;
       expect(res.status).toBe(409);
@@ -98,7 +106,10 @@ describe('who may write, and when', () => {
   it('writes sent together with the completion land before it or not at all', async () => {
     const s = await setUpJobSheet(t, 'writes-together');
     const sent = writes(s.engineer, s);
-    const [completion, ...answers] = await Promise.all([s.engineer.post(`/api/jobs/${s.jobId}/complete`, allReasons), ...sent.map(([, call]) => call())]);
+    const [completion, ...answers] = await Promise.all([
+      s.engineer.post(`/api/jobs/${s.jobId}/complete`, allReasons),
+      ...sent.map(([, call]) => call()),
+    ]);
     expect(completion.status).toBe(200);
     const job = await t.deps.db('jobs').where({ id: s.jobId }).first('completed_at', 'notes');
     const steps = await t.deps.db('job_steps').where({ firm_id: s.firm.firmId, job_id: s.jobId });
@@ -106,7 +117,8 @@ describe('who may write, and when', () => {
     // A write that answered 409 left nothing; one that landed did so before the completion.
     const notesAnswer = answers[5]!;
     expect(job.notes).toBe(notesAnswer.status === 200 ? 'late note' : null);
-    for (const st of steps) expect(new Date(st.done_at).getTime()).toBeLessThanOrEqual(new Date(job.completed_at).getTime());
+    for (const st of steps)
+      expect(new Date(st.done_at).getTime()).toBeLessThanOrEqual(new Date(job.completed_at).getTime());
     expect(steps).toHaveLength(answers[0]!.status === 200 ? 1 : 0);
   });
 });
@@ -121,7 +133,9 @@ describe('completion sets the next check 12 calendar months on', () => {
       const res = await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons);
       expect(res.status).toBe(200);
       expect(res.body.job.nextCheckOn).toBe('2029-01-15');
-      expect((await app.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe('2029-01-15');
+      expect((await app.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe(
+        '2029-01-15',
+      );
     } finally {
       await app.close();
     }
@@ -140,26 +154,70 @@ describe('the completion report with the job sheet', () => {
     const visitSteps = (await e.get(`/api/jobs/${s.jobId}`)).body.sheet.steps as { step: string }[];
     for (const { step } of visitSteps) ok(await e.put(`/api/jobs/${s.jobId}/steps/${step}`, { done: true }));
     // Lounge: a cold bottom before (diff 18 K > 10), cleared after (diff 6); dT 30 then dT 60 (EN 442 factors 0.5148, 1.2675).
-    ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/before`, { topC: 58, bottomC: 40, flowC: 55, returnC: 45, roomC: 20 }));
-    ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/after`, { topC: 84, bottomC: 78, flowC: 85, returnC: 75, roomC: 20 }));
+    ok(
+      await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/before`, {
+        topC: 58,
+        bottomC: 40,
+        flowC: 55,
+        returnC: 45,
+        roomC: 20,
+      }),
+    );
+    ok(
+      await e.put(`/api/jobs/${s.jobId}/radiators/0/readings/after`, {
+        topC: 84,
+        bottomC: 78,
+        flowC: 85,
+        returnC: 75,
+        roomC: 20,
+      }),
+    );
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/1/readings/before`, { topC: 61.5, bottomC: 47.5 }));
     // 10 m/s^2 for 30 minutes: 100 HSE points.
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/agitation`, { minutes: 30, kitItemId: s.toolId }));
     ok(await e.put(`/api/jobs/${s.jobId}/radiators/0/flushed`, { done: true }));
-    ok(await e.put(`/api/jobs/${s.jobId}/water-tests`, { mainsTdsPpm: 200, systemTdsPpm: 215, waterClear: true, inhibitorReading: 1.2, inhibitorProductId: s.inhibitorId, ph: 7.8 }));
+    ok(
+      await e.put(`/api/jobs/${s.jobId}/water-tests`, {
+        mainsTdsPpm: 200,
+        systemTdsPpm: 215,
+        waterClear: true,
+        inhibitorReading: 1.2,
+        inhibitorProductId: s.inhibitorId,
+        ph: 7.8,
+      }),
+    );
     ok(await e.put(`/api/jobs/${s.jobId}/kit`, { kitItemIds: [s.toolId] }));
-    ok(await e.put(`/api/jobs/${s.jobId}/notes`, { notes: 'Magnet heavy on the first pass; customer shown the sludge.' }));
-    ok(await e.upload(`/api/jobs/${s.jobId}/photos`, { tag: 'magnet_before', caption: 'First pass' }, { field: 'photo', content: tinyPng, filename: 'm.png', contentType: 'image/png' }));
-    ok(await e.upload(`/api/jobs/${s.jobId}/photos`, { tag: 'test_result', caption: 'Refractometer' }, { field: 'photo', content: tinyWebp, filename: 'r.webp', contentType: 'image/webp' }));
+    ok(
+      await e.put(`/api/jobs/${s.jobId}/notes`, {
+        notes: 'Magnet heavy on the first pass; customer shown the sludge.',
+      }),
+    );
+    ok(
+      await e.upload(
+        `/api/jobs/${s.jobId}/photos`,
+        { tag: 'magnet_before', caption: 'First pass' },
+        { field: 'photo', content: tinyPng, filename: 'm.png', contentType: 'image/png' },
+      ),
+    );
+    ok(
+      await e.upload(
+        `/api/jobs/${s.jobId}/photos`,
+        { tag: 'test_result', caption: 'Refractometer' },
+        { field: 'photo', content: tinyWebp, filename: 'r.webp', contentType: 'image/webp' },
+      ),
+    );
     const done = await e.post(`/api/jobs/${s.jobId}/complete`, allReasons);
     expect(done.status).toBe(200);
     const nextCheckOn = done.body.job.nextCheckOn as string;
 
-    const res = await e.get(`/api/jobs/${s.jobId}/report.pdf`).buffer(true).parse((r, cb) => {
-      const parts: Buffer[] = [];
-      r.on('data', (c: Buffer) => parts.push(c));
-      r.on('end', () => cb(null, Buffer.concat(parts)));
-    });
+    const res = await e
+      .get(`/api/jobs/${s.jobId}/report.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const parts: Buffer[] = [];
+        r.on('data', (c: Buffer) => parts.push(c));
+        r.on('end', () => cb(null, Buffer.concat(parts)));
+      });
     expect(res.status).toBe(200);
     const text = (await new PDFParse({ data: new Uint8Array(res.body as Buffer) }).getText()).text.replace(/\s+/g, ' ');
     // The radiator table: room, before top/bottom/diff, after top/bottom/diff, cold bottom, output W, agitation.

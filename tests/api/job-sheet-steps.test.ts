@@ -14,16 +14,28 @@ describe('the job sheet in GET /api/jobs/:id', () => {
   it('keeps the plan and adds the sheet: the visit\u2019s steps in order (a sealed gas full clean), the radiators of the survey, the firm threshold', async () => {
     const s = await setUpJobSheet(t, 'sheet-read');
     const res = await s.engineer.get(`/api/jobs/${s.jobId}`).expect(200);
-    expect(Object.keys(res.body)).toEqual(expect.arrayContaining(['job', 'survey', 'volume', 'doses', 'today', 'chemicalsUsed', 'sheet']));
+    expect(Object.keys(res.body)).toEqual(
+      expect.arrayContaining(['job', 'survey', 'volume', 'doses', 'today', 'chemicalsUsed', 'sheet']),
+    );
     const sheet = res.body.sheet;
     expect(sheet.editable).toBe(true);
-    expect(sheet.steps.map((x: { step: string }) => x.step)).toEqual(visitSteps({ systemType: 'sealed', fuel: 'gas', visitKind: 'full_clean' }).map((x) => x.step));
+    expect(sheet.steps.map((x: { step: string }) => x.step)).toEqual(
+      visitSteps({ systemType: 'sealed', fuel: 'gas', visitKind: 'full_clean' }).map((x) => x.step),
+    );
     expect(sheet.steps.every((x: { doneAt: null }) => x.doneAt === null)).toBe(true);
     // DEFAULT_COLD_BOTTOM_THRESHOLD_K, common practice (no source).
     expect(sheet.coldBottomThresholdK).toBe(10);
     expect(sheet.circulation).toEqual({ minimumMinutes: 60, startedAt: null, elapsedMinutes: null, met: false });
     expect(sheet.radiators).toEqual([
-      expect.objectContaining({ index: 0, room: 'Lounge', panel: 'double', ratedWatts: 10_000, before: null, after: null, agitation: null }),
+      expect.objectContaining({
+        index: 0,
+        room: 'Lounge',
+        panel: 'double',
+        ratedWatts: 10_000,
+        before: null,
+        after: null,
+        agitation: null,
+      }),
       expect.objectContaining({ index: 1, room: 'Landing', ratedWatts: null }),
     ]);
     expect(sheet.kitOnVan).toEqual([expect.objectContaining({ id: s.toolId, vibrationMs2: 10 })]);
@@ -45,7 +57,11 @@ describe('steps', () => {
     const first = await s.engineer.put(`/api/jobs/${s.jobId}/steps/depressurise`, { done: true });
     expect(first.status).toBe(200);
     const step = first.body.sheet.steps[0];
-    expect(step).toMatchObject({ step: 'depressurise', label: expect.any(String), doneByName: expect.stringContaining('engineer') });
+    expect(step).toMatchObject({
+      step: 'depressurise',
+      label: expect.any(String),
+      doneByName: expect.stringContaining('engineer'),
+    });
     t.clock.advance(minutes(2));
     const again = await s.engineer.put(`/api/jobs/${s.jobId}/steps/depressurise`, { done: true });
     expect(again.body.sheet.steps[0].doneAt).toBe(step.doneAt);
@@ -78,13 +94,31 @@ describe('the two settings the sheet reads', () => {
     expect(item.body.item.vibrationMs2).toBe(8.5);
     expect((await stores.get(`/api/kit-items/${firm.looseItemId}`)).body.item.vibrationMs2).toBe(8.5);
     expect((await stores.patch(`/api/kit-items/${firm.looseItemId}`, { vibrationMs2: -1 })).status).toBe(422);
-    expect((await stores.patch(`/api/kit-items/${firm.looseItemId}`, { vibrationMs2: null })).body.item.vibrationMs2).toBeNull();
+    expect(
+      (await stores.patch(`/api/kit-items/${firm.looseItemId}`, { vibrationMs2: null })).body.item.vibrationMs2,
+    ).toBeNull();
 
-    const product = await stores.put(`/api/products/${firm.product.id}`, { name: firm.product.name, kind: 'cleaner', packSize: 1, packUnit: 'l', minCirculationMinutes: 60 });
+    const product = await stores.put(`/api/products/${firm.product.id}`, {
+      name: firm.product.name,
+      kind: 'cleaner',
+      packSize: 1,
+      packUnit: 'l',
+      minCirculationMinutes: 60,
+    });
     expect(product.status).toBe(200);
     expect(product.body.product.minCirculationMinutes).toBe(60);
     expect((await stores.get(`/api/products/${firm.product.id}`)).body.product.minCirculationMinutes).toBe(60);
-    expect((await stores.put(`/api/products/${firm.product.id}`, { name: firm.product.name, kind: 'cleaner', packSize: 1, packUnit: 'l', minCirculationMinutes: 0 })).status).toBe(422);
+    expect(
+      (
+        await stores.put(`/api/products/${firm.product.id}`, {
+          name: firm.product.name,
+          kind: 'cleaner',
+          packSize: 1,
+          packUnit: 'l',
+          minCirculationMinutes: 0,
+        })
+      ).status,
+    ).toBe(422);
     const engineer = await signIn(t.app, firm.people.engineer.email);
     expect((await engineer.patch(`/api/kit-items/${firm.looseItemId}`, { vibrationMs2: 3 })).status).toBe(403);
   });

@@ -38,7 +38,12 @@ describe('jobs', () => {
   it('computes the volume part by part and the dose plan, and checks the van', async () => {
     const firm = await seedFirm(t.deps.db, 'job-plan');
     const engineer = await signIn(t.app, firm.people.engineer.email);
-    const res = await engineer.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '2026-12-12', productIds: [firm.product.id], survey: measuredSurvey });
+    const res = await engineer.post('/api/jobs', {
+      siteId: firm.siteId,
+      scheduledOn: '2026-12-12',
+      productIds: [firm.product.id],
+      survey: measuredSurvey,
+    });
     expect(res.status).toBe(201);
     // Radiators: 6 x 1.4 + 3 x 1.0 + 3 = 14.4 L (about 3 and 6 L/m at 600 mm: from memory).
     // Pipework (EN 1057): 40 x 0.14527 + 10 x 0.32047 = 9.0155 L. Total with 2 + 5 = 30.4155 L.
@@ -55,12 +60,30 @@ describe('jobs', () => {
   it('falls back to the quick estimate when the survey is short, and says so', async () => {
     const firm = await seedFirm(t.deps.db, 'job-estimate');
     const stores = await signIn(t.app, firm.people.stores.email);
-    const survey = { systemType: 'open_vented', boilerKind: 'regular', fuel: 'oil', radiators: Array.from({ length: 18 }, (_, i) => ({ room: `Room ${i}`, panel: i < 4 ? 'double' : 'single' })), pipeRuns: [] };
+    const survey = {
+      systemType: 'open_vented',
+      boilerKind: 'regular',
+      fuel: 'oil',
+      radiators: Array.from({ length: 18 }, (_, i) => ({ room: `Room ${i}`, panel: i < 4 ? 'double' : 'single' })),
+      pipeRuns: [],
+    };
     await t.deps.db('products').where({ id: firm.product.id }).update({ radiators_per_pack: 10 });
-    const res = await stores.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '2026-12-12', engineerMemberId: firm.people.engineer.memberId, productIds: [firm.product.id], survey });
+    const res = await stores.post('/api/jobs', {
+      siteId: firm.siteId,
+      scheduledOn: '2026-12-12',
+      engineerMemberId: firm.people.engineer.memberId,
+      productIds: [firm.product.id],
+      survey,
+    });
     expect(res.status).toBe(201);
     // 22 single-panel equivalents x 10 L = 220 L (common trade practice), plus 15 L for a regular oil boiler (from memory).
-    expect(res.body.volume).toMatchObject({ estimate: true, label: 'Estimated', radiatorsLitres: 220, heatExchangerLitres: 15, totalLitres: 235 });
+    expect(res.body.volume).toMatchObject({
+      estimate: true,
+      label: 'Estimated',
+      radiatorsLitres: 220,
+      heatExchangerLitres: 15,
+      totalLitres: 235,
+    });
     // 235 L at 1 L/100 L is 2.35 L -> 3 packs; 18 radiators at one pack per 10 -> 2 packs: volume wins.
     expect(res.body.doses[0]).toMatchObject({ packsByVolume: 3, packsByRadiators: 2, packs: 3, decidedBy: 'volume' });
     // The van holds 2: one short.
@@ -72,7 +95,12 @@ describe('jobs', () => {
     const engineer = await signIn(t.app, firm.people.engineer.email);
     await engineer.refreshCsrf();
     const key = randomUUID();
-    const send = () => engineer.agent.post(`/api/jobs/${firm.jobId}/complete`).set('X-CSRF-Token', engineer.csrfToken).set('Idempotency-Key', key).send(allReasons);
+    const send = () =>
+      engineer.agent
+        .post(`/api/jobs/${firm.jobId}/complete`)
+        .set('X-CSRF-Token', engineer.csrfToken)
+        .set('Idempotency-Key', key)
+        .send(allReasons);
     const [a, b] = await Promise.all([send(), send()]);
     expect([a.status, b.status]).toEqual([200, 200]);
     expect(b.body).toEqual(a.body);
@@ -80,7 +108,10 @@ describe('jobs', () => {
     expect(a.body.chemicalsUsed).toEqual([expect.objectContaining({ lotNumber: firm.product.lotNumber, packs: 1 })]);
     const used = await t.deps.db('stock_movements').where({ firm_id: firm.firmId, job_id: firm.jobId, kind: 'used' });
     expect(used).toHaveLength(1);
-    const van = await t.deps.db('stock_balances').where({ firm_id: firm.firmId, location_id: firm.van.id, batch_id: firm.product.batchId }).first();
+    const van = await t.deps
+      .db('stock_balances')
+      .where({ firm_id: firm.firmId, location_id: firm.van.id, batch_id: firm.product.batchId })
+      .first();
     expect(van.quantity).toBe(1);
     // A completion sent again without the key changes nothing.
     const again = await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons);
@@ -104,11 +135,14 @@ describe('the completion report', () => {
     const firm = await seedFirm(t.deps.db, 'job-report');
     const engineer = await signIn(t.app, firm.people.engineer.email);
     await engineer.post(`/api/jobs/${firm.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
-    const res = await engineer.get(`/api/jobs/${firm.jobId}/report.pdf`).buffer(true).parse((r, cb) => {
-      const parts: Buffer[] = [];
-      r.on('data', (c: Buffer) => parts.push(c));
-      r.on('end', () => cb(null, Buffer.concat(parts)));
-    });
+    const res = await engineer
+      .get(`/api/jobs/${firm.jobId}/report.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const parts: Buffer[] = [];
+        r.on('data', (c: Buffer) => parts.push(c));
+        r.on('end', () => cb(null, Buffer.concat(parts)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const text = (await new PDFParse({ data: new Uint8Array(res.body as Buffer) }).getText()).text.replace(/\s+/g, ' ');

@@ -26,12 +26,38 @@ async function seedKnownFirm(): Promise<{ firm: SeededFirm; today: string; inhib
   const by = firm.people.stores.userId;
 
   // Stock. The seed leaves the van 2 packs of cleaner against a minimum of 3, the depot 10 against 20.
-  const [inhibitorId] = (await db('products').insert({ firm_id: f, name: `Overview inhibitor ${f}`, kind: 'inhibitor', pack_size_ml: 500 })) as number[];
+  const [inhibitorId] = (await db('products').insert({
+    firm_id: f,
+    name: `Overview inhibitor ${f}`,
+    kind: 'inhibitor',
+    pack_size_ml: 500,
+  })) as number[];
   // An inhibitor minimum on the van with none on board: empty (out of stock), and below minimum.
-  await db('par_levels').insert({ firm_id: f, location_id: firm.van.id, product_id: inhibitorId, minimum: 2, target: 4 });
-  const [expiredBatch] = (await db('product_batches').insert({ firm_id: f, product_id: firm.product.id, lot_number: `EXP${f}`, expires_on: addDays(today, -1) })) as number[];
-  const [soonBatch] = (await db('product_batches').insert({ firm_id: f, product_id: inhibitorId, lot_number: `SOON${f}`, expires_on: addDays(today, 30) })) as number[];
-  const [laterBatch] = (await db('product_batches').insert({ firm_id: f, product_id: inhibitorId, lot_number: `LATER${f}`, expires_on: addDays(today, 90) })) as number[];
+  await db('par_levels').insert({
+    firm_id: f,
+    location_id: firm.van.id,
+    product_id: inhibitorId,
+    minimum: 2,
+    target: 4,
+  });
+  const [expiredBatch] = (await db('product_batches').insert({
+    firm_id: f,
+    product_id: firm.product.id,
+    lot_number: `EXP${f}`,
+    expires_on: addDays(today, -1),
+  })) as number[];
+  const [soonBatch] = (await db('product_batches').insert({
+    firm_id: f,
+    product_id: inhibitorId,
+    lot_number: `SOON${f}`,
+    expires_on: addDays(today, 30),
+  })) as number[];
+  const [laterBatch] = (await db('product_batches').insert({
+    firm_id: f,
+    product_id: inhibitorId,
+    lot_number: `LATER${f}`,
+    expires_on: addDays(today, 90),
+  })) as number[];
   await db('stock_balances').insert([
     // Expired packs on the van count for nothing usable.
     { firm_id: f, location_id: firm.van.id, batch_id: expiredBatch, product_id: firm.product.id, quantity: 3 },
@@ -40,35 +66,107 @@ async function seedKnownFirm(): Promise<{ firm: SeededFirm; today: string; inhib
   ]);
 
   // Vans: the van's MOT in 10 days (due soon), the spare van's service yesterday (overdue).
-  await db('locations').where({ firm_id: f, id: firm.van.id }).update({ mot_due_on: addDays(today, 10), service_due_on: addDays(today, 100) });
-  await db('locations').where({ firm_id: f, id: firm.spareVanId }).update({ service_due_on: addDays(today, -1) });
+  await db('locations')
+    .where({ firm_id: f, id: firm.van.id })
+    .update({ mot_due_on: addDays(today, 10), service_due_on: addDays(today, 100) });
+  await db('locations')
+    .where({ firm_id: f, id: firm.spareVanId })
+    .update({ service_due_on: addDays(today, -1) });
 
   // Kit: the seeded items move to a kind without a rule, so only the items below count.
-  const [noRule] = (await db('item_kinds').insert({ firm_id: f, name: 'Overview no rule', interval_days: null, interval_uses: null, due_soon_days: 7 })) as number[];
+  const [noRule] = (await db('item_kinds').insert({
+    firm_id: f,
+    name: 'Overview no rule',
+    interval_days: null,
+    interval_uses: null,
+    due_soon_days: 7,
+  })) as number[];
   await db('kit_items').where({ firm_id: f }).update({ kind_id: noRule });
-  const [kindTimeId] = (await db('item_kinds').insert({ firm_id: f, name: 'Overview every 30 days', interval_days: 30, interval_uses: null, due_soon_days: 7 })) as number[];
-  const [kindUses] = (await db('item_kinds').insert({ firm_id: f, name: 'Overview every 3 uses', interval_days: null, interval_uses: 3, due_soon_days: 0 })) as number[];
+  const [kindTimeId] = (await db('item_kinds').insert({
+    firm_id: f,
+    name: 'Overview every 30 days',
+    interval_days: 30,
+    interval_uses: null,
+    due_soon_days: 7,
+  })) as number[];
+  const [kindUses] = (await db('item_kinds').insert({
+    firm_id: f,
+    name: 'Overview every 3 uses',
+    interval_days: null,
+    interval_uses: 3,
+    due_soon_days: 0,
+  })) as number[];
   const item = async (tag: string, kindId: number, since: string) =>
-    ((await db('kit_items').insert({ firm_id: f, kind_id: kindId, asset_tag: `${tag}-${f}`, location_id: firm.depotId, in_service_since: since })) as number[])[0]!;
+    (
+      (await db('kit_items').insert({
+        firm_id: f,
+        kind_id: kindId,
+        asset_tag: `${tag}-${f}`,
+        location_id: firm.depotId,
+        in_service_since: since,
+      })) as number[]
+    )[0]!;
   await item('T1', kindTimeId!, addDays(today, -40)); // due today - 10: overdue
   await item('T2', kindTimeId!, addDays(today, -25)); // due today + 5, within 7: due soon
   const t3 = await item('T3', kindTimeId!, addDays(today, -400));
-  await db('inspections').insert({ firm_id: f, item_id: t3, result: 'passed', by_user_id: by, inspected_on: addDays(today, -31), created_at: new Date(now.getTime() - 31 * DAY) }); // due today - 1: overdue
+  await db('inspections').insert({
+    firm_id: f,
+    item_id: t3,
+    result: 'passed',
+    by_user_id: by,
+    inspected_on: addDays(today, -31),
+    created_at: new Date(now.getTime() - 31 * DAY),
+  }); // due today - 1: overdue
   await item('T4', kindTimeId!, addDays(today, -5)); // ok
   const u1 = await item('U1', kindUses!, addDays(today, -60));
   const u2 = await item('U2', kindUses!, addDays(today, -60));
-  const checkIn = (itemId: number, daysAgo: number) => ({ firm_id: f, item_id: itemId, action: 'check_in', to_location_id: firm.depotId, by_user_id: by, condition: 'in_service', created_at: new Date(now.getTime() - daysAgo * DAY) });
+  const checkIn = (itemId: number, daysAgo: number) => ({
+    firm_id: f,
+    item_id: itemId,
+    action: 'check_in',
+    to_location_id: firm.depotId,
+    by_user_id: by,
+    condition: 'in_service',
+    created_at: new Date(now.getTime() - daysAgo * DAY),
+  });
   await db('inspections').insert([
-    { firm_id: f, item_id: u1, result: 'passed', by_user_id: by, inspected_on: addDays(today, -10), created_at: new Date(now.getTime() - 10 * DAY) },
-    { firm_id: f, item_id: u2, result: 'passed', by_user_id: by, inspected_on: addDays(today, -10), created_at: new Date(now.getTime() - 10 * DAY) },
+    {
+      firm_id: f,
+      item_id: u1,
+      result: 'passed',
+      by_user_id: by,
+      inspected_on: addDays(today, -10),
+      created_at: new Date(now.getTime() - 10 * DAY),
+    },
+    {
+      firm_id: f,
+      item_id: u2,
+      result: 'passed',
+      by_user_id: by,
+      inspected_on: addDays(today, -10),
+      created_at: new Date(now.getTime() - 10 * DAY),
+    },
   ]);
   // U1: one use before its inspection (not counted) and three after: none left, overdue. U2: two after, one left: due soon.
-  await db('custody_events').insert([checkIn(u1, 20), checkIn(u1, 5), checkIn(u1, 4), checkIn(u1, 3), checkIn(u2, 5), checkIn(u2, 4)]);
+  await db('custody_events').insert([
+    checkIn(u1, 20),
+    checkIn(u1, 5),
+    checkIn(u1, 4),
+    checkIn(u1, 3),
+    checkIn(u2, 5),
+    checkIn(u2, 4),
+  ]);
 
   // Jobs: the seeded job moves to today (planned); one completed this month; one planned last month (not counted).
   const monthStart = `${today.slice(0, 7)}-01`;
   await db('jobs').where({ firm_id: f, id: firm.jobId }).update({ scheduled_on: today });
-  const survey = JSON.stringify({ systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [], pipeRuns: [] });
+  const survey = JSON.stringify({
+    systemType: 'sealed',
+    boilerKind: 'combi',
+    fuel: 'gas',
+    radiators: [],
+    pipeRuns: [],
+  });
   await db('jobs').insert([
     { firm_id: f, site_id: firm.siteId, scheduled_on: monthStart, status: 'completed', survey, completed_at: now },
     { firm_id: f, site_id: firm.siteId, scheduled_on: addDays(monthStart, -1), status: 'planned', survey },
@@ -77,9 +175,19 @@ async function seedKnownFirm(): Promise<{ firm: SeededFirm; today: string; inhib
   // Chemical used: 2 x 1 L cleaner this month, 3 x 500 ml inhibitor three months ago, 5 packs 13 months ago (outside).
   const midMonth = (monthsBack: number) => new Date(`${addMonths(monthStart, -monthsBack).slice(0, 7)}-15T12:00:00Z`);
   const used = (productId: number, batchId: number, packs: number, at: Date, kind = 'used') => ({
-    firm_id: f, group_id: randomUUID(), kind, location_id: firm.van.id, product_id: productId, batch_id: batchId, quantity_delta: -packs, by_user_id: by, created_at: at,
+    firm_id: f,
+    group_id: randomUUID(),
+    kind,
+    location_id: firm.van.id,
+    product_id: productId,
+    batch_id: batchId,
+    quantity_delta: -packs,
+    by_user_id: by,
+    created_at: at,
   });
-  const thisMonthAt = new Date(Math.max(startOfDayIn(monthStart, 'Europe/London').getTime() + 3_600_000, now.getTime() - 60_000));
+  const thisMonthAt = new Date(
+    Math.max(startOfDayIn(monthStart, 'Europe/London').getTime() + 3_600_000, now.getTime() - 60_000),
+  );
   await db('stock_movements').insert([
     used(firm.product.id, firm.product.batchId, 2, thisMonthAt),
     used(inhibitorId!, soonBatch!, 3, midMonth(3)),
@@ -90,12 +198,28 @@ async function seedKnownFirm(): Promise<{ firm: SeededFirm; today: string; inhib
 
   // Reminders: twelve, a minute apart; the overview shows the ten newest.
   await db('reminders').insert(
-    Array.from({ length: 12 }, (_, i) => ({ firm_id: f, kind: 'mot_due', subject_type: 'van', subject_id: firm.van.id, period_key: `p${i}`, summary: `Reminder ${i}`, created_at: new Date(now.getTime() - (12 - i) * 60_000) })),
+    Array.from({ length: 12 }, (_, i) => ({
+      firm_id: f,
+      kind: 'mot_due',
+      subject_type: 'van',
+      subject_id: firm.van.id,
+      period_key: `p${i}`,
+      summary: `Reminder ${i}`,
+      created_at: new Date(now.getTime() - (12 - i) * 60_000),
+    })),
   );
 
   // Vibration today: the engineer 30 minutes at 10 m/s^2 (100 points, HSE's own example); the other engineer none.
   await db('job_agitations').insert({
-    firm_id: f, job_id: firm.jobId, radiator_index: 0, minutes: 30, magnitude_ms2: 10, engineer_member_id: firm.people.engineer.memberId, recorded_on: today, recorded_by_user_id: firm.people.engineer.userId, recorded_at: now,
+    firm_id: f,
+    job_id: firm.jobId,
+    radiator_index: 0,
+    minutes: 30,
+    magnitude_ms2: 10,
+    engineer_member_id: firm.people.engineer.memberId,
+    recorded_on: today,
+    recorded_by_user_id: firm.people.engineer.userId,
+    recorded_at: now,
   });
   return { firm, today, inhibitorId: inhibitorId!, kindTimeId: kindTimeId! };
 }
@@ -127,13 +251,26 @@ describe('owner overview', () => {
 
     expect(o.kit.overdueCount).toBe(3);
     expect(o.kit.dueSoonCount).toBe(2);
-    expect(o.kit.overdue.map((i: { assetTag: string }) => i.assetTag)).toEqual([`T1-${firm.firmId}`, `T3-${firm.firmId}`, `U1-${firm.firmId}`]);
-    expect(o.kit.dueSoon.map((i: { assetTag: string }) => i.assetTag)).toEqual([`T2-${firm.firmId}`, `U2-${firm.firmId}`]);
+    expect(o.kit.overdue.map((i: { assetTag: string }) => i.assetTag)).toEqual([
+      `T1-${firm.firmId}`,
+      `T3-${firm.firmId}`,
+      `U1-${firm.firmId}`,
+    ]);
+    expect(o.kit.dueSoon.map((i: { assetTag: string }) => i.assetTag)).toEqual([
+      `T2-${firm.firmId}`,
+      `U2-${firm.firmId}`,
+    ]);
     expect(o.kit.overdue[2]).toMatchObject({ usesLeft: 0, reason: 'uses' });
 
     // Expired yesterday (3 on the van) and expiring in 30 days (4 at the depot); the 90-day batch is outside 60 days.
     expect(o.expiringBatches).toMatchObject({ withinDays: 60, count: 2, packs: 7 });
-    expect(o.expiringBatches.batches.map((b: { lotNumber: string; expired: boolean; packs: number }) => [b.lotNumber, b.expired, b.packs])).toEqual([
+    expect(
+      o.expiringBatches.batches.map((b: { lotNumber: string; expired: boolean; packs: number }) => [
+        b.lotNumber,
+        b.expired,
+        b.packs,
+      ]),
+    ).toEqual([
       [`EXP${firm.firmId}`, true, 3],
       [`SOON${firm.firmId}`, false, 4],
     ]);
@@ -142,16 +279,39 @@ describe('owner overview', () => {
 
     expect(o.usageByMonth).toHaveLength(12);
     const monthStart = `${today.slice(0, 7)}-01`;
-    expect(o.usageByMonth[11]).toEqual({ month: today.slice(0, 7), byKind: [{ kind: 'cleaner', litres: 2 }], totalLitres: 2 });
-    expect(o.usageByMonth[8]).toEqual({ month: addMonths(monthStart, -3).slice(0, 7), byKind: [{ kind: 'inhibitor', litres: 1.5 }], totalLitres: 1.5 });
+    expect(o.usageByMonth[11]).toEqual({
+      month: today.slice(0, 7),
+      byKind: [{ kind: 'cleaner', litres: 2 }],
+      totalLitres: 2,
+    });
+    expect(o.usageByMonth[8]).toEqual({
+      month: addMonths(monthStart, -3).slice(0, 7),
+      byKind: [{ kind: 'inhibitor', litres: 1.5 }],
+      totalLitres: 1.5,
+    });
     expect(o.usageByMonth[0].month).toBe(addMonths(monthStart, -11).slice(0, 7));
     expect(o.usageByMonth.reduce((n: number, m: { totalLitres: number }) => n + m.totalLitres, 0)).toBe(3.5);
 
-    expect(o.reminders.map((r: { summary: string }) => r.summary)).toEqual(['Reminder 11', 'Reminder 10', 'Reminder 9', 'Reminder 8', 'Reminder 7', 'Reminder 6', 'Reminder 5', 'Reminder 4', 'Reminder 3', 'Reminder 2']);
+    expect(o.reminders.map((r: { summary: string }) => r.summary)).toEqual([
+      'Reminder 11',
+      'Reminder 10',
+      'Reminder 9',
+      'Reminder 8',
+      'Reminder 7',
+      'Reminder 6',
+      'Reminder 5',
+      'Reminder 4',
+      'Reminder 3',
+      'Reminder 2',
+    ]);
 
     // 2 x 10^2 x 0.5 h = 100 points: the exposure action value (HSE points system).
     expect(o.hav.engineers).toHaveLength(2);
-    expect(o.hav.engineers[0]).toMatchObject({ memberId: firm.people.engineer.memberId, points: 100, level: 'above_action' });
+    expect(o.hav.engineers[0]).toMatchObject({
+      memberId: firm.people.engineer.memberId,
+      points: 100,
+      level: 'above_action',
+    });
     expect(o.hav.engineers[1]).toMatchObject({ memberId: firm.target.memberId, points: 0, level: 'low' });
   });
 
@@ -160,7 +320,14 @@ describe('owner overview', () => {
     const today = calendarDateIn(t.clock.now(), 'Europe/London');
     const year = Number(today.slice(5, 7)) >= 8 ? Number(today.slice(0, 4)) : Number(today.slice(0, 4)) - 1;
     await t.deps.db('stock_movements').insert({
-      firm_id: firm.firmId, group_id: randomUUID(), kind: 'used', location_id: firm.van.id, product_id: firm.product.id, batch_id: firm.product.batchId, quantity_delta: -1, by_user_id: firm.people.owner.userId,
+      firm_id: firm.firmId,
+      group_id: randomUUID(),
+      kind: 'used',
+      location_id: firm.van.id,
+      product_id: firm.product.id,
+      batch_id: firm.product.batchId,
+      quantity_delta: -1,
+      by_user_id: firm.people.owner.userId,
       created_at: new Date(`${year}-06-30T23:30:00Z`),
     });
     const owner = await signIn(t.app, firm.people.owner.email);
@@ -175,7 +342,9 @@ describe('owner overview', () => {
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const o = (await engineer.get('/api/overview').expect(200)).body.overview;
     expect(o.reminders).toBeNull();
-    expect(o.hav.engineers).toEqual([expect.objectContaining({ memberId: firm.people.engineer.memberId, points: 100 })]);
+    expect(o.hav.engineers).toEqual([
+      expect.objectContaining({ memberId: firm.people.engineer.memberId, points: 100 }),
+    ]);
   });
 
   it('shows only the signed-in firm\u2019s figures', async () => {

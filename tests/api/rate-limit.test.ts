@@ -24,7 +24,9 @@ describe('failed sign-ins are rate limited (default limits)', () => {
     expect(limited.body.error).toBe('TooManyRequests');
     // Another account from the same address is not affected by this account's lock.
     const other = await signUpFirm(t.app, 'limit-other');
-    expect((await new Client(t.app).post('/api/auth/sign-in', { email: other.email, password: TEST_PASSWORD })).status).toBe(200);
+    expect(
+      (await new Client(t.app).post('/api/auth/sign-in', { email: other.email, password: TEST_PASSWORD })).status,
+    ).toBe(200);
   });
 
   it('successful sign-ins do not count towards the limit', async () => {
@@ -43,14 +45,18 @@ describe('per address, and never for good', () => {
       const victim = await signUpFirm(t.app, 'limit-victim');
       const attacker = new Client(t.app);
       for (let i = 0; i < 5; i += 1) {
-        expect((await attacker.post('/api/auth/sign-in', { email: uniqueEmail('spray'), password: WRONG })).status).toBe(401);
+        expect(
+          (await attacker.post('/api/auth/sign-in', { email: uniqueEmail('spray'), password: WRONG })).status,
+        ).toBe(401);
       }
       const sprayed = await attacker.post('/api/auth/sign-in', { email: uniqueEmail('spray'), password: WRONG });
       expect(sprayed.status).toBe(429);
       expect(sprayed.body.message).toMatch(/from this network/);
       // The lock is a window: once it passes the victim's right password works again.
       await new Promise((r) => setTimeout(r, windowMs + 200));
-      expect((await new Client(t.app).post('/api/auth/sign-in', { email: victim.email, password: TEST_PASSWORD })).status).toBe(200);
+      expect(
+        (await new Client(t.app).post('/api/auth/sign-in', { email: victim.email, password: TEST_PASSWORD })).status,
+      ).toBe(200);
     } finally {
       await t.close();
     }

@@ -17,7 +17,9 @@ const today = () => todayOn(t.clock);
 describe('annual check reminders', () => {
   it('reminds the office of customers whose annual check falls within 30 days, once, and not when switched off', async () => {
     const firm = await seedBareFirm(t, 'annual');
-    const [customerId] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'Annual Test Customer' })) as number[];
+    const [customerId] = (await t.deps
+      .db('customers')
+      .insert({ firm_id: firm.firmId, name: 'Annual Test Customer' })) as number[];
     const soon = addDays(today(), 20);
     const later = addDays(today(), 45);
     await t.deps.db('sites').insert([
@@ -34,9 +36,17 @@ describe('annual check reminders', () => {
     expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);
 
     const owner = await signIn(t.app, firm.people.owner.email);
-    const saved = await owner.put('/api/reminder-settings', { scanHour: 7, inspectionReminders: true, vanReminders: true, annualCheckReminders: false });
+    const saved = await owner.put('/api/reminder-settings', {
+      scanHour: 7,
+      inspectionReminders: true,
+      vanReminders: true,
+      annualCheckReminders: false,
+    });
     expect(saved.status).toBe(200);
-    await t.deps.db('sites').where({ firm_id: firm.firmId, address: '9 Later Lane' }).update({ next_check_on: addDays(today(), 5) });
+    await t.deps
+      .db('sites')
+      .where({ firm_id: firm.firmId, address: '9 Later Lane' })
+      .update({ next_check_on: addDays(today(), 5) });
     expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);
     expect(await findEmails(firm.people.engineer.email)).toHaveLength(0);
   });
@@ -44,8 +54,12 @@ describe('annual check reminders', () => {
   it('tells the customer too, once, only where the firm has turned it on and the customer has an e-mail', async () => {
     const firm = await seedBareFirm(t, 'annual-customer');
     const customerEmail = uniqueEmail('householder');
-    const [withEmail] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'Rowan Householder', email: customerEmail })) as number[];
-    const [withoutEmail] = (await t.deps.db('customers').insert({ firm_id: firm.firmId, name: 'No Mail Customer' })) as number[];
+    const [withEmail] = (await t.deps
+      .db('customers')
+      .insert({ firm_id: firm.firmId, name: 'Rowan Householder', email: customerEmail })) as number[];
+    const [withoutEmail] = (await t.deps
+      .db('customers')
+      .insert({ firm_id: firm.firmId, name: 'No Mail Customer' })) as number[];
     const due = addDays(today(), 10);
     await t.deps.db('sites').insert([
       { firm_id: firm.firmId, customer_id: withEmail, address: '3 Sludge Row', next_check_on: due },
@@ -58,7 +72,12 @@ describe('annual check reminders', () => {
     await waitForEmail(firm.people.owner.email, { subject: /annual checks/ });
     expect(await findEmails(customerEmail)).toHaveLength(0);
 
-    const saved = await owner.put('/api/reminder-settings', { scanHour: 7, inspectionReminders: true, vanReminders: true, annualCheckCustomerEmails: true });
+    const saved = await owner.put('/api/reminder-settings', {
+      scanHour: 7,
+      inspectionReminders: true,
+      vanReminders: true,
+      annualCheckCustomerEmails: true,
+    });
     expect(saved.status).toBe(200);
     // The next period (the date reset by a later check) is a new reminder, and now the customer hears of it.
     const nextDue = addDays(today(), 12);

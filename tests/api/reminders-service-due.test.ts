@@ -53,7 +53,9 @@ describe('service-due reminders', () => {
     // 30 days ahead for MOT and service: common practice (no source).
     expect(VAN_DUE_WINDOW_DAYS).toBe(30);
     expect(north.text).toContain(`RT-H1 (Hose set, on Van-North): inspection overdue since ${addDays(seededOn, -10)}`);
-    expect(north.text).toContain('RT-M1 (Magnet set, on Van-North): inspection overdue: used 3 times since the last one (rule: every 3 uses)');
+    expect(north.text).toContain(
+      'RT-M1 (Magnet set, on Van-North): inspection overdue: used 3 times since the last one (rule: every 3 uses)',
+    );
     const south = await onlyEmailTo(firm.target.email, /reminder/);
     expect(digestKeys(south)).toEqual(['RT-H2', 'Van-South service']);
     expect(south.text).toContain(`RT-H2 (Hose set, on Van-South): inspection due by ${addDays(seededOn, 5)}`);
@@ -61,7 +63,11 @@ describe('service-due reminders', () => {
     // The Admin manages settings but is not on the digest: Owner and Stores are the ones who watch stock and kit.
     expect(await reminderEmailsTo(firm.people.admin.email)).toHaveLength(0);
 
-    const periods = await t.deps.db('reminders').where({ firm_id: firm.firmId }).orderBy('id').select('kind', 'subject_type', 'subject_id', 'period_key');
+    const periods = await t.deps
+      .db('reminders')
+      .where({ firm_id: firm.firmId })
+      .orderBy('id')
+      .select('kind', 'subject_type', 'subject_id', 'period_key');
     expect(periods).toEqual(
       expect.arrayContaining([
         { kind: 'inspection_due', subject_type: 'kit_item', subject_id: ids.h1, period_key: addDays(seededOn, -10) },
@@ -69,20 +75,43 @@ describe('service-due reminders', () => {
         { kind: 'mot_due', subject_type: 'van', subject_id: ids.north, period_key: addDays(seededOn, 10) },
       ]),
     );
-    expect(await t.deps.db('reminder_deliveries').where({ firm_id: firm.firmId }).count({ n: '*' })).toEqual([{ n: 6 + 6 + 3 + 2 }]);
+    expect(await t.deps.db('reminder_deliveries').where({ firm_id: firm.firmId }).count({ n: '*' })).toEqual([
+      { n: 6 + 6 + 3 + 2 },
+    ]);
   });
 
   it('lists what was sent to whom on the Reminders page, for Owner, Admin and Stores only', async () => {
     const { firm, ids } = await seedScannedFleetFirm();
     const stores = await signIn(t.app, firm.people.stores.email);
     const res = await stores.get('/api/reminders').expect(200);
-    const reminders = res.body.reminders as { recipient: string; summary: string; kind: string; subjectType: string; subjectId: number; sentAt: string | null }[];
+    const reminders = res.body.reminders as {
+      recipient: string;
+      summary: string;
+      kind: string;
+      subjectType: string;
+      subjectId: number;
+      sentAt: string | null;
+    }[];
     expect(reminders).toHaveLength(17);
     expect(reminders).toContainEqual(
-      expect.objectContaining({ recipient: firm.people.engineer.email, kind: 'mot_due', subjectType: 'van', subjectId: ids.north }),
+      expect.objectContaining({
+        recipient: firm.people.engineer.email,
+        kind: 'mot_due',
+        subjectType: 'van',
+        subjectId: ids.north,
+      }),
     );
-    expect(reminders.filter((r) => r.recipient === firm.people.engineer.email).map((r) => r.summary).sort()).toEqual(
-      expect.arrayContaining([expect.stringContaining('RT-H1'), expect.stringContaining('RT-M1'), expect.stringContaining('Van-North')]),
+    expect(
+      reminders
+        .filter((r) => r.recipient === firm.people.engineer.email)
+        .map((r) => r.summary)
+        .sort(),
+    ).toEqual(
+      expect.arrayContaining([
+        expect.stringContaining('RT-H1'),
+        expect.stringContaining('RT-M1'),
+        expect.stringContaining('Van-North'),
+      ]),
     );
     await waitFor('every digest marked sent', async () => {
       const again = await stores.get('/api/reminders').expect(200);
@@ -98,11 +127,20 @@ describe('service-due reminders', () => {
     expect(again).toEqual({ reminders: 0, emails: 0, ran: true });
 
     // A worker starting up runs the sweep at once; it scans the firm (its scan hour has come) and finds nothing new.
-    const first = startReminderWorker({ env: t.deps.env, db: t.deps.db, logger: t.deps.logger, clock: t.clock, firmIds: [firm.firmId] });
+    const first = startReminderWorker({
+      env: t.deps.env,
+      db: t.deps.db,
+      logger: t.deps.logger,
+      clock: t.clock,
+      firmIds: [firm.firmId],
+    });
     try {
       await first.ready;
       const schedulers = await first.queue.getJobSchedulers();
-      expect(schedulers.find((s) => s.key === 'reminder-sweep')).toMatchObject({ pattern: '0 * * * *', tz: 'Europe/London' });
+      expect(schedulers.find((s) => s.key === 'reminder-sweep')).toMatchObject({
+        pattern: '0 * * * *',
+        tz: 'Europe/London',
+      });
       await waitFor('the start-up sweep to mark today scanned', async () => {
         const row = await t.deps.db('reminder_settings').where({ firm_id: firm.firmId }).first('last_scan_on');
         return row?.last_scan_on === today() ? true : undefined;
@@ -113,8 +151,20 @@ describe('service-due reminders', () => {
 
     // The worker was down for a day; meanwhile a van was added whose MOT is 5 days off.
     t.clock.advance(DAY_MS);
-    const east = await addVan(t, firm, { name: 'Van-East', registration: 'RT33 EST', engineerMemberId: firm.people.engineer.memberId, motDueOn: addDays(seededOn, 5), serviceDueOn: null });
-    const second = startReminderWorker({ env: t.deps.env, db: t.deps.db, logger: t.deps.logger, clock: t.clock, firmIds: [firm.firmId] });
+    const east = await addVan(t, firm, {
+      name: 'Van-East',
+      registration: 'RT33 EST',
+      engineerMemberId: firm.people.engineer.memberId,
+      motDueOn: addDays(seededOn, 5),
+      serviceDueOn: null,
+    });
+    const second = startReminderWorker({
+      env: t.deps.env,
+      db: t.deps.db,
+      logger: t.deps.logger,
+      clock: t.clock,
+      firmIds: [firm.firmId],
+    });
     try {
       await waitFor('the restarted worker to catch up the missed day', async () => {
         const row = await t.deps.db('reminder_settings').where({ firm_id: firm.firmId }).first('last_scan_on');
@@ -125,12 +175,22 @@ describe('service-due reminders', () => {
     }
     const caughtUp = await waitForEmail(firm.people.owner.email, { subject: /1 reminder / });
     expect(digestKeys(caughtUp)).toEqual(['Van-East MOT']);
-    expect(await t.deps.db('reminders').where({ firm_id: firm.firmId, subject_type: 'van', subject_id: east })).toHaveLength(1);
+    expect(
+      await t.deps.db('reminders').where({ firm_id: firm.firmId, subject_type: 'van', subject_id: east }),
+    ).toHaveLength(1);
 
     // A third start on the same day: already scanned, so no scan and nothing sent.
-    const third = startReminderWorker({ env: t.deps.env, db: t.deps.db, logger: t.deps.logger, clock: t.clock, firmIds: [firm.firmId] });
+    const third = startReminderWorker({
+      env: t.deps.env,
+      db: t.deps.db,
+      logger: t.deps.logger,
+      clock: t.clock,
+      firmIds: [firm.firmId],
+    });
     try {
-      const swept = await new Promise<unknown>((resolve) => third.worker.once('completed', (_job, result) => resolve(result)));
+      const swept = await new Promise<unknown>((resolve) =>
+        third.worker.once('completed', (_job, result) => resolve(result)),
+      );
       expect(swept).toEqual({ firms: 0, reminders: 0 });
     } finally {
       await third.close();
@@ -144,7 +204,13 @@ describe('service-due reminders', () => {
 
   it('two scans racing each other send each reminder once', async () => {
     const racer = await seedBareFirm(t, 'reminders-race');
-    await addVan(t, racer, { name: 'Van-Race', registration: 'RT44 RCE', engineerMemberId: racer.people.engineer.memberId, motDueOn: addDays(today(), 3), serviceDueOn: null });
+    await addVan(t, racer, {
+      name: 'Van-Race',
+      registration: 'RT44 RCE',
+      engineerMemberId: racer.people.engineer.memberId,
+      motDueOn: addDays(today(), 3),
+      serviceDueOn: null,
+    });
     const results = await Promise.all([1, 2, 3].map(() => runReminderScan(t.deps, racer.firmId, t.clock.now())));
     expect(results.map((r) => r.reminders).sort()).toEqual([0, 0, 1]);
     await onlyEmailTo(racer.people.owner.email, /reminder/);
@@ -167,23 +233,59 @@ describe('service-due reminders', () => {
     const latest = await waitForEmail(firm.people.engineer.email, { subject: /2 reminders/ });
     expect(digestKeys(latest)).toEqual(['RT-H1', 'RT-M1']);
     expect(latest.text).toContain(`RT-H1 (Hose set, on Van-North): inspection due by ${nextDue}`);
-    const periods = await t.deps.db('reminders').where({ firm_id: firm.firmId, subject_id: ids.m1, kind: 'inspection_due' }).orderBy('id').pluck('period_key');
+    const periods = await t.deps
+      .db('reminders')
+      .where({ firm_id: firm.firmId, subject_id: ids.m1, kind: 'inspection_due' })
+      .orderBy('id')
+      .pluck('period_key');
     expect(periods).toEqual(['uses:0', 'uses:1']);
     expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toMatchObject({ reminders: 0 });
   });
   it('a kind of reminder switched off sends none of it; switched on, it is reminded from then', async () => {
     const other = await seedBareFirm(t, 'reminders-switch');
-    await addVan(t, other, { name: 'Van-West', registration: 'RT55 WST', engineerMemberId: other.people.engineer.memberId, motDueOn: addDays(today(), 10), serviceDueOn: null });
+    await addVan(t, other, {
+      name: 'Van-West',
+      registration: 'RT55 WST',
+      engineerMemberId: other.people.engineer.memberId,
+      motDueOn: addDays(today(), 10),
+      serviceDueOn: null,
+    });
     const hoses = await addKind(t, other, { name: 'Hose set', intervalDays: 30, intervalUses: null, dueSoonDays: 7 });
-    await addItem(t, other, { tag: 'SW-H1', kindId: hoses, locationId: (await t.deps.db('locations').where({ firm_id: other.firmId }).first('id')).id, inServiceSince: addDays(today(), -40) });
+    await addItem(t, other, {
+      tag: 'SW-H1',
+      kindId: hoses,
+      locationId: (await t.deps.db('locations').where({ firm_id: other.firmId }).first('id')).id,
+      inServiceSince: addDays(today(), -40),
+    });
 
     const admin = await signIn(t.app, other.people.admin.email);
     const defaults = await admin.get('/api/reminder-settings').expect(200);
-    expect(defaults.body.settings).toEqual({ scanHour: 7, inspectionReminders: true, vanReminders: true, stockReminders: true, annualCheckReminders: true, annualCheckCustomerEmails: false, lastScanOn: null });
-    const off = await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: false, vanReminders: true });
+    expect(defaults.body.settings).toEqual({
+      scanHour: 7,
+      inspectionReminders: true,
+      vanReminders: true,
+      stockReminders: true,
+      annualCheckReminders: true,
+      annualCheckCustomerEmails: false,
+      lastScanOn: null,
+    });
+    const off = await admin.put('/api/reminder-settings', {
+      scanHour: 6,
+      inspectionReminders: false,
+      vanReminders: true,
+    });
     expect(off.status).toBe(200);
-    expect(off.body.settings).toMatchObject({ scanHour: 6, inspectionReminders: false, vanReminders: true, stockReminders: true });
-    const bad = await admin.put('/api/reminder-settings', { scanHour: 24, inspectionReminders: false, vanReminders: true });
+    expect(off.body.settings).toMatchObject({
+      scanHour: 6,
+      inspectionReminders: false,
+      vanReminders: true,
+      stockReminders: true,
+    });
+    const bad = await admin.put('/api/reminder-settings', {
+      scanHour: 24,
+      inspectionReminders: false,
+      vanReminders: true,
+    });
     expect(bad.status).toBe(422);
 
     const scan = await admin.post('/api/reminders/scan');
@@ -192,10 +294,21 @@ describe('service-due reminders', () => {
     const vansOnly = await onlyEmailTo(other.people.owner.email, /reminder/);
     expect(digestKeys(vansOnly)).toEqual(['Van-West MOT']);
 
-    expect((await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: true, vanReminders: false })).status).toBe(200);
-    await addVan(t, other, { name: 'Van-Quiet', registration: 'RT66 QUT', engineerMemberId: other.target.memberId, motDueOn: addDays(today(), 2), serviceDueOn: null });
+    expect(
+      (await admin.put('/api/reminder-settings', { scanHour: 6, inspectionReminders: true, vanReminders: false }))
+        .status,
+    ).toBe(200);
+    await addVan(t, other, {
+      name: 'Van-Quiet',
+      registration: 'RT66 QUT',
+      engineerMemberId: other.target.memberId,
+      motDueOn: addDays(today(), 2),
+      serviceDueOn: null,
+    });
     expect((await admin.post('/api/reminders/scan')).body).toEqual({ sent: 1 });
-    await waitFor('the second digest', async () => ((await reminderEmailsTo(other.people.owner.email)).length === 2 ? true : undefined));
+    await waitFor('the second digest', async () =>
+      (await reminderEmailsTo(other.people.owner.email)).length === 2 ? true : undefined,
+    );
     const second = (await reminderEmailsTo(other.people.owner.email)).find((m) => m.text.includes('SW-H1'));
     expect(second && digestKeys(second)).toEqual(['SW-H1']);
     expect(await t.deps.db('reminders').where({ firm_id: other.firmId, kind: 'mot_due' })).toHaveLength(1);

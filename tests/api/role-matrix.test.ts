@@ -139,7 +139,10 @@ describe('role matrix', () => {
         const res = await callProbe(client, route, firm);
         const expectAllowed = allowed[routeKey(route)]!.includes(role);
         const ok = expectAllowed ? res.status !== 403 && res.status !== 401 && res.status < 500 : res.status === 403;
-        if (!ok) outcomes.push(`${routeKey(route)}: expected ${expectAllowed ? 'allowed' : '403'}, got ${res.status} ${res.body?.message ?? ''}`);
+        if (!ok)
+          outcomes.push(
+            `${routeKey(route)}: expected ${expectAllowed ? 'allowed' : '403'}, got ${res.status} ${res.body?.message ?? ''}`,
+          );
       }
       expect(outcomes).toEqual([]);
       // A fresh firm per route makes this grow with the route list (over 100 routes: about 30 s a role on 2 cores).

@@ -6,7 +6,16 @@ import express from 'express';
 import request from 'supertest';
 import { parse } from 'csv-parse/sync';
 import { apiErrorBodySchema, dosePlan } from '@heatfleet/domain';
-import { Client, createTestApp, linkTokenFromEmail, signIn, signUpFirm, TEST_PASSWORD, uniqueEmail, type TestApp } from './support/test-app.ts';
+import {
+  Client,
+  createTestApp,
+  linkTokenFromEmail,
+  signIn,
+  signUpFirm,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type TestApp,
+} from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
 
 // Each case here was found by a security probe of the running app (issue 10) and failed before its fix.
@@ -29,11 +38,21 @@ describe('sign-up is not a password oracle', () => {
     const firmsBefore = (await t.deps.db('firms').count({ n: '*' }).first())!.n;
     const fresh = new Client(t.app);
     const fresher = uniqueEmail('oracle-new');
-    const forNew = await fresh.post('/api/auth/sign-up', { firmName: 'Brand New Ltd', name: 'New', email: fresher, password: 'granite orchard lantern' });
+    const forNew = await fresh.post('/api/auth/sign-up', {
+      firmName: 'Brand New Ltd',
+      name: 'New',
+      email: fresher,
+      password: 'granite orchard lantern',
+    });
     const attempts = [];
     for (const password of ['a wrong guess 123', TEST_PASSWORD]) {
       const attacker = new Client(t.app);
-      const res = await attacker.post('/api/auth/sign-up', { firmName: 'Takeover Ltd', name: 'Mallory', email: owner.email, password });
+      const res = await attacker.post('/api/auth/sign-up', {
+        firmName: 'Takeover Ltd',
+        name: 'Mallory',
+        email: owner.email,
+        password,
+      });
       attempts.push(res);
       // No session for the attacker, whichever password they gave.
       expect((await attacker.get('/api/me')).status).toBe(401);
@@ -56,7 +75,16 @@ describe('sign-up is not a password oracle', () => {
   it('a confirmation link creates the account and firm once, then is spent', async () => {
     const client = new Client(t.app);
     const email = uniqueEmail('confirm');
-    expect((await client.post('/api/auth/sign-up', { firmName: 'Confirmed Heating', name: 'Cass', email, password: 'granite orchard lantern' })).status).toBe(202);
+    expect(
+      (
+        await client.post('/api/auth/sign-up', {
+          firmName: 'Confirmed Heating',
+          name: 'Cass',
+          email,
+          password: 'granite orchard lantern',
+        })
+      ).status,
+    ).toBe(202);
     expect(await t.deps.db('users').where({ email }).first()).toBeUndefined();
     const token = await linkTokenFromEmail(t.app, email, 'sign-up/confirm');
     const done = await client.post('/api/auth/sign-up/confirm', { token });
@@ -80,8 +108,13 @@ describe('sign-up is not a password oracle', () => {
       expect(perAccount.body.message).toMatch(/for this e-mail address/);
       expect(Number(perAccount.headers['retry-after'])).toBeGreaterThan(0);
       // The address has now made 3 counted requests (the 429 above counted too): one more is let through, then refused.
-      expect((await new Client(limited.app).post('/api/auth/sign-up', { ...body, email: uniqueEmail('flood2') })).status).toBe(202);
-      const perAddress = await new Client(limited.app).post('/api/auth/sign-up', { ...body, email: uniqueEmail('flood3') });
+      expect(
+        (await new Client(limited.app).post('/api/auth/sign-up', { ...body, email: uniqueEmail('flood2') })).status,
+      ).toBe(202);
+      const perAddress = await new Client(limited.app).post('/api/auth/sign-up', {
+        ...body,
+        email: uniqueEmail('flood3'),
+      });
       expect(perAddress.status).toBe(429);
       expect(perAddress.body.message).toMatch(/from this network/);
       // Each 202 wrote one e-mail; nothing was written for a refused request.
@@ -97,7 +130,11 @@ describe('rate limits on every route that takes a secret or sends mail', () => {
     const limited = createTestApp({ limits: { resetsPerAddress: 3 } });
     try {
       const statuses = [];
-      for (let i = 0; i < 4; i += 1) statuses.push((await new Client(limited.app).post('/api/auth/password-reset', { email: uniqueEmail('reset-flood') })).status);
+      for (let i = 0; i < 4; i += 1)
+        statuses.push(
+          (await new Client(limited.app).post('/api/auth/password-reset', { email: uniqueEmail('reset-flood') }))
+            .status,
+        );
       expect(statuses).toEqual([202, 202, 202, 429]);
     } finally {
       await limited.close();
@@ -109,13 +146,27 @@ describe('rate limits on every route that takes a secret or sends mail', () => {
     try {
       const badToken = 'z'.repeat(43);
       const tries = [];
-      for (let i = 0; i < 3; i += 1) tries.push((await new Client(limited.app).post('/api/auth/password-reset/confirm', { token: badToken, password: 'granite orchard lantern' })).status);
+      for (let i = 0; i < 3; i += 1)
+        tries.push(
+          (
+            await new Client(limited.app).post('/api/auth/password-reset/confirm', {
+              token: badToken,
+              password: 'granite orchard lantern',
+            })
+          ).status,
+        );
       expect(tries).toEqual([400, 400, 429]);
       // Other links from the same address: the address limit (5 failures) is reached on the way.
       const signUpTries = [];
-      for (let i = 0; i < 3; i += 1) signUpTries.push((await new Client(limited.app).post('/api/auth/sign-up/confirm', { token: `${'q'.repeat(40)}${i}ab` })).status);
+      for (let i = 0; i < 3; i += 1)
+        signUpTries.push(
+          (await new Client(limited.app).post('/api/auth/sign-up/confirm', { token: `${'q'.repeat(40)}${i}ab` }))
+            .status,
+        );
       expect(signUpTries).toEqual([400, 400, 429]);
-      const invitation = await new Client(limited.app).post(`/api/invitations/by-token/${'w'.repeat(43)}/accept`, { password: 'granite orchard lantern' });
+      const invitation = await new Client(limited.app).post(`/api/invitations/by-token/${'w'.repeat(43)}/accept`, {
+        password: 'granite orchard lantern',
+      });
       expect(invitation.status).toBe(429);
     } finally {
       await limited.close();
@@ -127,7 +178,10 @@ describe('rate limits on every route that takes a secret or sends mail', () => {
     try {
       const { client } = await signUpFirm(limited.app, 'invite-flood');
       const statuses = [];
-      for (let i = 0; i < 3; i += 1) statuses.push((await client.post('/api/invitations', { email: uniqueEmail('invitee'), role: 'engineer' })).status);
+      for (let i = 0; i < 3; i += 1)
+        statuses.push(
+          (await client.post('/api/invitations', { email: uniqueEmail('invitee'), role: 'engineer' })).status,
+        );
       expect(statuses).toEqual([201, 201, 429]);
     } finally {
       await limited.close();
@@ -139,10 +193,25 @@ describe('rate limits on every route that takes a secret or sends mail', () => {
     try {
       const { client } = await signUpFirm(limited.app, 'change-flood');
       const statuses = [];
-      for (let i = 0; i < 4; i += 1) statuses.push((await client.put('/api/me/password', { currentPassword: `guess number ${i}`, newPassword: 'granite orchard lantern' })).status);
+      for (let i = 0; i < 4; i += 1)
+        statuses.push(
+          (
+            await client.put('/api/me/password', {
+              currentPassword: `guess number ${i}`,
+              newPassword: 'granite orchard lantern',
+            })
+          ).status,
+        );
       expect(statuses).toEqual([422, 422, 422, 429]);
       // The right password is refused too until the window passes: the limit is on the account.
-      expect((await client.put('/api/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'granite orchard lantern' })).status).toBe(429);
+      expect(
+        (
+          await client.put('/api/me/password', {
+            currentPassword: TEST_PASSWORD,
+            newPassword: 'granite orchard lantern',
+          })
+        ).status,
+      ).toBe(429);
     } finally {
       await limited.close();
     }
@@ -159,20 +228,47 @@ describe('password-reset links', () => {
     const { email } = await signUpFirm(t.app, 'links');
     const first = await askReset(email);
     const second = await askReset(email);
-    const old = await new Client(t.app).post('/api/auth/password-reset/confirm', { token: first, password: 'granite orchard lantern' });
+    const old = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token: first,
+      password: 'granite orchard lantern',
+    });
     expect(old.status).toBe(400);
-    expect((await new Client(t.app).post('/api/auth/password-reset/confirm', { token: second, password: 'granite orchard lantern' })).status).toBe(200);
-    expect((await new Client(t.app).post('/api/auth/password-reset/confirm', { token: second, password: 'copper kettle meadow' })).status).toBe(400);
-    expect((await new Client(t.app).post('/api/auth/sign-in', { email, password: 'granite orchard lantern' })).status).toBe(200);
+    expect(
+      (
+        await new Client(t.app).post('/api/auth/password-reset/confirm', {
+          token: second,
+          password: 'granite orchard lantern',
+        })
+      ).status,
+    ).toBe(200);
+    expect(
+      (
+        await new Client(t.app).post('/api/auth/password-reset/confirm', {
+          token: second,
+          password: 'copper kettle meadow',
+        })
+      ).status,
+    ).toBe(400);
+    expect(
+      (await new Client(t.app).post('/api/auth/sign-in', { email, password: 'granite orchard lantern' })).status,
+    ).toBe(200);
   });
 
   it('a password change ends every open link', async () => {
     const { email, client } = await signUpFirm(t.app, 'links-change');
     const link = await askReset(email);
-    expect((await client.put('/api/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'granite orchard lantern' })).status).toBe(200);
-    const stale = await new Client(t.app).post('/api/auth/password-reset/confirm', { token: link, password: 'copper kettle meadow' });
+    expect(
+      (await client.put('/api/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'granite orchard lantern' }))
+        .status,
+    ).toBe(200);
+    const stale = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token: link,
+      password: 'copper kettle meadow',
+    });
     expect(stale.status).toBe(400);
-    expect((await new Client(t.app).post('/api/auth/sign-in', { email, password: 'granite orchard lantern' })).status).toBe(200);
+    expect(
+      (await new Client(t.app).post('/api/auth/sign-in', { email, password: 'granite orchard lantern' })).status,
+    ).toBe(200);
   });
 });
 
@@ -192,13 +288,19 @@ describe('malformed bodies answer 4xx with the one error body, never 500', () =>
   });
 
   it('an unknown Content-Encoding is 415', async () => {
-    const res = await post({ 'Content-Type': 'application/json', 'Content-Encoding': 'bogus' }, '{"email":"a@b.example"}');
+    const res = await post(
+      { 'Content-Type': 'application/json', 'Content-Encoding': 'bogus' },
+      '{"email":"a@b.example"}',
+    );
     expect(res.status).toBe(415);
     expect(apiErrorBodySchema.parse(res.body).error).toBe('UnsupportedMediaType');
   });
 
   it('gzip declared on a plain body is 400', async () => {
-    const res = await post({ 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' }, '{"email":"a@b.example"}');
+    const res = await post(
+      { 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' },
+      '{"email":"a@b.example"}',
+    );
     expect(res.status).toBe(400);
     expect(apiErrorBodySchema.parse(res.body).message).toBe('The request body could not be read.');
   });
@@ -225,13 +327,16 @@ describe('malformed bodies answer 4xx with the one error body, never 500', () =>
         socket.on('data', (chunk) => (answer += chunk.toString()));
         socket.on('end', () => resolve(answer));
         socket.on('error', reject);
-        socket.write(`POST /api/auth/sign-in HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Type: application/json\r\nContent-Length: 200\r\nConnection: close\r\n\r\n{"email":`);
+        socket.write(
+          `POST /api/auth/sign-in HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Type: application/json\r\nContent-Length: 200\r\nConnection: close\r\n\r\n{"email":`,
+        );
         // Half-close: the client sends no more, so the body stays 191 bytes short.
         socket.end();
       });
       // Node answers the broken request itself; the app's own decision for it is a 400 as well.
       expect(Number(/^HTTP\/1\.1 (\d{3})/.exec(raw)?.[1])).toBe(400);
-      for (let waited = 0; decided.length === 0 && waited < 3000; waited += 50) await new Promise((r) => setTimeout(r, 50));
+      for (let waited = 0; decided.length === 0 && waited < 3000; waited += 50)
+        await new Promise((r) => setTimeout(r, 50));
       expect(decided).toEqual([400]);
     } finally {
       server.close();
@@ -246,13 +351,18 @@ describe('an Idempotency-Key is tied to its request', () => {
     await engineer.refreshCsrf();
     const key = randomUUID();
     const send = (toLocationId: number) =>
-      engineer.agent.post(`/api/kits/${firm.kit.id}/check-out`).set('X-CSRF-Token', engineer.csrfToken).set('Idempotency-Key', key).send({ toLocationId });
+      engineer.agent
+        .post(`/api/kits/${firm.kit.id}/check-out`)
+        .set('X-CSRF-Token', engineer.csrfToken)
+        .set('Idempotency-Key', key)
+        .send({ toLocationId });
     const first = await send(firm.van.id);
     expect(first.status).toBe(200);
     const replay = await send(firm.van.id);
     expect(replay.status).toBe(200);
     expect(replay.body).toEqual(first.body);
-    const events = async () => (await t.deps.db('custody_events').where({ firm_id: firm.firmId }).count({ n: '*' }).first())!.n;
+    const events = async () =>
+      (await t.deps.db('custody_events').where({ firm_id: firm.firmId }).count({ n: '*' }).first())!.n;
     const before = await events();
     const other = await send(firm.spareVanId);
     expect(other.status).toBe(422);
@@ -273,7 +383,12 @@ describe('passwords', () => {
       [local, /e-mail address or its first part/],
       ['zzzzzzzzzzzzzz', /one character repeated/],
     ] as const) {
-      const res = await new Client(t.app).post('/api/auth/sign-up', { firmName: 'Weak Ltd', name: 'W', email, password });
+      const res = await new Client(t.app).post('/api/auth/sign-up', {
+        firmName: 'Weak Ltd',
+        name: 'W',
+        email,
+        password,
+      });
       expect(res.status, password).toBe(422);
       expect(res.body.details[0]).toEqual({ path: 'password', message: expect.stringMatching(message) });
     }
@@ -282,7 +397,10 @@ describe('passwords', () => {
 
   it('refuses a common password at a password change and a reset', async () => {
     const { client, email } = await signUpFirm(t.app, 'weak-change');
-    const change = await client.put('/api/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'leavemealone' });
+    const change = await client.put('/api/me/password', {
+      currentPassword: TEST_PASSWORD,
+      newPassword: 'leavemealone',
+    });
     expect(change.status).toBe(422);
     expect(change.body.details[0].path).toBe('newPassword');
     await new Client(t.app).post('/api/auth/password-reset', { email });
@@ -290,21 +408,39 @@ describe('passwords', () => {
     const reset = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: '123qweasdzxc' });
     expect(reset.status).toBe(422);
     // The refused attempt did not spend the link.
-    expect((await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'granite orchard lantern' })).status).toBe(200);
+    expect(
+      (await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'granite orchard lantern' }))
+        .status,
+    ).toBe(200);
   });
 });
 
 describe('names are one line of plain text', () => {
   it('refuses line breaks, control characters and web addresses in names that reach e-mails', async () => {
-    for (const firmName of ['Evil Ltd\r\nBcc: all@victims.example', 'Tab\tLtd', 'Visit https://phish.example now', 'Reverse \u202Etxt.exe']) {
-      const res = await new Client(t.app).post('/api/auth/sign-up', { firmName, name: 'N', email: uniqueEmail('names'), password: 'granite orchard lantern' });
+    for (const firmName of [
+      'Evil Ltd\r\nBcc: all@victims.example',
+      'Tab\tLtd',
+      'Visit https://phish.example now',
+      'Reverse \u202Etxt.exe',
+    ]) {
+      const res = await new Client(t.app).post('/api/auth/sign-up', {
+        firmName,
+        name: 'N',
+        email: uniqueEmail('names'),
+        password: 'granite orchard lantern',
+      });
       expect(res.status, firmName).toBe(422);
       expect(res.body.details[0].path).toBe('firmName');
     }
     const { client } = await signUpFirm(t.app, 'names-settings');
     const renamed = await client.put('/api/firm', { name: 'Line one\nLine two' });
     expect(renamed.status).toBe(422);
-    const person = await new Client(t.app).post('/api/auth/sign-up', { firmName: 'Fine Ltd', name: 'Eve\nIT support', email: uniqueEmail('names2'), password: 'granite orchard lantern' });
+    const person = await new Client(t.app).post('/api/auth/sign-up', {
+      firmName: 'Fine Ltd',
+      name: 'Eve\nIT support',
+      email: uniqueEmail('names2'),
+      password: 'granite orchard lantern',
+    });
     expect(person.status).toBe(422);
     expect(person.body.details[0].path).toBe('name');
   });
@@ -314,12 +450,35 @@ describe('quantities never round to zero, and no figure is ever Infinity', () =>
   it('refuses a pack size that would be stored as 0 ml', async () => {
     const firm = await seedFirm(t.deps.db, 'tiny-pack');
     const owner = await signIn(t.app, firm.people.owner.email);
-    for (const [packSize, packUnit] of [[0.0000001, 'ml'], [0.0000001, 'l'], [0.4, 'ml']] as const) {
-      const res = await owner.post('/api/products', { name: `Tiny ${packUnit} ${packSize}`, kind: 'cleaner', packSize, packUnit, doseLitresPer100L: 1 });
+    for (const [packSize, packUnit] of [
+      [0.0000001, 'ml'],
+      [0.0000001, 'l'],
+      [0.4, 'ml'],
+    ] as const) {
+      const res = await owner.post('/api/products', {
+        name: `Tiny ${packUnit} ${packSize}`,
+        kind: 'cleaner',
+        packSize,
+        packUnit,
+        doseLitresPer100L: 1,
+      });
       expect(res.status, `${packSize} ${packUnit}`).toBe(422);
-      expect(res.body.details[0]).toEqual({ path: 'packSize', message: 'Pack size must be at least 1 ml (0.001 litres).' });
+      expect(res.body.details[0]).toEqual({
+        path: 'packSize',
+        message: 'Pack size must be at least 1 ml (0.001 litres).',
+      });
     }
-    expect((await owner.post('/api/products', { name: 'Smallest pack', kind: 'cleaner', packSize: 0.001, packUnit: 'l', doseLitresPer100L: 1 })).status).toBe(201);
+    expect(
+      (
+        await owner.post('/api/products', {
+          name: 'Smallest pack',
+          kind: 'cleaner',
+          packSize: 0.001,
+          packUnit: 'l',
+          doseLitresPer100L: 1,
+        })
+      ).status,
+    ).toBe(201);
   });
 
   it('the dose plan gives no pack count rather than Infinity for a zero pack size already stored', () => {
@@ -335,16 +494,46 @@ describe('calendar dates are bounded to a sane range for what each one is', () =
     const firm = await seedFirm(t.deps.db, 'dates');
     const owner = await signIn(t.app, firm.people.owner.email);
     const cases: [string, () => Promise<request.Response>, string][] = [
-      ['scheduledOn', () => owner.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '0999-03-01', survey: {} }), 'scheduledOn'],
+      [
+        'scheduledOn',
+        () => owner.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '0999-03-01', survey: {} }),
+        'scheduledOn',
+      ],
       ['motDueOn', () => owner.patch(`/api/vans/${firm.van.id}`, { motDueOn: '0000-01-01' }), 'motDueOn'],
-      ['expiresOn', () => owner.post('/api/stock/receipts', { locationId: firm.depotId, lines: [{ productId: firm.product.id, lotNumber: 'L-OLD', expiresOn: '0500-06-30', quantity: 1 }] }), 'lines.0.expiresOn'],
-      ['inspectedOn', () => owner.post(`/api/kit-items/${firm.looseItemId}/inspections`, { result: 'passed', inspectedOn: '0999-01-01' }), 'inspectedOn'],
-      ['inServiceSince', () => owner.post('/api/kit-items', { kindId: firm.kindId, assetTag: `DT-${Date.now()}`, locationId: firm.depotId, inServiceSince: '9999-12-31' }), 'inServiceSince'],
+      [
+        'expiresOn',
+        () =>
+          owner.post('/api/stock/receipts', {
+            locationId: firm.depotId,
+            lines: [{ productId: firm.product.id, lotNumber: 'L-OLD', expiresOn: '0500-06-30', quantity: 1 }],
+          }),
+        'lines.0.expiresOn',
+      ],
+      [
+        'inspectedOn',
+        () =>
+          owner.post(`/api/kit-items/${firm.looseItemId}/inspections`, { result: 'passed', inspectedOn: '0999-01-01' }),
+        'inspectedOn',
+      ],
+      [
+        'inServiceSince',
+        () =>
+          owner.post('/api/kit-items', {
+            kindId: firm.kindId,
+            assetTag: `DT-${Date.now()}`,
+            locationId: firm.depotId,
+            inServiceSince: '9999-12-31',
+          }),
+        'inServiceSince',
+      ],
     ];
     for (const [what, call, path] of cases) {
       const res = await call();
       expect(res.status, what).toBe(422);
-      expect(res.body.details.map((d: { path: string }) => d.path), what).toContain(path);
+      expect(
+        res.body.details.map((d: { path: string }) => d.path),
+        what,
+      ).toContain(path);
     }
   });
 });
@@ -376,8 +565,15 @@ describe('photos are not kept in a shared browser', () => {
   it('serves a photo with Cache-Control: no-store', async () => {
     const firm = await seedFirm(t.deps.db, 'photo-cache');
     const owner = await signIn(t.app, firm.people.owner.email);
-    const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
-    const upload = await owner.upload('/api/photos', { itemId: String(firm.looseItemId) }, { field: 'photo', content: png, filename: 'dot.png', contentType: 'image/png' });
+    const png = Buffer.from(
+      'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==',
+      'base64',
+    );
+    const upload = await owner.upload(
+      '/api/photos',
+      { itemId: String(firm.looseItemId) },
+      { field: 'photo', content: png, filename: 'dot.png', contentType: 'image/png' },
+    );
     expect(upload.status).toBe(201);
     const res = await owner.get(`/api/photos/${upload.body.photo.id}/content`);
     expect(res.status).toBe(200);
@@ -389,7 +585,12 @@ describe('CSV cells cannot smuggle a formula past a separator', () => {
   it('quotes every text cell and neutralises a trigger after a semicolon', async () => {
     const firm = await seedFirm(t.deps.db, 'csv-semicolon');
     const stores = await signIn(t.app, firm.people.stores.email);
-    await stores.post('/api/stock/usages', { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaner;=1+1' });
+    await stores.post('/api/stock/usages', {
+      locationId: firm.van.id,
+      productId: firm.product.id,
+      quantity: 1,
+      reason: 'Cleaner;=1+1',
+    });
     const csv = await stores.get(`/api/stock/movements.csv?productId=${firm.product.id}`).expect(200);
     const used = (parse(csv.text, { columns: true }) as Record<string, string>[]).find((r) => r.kind === 'used')!;
     expect(used.reason).toBe("'Cleaner;=1+1");

@@ -12,7 +12,14 @@ afterAll(() => t.close());
 /** An inhibitor whose target range is 100 to 300 ppm (invented figures). */
 async function addInhibitor(firm: SeededFirm) {
   const [id] = (await t.deps.db('products').insert({
-    firm_id: firm.firmId, name: `Site check inhibitor ${firm.firmId}`, kind: 'inhibitor', pack_size_ml: 500, target_min: 100, target_max: 300, target_unit: 'ppm', test_method: 'Test strip',
+    firm_id: firm.firmId,
+    name: `Site check inhibitor ${firm.firmId}`,
+    kind: 'inhibitor',
+    pack_size_ml: 500,
+    target_min: 100,
+    target_max: 300,
+    target_unit: 'ppm',
+    test_method: 'Test strip',
   })) as number[];
   return id!;
 }
@@ -22,8 +29,21 @@ const today = () => calendarDateIn(t.clock.now(), 'Europe/London');
 describe('sites and inhibitor check visits', () => {
   it('a site shows its customer, its jobs newest first, its checks and the next check date', async () => {
     const firm = await seedFirm(t.deps.db, 'site-view');
-    const survey = JSON.stringify({ systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [], pipeRuns: [] });
-    const [olderJob] = (await t.deps.db('jobs').insert({ firm_id: firm.firmId, site_id: firm.siteId, scheduled_on: '2025-06-01', status: 'completed', survey, next_check_on: '2026-06-01' })) as number[];
+    const survey = JSON.stringify({
+      systemType: 'sealed',
+      boilerKind: 'combi',
+      fuel: 'gas',
+      radiators: [],
+      pipeRuns: [],
+    });
+    const [olderJob] = (await t.deps.db('jobs').insert({
+      firm_id: firm.firmId,
+      site_id: firm.siteId,
+      scheduled_on: '2025-06-01',
+      status: 'completed',
+      survey,
+      next_check_on: '2026-06-01',
+    })) as number[];
     await t.deps.db('sites').where({ id: firm.siteId }).update({ next_check_on: '2026-06-01' });
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const res = await engineer.get(`/api/sites/${firm.siteId}`);
@@ -35,7 +55,15 @@ describe('sites and inhibitor check visits', () => {
     expect(res.body.checks).toEqual([]);
     expect(res.body.nextCheckOn).toBe('2026-06-01');
     const list = await engineer.get('/api/sites').expect(200);
-    expect(list.body.sites).toEqual([{ id: firm.siteId, address: res.body.site.address, postcode: null, nextCheckOn: '2026-06-01', customer: { id: firm.customerId, name: res.body.customer.name } }]);
+    expect(list.body.sites).toEqual([
+      {
+        id: firm.siteId,
+        address: res.body.site.address,
+        postcode: null,
+        nextCheckOn: '2026-06-01',
+        customer: { id: firm.customerId, name: res.body.customer.name },
+      },
+    ]);
   });
 
   it('a reading within the target range passes, below or above it fails, and each resets the next check to a year on', async () => {
@@ -43,18 +71,37 @@ describe('sites and inhibitor check visits', () => {
     const inhibitorId = await addInhibitor(firm);
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const on = addDays(today(), -3);
-    const cases: [number, 'pass' | 'fail'][] = [[100, 'pass'], [300, 'pass'], [99.9, 'fail'], [300.5, 'fail']];
+    const cases: [number, 'pass' | 'fail'][] = [
+      [100, 'pass'],
+      [300, 'pass'],
+      [99.9, 'fail'],
+      [300.5, 'fail'],
+    ];
     for (const [reading, result] of cases) {
-      const res = await engineer.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: on, inhibitorProductId: inhibitorId, inhibitorReading: reading, systemTdsPpm: 180, notes: 'Water clear' });
+      const res = await engineer.post(`/api/sites/${firm.siteId}/checks`, {
+        checkedOn: on,
+        inhibitorProductId: inhibitorId,
+        inhibitorReading: reading,
+        systemTdsPpm: 180,
+        notes: 'Water clear',
+      });
       expect(res.status, JSON.stringify(res.body)).toBe(201);
-      expect(res.body.check).toMatchObject({ inhibitorReading: reading, result, target: { min: 100, max: 300, unit: 'ppm' }, systemTdsPpm: 180, notes: 'Water clear' });
+      expect(res.body.check).toMatchObject({
+        inhibitorReading: reading,
+        result,
+        target: { min: 100, max: 300, unit: 'ppm' },
+        systemTdsPpm: 180,
+        notes: 'Water clear',
+      });
     }
     const [y, m, d] = on.split('-');
     const site = await t.deps.db('sites').where({ id: firm.siteId }).first('next_check_on');
     // 12 calendar months on (a day the month lacks falls back to its last day).
     const expected = new Date(Date.UTC(Number(y) + 1, Number(m) - 1, 1));
     const lastDay = new Date(Date.UTC(Number(y) + 1, Number(m), 0)).getUTCDate();
-    expect(site.next_check_on).toBe(`${expected.getUTCFullYear()}-${m}-${String(Math.min(Number(d), lastDay)).padStart(2, '0')}`);
+    expect(site.next_check_on).toBe(
+      `${expected.getUTCFullYear()}-${m}-${String(Math.min(Number(d), lastDay)).padStart(2, '0')}`,
+    );
     const detail = await engineer.get(`/api/sites/${firm.siteId}`).expect(200);
     expect(detail.body.checks).toHaveLength(4);
     expect(detail.body.nextCheckOn).toBe(site.next_check_on);
@@ -66,12 +113,25 @@ describe('sites and inhibitor check visits', () => {
       // The clock moves to March 2028 so the check is not dated in the future.
       leap.clock.advance(Date.parse('2028-03-01T12:00:00Z') - Date.now());
       const firm = await seedFirm(leap.deps.db, 'site-leap');
-      const [inhibitorId] = (await leap.deps.db('products').insert({ firm_id: firm.firmId, name: `Leap inhibitor ${firm.firmId}`, kind: 'inhibitor', pack_size_ml: 500, target_min: 100, target_max: 300 })) as number[];
+      const [inhibitorId] = (await leap.deps.db('products').insert({
+        firm_id: firm.firmId,
+        name: `Leap inhibitor ${firm.firmId}`,
+        kind: 'inhibitor',
+        pack_size_ml: 500,
+        target_min: 100,
+        target_max: 300,
+      })) as number[];
       const owner = await signIn(leap.app, firm.people.owner.email);
-      const res = await owner.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: '2028-02-29', inhibitorProductId: inhibitorId, inhibitorReading: 150 });
+      const res = await owner.post(`/api/sites/${firm.siteId}/checks`, {
+        checkedOn: '2028-02-29',
+        inhibitorProductId: inhibitorId,
+        inhibitorReading: 150,
+      });
       expect(res.status, JSON.stringify(res.body)).toBe(201);
       expect(res.body.site.nextCheckOn).toBe('2029-02-28');
-      expect((await leap.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe('2029-02-28');
+      expect((await leap.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe(
+        '2029-02-28',
+      );
     } finally {
       await leap.close();
     }
@@ -79,26 +139,66 @@ describe('sites and inhibitor check visits', () => {
 
   it('refuses a product that is not an inhibitor with a target range, and bad input, changing nothing', async () => {
     const firm = await seedFirm(t.deps.db, 'site-refuse');
-    const [noRange] = (await t.deps.db('products').insert({ firm_id: firm.firmId, name: `No range inhibitor ${firm.firmId}`, kind: 'inhibitor', pack_size_ml: 500 })) as number[];
+    const [noRange] = (await t.deps.db('products').insert({
+      firm_id: firm.firmId,
+      name: `No range inhibitor ${firm.firmId}`,
+      kind: 'inhibitor',
+      pack_size_ml: 500,
+    })) as number[];
     const inhibitorId = await addInhibitor(firm);
     await t.deps.db('sites').where({ id: firm.siteId }).update({ next_check_on: '2027-01-15' });
     const stores = await signIn(t.app, firm.people.stores.email);
     const on = addDays(today(), -1);
-    const cleaner = await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: on, inhibitorProductId: firm.product.id, inhibitorReading: 150 });
+    const cleaner = await stores.post(`/api/sites/${firm.siteId}/checks`, {
+      checkedOn: on,
+      inhibitorProductId: firm.product.id,
+      inhibitorReading: 150,
+    });
     expect(cleaner.status).toBe(422);
     expect(cleaner.body.message).toContain('is not an inhibitor with a target range');
-    expect((await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: on, inhibitorProductId: noRange, inhibitorReading: 150 })).status).toBe(422);
-    const negative = await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: on, inhibitorProductId: inhibitorId, inhibitorReading: -1 });
+    expect(
+      (
+        await stores.post(`/api/sites/${firm.siteId}/checks`, {
+          checkedOn: on,
+          inhibitorProductId: noRange,
+          inhibitorReading: 150,
+        })
+      ).status,
+    ).toBe(422);
+    const negative = await stores.post(`/api/sites/${firm.siteId}/checks`, {
+      checkedOn: on,
+      inhibitorProductId: inhibitorId,
+      inhibitorReading: -1,
+    });
     expect(negative.status).toBe(422);
     expect(negative.body.details[0].path).toContain('inhibitorReading');
-    const badDate = await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: '2027-02-30', inhibitorProductId: inhibitorId, inhibitorReading: 150 });
+    const badDate = await stores.post(`/api/sites/${firm.siteId}/checks`, {
+      checkedOn: '2027-02-30',
+      inhibitorProductId: inhibitorId,
+      inhibitorReading: 150,
+    });
     expect(badDate.status).toBe(422);
     expect(badDate.body.message).toContain('not a real date');
-    const future = await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: addDays(today(), 2), inhibitorProductId: inhibitorId, inhibitorReading: 150 });
+    const future = await stores.post(`/api/sites/${firm.siteId}/checks`, {
+      checkedOn: addDays(today(), 2),
+      inhibitorProductId: inhibitorId,
+      inhibitorReading: 150,
+    });
     expect(future.status).toBe(422);
-    expect((await stores.post(`/api/sites/${firm.siteId}/checks`, { checkedOn: on, inhibitorProductId: inhibitorId, inhibitorReading: 150, extra: 1 })).status).toBe(422);
+    expect(
+      (
+        await stores.post(`/api/sites/${firm.siteId}/checks`, {
+          checkedOn: on,
+          inhibitorProductId: inhibitorId,
+          inhibitorReading: 150,
+          extra: 1,
+        })
+      ).status,
+    ).toBe(422);
     expect(await t.deps.db('site_checks').where({ firm_id: firm.firmId })).toEqual([]);
-    expect((await t.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe('2027-01-15');
+    expect((await t.deps.db('sites').where({ id: firm.siteId }).first('next_check_on')).next_check_on).toBe(
+      '2027-01-15',
+    );
   });
 
   it('another firm\u2019s site and products do not exist for you', async () => {
@@ -109,9 +209,25 @@ describe('sites and inhibitor check visits', () => {
     const bOwner = await signIn(t.app, b.people.owner.email);
     const on = addDays(today(), -1);
     expect((await bOwner.get(`/api/sites/${a.siteId}`)).status).toBe(404);
-    expect((await bOwner.post(`/api/sites/${a.siteId}/checks`, { checkedOn: on, inhibitorProductId: bInhibitor, inhibitorReading: 150 })).status).toBe(404);
+    expect(
+      (
+        await bOwner.post(`/api/sites/${a.siteId}/checks`, {
+          checkedOn: on,
+          inhibitorProductId: bInhibitor,
+          inhibitorReading: 150,
+        })
+      ).status,
+    ).toBe(404);
     // B's own site with A's inhibitor: that product is not found either.
-    expect((await bOwner.post(`/api/sites/${b.siteId}/checks`, { checkedOn: on, inhibitorProductId: aInhibitor, inhibitorReading: 150 })).status).toBe(404);
+    expect(
+      (
+        await bOwner.post(`/api/sites/${b.siteId}/checks`, {
+          checkedOn: on,
+          inhibitorProductId: aInhibitor,
+          inhibitorReading: 150,
+        })
+      ).status,
+    ).toBe(404);
     expect(await t.deps.db('site_checks').whereIn('firm_id', [a.firmId, b.firmId])).toEqual([]);
     const own = await bOwner.get(`/api/sites/${b.siteId}`).expect(200);
     expect(own.body.inhibitors.map((p: { id: number }) => p.id)).toEqual([bInhibitor]);
@@ -123,8 +239,19 @@ describe('firm settings', () => {
     const firm = await seedFirm(t.deps.db, 'firm-settings');
     const admin = await signIn(t.app, firm.people.admin.email);
     const before = await admin.get('/api/firm').expect(200);
-    expect(before.body.firm).toMatchObject({ id: firm.firmId, timeZone: 'Europe/London', volumeUnit: 'litres', coldBottomThresholdK: 10 });
-    const input = { name: `Renamed ${firm.firmId}`, address: '4 Example Row, Brackenford', timeZone: 'Europe/Dublin', volumeUnit: 'imperial_gallons', coldBottomThresholdK: 12.5 };
+    expect(before.body.firm).toMatchObject({
+      id: firm.firmId,
+      timeZone: 'Europe/London',
+      volumeUnit: 'litres',
+      coldBottomThresholdK: 10,
+    });
+    const input = {
+      name: `Renamed ${firm.firmId}`,
+      address: '4 Example Row, Brackenford',
+      timeZone: 'Europe/Dublin',
+      volumeUnit: 'imperial_gallons',
+      coldBottomThresholdK: 12.5,
+    };
     const saved = await admin.put('/api/firm', input);
     expect(saved.status).toBe(200);
     expect(saved.body.firm).toMatchObject({ id: firm.firmId, ...input });

@@ -31,7 +31,14 @@ async function ledgerAgrees(firmId: number) {
 }
 
 async function balance(firm: SeededFirm, locationId: number, batchId = firm.product.batchId): Promise<number> {
-  return ((await t.deps.db('stock_balances').where({ firm_id: firm.firmId, location_id: locationId, batch_id: batchId }).first('quantity')) as { quantity: number } | undefined)?.quantity ?? 0;
+  return (
+    (
+      (await t.deps
+        .db('stock_balances')
+        .where({ firm_id: firm.firmId, location_id: locationId, batch_id: batchId })
+        .first('quantity')) as { quantity: number } | undefined
+    )?.quantity ?? 0
+  );
 }
 
 async function clients(firm: SeededFirm, n: number, email: string): Promise<Client[]> {
@@ -48,16 +55,34 @@ describe('the ledger never goes negative', () => {
   it('20 concurrent "use one pack" requests against 5 packs: exactly 5 succeed, the rest get 409, the balance is 0', async () => {
     const firm = await seedFirm(t.deps.db, 'race20');
     await t.deps.db('stock_balances').where({ firm_id: firm.firmId, location_id: firm.van.id }).update({ quantity: 5 });
-    await t.deps.db('stock_movements').insert({ firm_id: firm.firmId, group_id: 'topup', kind: 'counted', location_id: firm.van.id, product_id: firm.product.id, batch_id: firm.product.batchId, quantity_delta: 3, by_user_id: firm.people.stores.userId });
+    await t.deps.db('stock_movements').insert({
+      firm_id: firm.firmId,
+      group_id: 'topup',
+      kind: 'counted',
+      location_id: firm.van.id,
+      product_id: firm.product.id,
+      batch_id: firm.product.batchId,
+      quantity_delta: 3,
+      by_user_id: firm.people.stores.userId,
+    });
     const engineers = await clients(firm, 20, firm.people.engineer.email);
     const results = await Promise.all(
-      engineers.map((c) => c.post('/api/stock/usages', { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: 'Cleaning job' })),
+      engineers.map((c) =>
+        c.post('/api/stock/usages', {
+          locationId: firm.van.id,
+          productId: firm.product.id,
+          quantity: 1,
+          reason: 'Cleaning job',
+        }),
+      ),
     );
     const statuses = results.map((r) => r.status);
     expect(statuses.filter((s) => s === 201)).toHaveLength(5);
     expect(statuses.filter((s) => s === 409)).toHaveLength(15);
     expect(await balance(firm, firm.van.id)).toBe(0);
-    const used = await t.deps.db('stock_movements').where({ firm_id: firm.firmId, location_id: firm.van.id, kind: 'used' });
+    const used = await t.deps
+      .db('stock_movements')
+      .where({ firm_id: firm.firmId, location_id: firm.van.id, kind: 'used' });
     expect(used).toHaveLength(5);
     const check = await ledgerAgrees(firm.firmId);
     expect(check.rows.every((r) => r.quantity === r.ledger && r.quantity >= 0)).toBe(true);
@@ -74,7 +99,11 @@ describe('the ledger never goes negative', () => {
         .post('/api/stock/transfers')
         .set('X-CSRF-Token', stores!.csrfToken)
         .set('Idempotency-Key', key)
-        .send({ fromLocationId: firm.depotId, toLocationId: firm.van.id, lines: [{ productId: firm.product.id, quantity: 3 }] });
+        .send({
+          fromLocationId: firm.depotId,
+          toLocationId: firm.van.id,
+          lines: [{ productId: firm.product.id, quantity: 3 }],
+        });
     const results = await Promise.all([send(), send(), send(), send(), send()]);
     expect(results.map((r) => r.status)).toEqual([201, 201, 201, 201, 201]);
     expect(new Set(results.map((r) => r.body.groupId)).size).toBe(1);
@@ -88,40 +117,87 @@ describe('the ledger never goes negative', () => {
     const places = [firm.depotId, firm.van.id, firm.spareVanId];
     const action = fc.oneof(
       fc.record({ type: fc.constant('receive' as const), qty: fc.integer({ min: 1, max: 6 }) }),
-      fc.record({ type: fc.constant('transfer' as const), from: fc.constantFrom(...places), to: fc.constantFrom(...places), qty: fc.integer({ min: 1, max: 8 }) }),
-      fc.record({ type: fc.constant('use' as const), at: fc.constantFrom(...places), qty: fc.integer({ min: 1, max: 5 }) }),
-      fc.record({ type: fc.constant('count' as const), at: fc.constantFrom(...places), counted: fc.integer({ min: 0, max: 12 }) }),
-      fc.record({ type: fc.constant('writeOff' as const), at: fc.constantFrom(...places), qty: fc.integer({ min: 1, max: 4 }) }),
+      fc.record({
+        type: fc.constant('transfer' as const),
+        from: fc.constantFrom(...places),
+        to: fc.constantFrom(...places),
+        qty: fc.integer({ min: 1, max: 8 }),
+      }),
+      fc.record({
+        type: fc.constant('use' as const),
+        at: fc.constantFrom(...places),
+        qty: fc.integer({ min: 1, max: 5 }),
+      }),
+      fc.record({
+        type: fc.constant('count' as const),
+        at: fc.constantFrom(...places),
+        counted: fc.integer({ min: 0, max: 12 }),
+      }),
+      fc.record({
+        type: fc.constant('writeOff' as const),
+        at: fc.constantFrom(...places),
+        qty: fc.integer({ min: 1, max: 4 }),
+      }),
     );
     const run = (a: { type: string; qty?: number; from?: number; to?: number; at?: number; counted?: number }) => {
       const x = a;
       switch (x.type) {
         case 'receive':
-          return stores!.post('/api/stock/receipts', { locationId: firm.depotId, lines: [{ productId: firm.product.id, lotNumber: firm.product.lotNumber, expiresOn: '2030-01-31', quantity: x.qty }] });
+          return stores!.post('/api/stock/receipts', {
+            locationId: firm.depotId,
+            lines: [
+              {
+                productId: firm.product.id,
+                lotNumber: firm.product.lotNumber,
+                expiresOn: '2030-01-31',
+                quantity: x.qty,
+              },
+            ],
+          });
         case 'transfer':
-          return stores!.post('/api/stock/transfers', { fromLocationId: x.from, toLocationId: x.to, lines: [{ productId: firm.product.id, quantity: x.qty }] });
+          return stores!.post('/api/stock/transfers', {
+            fromLocationId: x.from,
+            toLocationId: x.to,
+            lines: [{ productId: firm.product.id, quantity: x.qty }],
+          });
         case 'use':
-          return stores!.post('/api/stock/usages', { locationId: x.at, productId: firm.product.id, quantity: x.qty, reason: 'Property test' });
+          return stores!.post('/api/stock/usages', {
+            locationId: x.at,
+            productId: firm.product.id,
+            quantity: x.qty,
+            reason: 'Property test',
+          });
         case 'count':
-          return stores!.post('/api/stock/stocktakes', { locationId: x.at, counts: [{ batchId: firm.product.batchId, counted: x.counted }] });
+          return stores!.post('/api/stock/stocktakes', {
+            locationId: x.at,
+            counts: [{ batchId: firm.product.batchId, counted: x.counted }],
+          });
         default:
-          return stores!.post('/api/stock/write-offs', { locationId: x.at, batchId: firm.product.batchId, quantity: x.qty, reason: 'damaged' });
+          return stores!.post('/api/stock/write-offs', {
+            locationId: x.at,
+            batchId: firm.product.batchId,
+            quantity: x.qty,
+            reason: 'damaged',
+          });
       }
     };
     await fc.assert(
-      fc.asyncProperty(fc.array(fc.array(action, { minLength: 1, maxLength: 4 }), { minLength: 1, maxLength: 5 }), async (rounds) => {
-        for (const round of rounds) {
-          // Each round's actions run at the same moment; rounds run one after another.
-          const results = await Promise.all(round.map(run));
-          for (const r of results) expect([201, 409, 422]).toContain(r.status);
-        }
-        const check = await ledgerAgrees(firm.firmId);
-        expect(check.orphans).toBe(0);
-        for (const r of check.rows) {
-          expect(r.quantity).toBe(r.ledger);
-          expect(r.quantity).toBeGreaterThanOrEqual(0);
-        }
-      }),
+      fc.asyncProperty(
+        fc.array(fc.array(action, { minLength: 1, maxLength: 4 }), { minLength: 1, maxLength: 5 }),
+        async (rounds) => {
+          for (const round of rounds) {
+            // Each round's actions run at the same moment; rounds run one after another.
+            const results = await Promise.all(round.map(run));
+            for (const r of results) expect([201, 409, 422]).toContain(r.status);
+          }
+          const check = await ledgerAgrees(firm.firmId);
+          expect(check.orphans).toBe(0);
+          for (const r of check.rows) {
+            expect(r.quantity).toBe(r.ledger);
+            expect(r.quantity).toBeGreaterThanOrEqual(0);
+          }
+        },
+      ),
       { numRuns: 12, seed: 20261201 },
     );
   }, 120_000);
@@ -130,12 +206,25 @@ describe('the ledger never goes negative', () => {
     const firm = await seedFirm(t.deps.db, 'expired');
     await t.deps.db('product_batches').where({ id: firm.product.batchId }).update({ expires_on: '2026-01-31' });
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    const moved = await stores!.post('/api/stock/transfers', { fromLocationId: firm.depotId, toLocationId: firm.van.id, lines: [{ productId: firm.product.id, batchId: firm.product.batchId, quantity: 1 }] });
+    const moved = await stores!.post('/api/stock/transfers', {
+      fromLocationId: firm.depotId,
+      toLocationId: firm.van.id,
+      lines: [{ productId: firm.product.id, batchId: firm.product.batchId, quantity: 1 }],
+    });
     expect(moved.status).toBe(409);
     expect(moved.body.message).toMatch(/expired on 2026-01-31/);
-    const fefo = await stores!.post('/api/stock/transfers', { fromLocationId: firm.depotId, toLocationId: firm.van.id, lines: [{ productId: firm.product.id, quantity: 1 }] });
+    const fefo = await stores!.post('/api/stock/transfers', {
+      fromLocationId: firm.depotId,
+      toLocationId: firm.van.id,
+      lines: [{ productId: firm.product.id, quantity: 1 }],
+    });
     expect(fefo.status).toBe(409);
-    const written = await stores!.post('/api/stock/write-offs', { locationId: firm.depotId, batchId: firm.product.batchId, quantity: 10, reason: 'expired' });
+    const written = await stores!.post('/api/stock/write-offs', {
+      locationId: firm.depotId,
+      batchId: firm.product.batchId,
+      quantity: 10,
+      reason: 'expired',
+    });
     expect(written.status).toBe(201);
     expect(await balance(firm, firm.depotId)).toBe(0);
   });
@@ -143,12 +232,20 @@ describe('the ledger never goes negative', () => {
   it('a reversal points at the movement it undoes, undoes a transfer whole, and only once', async () => {
     const firm = await seedFirm(t.deps.db, 'reverse');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    const moved = await stores!.post('/api/stock/transfers', { fromLocationId: firm.depotId, toLocationId: firm.van.id, lines: [{ productId: firm.product.id, quantity: 4 }] });
+    const moved = await stores!.post('/api/stock/transfers', {
+      fromLocationId: firm.depotId,
+      toLocationId: firm.van.id,
+      lines: [{ productId: firm.product.id, quantity: 4 }],
+    });
     const out = moved.body.movements.find((m: { kind: string }) => m.kind === 'transfer_out');
     const undo = await stores!.post(`/api/stock/movements/${out.id}/reverse`, { reason: 'Sent to the wrong van' });
     expect(undo.status).toBe(201);
     expect(undo.body.movements).toHaveLength(2);
-    expect(undo.body.movements.every((m: { reversesMovementId: number }) => moved.body.movements.some((o: { id: number }) => o.id === m.reversesMovementId))).toBe(true);
+    expect(
+      undo.body.movements.every((m: { reversesMovementId: number }) =>
+        moved.body.movements.some((o: { id: number }) => o.id === m.reversesMovementId),
+      ),
+    ).toBe(true);
     expect(await balance(firm, firm.depotId)).toBe(10);
     expect(await balance(firm, firm.van.id)).toBe(2);
     expect((await stores!.post(`/api/stock/movements/${out.id}/reverse`, { reason: 'Again' })).status).toBe(409);
@@ -159,25 +256,58 @@ describe('restock and reorder', () => {
   it('computes the run from par levels FEFO, applies it all at once, and the engineer sees it on My van', async () => {
     const firm = await seedFirm(t.deps.db, 'restock');
     // A second, sooner-expiring lot at the depot: the run must take it first.
-    const [soonId] = (await t.deps.db('product_batches').insert({ firm_id: firm.firmId, product_id: firm.product.id, lot_number: `SOON${firm.firmId}`, expires_on: '2027-03-31' })) as number[];
-    await t.deps.db('stock_balances').insert({ firm_id: firm.firmId, location_id: firm.depotId, batch_id: soonId, product_id: firm.product.id, quantity: 1 });
-    await t.deps.db('stock_movements').insert({ firm_id: firm.firmId, group_id: 'soon', kind: 'received', location_id: firm.depotId, product_id: firm.product.id, batch_id: soonId, quantity_delta: 1, by_user_id: firm.people.stores.userId });
+    const [soonId] = (await t.deps.db('product_batches').insert({
+      firm_id: firm.firmId,
+      product_id: firm.product.id,
+      lot_number: `SOON${firm.firmId}`,
+      expires_on: '2027-03-31',
+    })) as number[];
+    await t.deps.db('stock_balances').insert({
+      firm_id: firm.firmId,
+      location_id: firm.depotId,
+      batch_id: soonId,
+      product_id: firm.product.id,
+      quantity: 1,
+    });
+    await t.deps.db('stock_movements').insert({
+      firm_id: firm.firmId,
+      group_id: 'soon',
+      kind: 'received',
+      location_id: firm.depotId,
+      product_id: firm.product.id,
+      batch_id: soonId,
+      quantity_delta: 1,
+      by_user_id: firm.people.stores.userId,
+    });
     const [stores] = await clients(firm, 1, firm.people.stores.email);
     const plan = await stores!.get(`/api/stock/restock-run?depotId=${firm.depotId}`).expect(200);
     // Van: 2 usable, target 5 -> 3 wanted: 1 from the sooner lot, 2 from the later one.
     const line = plan.body.lines.find((l: { locationId: number }) => l.locationId === firm.van.id);
     expect(line.wanted).toBe(3);
-    expect(line.allocations.map((a: { batchId: number; quantity: number }) => [a.batchId, a.quantity])).toEqual([[soonId, 1], [firm.product.batchId, 2]]);
+    expect(line.allocations.map((a: { batchId: number; quantity: number }) => [a.batchId, a.quantity])).toEqual([
+      [soonId, 1],
+      [firm.product.batchId, 2],
+    ]);
     // Depot after the run: 11 - 3 = 8, under its minimum of 20: order 30 - 8 = 22.
-    expect(plan.body.reorder).toEqual([expect.objectContaining({ productId: firm.product.id, usableAfterTransfers: 8, orderQuantity: 22 })]);
+    expect(plan.body.reorder).toEqual([
+      expect.objectContaining({ productId: firm.product.id, usableAfterTransfers: 8, orderQuantity: 22 }),
+    ]);
 
     const apply = await stores!.post(`/api/stock/restock-run?depotId=${firm.depotId}`, {
-      lines: line.allocations.map((a: { batchId: number; quantity: number }) => ({ toLocationId: firm.van.id, productId: firm.product.id, batchId: a.batchId, quantity: a.quantity })),
+      lines: line.allocations.map((a: { batchId: number; quantity: number }) => ({
+        toLocationId: firm.van.id,
+        productId: firm.product.id,
+        batchId: a.batchId,
+        quantity: a.quantity,
+      })),
     });
     expect(apply.status).toBe(201);
     const engineer = await signIn(t.app, firm.people.engineer.email);
     const mine = await engineer.get('/api/me/van/stock').expect(200);
-    expect(mine.body.stock.find((s: { productId: number }) => s.productId === firm.product.id)).toMatchObject({ usable: 5, health: 'ok' });
+    expect(mine.body.stock.find((s: { productId: number }) => s.productId === firm.product.id)).toMatchObject({
+      usable: 5,
+      health: 'ok',
+    });
 
     // All or none: one bad line (more than the depot has) moves nothing.
     const before = await balance(firm, firm.depotId);
@@ -194,7 +324,12 @@ describe('restock and reorder', () => {
   it('exports the reorder list and the ledger as CSV that parses back, with formulas defused', async () => {
     const firm = await seedFirm(t.deps.db, 'csv');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    await stores!.post('/api/stock/usages', { locationId: firm.van.id, productId: firm.product.id, quantity: 1, reason: '=HYPERLINK("x"), "quoted", and a\nnew line' });
+    await stores!.post('/api/stock/usages', {
+      locationId: firm.van.id,
+      productId: firm.product.id,
+      quantity: 1,
+      reason: '=HYPERLINK("x"), "quoted", and a\nnew line',
+    });
     const csv = await stores!.get(`/api/stock/movements.csv?productId=${firm.product.id}`).expect(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment/);
@@ -207,17 +342,32 @@ describe('restock and reorder', () => {
     const lines = parse(reorder.text, { columns: true }) as Record<string, string>[];
     // The van used 1 (2 -> 1), so the run sends it 4 and leaves the depot 6, under its minimum of 20:
     // order 30 - 6 = 24. 1 pack used in 90 days lasts 90 days a pack: 6 packs, 540 days.
-    expect(lines).toEqual([expect.objectContaining({ product: firm.product.name, 'usable after restock': '6', 'order packs': '24', 'days of cover': '540' })]);
+    expect(lines).toEqual([
+      expect.objectContaining({
+        product: firm.product.name,
+        'usable after restock': '6',
+        'order packs': '24',
+        'days of cover': '540',
+      }),
+    ]);
   });
 
   it('pages the ledger by keyset without gaps or repeats', async () => {
     const firm = await seedFirm(t.deps.db, 'keyset');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    for (let i = 0; i < 7; i += 1) await stores!.post('/api/stock/usages', { locationId: firm.depotId, productId: firm.product.id, quantity: 1, reason: `Use ${i}` });
+    for (let i = 0; i < 7; i += 1)
+      await stores!.post('/api/stock/usages', {
+        locationId: firm.depotId,
+        productId: firm.product.id,
+        quantity: 1,
+        reason: `Use ${i}`,
+      });
     const seen: number[] = [];
     let cursor: number | null = null;
     do {
-      const page: { body: { movements: { id: number }[]; nextCursor: number | null } } = await stores!.get(`/api/stock/movements?limit=3${cursor ? `&before=${cursor}` : ''}`).expect(200);
+      const page: { body: { movements: { id: number }[]; nextCursor: number | null } } = await stores!
+        .get(`/api/stock/movements?limit=3${cursor ? `&before=${cursor}` : ''}`)
+        .expect(200);
       seen.push(...page.body.movements.map((m: { id: number }) => m.id));
       cursor = page.body.nextCursor;
     } while (cursor);
@@ -231,16 +381,34 @@ describe('products', () => {
   it('keeps pack sizes in millilitres, refuses a pack over 25 litres, and takes the firm\u2019s own kind', async () => {
     const firm = await seedFirm(t.deps.db, 'product');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    const ok = await stores!.post('/api/products', { name: 'Demo inhibitor', kind: 'inhibitor', packSize: 0.5, packUnit: 'l', doseLitresPer100L: 1, radiatorsPerPack: 10 });
+    const ok = await stores!.post('/api/products', {
+      name: 'Demo inhibitor',
+      kind: 'inhibitor',
+      packSize: 0.5,
+      packUnit: 'l',
+      doseLitresPer100L: 1,
+      radiatorsPerPack: 10,
+    });
     expect(ok.status).toBe(201);
     expect(ok.body.product.packSizeMl).toBe(500);
     const big = await stores!.post('/api/products', { name: 'Too big', kind: 'cleaner', packSize: 30, packUnit: 'l' });
     expect(big.status).toBe(422);
     expect(big.body.message).toMatch(/25 litres/);
-    const own = await stores!.post('/api/products', { name: 'Demo pipe lubricant', kind: 'other', ownKind: 'Pipe lubricant', packSize: 250, packUnit: 'ml' });
+    const own = await stores!.post('/api/products', {
+      name: 'Demo pipe lubricant',
+      kind: 'other',
+      ownKind: 'Pipe lubricant',
+      packSize: 250,
+      packUnit: 'ml',
+    });
     expect(own.status).toBe(201);
     expect(own.body.product).toMatchObject({ kind: 'other', ownKind: 'Pipe lubricant' });
-    const unnamed = await stores!.post('/api/products', { name: 'Demo unnamed', kind: 'other', packSize: 1, packUnit: 'l' });
+    const unnamed = await stores!.post('/api/products', {
+      name: 'Demo unnamed',
+      kind: 'other',
+      packSize: 1,
+      packUnit: 'l',
+    });
     expect(unnamed.status).toBe(422);
     expect(unnamed.body.details[0].path).toBe('ownKind');
   });
@@ -249,9 +417,17 @@ describe('products', () => {
     const firm = await seedFirm(t.deps.db, 'sds');
     const other = await seedFirm(t.deps.db, 'sds-other');
     const [stores] = await clients(firm, 1, firm.people.stores.email);
-    const notPdf = await stores!.upload(`/api/products/${firm.product.id}/safety-data-sheet`, {}, { field: 'file', content: tinyPng, filename: 'sheet.pdf', contentType: 'application/pdf' });
+    const notPdf = await stores!.upload(
+      `/api/products/${firm.product.id}/safety-data-sheet`,
+      {},
+      { field: 'file', content: tinyPng, filename: 'sheet.pdf', contentType: 'application/pdf' },
+    );
     expect(notPdf.status).toBe(422);
-    const ok = await stores!.upload(`/api/products/${firm.product.id}/safety-data-sheet`, {}, { field: 'file', content: tinyPdf, filename: 'sheet.pdf', contentType: 'application/pdf' });
+    const ok = await stores!.upload(
+      `/api/products/${firm.product.id}/safety-data-sheet`,
+      {},
+      { field: 'file', content: tinyPdf, filename: 'sheet.pdf', contentType: 'application/pdf' },
+    );
     expect(ok.status).toBe(200);
     const file = await stores!.get(ok.body.product.safetyDataSheet.url).expect(200);
     expect(file.headers['content-disposition']).toMatch(/^attachment;/);

@@ -1,5 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, createTestApp, signIn, signUpFirm, TEST_PASSWORD, uniqueEmail, type SignedUp, type TestApp } from './support/test-app.ts';
+import {
+  Client,
+  createTestApp,
+  signIn,
+  signUpFirm,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type SignedUp,
+  type TestApp,
+} from './support/test-app.ts';
 import { startTestEmailWorker } from './support/email-worker.ts';
 import { findEmails, linkIn, tokenFrom, waitForEmail } from './support/outbox.ts';
 
@@ -39,15 +48,26 @@ describe('invitations', () => {
     expect(expiresInDays).toBeCloseTo(7, 2);
 
     const preview = await new Client(t.app).get(`/api/invitations/by-token/${token}`).expect(200);
-    expect(preview.body.invitation).toEqual({ firmName: 'Invite Test Heating', email, role: 'engineer', accountExists: false });
+    expect(preview.body.invitation).toEqual({
+      firmName: 'Invite Test Heating',
+      email,
+      role: 'engineer',
+      accountExists: false,
+    });
 
     const invitee = new Client(t.app);
-    const accepted = await invitee.post(`/api/invitations/by-token/${token}/accept`, { name: 'New Engineer', password: TEST_PASSWORD });
+    const accepted = await invitee.post(`/api/invitations/by-token/${token}/accept`, {
+      name: 'New Engineer',
+      password: TEST_PASSWORD,
+    });
     expect(accepted.status).toBe(200);
     expect(accepted.body.me.role).toBe('engineer');
     expect(accepted.body.me.activeFirm.id).toBe(owner.firmId);
 
-    const again = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, { name: 'Someone', password: TEST_PASSWORD });
+    const again = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, {
+      name: 'Someone',
+      password: TEST_PASSWORD,
+    });
     expect(again.status).toBe(404);
     expect(again.body.message).toMatch(/not valid/);
   });
@@ -58,7 +78,10 @@ describe('invitations', () => {
     t.clock.advance(7 * 24 * 60 * 60 * 1000 + 1000);
     try {
       await new Client(t.app).get(`/api/invitations/by-token/${token}`).expect(404);
-      const res = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, { name: 'Late', password: TEST_PASSWORD });
+      const res = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, {
+        name: 'Late',
+        password: TEST_PASSWORD,
+      });
       expect(res.status).toBe(404);
     } finally {
       t.clock.advance(-(7 * 24 * 60 * 60 * 1000 + 1000));
@@ -71,11 +94,15 @@ describe('invitations', () => {
     const { token } = await invite(owner, 'engineer', other.email);
     const preview = await new Client(t.app).get(`/api/invitations/by-token/${token}`).expect(200);
     expect(preview.body.invitation.accountExists).toBe(true);
-    const wrong = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, { password: 'wrong password here' });
+    const wrong = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, {
+      password: 'wrong password here',
+    });
     expect(wrong.status).toBe(422);
     const ok = await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, { password: TEST_PASSWORD });
     expect(ok.status).toBe(200);
-    expect(ok.body.me.memberships.map((m: { firmId: number }) => m.firmId).sort()).toEqual([owner.firmId, other.firmId].sort());
+    expect(ok.body.me.memberships.map((m: { firmId: number }) => m.firmId).sort()).toEqual(
+      [owner.firmId, other.firmId].sort(),
+    );
   });
 
   it('a newer invitation to the same address withdraws the older link', async () => {
@@ -101,14 +128,18 @@ describe('roles', () => {
     const { token, email } = await invite(owner, 'admin');
     const admin = new Client(t.app);
     await admin.post(`/api/invitations/by-token/${token}/accept`, { name: 'Admin Person', password: TEST_PASSWORD });
-    expect((await admin.post('/api/invitations', { email: uniqueEmail('would-be-owner'), role: 'owner' })).status).toBe(403);
+    expect((await admin.post('/api/invitations', { email: uniqueEmail('would-be-owner'), role: 'owner' })).status).toBe(
+      403,
+    );
     const ownerMember = await memberId(admin, owner.email);
     expect((await admin.patch(`/api/members/${ownerMember}`, { role: 'engineer' })).status).toBe(403);
     expect((await admin.patch(`/api/members/${ownerMember}`, { active: false })).status).toBe(403);
     const adminMember = await memberId(admin, email);
     expect((await admin.patch(`/api/members/${adminMember}`, { role: 'owner' })).status).toBe(403);
     // But the Admin may manage everyone else.
-    expect((await admin.post('/api/invitations', { email: uniqueEmail('new-stores'), role: 'stores' })).status).toBe(201);
+    expect((await admin.post('/api/invitations', { email: uniqueEmail('new-stores'), role: 'stores' })).status).toBe(
+      201,
+    );
   });
 
   it('the last active Owner can be neither demoted nor deactivated; with a second Owner it can', async () => {
@@ -120,7 +151,10 @@ describe('roles', () => {
     expect((await owner.client.patch(`/api/members/${self}`, { active: false })).status).toBe(400);
 
     const { token, email } = await invite(owner, 'owner');
-    await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, { name: 'Second Owner', password: TEST_PASSWORD });
+    await new Client(t.app).post(`/api/invitations/by-token/${token}/accept`, {
+      name: 'Second Owner',
+      password: TEST_PASSWORD,
+    });
     const second = await memberId(owner.client, email);
     expect((await owner.client.patch(`/api/members/${second}`, { role: 'engineer' })).status).toBe(200);
     const again = await owner.client.patch(`/api/members/${second}`, { role: 'owner' });
@@ -132,7 +166,10 @@ describe('roles', () => {
     const owner = await signUpFirm(t.app, 'deact-owner');
     const { token, email } = await invite(owner, 'engineer');
     const engineer = new Client(t.app);
-    await engineer.post(`/api/invitations/by-token/${token}/accept`, { name: 'Leaving Engineer', password: TEST_PASSWORD });
+    await engineer.post(`/api/invitations/by-token/${token}/accept`, {
+      name: 'Leaving Engineer',
+      password: TEST_PASSWORD,
+    });
     await engineer.get('/api/me').expect(200);
     const id = await memberId(owner.client, email);
     const res = await owner.client.patch(`/api/members/${id}`, { active: false });
@@ -149,7 +186,10 @@ describe('roles', () => {
     const owner = await signUpFirm(t.app, 'eng-read');
     const { token } = await invite(owner, 'engineer');
     const engineer = new Client(t.app);
-    await engineer.post(`/api/invitations/by-token/${token}/accept`, { name: 'Reading Engineer', password: TEST_PASSWORD });
+    await engineer.post(`/api/invitations/by-token/${token}/accept`, {
+      name: 'Reading Engineer',
+      password: TEST_PASSWORD,
+    });
     const list = await engineer.get('/api/members').expect(200);
     expect(list.body.members).toHaveLength(2);
     const ownerId = await memberId(engineer, owner.email);
@@ -176,10 +216,16 @@ describe('password reset', () => {
     const person = await signUpFirm(t.app, 'reset-once');
     await new Client(t.app).post('/api/auth/password-reset', { email: person.email });
     const token = tokenFrom(linkIn(await waitForEmail(person.email, { subject: /Reset/ }), '/reset-password/'));
-    const res = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'the new long passphrase' });
+    const res = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'the new long passphrase',
+    });
     expect(res.status).toBe(200);
     await person.client.get('/api/me').expect(401);
-    const reuse = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'yet another passphrase' });
+    const reuse = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'yet another passphrase',
+    });
     expect(reuse.status).toBe(400);
     await signIn(t.app, person.email, 'the new long passphrase');
   });
@@ -190,7 +236,10 @@ describe('password reset', () => {
     const token = tokenFrom(linkIn(await waitForEmail(person.email, { subject: /Reset/ }), '/reset-password/'));
     t.clock.advance(61 * 60 * 1000);
     try {
-      const res = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'the new long passphrase' });
+      const res = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+        token,
+        password: 'the new long passphrase',
+      });
       expect(res.status).toBe(400);
       await signIn(t.app, person.email);
     } finally {

@@ -28,7 +28,15 @@ const notTenantData: Record<string, string> = {
 };
 
 /** Tables that are not a firm's: people (who may belong to several firms) and plumbing. */
-const nonTenantTables = ['firms', 'users', 'password_resets', 'sign_up_requests', 'sessions', 'knex_migrations', 'knex_migrations_lock'];
+const nonTenantTables = [
+  'firms',
+  'users',
+  'password_resets',
+  'sign_up_requests',
+  'sessions',
+  'knex_migrations',
+  'knex_migrations_lock',
+];
 
 let t: TestApp;
 let a: SeededFirm;
@@ -38,7 +46,6 @@ beforeAll(async () => {
   [a, b] = await Promise.all([seedFirm(t.deps.db, 'iso-a'), seedFirm(t.deps.db, 'iso-b')]);
 });
 afterAll(() => t.close());
-
 
 describe('tenant isolation', () => {
   it('every table except people and plumbing carries firm_id', async () => {
@@ -51,7 +58,11 @@ describe('tenant isolation', () => {
   it('every route is either tenant data or listed here with a reason', () => {
     for (const route of apiRoutes) {
       if (route.tenantData) expect(notTenantData[routeKey(route)], `${routeKey(route)} is tenant data`).toBeUndefined();
-      else expect(notTenantData[routeKey(route)], `${routeKey(route)} says it is not tenant data: list it with a reason`).toBeTruthy();
+      else
+        expect(
+          notTenantData[routeKey(route)],
+          `${routeKey(route)} says it is not tenant data: list it with a reason`,
+        ).toBeTruthy();
     }
   });
 

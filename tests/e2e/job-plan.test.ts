@@ -122,7 +122,7 @@ test('the engineer opens a booked job, reads the plan and the cautions, and comp
   // Nothing was recorded, so completing asks a reason for each thing not done, and keeps them.
   await page.getByRole('button', { name: 'Complete the job' }).click();
   await expect(page.getByText(/off the van\. Complete the job\?$/)).toBeVisible();
-  const reasons = page.getByRole('group', { name: 'Completion summary' }).locator('textarea');
+  const reasons = page.getByRole('group', { name: 'Completion summary' }).locator('textarea[name^="reason."]');
   await expect(reasons).toHaveCount(4);
   for (const reason of await reasons.all()) await reason.fill('Booked to check the plan; the visit did not go ahead.');
   await page.getByRole('button', { name: 'Yes, complete it' }).click();

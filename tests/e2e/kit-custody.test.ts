@@ -18,7 +18,12 @@ async function prepareKit(baseURL: string) {
   const run = runId().toUpperCase();
   const kit = await createKit(session, `Test rig ${run}`);
   for (const [n, kind] of kinds.slice(0, 2).entries()) {
-    await addKitItem(session, { assetTag: `T${run}-${n + 1}`.slice(0, 32), kindId: kind.id, kitId: kit.id, serialNumber: `SN-${run}-${n + 1}` });
+    await addKitItem(session, {
+      assetTag: `T${run}-${n + 1}`.slice(0, 32),
+      kindId: kind.id,
+      kitId: kit.id,
+      serialNumber: `SN-${run}-${n + 1}`,
+    });
   }
 
   // The URL printed in the QR code, exactly as the label sheet gets it.
@@ -30,7 +35,11 @@ async function prepareKit(baseURL: string) {
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
 
-test('an engineer on a phone checks a kit out from its label and back in with a photo', async ({ page, browser, baseURL }, testInfo) => {
+test('an engineer on a phone checks a kit out from its label and back in with a photo', async ({
+  page,
+  browser,
+  baseURL,
+}, testInfo) => {
   const { kit, label, stores, engineer } = await prepareKit(baseURL!);
   const labelPath = new URL(label.url).pathname;
   expect(labelPath).toMatch(/^\/kit-items\/\d+$/);
@@ -90,7 +99,9 @@ test('an engineer on a phone checks a kit out from its label and back in with a 
   const checkIn = page.getByRole('form', { name: 'Check in' });
   await checkIn.getByRole('radio', { name: /^In service/ }).check();
   await checkIn.getByLabel('Missing parts (if any)').fill('One hose clip');
-  await checkIn.getByLabel('Photo (optional)').setInputFiles({ name: 'after-the-job.png', mimeType: 'image/png', buffer: photoPng });
+  await checkIn
+    .getByLabel('Photo (optional)')
+    .setInputFiles({ name: 'after-the-job.png', mimeType: 'image/png', buffer: photoPng });
   await expect(checkIn.getByText('after-the-job.png will be sent with this.')).toBeVisible();
   await page.screenshot({ path: testInfo.outputPath('check-in-360.png'), fullPage: true });
   await checkIn.getByRole('button', { name: 'Check in' }).click();
@@ -113,7 +124,9 @@ test('an engineer on a phone checks a kit out from its label and back in with a 
   const shown = page.getByRole('list', { name: 'Photos' }).getByRole('img');
   await expect(shown).toHaveCount(1);
   await shown.scrollIntoViewIfNeeded();
-  await expect.poll(() => shown.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0))).toBeGreaterThan(0);
+  await expect
+    .poll(() => shown.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0)))
+    .toBeGreaterThan(0);
 
   await page.screenshot({ path: testInfo.outputPath('item-after-360.png'), fullPage: true });
   const overflow = await horizontalOverflow(page);

@@ -12,13 +12,23 @@ import { isoDaysFromNow } from './support/stock-fixtures';
 async function prepareFirm(baseURL: string) {
   const crew = await firmWithCrew(baseURL, { stores: true, motDueOn: isoDaysFromNow(12) });
   const session = crew.owner.session;
-  await createVan(session, { name: 'Van 2', registration: 'HF70 BRK', motDueOn: isoDaysFromNow(200), serviceDueOn: isoDaysFromNow(25) });
+  await createVan(session, {
+    name: 'Van 2',
+    registration: 'HF70 BRK',
+    motDueOn: isoDaysFromNow(200),
+    serviceDueOn: isoDaysFromNow(25),
+  });
   const kit = await createKit(session, 'Rig 1');
   for (const [n, kind] of (await itemKinds(session)).slice(0, 3).entries()) {
-    await addKitItem(session, { assetTag: `RIG1-${n + 1}`, kindId: kind.id, kitId: kit.id, serialNumber: `SN-10${n + 1}` });
+    await addKitItem(session, {
+      assetTag: `RIG1-${n + 1}`,
+      kindId: kind.id,
+      kitId: kit.id,
+      serialNumber: `SN-10${n + 1}`,
+    });
   }
   const { sent } = await callApi<{ sent: number }>(session, 'post', '/api/reminders/scan', { status: 200 });
-  expect(sent, 'the scan reminds of Van 1\'s MOT').toBeGreaterThan(0);
+  expect(sent, "the scan reminds of Van 1's MOT").toBeGreaterThan(0);
   return crew.owner;
 }
 

@@ -12,7 +12,13 @@ async function prepareProduct(baseURL: string) {
   const { stores, engineer, van, depot } = await firmWithCrew(baseURL, { stores: true });
   const session = stores!.session;
   const name = `Trial cleaner ${runId().toUpperCase()}`;
-  const product = await createProduct(session, { name, kind: 'cleaner', packSize: 1, packUnit: 'l', shelfLifeMonths: 24 });
+  const product = await createProduct(session, {
+    name,
+    kind: 'cleaner',
+    packSize: 1,
+    packUnit: 'l',
+    shelfLifeMonths: 24,
+  });
   await setParLevel(session, { locationId: van.id, productId: product.id, minimum: 2, target: 4 });
   return { name, depotName: depot.name, stores: stores!, engineer };
 }
@@ -24,7 +30,11 @@ async function expectNoOverflow(page: Page, what: string) {
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
 
-test('stores receives a delivery, runs a restock and the engineer sees it on My van', async ({ page, browser, baseURL }, testInfo) => {
+test('stores receives a delivery, runs a restock and the engineer sees it on My van', async ({
+  page,
+  browser,
+  baseURL,
+}, testInfo) => {
   const { name, depotName, stores, engineer } = await prepareProduct(baseURL!);
   const lot = `T${runId().slice(-6).toUpperCase()}`;
 
@@ -32,7 +42,9 @@ test('stores receives a delivery, runs a restock and the engineer sees it on My 
   await mainNav(page).getByRole('link', { name: 'Stock' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Stock' })).toBeVisible();
   // The new product has no stock anywhere yet, and Van 1 is below its minimum of it.
-  await expect(page.getByRole('button', { name: `${name} at Van 1: 0 usable, None usable, minimum 2, target 4` })).toBeVisible();
+  await expect(
+    page.getByRole('button', { name: `${name} at Van 1: 0 usable, None usable, minimum 2, target 4` }),
+  ).toBeVisible();
   await page.screenshot({ path: testInfo.outputPath('stock-grid-360.png'), fullPage: true });
   await expectNoOverflow(page, 'the stock grid');
 
@@ -78,7 +90,13 @@ test('stores receives a delivery, runs a restock and the engineer sees it on My 
   // Recomputed after applying: Van 1 is at target for the new product, so it leaves the plan.
   await expect(picks.getByRole('row').filter({ hasText: name })).toHaveCount(0);
 
-  const engineerContext = await browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true, locale: 'en-GB', timezoneId: 'Europe/London' });
+  const engineerContext = await browser.newContext({
+    viewport: { width: 360, height: 740 },
+    hasTouch: true,
+    isMobile: true,
+    locale: 'en-GB',
+    timezoneId: 'Europe/London',
+  });
   const phone = await engineerContext.newPage();
   await signIn(phone, engineer.email, engineer.password);
   await mainNav(phone).getByRole('link', { name: 'My van' }).click();

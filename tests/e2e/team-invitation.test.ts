@@ -54,7 +54,10 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
   let invitationPath = '';
   await test.step('the invitation e-mail is read in the Outbox', async () => {
     await mainNav(page).getByRole('link', { name: 'Outbox' }).click();
-    const mail = page.getByRole('list', { name: 'Caught e-mails' }).getByRole('link').filter({ hasText: engineerEmail });
+    const mail = page
+      .getByRole('list', { name: 'Caught e-mails' })
+      .getByRole('link')
+      .filter({ hasText: engineerEmail });
     // Sent by a background job after the request commits, so it can take a moment to arrive.
     await expect(mail.first()).toBeVisible({ timeout: 30_000 });
     await mail.first().click();
@@ -102,7 +105,10 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
 
   await test.step('the Owner now sees the engineer as a member with a role to manage', async () => {
     await mainNav(page).getByRole('link', { name: 'Team' }).click();
-    const row = page.getByRole('table', { name: 'Members of the firm' }).getByRole('row').filter({ hasText: engineerEmail });
+    const row = page
+      .getByRole('table', { name: 'Members of the firm' })
+      .getByRole('row')
+      .filter({ hasText: engineerEmail });
     await expect(row).toBeVisible();
     await expect(row.getByRole('combobox', { name: 'Role for Tamsin Crowle' })).toHaveValue('engineer');
     await expect(row.getByRole('button', { name: 'Deactivate Tamsin Crowle' })).toBeVisible();

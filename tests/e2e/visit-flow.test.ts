@@ -125,7 +125,8 @@ test('an engineer books an 18-radiator job and records the whole visit within th
   // No pipe runs measured: the volume is estimated, and says so; the oil regular boiler's default is 15 L.
   const plan = page.getByRole('status', { name: 'The plan' });
   await expect(plan).toContainText('(estimated)');
-  await expect(plan).toContainText(/Visit cleaner \w+: 3 packs \(2\.95 L\)/);
+  // 295 L (280 by radiators, 15 the oil boiler) at 1 L per 100 L: 2.95 L, so 3 packs; the engineer's van holds 5.
+  await expect(plan).toContainText(/Visit cleaner \w+: 3 packs \(2\.95 L\) · the van holds 5/);
   await shot('booking-390');
   await checkScreen(page, 'the booking form');
   await count.tap(page.getByRole('button', { name: 'Book the job' }));

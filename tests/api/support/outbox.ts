@@ -3,7 +3,10 @@ import path from 'node:path';
 import type { OutboxMessage } from '@heatfleet/domain';
 
 /** Waits for the local SMTP catcher to have written an e-mail to this address. */
-export async function waitForEmail(to: string, opts: { subject?: RegExp; timeoutMs?: number } = {}): Promise<OutboxMessage> {
+export async function waitForEmail(
+  to: string,
+  opts: { subject?: RegExp; timeoutMs?: number } = {},
+): Promise<OutboxMessage> {
   const dir = process.env.OUTBOX_DIR;
   if (!dir) throw new Error('OUTBOX_DIR is not set: run the tests with npm test');
   const deadline = Date.now() + (opts.timeoutMs ?? 15_000);

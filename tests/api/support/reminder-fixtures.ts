@@ -60,8 +60,17 @@ export async function seedBareFirm(t: TestApp, label: string): Promise<ReminderF
     const [firmId] = (await trx('firms').insert({ name: firmName, time_zone: ZONE })) as number[];
     const add = async (role: Role, name: string): Promise<Person> => {
       const email = uniqueEmail(`${label}-${name}`);
-      const [userId] = (await trx('users').insert({ email, name: `${label} ${name}`, password_hash: hash })) as number[];
-      const [memberId] = (await trx('memberships').insert({ firm_id: firmId, user_id: userId, role, active: true })) as number[];
+      const [userId] = (await trx('users').insert({
+        email,
+        name: `${label} ${name}`,
+        password_hash: hash,
+      })) as number[];
+      const [memberId] = (await trx('memberships').insert({
+        firm_id: firmId,
+        user_id: userId,
+        role,
+        active: true,
+      })) as number[];
       return { email, userId: userId!, memberId: memberId! };
     };
     const people = {} as Record<Role, Person>;
@@ -75,7 +84,13 @@ export async function seedBareFirm(t: TestApp, label: string): Promise<ReminderF
 export async function addVan(
   t: TestApp,
   firm: ReminderFirm,
-  v: { name: string; registration: string; engineerMemberId: number; motDueOn: string | null; serviceDueOn: string | null },
+  v: {
+    name: string;
+    registration: string;
+    engineerMemberId: number;
+    motDueOn: string | null;
+    serviceDueOn: string | null;
+  },
 ) {
   const [id] = (await t.deps.db('locations').insert({
     firm_id: firm.firmId,
@@ -94,7 +109,11 @@ export async function addDepot(t: TestApp, firm: ReminderFirm, name: string) {
   return id!;
 }
 
-export async function addKind(t: TestApp, firm: ReminderFirm, k: { name: string; intervalDays: number | null; intervalUses: number | null; dueSoonDays: number }) {
+export async function addKind(
+  t: TestApp,
+  firm: ReminderFirm,
+  k: { name: string; intervalDays: number | null; intervalUses: number | null; dueSoonDays: number },
+) {
   const [id] = (await t.deps.db('item_kinds').insert({
     firm_id: firm.firmId,
     name: k.name,
@@ -105,7 +124,11 @@ export async function addKind(t: TestApp, firm: ReminderFirm, k: { name: string;
   return id!;
 }
 
-export async function addItem(t: TestApp, firm: ReminderFirm, i: { tag: string; kindId: number; locationId: number; inServiceSince: string; condition?: string }) {
+export async function addItem(
+  t: TestApp,
+  firm: ReminderFirm,
+  i: { tag: string; kindId: number; locationId: number; inServiceSince: string; condition?: string },
+) {
   const [id] = (await t.deps.db('kit_items').insert({
     firm_id: firm.firmId,
     kind_id: i.kindId,
@@ -129,7 +152,14 @@ export async function addInspection(t: TestApp, firm: ReminderFirm, itemId: numb
 }
 
 /** Check-ins count as uses; `after` puts them after a given inspection was recorded. */
-export async function addCheckIns(t: TestApp, firm: ReminderFirm, itemId: number, count: number, after: Date, vanId: number) {
+export async function addCheckIns(
+  t: TestApp,
+  firm: ReminderFirm,
+  itemId: number,
+  count: number,
+  after: Date,
+  vanId: number,
+) {
   for (let n = 1; n <= count; n += 1) {
     await t.deps.db('custody_events').insert({
       firm_id: firm.firmId,
@@ -162,8 +192,20 @@ export async function seedFleetFirm(t: TestApp): Promise<FleetFirm> {
   const ids = {} as FleetFirm['ids'];
   // Scan hour 0: the sweep finds this firm due whatever the hour the tests run at.
   await t.deps.db('reminder_settings').insert({ firm_id: firm.firmId, scan_hour: 0 });
-  ids.north = await addVan(t, firm, { name: 'Van-North', registration: 'RT11 NRT', engineerMemberId: firm.people.engineer.memberId, motDueOn: d(10), serviceDueOn: d(90) });
-  ids.south = await addVan(t, firm, { name: 'Van-South', registration: 'RT22 STH', engineerMemberId: firm.target.memberId, motDueOn: d(80), serviceDueOn: d(-3) });
+  ids.north = await addVan(t, firm, {
+    name: 'Van-North',
+    registration: 'RT11 NRT',
+    engineerMemberId: firm.people.engineer.memberId,
+    motDueOn: d(10),
+    serviceDueOn: d(90),
+  });
+  ids.south = await addVan(t, firm, {
+    name: 'Van-South',
+    registration: 'RT22 STH',
+    engineerMemberId: firm.target.memberId,
+    motDueOn: d(80),
+    serviceDueOn: d(-3),
+  });
   const hoses = await addKind(t, firm, { name: 'Hose set', intervalDays: 30, intervalUses: null, dueSoonDays: 7 });
   const magnets = await addKind(t, firm, { name: 'Magnet set', intervalDays: null, intervalUses: 3, dueSoonDays: 7 });
   const meters = await addKind(t, firm, { name: 'Test meter', intervalDays: 365, intervalUses: null, dueSoonDays: 14 });
@@ -172,7 +214,13 @@ export async function seedFleetFirm(t: TestApp): Promise<FleetFirm> {
   ids.h2 = await addItem(t, firm, { tag: 'RT-H2', kindId: hoses, locationId: ids.south, inServiceSince: d(-25) }); // due soon, d(5)
   ids.h3 = await addItem(t, firm, { tag: 'RT-T2', kindId: meters, locationId: ids.north, inServiceSince: d(-400) });
   await addInspection(t, firm, ids.h3, d(-5), new Date(t.clock.now().getTime() - 5 * DAY_MS)); // next due d(360): fine
-  ids.h4 = await addItem(t, firm, { tag: 'RT-H4', kindId: hoses, locationId: depot, inServiceSince: d(-60), condition: 'out_of_service' });
+  ids.h4 = await addItem(t, firm, {
+    tag: 'RT-H4',
+    kindId: hoses,
+    locationId: depot,
+    inServiceSince: d(-60),
+    condition: 'out_of_service',
+  });
   ids.m1 = await addItem(t, firm, { tag: 'RT-M1', kindId: magnets, locationId: ids.north, inServiceSince: d(-20) });
   await addCheckIns(t, firm, ids.m1, 3, new Date(t.clock.now().getTime() - DAY_MS), ids.north); // 3 of 3 uses: overdue
   ids.t1 = await addItem(t, firm, { tag: 'RT-T1', kindId: meters, locationId: depot, inServiceSince: d(-400) }); // overdue since d(-35)

@@ -5,7 +5,9 @@ import { addDepot, addVan, seedBareFirm, todayOn, type ReminderFirm } from './re
 
 /** Movements through the real ledger, so balances and movements agree as they do in the app. */
 export async function move(t: TestApp, firm: ReminderFirm, lines: MovementLine[]) {
-  await t.deps.db.transaction((trx) => applyMovements(trx, firm.firmId, firm.people.stores.userId, lines, t.clock.now()));
+  await t.deps.db.transaction((trx) =>
+    applyMovements(trx, firm.firmId, firm.people.stores.userId, lines, t.clock.now()),
+  );
 }
 
 export const transfer = (from: number, to: number, productId: number, batchId: number, n: number): MovementLine[] => [
@@ -14,17 +16,30 @@ export const transfer = (from: number, to: number, productId: number, batchId: n
 ];
 
 export async function addProduct(t: TestApp, firm: ReminderFirm, name: string, kind: string) {
-  const [id] = (await t.deps.db('products').insert({ firm_id: firm.firmId, name, kind, pack_size_ml: 1000 })) as number[];
+  const [id] = (await t.deps
+    .db('products')
+    .insert({ firm_id: firm.firmId, name, kind, pack_size_ml: 1000 })) as number[];
   return id!;
 }
 
 export async function addBatch(t: TestApp, firm: ReminderFirm, productId: number, lot: string, expiresOn: string) {
-  const [id] = (await t.deps.db('product_batches').insert({ firm_id: firm.firmId, product_id: productId, lot_number: lot, expires_on: expiresOn })) as number[];
+  const [id] = (await t.deps
+    .db('product_batches')
+    .insert({ firm_id: firm.firmId, product_id: productId, lot_number: lot, expires_on: expiresOn })) as number[];
   return id!;
 }
 
-export async function setPar(t: TestApp, firm: ReminderFirm, locationId: number, productId: number, minimum: number, target: number) {
-  await t.deps.db('par_levels').insert({ firm_id: firm.firmId, location_id: locationId, product_id: productId, minimum, target });
+export async function setPar(
+  t: TestApp,
+  firm: ReminderFirm,
+  locationId: number,
+  productId: number,
+  minimum: number,
+  target: number,
+) {
+  await t.deps
+    .db('par_levels')
+    .insert({ firm_id: firm.firmId, location_id: locationId, product_id: productId, minimum, target });
 }
 
 export interface StockFirm {
@@ -45,8 +60,20 @@ export async function seedStockFirm(t: TestApp): Promise<StockFirm> {
   const ids = {} as StockFirm['ids'];
   ids.depot = await addDepot(t, firm, 'Depot-Main');
   // No MOT or service dates: these digests carry stock lines only.
-  ids.north = await addVan(t, firm, { name: 'Van-North', registration: 'RT11 NRT', engineerMemberId: firm.people.engineer.memberId, motDueOn: null, serviceDueOn: null });
-  ids.south = await addVan(t, firm, { name: 'Van-South', registration: 'RT22 STH', engineerMemberId: firm.target.memberId, motDueOn: null, serviceDueOn: null });
+  ids.north = await addVan(t, firm, {
+    name: 'Van-North',
+    registration: 'RT11 NRT',
+    engineerMemberId: firm.people.engineer.memberId,
+    motDueOn: null,
+    serviceDueOn: null,
+  });
+  ids.south = await addVan(t, firm, {
+    name: 'Van-South',
+    registration: 'RT22 STH',
+    engineerMemberId: firm.target.memberId,
+    motDueOn: null,
+    serviceDueOn: null,
+  });
   ids.cleaner = await addProduct(t, firm, 'Test Cleaner Alpha', 'cleaner');
   ids.inhibitor = await addProduct(t, firm, 'Test Inhibitor Beta', 'inhibitor');
   ids.c1 = await addBatch(t, firm, ids.cleaner, 'RT-C1', d(30)); // expires within the window
@@ -65,7 +92,16 @@ export async function seedStockFirm(t: TestApp): Promise<StockFirm> {
     ...transfer(ids.depot, ids.north, ids.inhibitor, ids.i1, 2),
     ...transfer(ids.depot, ids.south, ids.inhibitor, ids.i1, 2),
   ]);
-  await move(t, firm, [{ kind: 'used', locationId: ids.north, productId: ids.cleaner, batchId: ids.c2, quantityDelta: -2, reason: 'Cleaning job' }]);
+  await move(t, firm, [
+    {
+      kind: 'used',
+      locationId: ids.north,
+      productId: ids.cleaner,
+      batchId: ids.c2,
+      quantityDelta: -2,
+      reason: 'Cleaning job',
+    },
+  ]);
 
   // Van-North: 1 cleaner against a minimum of 2. Van-South and both inhibitor levels are fine.
   await setPar(t, firm, ids.north, ids.cleaner, 2, 4);

@@ -33,7 +33,12 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
 const bodies: Record<string, (f: SeededFirm) => unknown> = {
-  'POST /auth/sign-up': () => ({ firmName: 'Probe firm', name: 'Probe', email: uniqueEmail('probe'), password: 'probe password 123' }),
+  'POST /auth/sign-up': () => ({
+    firmName: 'Probe firm',
+    name: 'Probe',
+    email: uniqueEmail('probe'),
+    password: 'probe password 123',
+  }),
   'POST /auth/sign-in': (f) => ({ email: f.people.engineer.email, password: 'wrong password probe' }),
   'POST /auth/password-reset': (f) => ({ email: f.people.engineer.email }),
   'POST /auth/sign-up/confirm': () => ({ token: 'y'.repeat(43) }),
@@ -44,57 +49,129 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   'PATCH /members/:id': () => ({ role: 'stores' }),
   'POST /invitations': () => ({ email: uniqueEmail('probe-invitee'), role: 'engineer' }),
   'POST /invitations/by-token/:token/accept': () => ({ password: 'probe password 123', name: 'Probe' }),
-  'POST /vans': () => ({ name: `Probe van ${Math.random().toString(36).slice(2, 7)}`, registration: `PR${Math.floor(Math.random() * 90 + 10)} ${Math.random().toString(36).slice(2, 5).toUpperCase()}` }),
+  'POST /vans': () => ({
+    name: `Probe van ${Math.random().toString(36).slice(2, 7)}`,
+    registration: `PR${Math.floor(Math.random() * 90 + 10)} ${Math.random().toString(36).slice(2, 5).toUpperCase()}`,
+  }),
   'PATCH /vans/:id': () => ({ notes: 'probe' }),
   'POST /depots': () => ({ name: `Probe depot ${Math.random().toString(36).slice(2, 7)}` }),
-  'POST /item-kinds': () => ({ name: `Probe kind ${Math.random().toString(36).slice(2, 7)}`, intervalDays: 30, intervalUses: null, dueSoonDays: 7, overduePolicy: 'block' }),
+  'POST /item-kinds': () => ({
+    name: `Probe kind ${Math.random().toString(36).slice(2, 7)}`,
+    intervalDays: 30,
+    intervalUses: null,
+    dueSoonDays: 7,
+    overduePolicy: 'block',
+  }),
   'PATCH /item-kinds/:id': () => ({ dueSoonDays: 5 }),
   'POST /kits': () => ({ name: `Probe kit ${Math.random().toString(36).slice(2, 7)}` }),
   'PATCH /kits/:id': () => ({ notes: 'probe' }),
   'POST /kits/:id/check-out': (f) => ({ toLocationId: f.van.id }),
   'POST /kits/:id/check-in': (f) => ({ toLocationId: f.depotId, condition: 'in_service' }),
   'POST /kits/:id/move': (f) => ({ toLocationId: f.spareVanId }),
-  'POST /kit-items': (f) => ({ assetTag: `PRB-${Math.random().toString(36).slice(2, 8).toUpperCase()}`, kindId: f.kindId, kitId: f.kit.id }),
+  'POST /kit-items': (f) => ({
+    assetTag: `PRB-${Math.random().toString(36).slice(2, 8).toUpperCase()}`,
+    kindId: f.kindId,
+    kitId: f.kit.id,
+  }),
   'PATCH /kit-items/:id': () => ({ notes: 'probe' }),
   'POST /kit-items/:id/check-out': (f) => ({ toLocationId: f.van.id }),
   'POST /kit-items/:id/check-in': (f) => ({ toLocationId: f.depotId, condition: 'in_service' }),
   'POST /kit-items/:id/move': (f) => ({ toLocationId: f.spareVanId }),
   'POST /kit-items/:id/inspections': (f) => ({ result: 'passed', photoId: f.photoId }),
-  'POST /products': () => ({ name: `Probe product ${Math.random().toString(36).slice(2, 7)}`, kind: 'inhibitor', packSize: 1, packUnit: 'l', doseLitresPer100L: 1 }),
+  'POST /products': () => ({
+    name: `Probe product ${Math.random().toString(36).slice(2, 7)}`,
+    kind: 'inhibitor',
+    packSize: 1,
+    packUnit: 'l',
+    doseLitresPer100L: 1,
+  }),
   'PUT /products/:id': (f) => ({ name: f.product.name, kind: 'cleaner', packSize: 500, packUnit: 'ml' }),
-  'POST /stock/receipts': (f) => ({ locationId: f.depotId, lines: [{ productId: f.product.id, lotNumber: f.product.lotNumber, expiresOn: '2030-01-31', quantity: 1 }] }),
-  'POST /stock/transfers': (f) => ({ fromLocationId: f.depotId, toLocationId: f.van.id, lines: [{ productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
+  'POST /stock/receipts': (f) => ({
+    locationId: f.depotId,
+    lines: [{ productId: f.product.id, lotNumber: f.product.lotNumber, expiresOn: '2030-01-31', quantity: 1 }],
+  }),
+  'POST /stock/transfers': (f) => ({
+    fromLocationId: f.depotId,
+    toLocationId: f.van.id,
+    lines: [{ productId: f.product.id, batchId: f.product.batchId, quantity: 1 }],
+  }),
   'POST /stock/usages': (f) => ({ locationId: f.van.id, productId: f.product.id, quantity: 1, reason: 'Probe use' }),
   'POST /stock/stocktakes': (f) => ({ locationId: f.depotId, counts: [{ batchId: f.product.batchId, counted: 9 }] }),
-  'POST /stock/write-offs': (f) => ({ locationId: f.depotId, batchId: f.product.batchId, quantity: 1, reason: 'damaged' }),
+  'POST /stock/write-offs': (f) => ({
+    locationId: f.depotId,
+    batchId: f.product.batchId,
+    quantity: 1,
+    reason: 'damaged',
+  }),
   'POST /stock/movements/:id/reverse': () => ({ reason: 'Probe reversal' }),
   'PUT /par-levels': (f) => ({ locationId: f.van.id, productId: f.product.id, minimum: 1, target: 2 }),
   'POST /customers': () => ({ name: 'Probe customer' }),
   'POST /customers/:id/sites': () => ({ address: '1 Probe Street' }),
-  'POST /jobs': (f) => ({ siteId: f.siteId, scheduledOn: '2026-12-20', productIds: [f.product.id], survey: { systemType: 'sealed', boilerKind: 'combi', fuel: 'gas', radiators: [{ room: 'Hall', panel: 'double' }], pipeRuns: [] } }),
+  'POST /jobs': (f) => ({
+    siteId: f.siteId,
+    scheduledOn: '2026-12-20',
+    productIds: [f.product.id],
+    survey: {
+      systemType: 'sealed',
+      boilerKind: 'combi',
+      fuel: 'gas',
+      radiators: [{ room: 'Hall', panel: 'double' }],
+      pipeRuns: [],
+    },
+  }),
   // Every reason the guard could ask for, so the probe reaches the completion itself.
-  'POST /jobs/:id/complete': () => ({ confirmations: completionCodes.map((code) => ({ code, reason: 'Probe reason' })) }),
+  'POST /jobs/:id/complete': () => ({
+    confirmations: completionCodes.map((code) => ({ code, reason: 'Probe reason' })),
+  }),
   'PATCH /jobs/:id': () => ({ scheduledOn: '2026-12-21' }),
   'POST /jobs/:id/cancel': () => ({ reason: 'Probe cancellation' }),
   'PUT /jobs/:id/flush-order': () => ({ radiatorIndexes: [0] }),
-  'POST /jobs/:id/signatures': () => ({ kind: 'acknowledgement', name: 'Probe Signer', imagePngDataUrl: `data:image/png;base64,${tinyPng.toString('base64')}` }),
+  'POST /jobs/:id/signatures': () => ({
+    kind: 'acknowledgement',
+    name: 'Probe Signer',
+    imagePngDataUrl: `data:image/png;base64,${tinyPng.toString('base64')}`,
+  }),
   'PUT /jobs/:id/steps/:step': () => ({ done: true }),
-  'PUT /jobs/:id/radiators/:index/readings/:phase': () => ({ topC: 62, bottomC: 41.5, flowC: 65, returnC: 55, roomC: 19 }),
+  'PUT /jobs/:id/radiators/:index/readings/:phase': () => ({
+    topC: 62,
+    bottomC: 41.5,
+    flowC: 65,
+    returnC: 55,
+    roomC: 19,
+  }),
   'PUT /jobs/:id/radiators/:index/agitation': () => ({ minutes: 5 }),
   'PUT /jobs/:id/radiators/:index/flushed': () => ({ done: true }),
   'PUT /jobs/:id/water-tests': () => ({ mainsTdsPpm: 180, systemTdsPpm: 190, waterClear: true, ph: 7.6 }),
   'PUT /jobs/:id/kit': () => ({ kitItemIds: [] }),
   'PUT /jobs/:id/notes': () => ({ notes: 'Probe note' }),
-  'POST /stock/restock-run': (f) => ({ lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }] }),
+  'POST /stock/restock-run': (f) => ({
+    lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }],
+  }),
   'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
   // A fixed name: the isolation probe runs as firm B, so firm A's name here would leak into B's answers.
-  'PUT /firm': () => ({ name: 'Probe firm settings', address: '1 Probe Street', timeZone: 'Europe/London', volumeUnit: 'litres', coldBottomThresholdK: 10 }),
-  'POST /sites/:id/checks': (f) => ({ checkedOn: '2026-11-30', inhibitorProductId: f.product.id, inhibitorReading: 100 }),
+  'PUT /firm': () => ({
+    name: 'Probe firm settings',
+    address: '1 Probe Street',
+    timeZone: 'Europe/London',
+    volumeUnit: 'litres',
+    coldBottomThresholdK: 10,
+  }),
+  'POST /sites/:id/checks': (f) => ({
+    checkedOn: '2026-11-30',
+    inhibitorProductId: f.product.id,
+    inhibitorReading: 100,
+  }),
 };
 
 /** Query strings per route, built from a firm's records. */
 const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
-  'GET /jobs': (f) => ({ status: 'planned', engineerMemberId: String(f.people.engineer.memberId), from: '2026-01-01', to: '2027-12-31', sort: 'upcoming' }),
+  'GET /jobs': (f) => ({
+    status: 'planned',
+    engineerMemberId: String(f.people.engineer.memberId),
+    from: '2026-01-01',
+    to: '2027-12-31',
+    sort: 'upcoming',
+  }),
   'GET /customers': () => ({ q: 'Quarry' }),
   'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
   'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
@@ -109,15 +186,21 @@ const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
 export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {
   if (!route.request.query) return '';
   const build = queries[routeKey(route)];
-  if (!build) throw new Error(`The isolation harness has no sample query for ${routeKey(route)}: add one to route-probes.ts`);
+  if (!build)
+    throw new Error(`The isolation harness has no sample query for ${routeKey(route)}: add one to route-probes.ts`);
   return `?${new URLSearchParams(build(firm)).toString()}`;
 }
 
 /** A tiny valid PNG (1x1), for upload routes. */
-export const tinyPng = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
+export const tinyPng = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
 
 /** A minimal PDF (what a safety data sheet upload must be). */
-export const tinyPdf = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+export const tinyPdf = Buffer.from(
+  '%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n',
+);
 
 /** Multipart fields per upload route, built from a firm's records. */
 const multipartFields: Record<string, (f: SeededFirm) => Record<string, string>> = {
@@ -129,7 +212,10 @@ const multipartFields: Record<string, (f: SeededFirm) => Record<string, string>>
 export function probeMultipart(route: RouteDefinition, firm: SeededFirm): Record<string, string> | undefined {
   if (!route.multipart) return undefined;
   const build = multipartFields[routeKey(route)];
-  if (!build) throw new Error(`The isolation harness has no multipart fields for ${routeKey(route)}: add them to route-probes.ts`);
+  if (!build)
+    throw new Error(
+      `The isolation harness has no multipart fields for ${routeKey(route)}: add them to route-probes.ts`,
+    );
   return build(firm);
 }
 
@@ -137,7 +223,10 @@ export function probePath(route: RouteDefinition, firm: SeededFirm): string {
   const resource = route.path.split('/')[1] ?? '';
   return `/api${route.path.replace(/:([A-Za-z]+)/g, (_m, name: string) => {
     const fill = pathIds[`${resource}:${name}`];
-    if (!fill) throw new Error(`The isolation harness does not know how to fill ${name} in ${routeKey(route)}: add it to route-probes.ts`);
+    if (!fill)
+      throw new Error(
+        `The isolation harness does not know how to fill ${name} in ${routeKey(route)}: add it to route-probes.ts`,
+      );
     return encodeURIComponent(fill(firm));
   })}`;
 }
@@ -145,7 +234,8 @@ export function probePath(route: RouteDefinition, firm: SeededFirm): string {
 export function probeBody(route: RouteDefinition, firm: SeededFirm): unknown {
   if (!route.request.body) return undefined;
   const build = bodies[routeKey(route)];
-  if (!build) throw new Error(`The isolation harness has no sample body for ${routeKey(route)}: add one to route-probes.ts`);
+  if (!build)
+    throw new Error(`The isolation harness has no sample body for ${routeKey(route)}: add one to route-probes.ts`);
   return build(firm);
 }
 
@@ -155,7 +245,12 @@ export function callProbe(client: Client, route: RouteDefinition, firm: SeededFi
   const fields = probeMultipart(route, firm);
   if (fields && route.multipart) {
     const pdf = route.multipart.fileField === 'file';
-    return client.upload(url, fields, { field: route.multipart.fileField, content: pdf ? tinyPdf : tinyPng, filename: pdf ? 'probe.pdf' : 'probe.png', contentType: pdf ? 'application/pdf' : 'image/png' });
+    return client.upload(url, fields, {
+      field: route.multipart.fileField,
+      content: pdf ? tinyPdf : tinyPng,
+      filename: pdf ? 'probe.pdf' : 'probe.png',
+      contentType: pdf ? 'application/pdf' : 'image/png',
+    });
   }
   if (route.method === 'get') return client.get(url);
   return client[route.method](url, probeBody(route, firm));

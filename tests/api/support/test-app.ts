@@ -29,9 +29,15 @@ export interface TestApp {
  * and reset e-mails, which count every request, are lifted here; tests/api/rate-limit.test.ts and
  * security-hardening.test.ts set them back to test them.
  */
-export const testRateLimits: Partial<RateLimits> = { signUpsPerAddress: 100_000, resetsPerAddress: 100_000, invitationsPerAddress: 100_000 };
+export const testRateLimits: Partial<RateLimits> = {
+  signUpsPerAddress: 100_000,
+  resetsPerAddress: 100_000,
+  invitationsPerAddress: 100_000,
+};
 
-export function createTestApp(opts: { env?: Partial<Record<keyof Env, string>>; limits?: Partial<RateLimits> } = {}): TestApp {
+export function createTestApp(
+  opts: { env?: Partial<Record<keyof Env, string>>; limits?: Partial<RateLimits> } = {},
+): TestApp {
   const env = parseEnv({ ...process.env, LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'error', ...opts.env });
   const clock = new TestClock();
   const deps = createDeps(env, { clock, limits: { ...testRateLimits, ...opts.limits } });
@@ -70,7 +76,9 @@ export class Client {
 
   private async send(method: 'post' | 'put' | 'patch' | 'delete', url: string, body?: unknown) {
     if (!this.csrfToken) await this.refreshCsrf();
-    const res = await this.agent[method](url).set('X-CSRF-Token', this.csrfToken).send(body as object);
+    const res = await this.agent[method](url)
+      .set('X-CSRF-Token', this.csrfToken)
+      .send(body as object);
     const fresh = (res.body as { csrfToken?: string } | undefined)?.csrfToken;
     if (fresh) this.csrfToken = fresh;
     return res;
@@ -90,11 +98,19 @@ export class Client {
   }
 
   /** A multipart upload with the session's CSRF token. */
-  async upload(url: string, fields: Record<string, string>, file?: { field: string; content: Buffer; filename: string; contentType?: string }) {
+  async upload(
+    url: string,
+    fields: Record<string, string>,
+    file?: { field: string; content: Buffer; filename: string; contentType?: string },
+  ) {
     if (!this.csrfToken) await this.refreshCsrf();
     let req = this.agent.post(url).set('X-CSRF-Token', this.csrfToken);
     for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
-    if (file) req = req.attach(file.field, file.content, { filename: file.filename, contentType: file.contentType ?? 'application/octet-stream' });
+    if (file)
+      req = req.attach(file.field, file.content, {
+        filename: file.filename,
+        contentType: file.contentType ?? 'application/octet-stream',
+      });
     return req;
   }
 }
@@ -107,7 +123,11 @@ export interface SignedUp {
 }
 
 /** The token of the newest link of that kind e-mailed to the address (the e-mail row written in the request's transaction). */
-export async function linkTokenFromEmail(app: Express, to: string, kind: 'sign-up/confirm' | 'reset-password' | 'invitations'): Promise<string> {
+export async function linkTokenFromEmail(
+  app: Express,
+  to: string,
+  kind: 'sign-up/confirm' | 'reset-password' | 'invitations',
+): Promise<string> {
   const deps = app.locals.deps as AppDeps;
   const row = await deps.db('emails').where({ to_address: to }).orderBy('id', 'desc').first('text_body');
   const match = new RegExp(`/${kind}/([A-Za-z0-9_-]+)`).exec((row?.text_body as string | undefined) ?? '');
@@ -119,7 +139,12 @@ export async function linkTokenFromEmail(app: Express, to: string, kind: 'sign-u
 export async function signUpFirm(app: Express, label = 'owner', firmName = `Firm ${label}`): Promise<SignedUp> {
   const client = new Client(app);
   const email = uniqueEmail(label);
-  const asked = await client.post('/api/auth/sign-up', { firmName, name: `Person ${label}`, email, password: TEST_PASSWORD });
+  const asked = await client.post('/api/auth/sign-up', {
+    firmName,
+    name: `Person ${label}`,
+    email,
+    password: TEST_PASSWORD,
+  });
   if (asked.status !== 202) throw new Error(`sign-up failed: ${asked.status} ${JSON.stringify(asked.body)}`);
   const token = await linkTokenFromEmail(app, email, 'sign-up/confirm');
   const res = await client.post('/api/auth/sign-up/confirm', { token });

@@ -32,11 +32,20 @@ interface CallOptions {
 }
 
 /** One API call that must answer as expected; its JSON body. Writes carry the session's CSRF token. */
-export async function callApi<T>(session: ApiSession, method: 'get' | 'post' | 'put' | 'patch', path: string, options: CallOptions = {}): Promise<T> {
+export async function callApi<T>(
+  session: ApiSession,
+  method: 'get' | 'post' | 'put' | 'patch',
+  path: string,
+  options: CallOptions = {},
+): Promise<T> {
   const headers: Record<string, string> = {};
   if (method !== 'get') headers['X-CSRF-Token'] = session.csrf;
   if (options.idempotent) headers['Idempotency-Key'] = randomUUID();
-  const answer = await session.api.fetch(path, { method, headers, ...(options.data !== undefined && { data: options.data }) });
+  const answer = await session.api.fetch(path, {
+    method,
+    headers,
+    ...(options.data !== undefined && { data: options.data }),
+  });
   const status = options.status ?? (method === 'post' ? 201 : 200);
   expect(answer.status(), `${method.toUpperCase()} ${path}: ${await answer.text()}`).toBe(status);
   return (await answer.json()) as T;

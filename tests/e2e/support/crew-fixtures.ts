@@ -12,12 +12,20 @@ export interface Crew {
   depot: Depot;
 }
 
-export async function firmWithCrew(baseURL: string, options: { stores?: boolean; motDueOn?: string } = {}): Promise<Crew> {
+export async function firmWithCrew(
+  baseURL: string,
+  options: { stores?: boolean; motDueOn?: string } = {},
+): Promise<Crew> {
   const firm = await signUpFirm(baseURL);
   // One invitation at a time, as an office sends them: two at once in one firm can deadlock in the API (a 500).
   const engineer = await inviteMember(firm, 'engineer', 'Ellis Brannock');
   const stores = options.stores ? await inviteMember(firm, 'stores', 'Wren Tolley') : null;
   // An invented registration; the firm is new, so no other van has it.
-  const van = await createVan(firm.owner.session, { name: 'Van 1', registration: 'HF21 BRK', engineerMemberId: engineer.memberId, motDueOn: options.motDueOn ?? null });
+  const van = await createVan(firm.owner.session, {
+    name: 'Van 1',
+    registration: 'HF21 BRK',
+    engineerMemberId: engineer.memberId,
+    motDueOn: options.motDueOn ?? null,
+  });
   return { firm, owner: firm.owner, engineer, stores, van, depot: await mainDepot(firm.owner.session) };
 }

@@ -61,11 +61,21 @@ export async function signUpFirm(baseURL: string, ownerName = 'Rowan Ellery'): P
   const name = `Fixture Heating ${id}`;
   const email = `owner-${id}@fixture-heating.example`;
   const session = await openApiSession(baseURL);
-  await callApi(session, 'post', '/api/auth/sign-up', { data: { firmName: name, name: ownerName, email, password: FIXTURE_PASSWORD }, status: 202 });
+  await callApi(session, 'post', '/api/auth/sign-up', {
+    data: { firmName: name, name: ownerName, email, password: FIXTURE_PASSWORD },
+    status: 202,
+  });
   const link = await emailLink(session, email, '/sign-up/confirm/');
-  const { me, csrfToken } = await callApi<SessionEnvelope>(session, 'post', '/api/auth/sign-up/confirm', { data: { token: tokenOf(link) } });
+  const { me, csrfToken } = await callApi<SessionEnvelope>(session, 'post', '/api/auth/sign-up/confirm', {
+    data: { token: tokenOf(link) },
+  });
   session.csrf = csrfToken;
-  return { id: me.activeFirm.id, name, baseURL, owner: { name: ownerName, email, password: FIXTURE_PASSWORD, memberId: me.memberId, session } };
+  return {
+    id: me.activeFirm.id,
+    name,
+    baseURL,
+    owner: { name: ownerName, email, password: FIXTURE_PASSWORD, memberId: me.memberId, session },
+  };
 }
 
 /** Someone new joins the firm with `role`: the Owner invites them and they accept the e-mailed link with a new account. */
@@ -74,10 +84,15 @@ export async function inviteMember(firm: Firm, role: Role, name: string): Promis
   await callApi(firm.owner.session, 'post', '/api/invitations', { data: { email, role } });
   const link = await emailLink(firm.owner.session, email, '/invitations/');
   const session = await openApiSession(firm.baseURL);
-  const { me, csrfToken } = await callApi<SessionEnvelope>(session, 'post', `/api/invitations/by-token/${tokenOf(link)}/accept`, {
-    data: { name, password: FIXTURE_PASSWORD },
-    status: 200,
-  });
+  const { me, csrfToken } = await callApi<SessionEnvelope>(
+    session,
+    'post',
+    `/api/invitations/by-token/${tokenOf(link)}/accept`,
+    {
+      data: { name, password: FIXTURE_PASSWORD },
+      status: 200,
+    },
+  );
   expect(me.activeFirm.id).toBe(firm.id);
   session.csrf = csrfToken;
   return { name, email, password: FIXTURE_PASSWORD, memberId: me.memberId, session };

@@ -1,4 +1,13 @@
-import type { CreateKitItemInput, CreateVanInput, Depot, ItemKind, Kit, KitItem, KitLabel, Van } from '@heatfleet/domain';
+import type {
+  CreateKitItemInput,
+  CreateVanInput,
+  Depot,
+  ItemKind,
+  Kit,
+  KitItem,
+  KitLabel,
+  Van,
+} from '@heatfleet/domain';
 import { callApi, type ApiSession } from './api-session';
 
 // Vans, depots and kit for a fixture firm, each through its own route (apps/api/src/modules/locations and kits).
@@ -35,12 +44,17 @@ export async function addKitItem(session: ApiSession, input: CreateKitItemInput)
 
 /** A vibrating tool's magnitude in m/s², for the HSE points on the job sheet. */
 export async function setVibration(session: ApiSession, itemId: number, vibrationMs2: number): Promise<KitItem> {
-  return (await callApi<{ item: KitItem }>(session, 'patch', `/api/kit-items/${itemId}`, { data: { vibrationMs2 } })).item;
+  return (await callApi<{ item: KitItem }>(session, 'patch', `/api/kit-items/${itemId}`, { data: { vibrationMs2 } }))
+    .item;
 }
 
 /** The whole kit goes out to a van, logged in custody like any check-out. */
 export async function checkOutKit(session: ApiSession, kitId: number, vanId: number): Promise<void> {
-  await callApi(session, 'post', `/api/kits/${kitId}/check-out`, { data: { toLocationId: vanId }, status: 200, idempotent: true });
+  await callApi(session, 'post', `/api/kits/${kitId}/check-out`, {
+    data: { toLocationId: vanId },
+    status: 200,
+    idempotent: true,
+  });
 }
 
 /** The kit's labels, with the URL each QR code prints. */

@@ -8,7 +8,8 @@ export async function addCustomer(session: ApiSession, input: CustomerInput): Pr
 }
 
 export async function addSite(session: ApiSession, customerId: number, input: SiteInput): Promise<NewSite> {
-  return (await callApi<{ site: NewSite }>(session, 'post', `/api/customers/${customerId}/sites`, { data: input })).site;
+  return (await callApi<{ site: NewSite }>(session, 'post', `/api/customers/${customerId}/sites`, { data: input }))
+    .site;
 }
 
 /** A job booked with its survey; the answer carries the plan (volume, doses, what the van is short of). */

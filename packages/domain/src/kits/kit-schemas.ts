@@ -65,11 +65,9 @@ export const assetTagSchema = z
   .trim()
   .toUpperCase()
   .pipe(
-    z
-      .string()
-      .regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, {
-        error: (iss) => `Asset tag "${String(iss.input)}" may use letters, digits and dashes, up to 32.`,
-      }),
+    z.string().regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, {
+      error: (iss) => `Asset tag "${String(iss.input)}" may use letters, digits and dashes, up to 32.`,
+    }),
   );
 
 export const createKitInputSchema = z.strictObject({ name: name('Kit name'), notes: text('Notes', 1000) });

@@ -28,6 +28,7 @@ export function EditJobPage() {
         engineers={choices.engineers}
         heatExchangerDefaults={choices.heatExchangerDefaults}
         ownDefaults={choices.ownDefaults}
+        vanStock={choices.vanStock}
       />
     </>
   );

@@ -22,6 +22,7 @@ export function NewJobPage() {
         today={calendarDateIn(new Date(), me.activeFirm.timeZone)}
         heatExchangerDefaults={choices.heatExchangerDefaults}
         ownDefaults={choices.ownDefaults}
+        vanStock={choices.vanStock}
       />
     </>
   );

@@ -3,7 +3,7 @@ import { useAbility } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
 import { firmSettingsQueries } from '@/features/firms/api/firm-settings-queries';
 import type { EngineerChoice } from '@/features/jobs/components/job-form';
-import { productQueries } from '@/features/stock/api/stock-queries';
+import { productQueries, stockQueries } from '@/features/stock/api/stock-queries';
 import { memberQueries } from '@/features/team/api/member-queries';
 
 /** What the booking form offers, from three features: the products to dose, the engineers, the firm's defaults. */
@@ -13,6 +13,8 @@ export function useBookingChoices() {
   const products = useQuery(productQueries.list());
   const members = useQuery({ ...memberQueries.list(), enabled: ability.can('read', 'Member') });
   const firm = useQuery(firmSettingsQueries.detail());
+  // An engineer books for their own van, so the plan can say whether it holds the packs.
+  const myVan = useQuery({ ...stockQueries.mine(), enabled: me.role === 'engineer' });
   // An engineer books for themself only; the office names one of the firm's active engineers (the API holds the same rule).
   const engineers: EngineerChoice[] =
     me.role === 'engineer'
@@ -29,5 +31,8 @@ export function useBookingChoices() {
     heatExchangerDefaults: firm.data?.heatExchangerDefaults ?? null,
     ownDefaults: firm.data?.heatExchangerDefaultsOwn ?? false,
     firmPending: firm.isPending,
+    vanStock: myVan.data?.van
+      ? { vanName: myVan.data.van.name, usable: new Map(myVan.data.stock.map((c) => [c.productId, c.usable])) }
+      : null,
   };
 }

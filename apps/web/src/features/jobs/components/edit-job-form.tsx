@@ -12,7 +12,7 @@ import {
   type EngineerChoice,
   type JobFormValues,
 } from '@/features/jobs/components/job-form';
-import type { DoseProduct } from '@/features/jobs/components/live-plan-panel';
+import type { DoseProduct, VanStock } from '@/features/jobs/components/live-plan-panel';
 import { surveyToDraft } from '@/features/jobs/components/survey-draft';
 
 /** Edits or reschedules a booked job: the same form as booking, the site fixed. */
@@ -22,12 +22,14 @@ export function EditJobForm({
   engineers,
   heatExchangerDefaults,
   ownDefaults,
+  vanStock,
 }: {
   detail: JobDetail;
   products: DoseProduct[];
   engineers: EngineerChoice[];
   heatExchangerDefaults: HeatExchangerDefaults | null;
   ownDefaults: boolean;
+  vanStock: VanStock | null;
 }) {
   const navigate = useNavigate();
   const update = useUpdateJob(detail.job.id);
@@ -67,6 +69,7 @@ export function EditJobForm({
       engineers={engineers}
       heatExchangerDefaults={heatExchangerDefaults}
       ownDefaults={ownDefaults}
+      vanStock={vanStock}
       customerPicker={
         <p className="rounded-lg bg-brand-50 px-3 py-2 font-semibold text-brand-900">
           {detail.job.site.customerName}, {detail.job.site.address}

@@ -17,7 +17,7 @@ import { SegmentedChoice } from '@/components/ui/segmented-choice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import type { FieldErrors } from '@/lib/form';
-import { LivePlanPanel, PlanLine, type DoseProduct } from '@/features/jobs/components/live-plan-panel';
+import { LivePlanPanel, PlanLine, type DoseProduct, type VanStock } from '@/features/jobs/components/live-plan-panel';
 import { PipeRunRows } from '@/features/jobs/components/pipe-run-rows';
 import { ProductChoices } from '@/features/jobs/components/product-choices';
 import { RadiatorCountAdder } from '@/features/jobs/components/radiator-count-adder';
@@ -110,6 +110,7 @@ export function JobForm({
   engineers,
   heatExchangerDefaults,
   ownDefaults,
+  vanStock = null,
   customerPicker,
   submitLabel,
   busy,
@@ -123,6 +124,7 @@ export function JobForm({
   heatExchangerDefaults: HeatExchangerDefaults | null;
   /** The firm set its own heat exchanger defaults (else the built-in ones, from memory). */
   ownDefaults: boolean;
+  vanStock?: VanStock | null;
   customerPicker: ReactNode;
   submitLabel: string;
   busy: boolean;
@@ -349,7 +351,12 @@ export function JobForm({
           onChange={(productIds) => set({ productIds })}
         />
 
-        <PlanLine survey={liveSurvey} products={chosenProducts} heatExchangerDefaults={heatExchangerDefaults} />
+        <PlanLine
+          survey={liveSurvey}
+          products={chosenProducts}
+          heatExchangerDefaults={heatExchangerDefaults}
+          vanStock={vanStock}
+        />
         {formError ? <Alert tone="error">{formError}</Alert> : null}
         <Button type="submit" className="min-h-14 w-full text-lg sm:w-auto" busy={busy}>
           {submitLabel}

@@ -16,15 +16,23 @@ export interface DoseProduct {
   radiatorsPerPack: number | null;
 }
 
-/** The plan in a few lines, right above the booking button: the volume, its label, and packs per product. */
+/** Usable packs per product on the van that will do the job, when the form knows it (an engineer booking their own). */
+export interface VanStock {
+  vanName: string;
+  usable: ReadonlyMap<number, number>;
+}
+
+/** The plan in a few lines, right above the booking button: the volume, its label, packs per product and the van. */
 export function PlanLine({
   survey,
   products,
   heatExchangerDefaults,
+  vanStock,
 }: {
   survey: Survey;
   products: DoseProduct[];
   heatExchangerDefaults: HeatExchangerDefaults | null;
+  vanStock: VanStock | null;
 }) {
   const volume = surveyVolume(survey, heatExchangerDefaults);
   const radiators = survey.radiators.length;
@@ -40,10 +48,22 @@ export function PlanLine({
           <p key={p.id}>
             {p.name}: {plan.packs} pack{plan.packs === 1 ? '' : 's'}
             {plan.litres === null ? '' : ` (${plan.litres.toFixed(2)} L)`}
+            {vanStock ? <VanHolds held={vanStock.usable.get(p.id) ?? 0} needed={plan.packs} /> : null}
           </p>
         );
       })}
     </div>
+  );
+}
+
+function VanHolds({ held, needed }: { held: number; needed: number }) {
+  return held >= needed ? (
+    <span className="font-semibold text-ok-700"> · the van holds {held}</span>
+  ) : (
+    <span className="font-semibold text-danger-700">
+      {' '}
+      · the van holds {held}, {needed - held} short
+    </span>
   );
 }
 

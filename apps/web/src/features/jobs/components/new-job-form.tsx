@@ -13,7 +13,7 @@ import {
   type EngineerChoice,
   type JobFormValues,
 } from '@/features/jobs/components/job-form';
-import type { DoseProduct } from '@/features/jobs/components/live-plan-panel';
+import type { DoseProduct, VanStock } from '@/features/jobs/components/live-plan-panel';
 import { defaultProductIds } from '@/features/jobs/components/product-choices';
 import { initialSurveyDraft } from '@/features/jobs/components/survey-draft';
 
@@ -27,6 +27,7 @@ export function NewJobForm({
   today,
   heatExchangerDefaults,
   ownDefaults,
+  vanStock,
 }: {
   products: DoseProduct[];
   engineers: EngineerChoice[];
@@ -34,6 +35,7 @@ export function NewJobForm({
   today: string;
   heatExchangerDefaults: HeatExchangerDefaults | null;
   ownDefaults: boolean;
+  vanStock: VanStock | null;
 }) {
   const navigate = useNavigate();
   const create = useCreateJob();
@@ -76,6 +78,7 @@ export function NewJobForm({
       engineers={engineers}
       heatExchangerDefaults={heatExchangerDefaults}
       ownDefaults={ownDefaults}
+      vanStock={vanStock}
       customerPicker={<CustomerSitePicker siteId={siteId} onSiteChange={setSiteId} siteError={errors.siteId} />}
       submitLabel="Book the job"
       busy={create.isPending}
