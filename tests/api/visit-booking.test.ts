@@ -150,6 +150,43 @@ describe('a booked job can be edited, rescheduled and cancelled', () => {
   });
 });
 
+describe('a visit\u2019s time of day', () => {
+  it('is optional at booking, kept, changed by a reschedule, shown in the list, and refused when not a time', async () => {
+    const firm = await seedFirm(t.deps.db, 'time');
+    const office = await signIn(t.app, firm.people.admin.email);
+    const untimed = await office.post('/api/jobs', { siteId: firm.siteId, scheduledOn: '2026-12-21', survey });
+    expect(untimed.status).toBe(201);
+    expect(untimed.body.job.scheduledTime).toBeNull();
+    const booked = await office.post('/api/jobs', {
+      siteId: firm.siteId,
+      scheduledOn: '2026-12-21',
+      scheduledTime: '08:30',
+      survey,
+    });
+    expect(booked.status).toBe(201);
+    expect(booked.body.job).toMatchObject({ scheduledOn: '2026-12-21', scheduledTime: '08:30' });
+    const id = booked.body.job.id as number;
+    const moved = await office.patch(`/api/jobs/${id}`, { scheduledTime: '13:15' });
+    expect(moved.status).toBe(200);
+    expect(moved.body.job).toMatchObject({ scheduledOn: '2026-12-21', scheduledTime: '13:15' });
+    // On the same day, the timed visit comes before the one with no time.
+    const list = await office.get('/api/jobs?sort=upcoming&from=2026-12-21&to=2026-12-21');
+    const sameDay = (list.body.jobs as { id: number; scheduledTime: string | null }[]).map((j) => [
+      j.id,
+      j.scheduledTime,
+    ]);
+    expect(sameDay).toContainEqual([id, '13:15']);
+    const order = sameDay.map(([jobId]) => jobId);
+    expect(order.indexOf(id)).toBeLessThan(order.indexOf(untimed.body.job.id as number));
+    for (const bad of ['25:00', '8.30', '12:60']) {
+      const refused = await office.patch(`/api/jobs/${id}`, { scheduledTime: bad });
+      expect(refused.status, bad).toBe(422);
+      expect(refused.body.details[0].path).toBe('scheduledTime');
+    }
+    expect((await office.get(`/api/jobs/${id}`)).body.job.scheduledTime).toBe('13:15');
+  });
+});
+
 describe('the jobs list where people need it', () => {
   it('filters by status, engineer and dates; upcoming first; each row has the engineer, the system and the radiators', async () => {
     const firm = await seedFirm(t.deps.db, 'list');

@@ -183,9 +183,19 @@ export function surveyVolume(
   };
 }
 
+/** A visit's time of day, 'HH:MM' on the 24-hour clock in the firm's zone. */
+export const timeOfDaySchema = z
+  .string({ error: 'The time must be text like 08:30.' })
+  .trim()
+  .regex(/^([01]\d|2[0-3]):[0-5]\d$/, {
+    error: (iss) => `"${String(iss.input)}" is not a time of day (use 24-hour HH:MM, e.g. 08:30).`,
+  });
+
 export const createJobInputSchema = z.strictObject({
   siteId: z.number().int().positive(),
   scheduledOn: calendarDateWithin('The visit date', dateRanges.planned),
+  /** The time of day, when the visit has one. */
+  scheduledTime: timeOfDaySchema.nullable().optional(),
   engineerMemberId: z.number().int().positive().nullable().optional(),
   survey: surveySchema,
   /** The products to dose (a cleaner, an inhibitor). */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { calendarDateSchema, calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
-import { surveySchema, systemDetailsSchema, visitKinds } from './job-schemas.ts';
+import { surveySchema, systemDetailsSchema, timeOfDaySchema, visitKinds } from './job-schemas.ts';
 
 // The inputs of the visit (issue 12): editing, rescheduling and cancelling a booked job, the jobs
 // list's filters, the customer type-ahead, the flush order, signatures and the guarded completion.
@@ -12,6 +12,7 @@ const memberId = z.number().int().positive();
 export const updateJobInputSchema = z
   .strictObject({
     scheduledOn: calendarDateWithin('The visit date', dateRanges.planned).optional(),
+    scheduledTime: timeOfDaySchema.nullable().optional(),
     engineerMemberId: memberId.nullable().optional(),
     survey: surveySchema.optional(),
     productIds: z.array(z.number().int().positive()).max(6).optional(),

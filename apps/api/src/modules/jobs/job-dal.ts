@@ -9,6 +9,7 @@ export interface JobRow {
   engineer_member_id: number | null;
   van_location_id: number | null;
   scheduled_on: string;
+  scheduled_time: string | null;
   status: 'planned' | 'completed' | 'cancelled';
   visit_kind: VisitKind;
   survey: string | Survey;
@@ -50,6 +51,7 @@ export async function listJobRows(db: Db, firmId: number, filter: JobListQuery =
       'j.id',
       'j.status',
       'j.scheduled_on as scheduledOn',
+      'j.scheduled_time as scheduledTime',
       's.address',
       's.postcode',
       'c.name as customerName',
@@ -65,7 +67,9 @@ export async function listJobRows(db: Db, firmId: number, filter: JobListQuery =
   if (filter.from) q.where('j.scheduled_on', '>=', filter.from);
   if (filter.to) q.where('j.scheduled_on', '<=', filter.to);
   if (filter.sort === 'upcoming') {
-    q.orderByRaw("j.status = 'planned' DESC, CASE WHEN j.status = 'planned' THEN j.scheduled_on END ASC")
+    q.orderByRaw(
+      "j.status = 'planned' DESC, CASE WHEN j.status = 'planned' THEN j.scheduled_on END ASC, CASE WHEN j.status = 'planned' THEN j.scheduled_time IS NULL END ASC, CASE WHEN j.status = 'planned' THEN j.scheduled_time END ASC",
+    )
       .orderBy('j.scheduled_on', 'desc')
       .orderBy('j.id', 'desc');
   } else {
@@ -83,6 +87,7 @@ export async function insertJob(
     engineerMemberId: number | null;
     vanLocationId: number | null;
     scheduledOn: string;
+    scheduledTime: string | null;
     survey: Survey;
     visitKind: VisitKind;
     systemDetails: SystemDetails | null;
@@ -94,6 +99,7 @@ export async function insertJob(
     engineer_member_id: row.engineerMemberId,
     van_location_id: row.vanLocationId,
     scheduled_on: row.scheduledOn,
+    scheduled_time: row.scheduledTime,
     survey: JSON.stringify(row.survey),
     visit_kind: row.visitKind,
     system_details: row.systemDetails === null ? null : JSON.stringify(row.systemDetails),

@@ -26,6 +26,7 @@ export async function updateJob(deps: AppDeps, actor: Actor, id: number, input: 
       const survey = input.survey ?? parseSurvey(row);
       const fields: Parameters<typeof updateJobFields>[3] = {};
       if (input.scheduledOn !== undefined) fields.scheduled_on = input.scheduledOn;
+      if (input.scheduledTime !== undefined) fields.scheduled_time = input.scheduledTime;
       if (input.engineerMemberId !== undefined) {
         const engineerMemberId = await bookedEngineer(trx, actor, input.engineerMemberId);
         const van = engineerMemberId ? await findVanOfMember(trx, actor.firmId, engineerMemberId) : undefined;

@@ -94,6 +94,7 @@ export async function updateJobFields(
   jobId: number,
   fields: {
     scheduled_on?: string;
+    scheduled_time?: string | null;
     engineer_member_id?: number | null;
     van_location_id?: number | null;
     survey?: string;

@@ -119,7 +119,8 @@ export function JobPage() {
       <PageHeader title={`Job at ${row.site.address}`}>
         <span className="flex flex-wrap items-center gap-2">
           <span>
-            {row.site.customerName} · {formatCalendarDate(row.scheduledOn)} · {visitKindLabels[row.visitKind]}
+            {row.site.customerName} · {formatCalendarDate(row.scheduledOn)}
+            {row.scheduledTime ? ` at ${row.scheduledTime}` : ''} · {visitKindLabels[row.visitKind]}
             {row.engineerName ? ` · ${row.engineerName}` : ''}
           </span>
           <JobStatusBadge status={row.status} />

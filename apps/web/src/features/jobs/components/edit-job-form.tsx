@@ -37,6 +37,7 @@ export function EditJobForm({
   const [formError, setFormError] = useState<string | null>(null);
   const [initial] = useState<JobFormValues>(() => ({
     scheduledOn: detail.job.scheduledOn,
+    scheduledTime: detail.job.scheduledTime ?? '',
     engineerId: detail.job.engineerMemberId ? String(detail.job.engineerMemberId) : '',
     visitKind: detail.job.visitKind,
     survey: surveyToDraft(detail.survey),

@@ -20,6 +20,7 @@ export function buildJobColumns(): DataTableColumns<JobListRow> {
           className="inline-flex min-h-12 items-center font-semibold whitespace-nowrap text-brand-700 underline underline-offset-4"
         >
           {formatCalendarDate(info.getValue())}
+          {info.row.original.scheduledTime ? ` ${info.row.original.scheduledTime}` : ''}
         </Link>
       ),
     }),

@@ -55,6 +55,8 @@ export function systemDetailsDraft(a: SystemDetailsAnswer | null): SystemDetails
 /** The booking as typed; the page turns it into the create or edit input. */
 export interface JobFormValues {
   scheduledOn: string;
+  /** 'HH:MM', or empty for no set time. */
+  scheduledTime: string;
   engineerId: string;
   visitKind: VisitKind;
   survey: SurveyDraft;
@@ -66,6 +68,7 @@ export function jobFormInput(values: JobFormValues) {
   const d = values.systemDetails;
   return {
     scheduledOn: values.scheduledOn,
+    scheduledTime: values.scheduledTime.trim() === '' ? null : values.scheduledTime,
     engineerMemberId: values.engineerId ? Number(values.engineerId) : null,
     visitKind: values.visitKind,
     survey: draftToSurveyInput(values.survey),
@@ -172,6 +175,14 @@ export function JobForm({
               value={values.scheduledOn}
               onChange={(e) => set({ scheduledOn: e.target.value })}
               error={errors.scheduledOn}
+            />
+            <TextField
+              label="Time (optional)"
+              name="scheduledTime"
+              type="time"
+              value={values.scheduledTime}
+              onChange={(e) => set({ scheduledTime: e.target.value })}
+              error={errors.scheduledTime}
             />
             <SelectField
               label="Engineer"

@@ -41,6 +41,7 @@ function JobRow({ job, today }: { job: JobListRow; today: string }) {
       >
         <span className="block font-bold text-brand-900">
           {job.scheduledOn === today ? 'Today' : formatCalendarDate(job.scheduledOn)}
+          {job.scheduledTime ? `, ${job.scheduledTime}` : ''}
         </span>
         <span className="block font-semibold break-words text-ink">{job.address}</span>
         <span className="block text-sm text-ink-muted">

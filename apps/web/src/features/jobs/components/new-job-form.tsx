@@ -44,6 +44,7 @@ export function NewJobForm({
   const [formError, setFormError] = useState<string | null>(null);
   const [initial] = useState<JobFormValues>(() => ({
     scheduledOn: today,
+    scheduledTime: '',
     engineerId: defaultEngineerId ? String(defaultEngineerId) : '',
     visitKind: 'full_clean',
     survey: initialSurveyDraft(),
