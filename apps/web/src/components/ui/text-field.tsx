@@ -7,6 +7,7 @@ interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'id
   hint?: string;
 }
 
+/** A labelled input 48 px tall (a gloved finger's target), its hint and error tied to it for screen readers. */
 export function TextField({ label, name, error, hint, className = '', ...rest }: TextFieldProps) {
   const id = useId();
   const hintId = `${id}-hint`;
@@ -27,7 +28,7 @@ export function TextField({ label, name, error, hint, className = '', ...rest }:
         name={name}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
-        className={`min-h-11 w-full rounded-md border bg-card px-3 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
+        className={`min-h-12 w-full rounded-md border-2 bg-card px-3 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
         {...rest}
       />
       {error ? (

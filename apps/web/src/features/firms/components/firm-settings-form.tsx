@@ -19,7 +19,6 @@ import { useSchemaForm } from '@/lib/form';
 import { firmSettingsQueries, useSaveFirmSettings } from '@/features/firms/api/firm-settings-queries';
 import { HeatExchangerFields } from '@/features/firms/components/heat-exchanger-fields';
 import { heatExchangerFieldNames, heatExchangerInput } from '@/features/firms/components/heat-exchanger-input';
-import { SettingsField } from '@/features/firms/components/settings-field';
 
 const fields = [
   'name',
@@ -99,7 +98,7 @@ function Form({ firm }: { firm: FirmSettings }) {
         error={form.fieldErrors.address}
       />
       <div className="grid gap-4 sm:grid-cols-2">
-        <SettingsField
+        <TextField
           label="Phone"
           name="phone"
           type="tel"
@@ -110,7 +109,7 @@ function Form({ firm }: { firm: FirmSettings }) {
           hint="Printed on the customer’s report."
           error={form.fieldErrors.phone}
         />
-        <SettingsField
+        <TextField
           label="E-mail"
           name="email"
           type="email"
@@ -122,7 +121,7 @@ function Form({ firm }: { firm: FirmSettings }) {
           error={form.fieldErrors.email}
         />
       </div>
-      <SettingsField
+      <TextField
         label="Registration numbers"
         name="registrationNumbers"
         maxLength={300}

@@ -9,7 +9,7 @@ import {
 } from '@heatfleet/domain';
 import { Button } from '@/components/ui/button';
 import type { FieldErrors } from '@/lib/form';
-import { SettingsField } from '@/features/firms/components/settings-field';
+import { TextField } from '@/components/ui/text-field';
 
 const fuelLabels: Record<Fuel, string> = { gas: 'Gas', oil: 'Oil', other: 'Other fuels' };
 const kindLabels: Record<BoilerKind, string> = { combi: 'Combi', system: 'System', regular: 'Regular' };
@@ -47,7 +47,7 @@ export function HeatExchangerFields({
           {boilerKinds.map((k) => {
             const name = `heatExchangerDefaults.${f}.${k}`;
             return (
-              <SettingsField
+              <TextField
                 key={k}
                 label={`${fuelLabels[f]} ${kindLabels[k].toLowerCase()}`}
                 name={name}
