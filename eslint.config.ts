@@ -65,7 +65,15 @@ const sqlOutsideDal = [
 
 export default tseslint.config(
   {
-    ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**', 'bench/results/**'],
+    ignores: [
+      'dist/**',
+      'dist-slot-*/**',
+      'node_modules/**',
+      '.data/**',
+      'test-results/**',
+      'playwright-report/**',
+      'bench/results/**',
+    ],
   },
   js.configs.recommended,
   ...tseslint.configs.recommended,

@@ -10,7 +10,7 @@ export default defineConfig({
   expect: { timeout: 10_000 },
   fullyParallel: false,
   forbidOnly: true,
-  outputDir: '.data/test/playwright-artifacts',
+  outputDir: process.env.PLAYWRIGHT_ARTIFACTS ?? '.data/test/playwright-artifacts',
   reporter: [['list'], ['json', { outputFile: process.env.PLAYWRIGHT_JSON ?? '.data/test/playwright.json' }]],
   use: {
     ...devices['Desktop Chrome'],

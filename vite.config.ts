@@ -61,7 +61,7 @@ export default defineConfig({
     port: Number(process.env.PORT ?? 5173),
     strictPort: true,
     // The stack's data and the test reports change while the dev server runs; none of it is source.
-    watch: { ignored: ['**/.data/**', '**/dist/**', '**/test-results/**'] },
+    watch: { ignored: ['**/.data/**', '**/dist/**', '**/dist-slot-*/**', '**/test-results/**'] },
     proxy: {
       '/api': { target: process.env.API_PROXY_TARGET ?? 'http://127.0.0.1:5174', changeOrigin: false },
     },

@@ -33,8 +33,23 @@ function appPortFromEnv(fallback: number): number {
   return port;
 }
 
+/**
+ * HEATFLEET_TEST_SLOT=1..7 gives `npm test` its own ports (each + slot x 100), data folder and built client, so
+ * several engineers can run tests in one checkout at once. Unset (slot 0) is the usual stack CI runs.
+ */
+function testSlot(): number {
+  const raw = process.env.HEATFLEET_TEST_SLOT;
+  if (raw === undefined || raw === '' || raw === '0') return 0;
+  const slot = Number(raw);
+  if (!Number.isInteger(slot) || slot < 1 || slot > 7) {
+    throw new Error(`HEATFLEET_TEST_SLOT must be a whole number from 1 to 7, got "${raw}".`);
+  }
+  return slot;
+}
+
 export function getProfile(name: ProfileName): Profile {
-  const dataDir = join(repoRoot, '.data', name);
+  const slot = name === 'test' ? testSlot() : 0;
+  const dataDir = join(repoRoot, '.data', slot === 0 ? name : `${name}-slot-${slot}`);
   const common = {
     dataDir,
     outboxDir: join(dataDir, 'outbox'),
@@ -82,18 +97,18 @@ export function getProfile(name: ProfileName): Profile {
     nodeEnv: 'test',
     mariadb: {
       dataDir: join(dataDir, 'mariadb'),
-      port: 3407,
+      port: 3407 + slot * 100,
       dbName: 'heatfleet_test',
       // Test data is thrown away each run: trading crash durability for faster commits is fine here.
       extraArgs: ['--innodb-flush-log-at-trx-commit=2', '--sync-binlog=0'],
     },
-    redis: { dataDir: join(dataDir, 'redis'), port: 6480 },
-    smtpPort: 2526,
-    s3: s3(4570),
-    appPort: 5183,
+    redis: { dataDir: join(dataDir, 'redis'), port: 6480 + slot * 100 },
+    smtpPort: 2526 + slot * 100,
+    s3: s3(4570 + slot * 100),
+    appPort: 5183 + slot * 100,
     // The same dist/ as `npm start`: a folder under .data would trip express's sendFile, which refuses
     // any path with a dot-folder in it unless given a root.
-    distDir: join(repoRoot, 'dist'),
+    distDir: join(repoRoot, slot === 0 ? 'dist' : `dist-slot-${slot}`),
     logLevel: 'warn',
   };
 }

@@ -127,7 +127,13 @@ async function e2ePhase(env: NodeJS.ProcessEnv): Promise<void> {
   const baseUrl = `http://localhost:${profile.appPort}`;
   say(`App up at ${baseUrl} (API and worker logs in ${relative(repoRoot, profile.logDir)}/); running Playwright…`);
   const code = await runStep(process.execPath, [toolFiles.playwright, 'test', '--config', toolFiles.playwrightConfig], {
-    env: { ...env, BASE_URL: baseUrl, PLAYWRIGHT_JSON: playwrightJson, PLAYWRIGHT_JSON_OUTPUT_FILE: playwrightJson },
+    env: {
+      ...env,
+      BASE_URL: baseUrl,
+      PLAYWRIGHT_JSON: playwrightJson,
+      PLAYWRIGHT_JSON_OUTPUT_FILE: playwrightJson,
+      PLAYWRIGHT_ARTIFACTS: join(profile.dataDir, 'playwright-artifacts'),
+    },
     cwd: repoRoot,
   });
   life.assertRunning();
