@@ -34,15 +34,15 @@ function appPortFromEnv(fallback: number): number {
 }
 
 /**
- * HEATFLEET_TEST_SLOT=1..7 gives `npm test` its own ports (each + slot x 100), data folder and built client, so
+ * HEATFLEET_TEST_SLOT=1..9 gives `npm test` its own ports (each + slot x 100), data folder and built client, so
  * several engineers can run tests in one checkout at once. Unset (slot 0) is the usual stack CI runs.
  */
 function testSlot(): number {
   const raw = process.env.HEATFLEET_TEST_SLOT;
   if (raw === undefined || raw === '' || raw === '0') return 0;
   const slot = Number(raw);
-  if (!Number.isInteger(slot) || slot < 1 || slot > 7) {
-    throw new Error(`HEATFLEET_TEST_SLOT must be a whole number from 1 to 7, got "${raw}".`);
+  if (!Number.isInteger(slot) || slot < 1 || slot > 9) {
+    throw new Error(`HEATFLEET_TEST_SLOT must be a whole number from 1 to 9, got "${raw}".`);
   }
   return slot;
 }
