@@ -11,13 +11,20 @@ import { startServices } from './services.ts';
 import { childEnv } from './stack-env.ts';
 import { addCounts, countPlaywright, countVitest, readReport, summaryLine, type Counts } from './test-summary.ts';
 
-// Ours: --e2e (browser tests even with a vitest filter), --e2e-only, --no-e2e. Anything else goes to vitest.
+// Ours: --e2e (browser tests even with a vitest filter), --e2e-only, --no-e2e, and tests/e2e/<file> (only those
+// browser files). Anything else goes to vitest.
 const ownFlags = new Set(['--e2e', '--e2e-only', '--no-e2e']);
 const argv = process.argv.slice(2);
-const vitestArgs = argv.filter((arg) => !ownFlags.has(arg));
-const runVitest = !argv.includes('--e2e-only');
+// A path under tests/e2e/ picks browser test files (only those run) and is not passed to vitest.
+const isBrowserFile = (arg: string) => arg.replace(/^\.\//, '').startsWith('tests/e2e/');
+const e2eFiles = argv.filter(isBrowserFile);
+const vitestArgs = argv.filter((arg) => !ownFlags.has(arg) && !isBrowserFile(arg));
+const runVitest = !argv.includes('--e2e-only') && !(e2eFiles.length > 0 && vitestArgs.length === 0);
 const wantE2e =
-  argv.includes('--e2e-only') || argv.includes('--e2e') || (!argv.includes('--no-e2e') && vitestArgs.length === 0);
+  argv.includes('--e2e-only') ||
+  argv.includes('--e2e') ||
+  e2eFiles.length > 0 ||
+  (!argv.includes('--no-e2e') && vitestArgs.length === 0);
 
 const profile = getProfile('test');
 const vitestJson = join(profile.dataDir, 'vitest.json');
@@ -126,16 +133,20 @@ async function e2ePhase(env: NodeJS.ProcessEnv): Promise<void> {
   life.assertRunning();
   const baseUrl = `http://localhost:${profile.appPort}`;
   say(`App up at ${baseUrl} (API and worker logs in ${relative(repoRoot, profile.logDir)}/); running Playwright…`);
-  const code = await runStep(process.execPath, [toolFiles.playwright, 'test', '--config', toolFiles.playwrightConfig], {
-    env: {
-      ...env,
-      BASE_URL: baseUrl,
-      PLAYWRIGHT_JSON: playwrightJson,
-      PLAYWRIGHT_JSON_OUTPUT_FILE: playwrightJson,
-      PLAYWRIGHT_ARTIFACTS: join(profile.dataDir, 'playwright-artifacts'),
+  const code = await runStep(
+    process.execPath,
+    [toolFiles.playwright, 'test', '--config', toolFiles.playwrightConfig, ...e2eFiles],
+    {
+      env: {
+        ...env,
+        BASE_URL: baseUrl,
+        PLAYWRIGHT_JSON: playwrightJson,
+        PLAYWRIGHT_JSON_OUTPUT_FILE: playwrightJson,
+        PLAYWRIGHT_ARTIFACTS: join(profile.dataDir, 'playwright-artifacts'),
+      },
+      cwd: repoRoot,
     },
-    cwd: repoRoot,
-  });
+  );
   life.assertRunning();
   const counts = readReport(playwrightJson, countPlaywright);
   if (counts === null) {
