@@ -42,3 +42,4 @@ export * from './jobs/visit-steps.ts';
 export * from './jobs/visit-responses.ts';
 export * from './jobs/completion-checks.ts';
 export * from './jobs/flush-order.ts';
+export * from './sites/customer-list-schemas.ts';
