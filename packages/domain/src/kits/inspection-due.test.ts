@@ -7,6 +7,10 @@ import { inspectionDue, type InspectionRule } from './inspection-due.ts';
 const everyNinetyDays: InspectionRule = { intervalDays: 90, intervalUses: null, dueSoonDays: 14 };
 const afterEachUse: InspectionRule = { intervalDays: null, intervalUses: 1, dueSoonDays: 7 };
 const thirtyDaysOrTenUses: InspectionRule = { intervalDays: 30, intervalUses: 10, dueSoonDays: 5 };
+// The default "Magnet set" kind (default-item-kinds.ts): cleaned and checked after every job.
+const magnetSet: InspectionRule = { intervalDays: null, intervalUses: 1, dueSoonDays: 0 };
+const everyThreeUses: InspectionRule = { intervalDays: null, intervalUses: 3, dueSoonDays: 0 };
+const everyThirtyDaysNoWindow: InspectionRule = { intervalDays: 30, intervalUses: null, dueSoonDays: 0 };
 const noRule: InspectionRule = { intervalDays: null, intervalUses: null, dueSoonDays: 7 };
 
 const cases: [
@@ -67,11 +71,68 @@ const cases: [
     { state: 'ok', dueOn: '2027-03-01', usesLeft: null, reason: 'days' },
   ],
   [
-    'uses: after each job, unused since inspection is due soon',
+    // Issue 14: "after 1 use, due soon 0 days" read due soon for ever, even straight after an inspection.
+    'uses: after each job, unused since inspection is in date',
     afterEachUse,
     { lastInspectedOn: '2026-11-01', usesSinceInspection: 0 },
     '2026-12-01',
+    { state: 'ok', dueOn: null, usesLeft: 1, reason: 'uses' },
+  ],
+  [
+    'uses: the magnet set (after 1 use, due soon 0 days) is in date right after its inspection',
+    magnetSet,
+    { lastInspectedOn: '2026-12-01', usesSinceInspection: 0 },
+    '2026-12-01',
+    { state: 'ok', dueOn: null, usesLeft: 1, reason: 'uses' },
+  ],
+  [
+    'uses: the magnet set is overdue after its one use',
+    magnetSet,
+    { lastInspectedOn: '2026-12-01', usesSinceInspection: 1 },
+    '2026-12-01',
+    { state: 'overdue', dueOn: null, usesLeft: 0, reason: 'uses' },
+  ],
+  [
+    'uses: every 3 uses, unused is in date',
+    everyThreeUses,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 0 },
+    '2026-12-01',
+    { state: 'ok', dueOn: null, usesLeft: 3, reason: 'uses' },
+  ],
+  [
+    'uses: every 3 uses, one use made is in date',
+    everyThreeUses,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 1 },
+    '2026-12-01',
+    { state: 'ok', dueOn: null, usesLeft: 2, reason: 'uses' },
+  ],
+  [
+    'uses: every 3 uses, one left is due soon',
+    everyThreeUses,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 2 },
+    '2026-12-01',
     { state: 'due_soon', dueOn: null, usesLeft: 1, reason: 'uses' },
+  ],
+  [
+    'days with no window (due soon 0 days): the day before the due day is in date',
+    everyThirtyDaysNoWindow,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 0 },
+    '2026-11-30',
+    { state: 'ok', dueOn: '2026-12-01', usesLeft: null, reason: 'days' },
+  ],
+  [
+    'days with no window: the due day itself is due (due soon), the day after overdue',
+    everyThirtyDaysNoWindow,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 0 },
+    '2026-12-01',
+    { state: 'due_soon', dueOn: '2026-12-01', usesLeft: null, reason: 'days' },
+  ],
+  [
+    'days with no window: the day after the due day is overdue',
+    everyThirtyDaysNoWindow,
+    { lastInspectedOn: '2026-11-01', usesSinceInspection: 0 },
+    '2026-12-02',
+    { state: 'overdue', dueOn: '2026-12-01', usesLeft: null, reason: 'days' },
   ],
   [
     'uses: after each job, one use makes it overdue',

@@ -24,7 +24,10 @@ export interface InspectionDue {
 /**
  * When an item next needs inspecting: the last inspection (or, never inspected, the day it came
  * into service) plus the kind's days, or after its number of uses, whichever comes first.
- * Overdue means after the due day or with no uses left; due soon means within the window, or one use left.
+ * Overdue means after the due day or with no uses left; due soon means within the window, or one use left
+ * once the item has been used since its inspection. So a kind inspected after every use (a magnet set
+ * cleaned after each job) reads "in date" straight after its inspection and overdue after one use; it is
+ * never "due soon" for having its single use still ahead of it.
  */
 export function inspectionDue(
   rule: InspectionRule,
@@ -42,7 +45,7 @@ export function inspectionDue(
   const overdueByDays = daysLeft !== null && daysLeft < 0;
   const overdueByUses = usesLeft !== null && usesLeft === 0;
   const soonByDays = daysLeft !== null && daysLeft <= rule.dueSoonDays;
-  const soonByUses = usesLeft !== null && usesLeft <= 1;
+  const soonByUses = usesLeft !== null && usesLeft <= 1 && item.usesSinceInspection > 0;
 
   // Whichever comes first: uses when they have run out (or will on the next use), else days.
   const reason: InspectionDue['reason'] = overdueByUses
