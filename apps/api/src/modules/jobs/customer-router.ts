@@ -1,7 +1,7 @@
 import {
   customerInputSchema,
-  customerListQuerySchema,
-  customerListResponseSchema,
+  customerPageQuerySchema,
+  customerPageResponseSchema,
   customerResponseSchema,
   idParamSchema,
   newSiteResponseSchema,
@@ -9,7 +9,8 @@ import {
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { createSite } from '../sites/site-service.ts';
-import { createCustomer, getCustomer, listCustomers } from './customer-service.ts';
+import { createCustomer, getCustomer } from './customer-service.ts';
+import { listCustomerPage } from './customers-list-service.ts';
 
 export const customerRoutes: RouteDefinition[] = [
   defineRoute({
@@ -19,11 +20,12 @@ export const customerRoutes: RouteDefinition[] = [
     access: 'member',
     tenantData: true,
     summary:
-      'Customers with their sites; with q, the type-ahead: at most 10 whose name, address or postcode holds the text',
-    request: { query: customerListQuerySchema },
-    responses: { 200: { description: 'Customers', schema: customerListResponseSchema } },
+      'A page of customers with their sites (page, pageSize up to 100, total); with q, those whose name, address or ' +
+      'postcode holds the text, names starting with it first (without pageSize: the type-ahead, at most 10)',
+    request: { query: customerPageQuerySchema },
+    responses: { 200: { description: 'Customers', schema: customerPageResponseSchema } },
     handle: async ({ query, res, deps, actor }) => {
-      res.json({ customers: await listCustomers(deps, actor, query) });
+      res.json(await listCustomerPage(deps, actor, query));
     },
   }),
   defineRoute({
