@@ -11,6 +11,8 @@ export interface Profile {
   redis: { dataDir: string; port: number };
   smtpPort: number;
   s3: { dataDir: string; port: number; bucket: string; region: string };
+  /** The local payment stand-in (packages/payfake): the SDK's API, hosted pages and signed webhooks. */
+  payfake: { port: number };
   appPort: number;
   outboxDir: string;
   /** Where the built client goes and the server serves it from. */
@@ -70,6 +72,7 @@ export function getProfile(name: ProfileName): Profile {
       redis: { dataDir: join(dataDir, 'redis'), port: 6479 },
       smtpPort: 2525,
       s3: s3(4569),
+      payfake: { port: 12111 },
       appPort: appPortFromEnv(5173),
       distDir: join(repoRoot, 'dist'),
       logLevel: 'info',
@@ -86,6 +89,7 @@ export function getProfile(name: ProfileName): Profile {
       redis: { dataDir: join(dataDir, 'redis'), port: 6483 },
       smtpPort: 2529,
       s3: s3(4573),
+      payfake: { port: 12119 },
       appPort: 5196,
       distDir: join(repoRoot, 'dist'),
       logLevel: 'warn',
@@ -105,6 +109,7 @@ export function getProfile(name: ProfileName): Profile {
     redis: { dataDir: join(dataDir, 'redis'), port: 6480 + slot * 100 },
     smtpPort: 2526 + slot * 100,
     s3: s3(4570 + slot * 100),
+    payfake: { port: 12112 + slot * 100 },
     appPort: 5183 + slot * 100,
     // The same dist/ as `npm start`: a folder under .data would trip express's sendFile, which refuses
     // any path with a dot-folder in it unless given a root.

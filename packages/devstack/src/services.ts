@@ -2,14 +2,17 @@ import { mkdirSync } from 'node:fs';
 import { startMailCatcher, type MailCatcher } from './mail-catcher.ts';
 import { startMariadb, stopMariadb, type MariadbInstance } from './mariadb.ts';
 import { startObjectStore, type ObjectStore } from './object-store.ts';
+import { startPayfake, type Payfake } from '@heatfleet/payfake';
 import type { Profile } from './profiles.ts';
 import { startRedis, stopRedis, type RedisInstance } from './redis.ts';
+import { payfakeSecretKey, payfakeWebhookSecret, payfakeWebhookUrl } from './stack-env.ts';
 
 export interface Services {
   mariadb: MariadbInstance;
   redis: RedisInstance | null;
   mail: MailCatcher | null;
   objectStore: ObjectStore | null;
+  payfake: Payfake | null;
   /** Stops what this process started, newest first; servers that were already up are left running. */
   stop(): Promise<void>;
 }
@@ -24,7 +27,7 @@ export function describeMariadb(instance: MariadbInstance): string {
   return `MariaDB on ${instance.port}: ${init}started in ${seconds(instance.startMs)}`;
 }
 
-/** MariaDB, then Redis, the mail catcher and the S3 object store (unless only the database is wanted, as for db:migrate). */
+/** MariaDB, then Redis, the mail catcher, the S3 object store and the payment stand-in (unless only the database is wanted, as for db:migrate). */
 export async function startServices(
   profile: Profile,
   options: { only?: 'mariadb'; log?: (line: string) => void } = {},
@@ -48,7 +51,8 @@ export async function startServices(
     });
     if (mariadb.startedHere) stops.push(() => stopMariadb(mariadb));
     log(describeMariadb(mariadb));
-    if (options.only === 'mariadb') return { mariadb, redis: null, mail: null, objectStore: null, stop: stopAll };
+    if (options.only === 'mariadb')
+      return { mariadb, redis: null, mail: null, objectStore: null, payfake: null, stop: stopAll };
 
     const redis = await startRedis({ dataDir: profile.redis.dataDir, port: profile.redis.port });
     if (redis.startedHere) stops.push(() => stopRedis(redis));
@@ -69,7 +73,17 @@ export async function startServices(
     });
     stops.push(() => objectStore.close());
     log(`Object store (S3) on ${objectStore.port}: bucket ${objectStore.bucket} in ${profile.s3.dataDir}`);
-    return { mariadb, redis, mail, objectStore, stop: stopAll };
+
+    const payfake = await startPayfake({
+      port: profile.payfake.port,
+      secretKey: payfakeSecretKey,
+      webhookUrl: payfakeWebhookUrl(profile),
+      webhookSecret: payfakeWebhookSecret,
+      log: (line) => log(`[payments] ${line}`),
+    });
+    stops.push(() => payfake.close());
+    log(`Payment stand-in on ${payfake.port}: posting signed webhooks to ${payfakeWebhookUrl(profile)}`);
+    return { mariadb, redis, mail, objectStore, payfake, stop: stopAll };
   } catch (error) {
     await stopAll().catch(() => undefined);
     throw error;

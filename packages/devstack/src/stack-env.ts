@@ -5,6 +5,14 @@ import { databasePassword, databaseUser, getProfile, type Profile, type ProfileN
 
 export const mailFrom = 'Heatfleet <no-reply@heatfleet.example>';
 const s3rverCredential = 'S3RVER';
+// The payment stand-in's only key and webhook secret: local values, never a real account's (README, Payments).
+export const payfakeSecretKey = 'sk_test_heatfleet_local';
+export const payfakeWebhookSecret = 'whsec_heatfleet_local';
+
+/** Where the stand-in posts its events: the API's webhook route on the app's own port. */
+export function payfakeWebhookUrl(profile: Profile): string {
+  return `http://127.0.0.1:${profile.appPort}/api/payments/webhook`;
+}
 
 /** Made once per data folder and kept, so sessions survive a restart of `npm start`. */
 function sessionSecret(dataDir: string): string {
@@ -42,6 +50,12 @@ export function stackEnv(profileOrName: Profile | ProfileName): Record<string, s
     S3_ACCESS_KEY_ID: s3rverCredential,
     S3_SECRET_ACCESS_KEY: s3rverCredential,
     S3_FORCE_PATH_STYLE: 'true',
+    // The payment SDK pointed at the local stand-in by host, port and protocol; production leaves these three unset.
+    STRIPE_HOST: '127.0.0.1',
+    STRIPE_PORT: String(profile.payfake.port),
+    STRIPE_PROTOCOL: 'http',
+    STRIPE_SECRET_KEY: payfakeSecretKey,
+    STRIPE_WEBHOOK_SECRET: payfakeWebhookSecret,
     SESSION_SECRET: sessionSecret(profile.dataDir),
     OUTBOX_DIR: profile.outboxDir,
     WEB_DIST_DIR: profile.distDir,

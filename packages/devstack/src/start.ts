@@ -66,6 +66,7 @@ function printBanner(apiPort: number): void {
     `  Redis       127.0.0.1:${profile.redis.port}`,
     `  Mail        SMTP 127.0.0.1:${profile.smtpPort}, nothing is delivered: read it at ${url}/outbox`,
     `  Photos      S3 http://127.0.0.1:${profile.s3.port}, bucket ${profile.s3.bucket}, files in ${relative(process.cwd(), profile.s3.dataDir) || profile.s3.dataDir}`,
+    `  Payments    a local stand-in at http://127.0.0.1:${profile.payfake.port} (card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)`,
     devMode ? `  API         http://127.0.0.1:${apiPort} (Vite proxies /api to it)` : `  API         ${url}/api`,
     `  logs        ${relative(process.cwd(), profile.logDir) || profile.logDir}`,
     '',
@@ -85,10 +86,11 @@ async function main(): Promise<void> {
     ...(devMode ? [{ port: apiPort, what: 'the API behind Vite' }] : []),
     { port: profile.smtpPort, what: 'the mail catcher' },
     { port: profile.s3.port, what: 'the S3 object store' },
+    { port: profile.payfake.port, what: 'the payment stand-in' },
   ]);
 
   const services = await startServices(profile, { log: say });
-  await life.add('MariaDB, Redis, the mail catcher and the object store', () => services.stop());
+  await life.add('MariaDB, Redis, the mail catcher, the object store and the payment stand-in', () => services.stop());
 
   const env = childEnv(profile, { PORT: String(apiPort) });
   await step('Migrating the database', nodeTsArgs(apiFiles.dbCli, ['migrate']), env);

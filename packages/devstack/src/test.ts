@@ -172,6 +172,7 @@ async function main(): Promise<void> {
     ...(wantE2e ? [{ port: profile.appPort, what: 'the test app' }] : []),
     { port: profile.smtpPort, what: 'the test mail catcher' },
     { port: profile.s3.port, what: 'the test S3 object store' },
+    { port: profile.payfake.port, what: 'the test payment stand-in' },
   ]);
   rmSync(vitestJson, { force: true });
   rmSync(playwrightJson, { force: true });
