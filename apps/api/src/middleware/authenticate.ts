@@ -1,8 +1,8 @@
 import type { Request } from 'express';
-import { defineAbilityFor } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../app-deps.ts';
 import { signedOut } from '../lib/http-error.ts';
 import { findActiveMembership } from '../modules/members/member-dal.ts';
+import { abilityFor } from './ability-cache.ts';
 
 // Writing lastSeenAt on every request would turn every read into a session write.
 const LAST_SEEN_GRANULARITY_MS = 60 * 1000;
@@ -25,7 +25,9 @@ export async function authenticate(req: Request, deps: AppDeps): Promise<Actor> 
     await destroy(req);
     throw signedOut('Your session has ended. Please sign in again.');
   }
-  const membership = await findActiveMembership(deps.db, s.userId, s.firmId);
+  // Read with the session in one query (session.ts); a session made during this request has none yet.
+  const membership =
+    s.loadedMembership !== undefined ? s.loadedMembership : await findActiveMembership(deps.db, s.userId, s.firmId);
   if (!membership) {
     await destroy(req);
     throw signedOut('You are no longer a member of that firm. Please sign in again.');
@@ -36,6 +38,6 @@ export async function authenticate(req: Request, deps: AppDeps): Promise<Actor> 
     firmId: s.firmId,
     memberId: membership.id,
     role: membership.role,
-    ability: defineAbilityFor({ userId: s.userId, firmId: s.firmId, role: membership.role, memberId: membership.id }),
+    ability: abilityFor({ userId: s.userId, firmId: s.firmId, role: membership.role, memberId: membership.id }),
   };
 }

@@ -3,7 +3,9 @@ import type { RequestHandler } from 'express';
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
+import type { Role } from '@heatfleet/domain';
 import type { Env } from '../config/env.ts';
+import { readSessionWithMembership } from './session-dal.ts';
 
 declare module 'express-session' {
   interface SessionData {
@@ -13,6 +15,11 @@ declare module 'express-session' {
     signedInAt: number;
     /** Epoch milliseconds: the idle timeout counts from here. */
     lastSeenAt: number;
+    /**
+     * The active membership in the session's firm, read with the session in one query on each request
+     * (null: none). Never stored: the store drops it before writing, so a role change shows at once.
+     */
+    loadedMembership?: { id: number; role: Role } | null;
   }
 }
 
@@ -42,25 +49,42 @@ class SessionStore extends ConnectSessionKnexStore {
 
   // The base class both calls back with an error and rethrows it; express-session ignores the
   // returned promise, so each rejection would go unhandled (and crash Node) during an outage.
-  override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void) {
-    return super.get(sid, callback).catch(() => null);
+  // The session and its membership in one indexed query (session-dal.ts) instead of two round trips.
+  override async get(
+    sid: string,
+    callback: (err: unknown, session?: session.SessionData | null) => void,
+  ): Promise<session.SessionData | null> {
+    let found: session.SessionData | null;
+    try {
+      const stored = await readSessionWithMembership(this.options.knex, sid, new Date());
+      found = stored ? { ...(stored.sess as session.SessionData), loadedMembership: stored.membership } : null;
+    } catch (err) {
+      callback(err);
+      return null;
+    }
+    callback(null, found);
+    return found;
   }
 
   override set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void) {
-    return super.set(sid, sess, callback).catch(() => undefined);
+    // eslint-disable-next-line @typescript-eslint/no-unused-vars -- dropped on purpose: read afresh each request
+    const { loadedMembership, ...kept } = sess;
+    return super.set(sid, kept as session.SessionData, callback).catch(() => undefined);
   }
 
   override destroy(sid: string, callback?: (err?: unknown) => void) {
     return super.destroy(sid, callback).catch(() => 0);
   }
 
-  override async touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {
-    try {
-      await super.touch(sid, sess);
-      callback?.();
-    } catch (err) {
-      callback?.(err);
-    }
+  /**
+   * express-session touches the session after every request it did not save. Nothing needs writing then: each
+   * save (at sign-in, and when lastSeenAt moves, at most once a minute) sets the row's expiry to now + the
+   * absolute lifetime, beyond anything authenticate lets the session live; the idle timeout is checked from
+   * lastSeenAt (middleware/authenticate.ts). So a read never writes the session.
+   */
+  override touch(_sid: string, _sess: session.SessionData, callback?: () => void): Promise<void> {
+    callback?.();
+    return Promise.resolve();
   }
 }
 
