@@ -167,3 +167,17 @@ describe('an engineer\u2019s own van and own jobs', () => {
     expect(anonymous.can('update', subject('Job', { firmId, engineerMemberId: ownMemberId }))).toBe(false);
   });
 });
+
+// DEVELOPERS.md, Product rules (Roles) and issue 15: engineers may show the pay QR, not refund; the payment
+// account and the firm's own subscription are the Owner's.
+describe('payments and billing', () => {
+  it('every role may start a payment; only Owner and Admin refund', () => {
+    expect(roles.filter((r) => ability(r).can('create', 'Payment'))).toEqual([...roles]);
+    expect(roles.filter((r) => ability(r).can('update', 'Payment'))).toEqual(['owner', 'admin']);
+  });
+  it('only the Owner connects the payment account and sees the subscription', () => {
+    expect(roles.filter((r) => ability(r).can('update', 'PaymentAccount'))).toEqual(['owner']);
+    expect(roles.filter((r) => ability(r).can('read', 'PaymentAccount'))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('read', 'Billing'))).toEqual(['owner']);
+  });
+});

@@ -41,7 +41,10 @@ export type SubjectName =
   | 'StockUse'
   | 'ParLevel'
   | 'Customer'
-  | 'Job';
+  | 'Job'
+  | 'Payment'
+  | 'PaymentAccount'
+  | 'Billing';
 export type AppSubjects =
   | SubjectName
   | 'all'
@@ -92,6 +95,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
     ],
     inFirm,
   );
+  // Anyone may show a customer the pay QR for an invoice (a checkout for what is owed); refunds are the office's.
+  can(['read', 'create'], 'Payment', inFirm);
 
   switch (member.role) {
     case 'owner':
@@ -122,9 +127,12 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
           'ParLevel',
           'Customer',
           'Job',
+          'Payment',
         ],
         inFirm,
       );
+      // The firm's payment account is the Owner's to connect; an Admin sees whether it is connected.
+      can('read', 'PaymentAccount', inFirm);
       break;
     case 'stores':
       can(
