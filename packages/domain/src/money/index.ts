@@ -1,0 +1,7 @@
+export * from './pence.ts';
+export * from './vat-lines.ts';
+export * from './invoice-state.ts';
+export * from './price-list.ts';
+export * from './money-schemas.ts';
+export * from './money-responses.ts';
+export * from './cancellation.ts';
