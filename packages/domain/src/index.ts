@@ -48,3 +48,6 @@ export * from './jobs/completion-checks.ts';
 export * from './jobs/flush-order.ts';
 export * from './sites/customer-list-schemas.ts';
 export * from './money/index.ts';
+export * from './payments/payment-schemas.ts';
+export * from './payments/payment-responses.ts';
+export * from './payments/grace-period.ts';
