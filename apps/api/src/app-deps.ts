@@ -1,3 +1,4 @@
+import type { Redis } from 'ioredis';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { AppAbility, Role } from '@heatfleet/domain';
@@ -17,6 +18,8 @@ export interface AppDeps {
   objectStore: ObjectStore;
   /** Limits on every route that takes a secret or sends an e-mail. */
   limiters: RateLimiters;
+  /** The shared Redis of the limiters' counters (and the health check's ping). */
+  redis: Redis;
 }
 
 /** The signed-in member acting in their active firm. */

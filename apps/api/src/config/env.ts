@@ -23,6 +23,28 @@ const envSchema = z.object({
   DATABASE_PASSWORD: z.string().default('heatfleet-local'),
   DATABASE_NAME: z.string().default('heatfleet'),
   REDIS_URL: z.string().default('redis://127.0.0.1:6479'),
+  // Through Sentinel (several machines): the sentinels as host:port, comma-separated, and the name they watch the
+  // master by. Then REDIS_URL gives only the password and database number, if any; its host is not used.
+  REDIS_SENTINELS: z
+    .string()
+    .default('')
+    .transform((s, ctx) => {
+      const sentinels = s
+        .split(',')
+        .map((part) => part.trim())
+        .filter(Boolean)
+        .map((part) => {
+          const [host = '', port = ''] = part.split(':');
+          return { host, port: Number(port) };
+        });
+      if (sentinels.some((x) => x.host === '' || !Number.isInteger(x.port) || x.port < 1 || x.port > 65535)) {
+        ctx.addIssue({ code: 'custom', message: 'REDIS_SENTINELS must be host:port pairs separated by commas.' });
+      }
+      return sentinels;
+    }),
+  REDIS_SENTINEL_NAME: z.string().default('heatfleet'),
+  // Key prefix of the shared rate-limit counters (several deployments on one Redis each take their own).
+  RATE_LIMIT_PREFIX: z.string().max(64).optional(),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().default(2525),
   SMTP_SECURE: z.stringbool().default(false),
@@ -49,6 +71,15 @@ const envSchema = z.object({
   S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
   S3_FORCE_PATH_STYLE: z.stringbool().default(true),
+  // The payment service (its official SDK). Host, port and protocol are set only to reach the local stand-in
+  // (packages/payfake); production leaves them unset and the SDK uses the hosted service. README, Payments.
+  STRIPE_HOST: z.string().optional(),
+  STRIPE_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_PROTOCOL: z.enum(['http', 'https']).optional(),
+  STRIPE_SECRET_KEY: z.string().min(1).default('sk_test_heatfleet_local'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(1).default('whsec_heatfleet_local'),
+  // The firm's subscription: this many pence a month per active van (a price the billing module makes once).
+  BILLING_VAN_PRICE_PENCE: z.coerce.number().int().min(0).max(1_000_000).default(1500),
   OUTBOX_DIR: z.string().optional(),
   WEB_DIST_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -1,10 +1,10 @@
 import { Queue, Worker } from 'bullmq';
-import { Redis } from 'ioredis';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { Env } from '../config/env.ts';
 import type { Clock } from '../lib/clock.ts';
 import { createObjectStore } from '../lib/object-store.ts';
+import { connectRedis } from '../lib/redis-connection.ts';
 import { createTransport, deliverEmail } from '../modules/mail/email-delivery.ts';
 import { listUnsentEmailIds } from '../modules/mail/mail-dal.ts';
 import { deliverJob, EMAIL_QUEUE, emailRetryDelayMs } from '../modules/mail/mail-queue.ts';
@@ -18,7 +18,7 @@ const SWEEP_GRACE_MS = 30_000;
  * the SMTP server was down for longer than the job's own retries): so an e-mail is never given up on.
  */
 export function startEmailWorker(deps: { env: Env; db: Knex; logger: Logger; clock: Clock }) {
-  const connection = new Redis(deps.env.REDIS_URL, { maxRetriesPerRequest: null });
+  const connection = connectRedis(deps.env, { maxRetriesPerRequest: null });
   connection.on('error', (err) => deps.logger.warn({ err: err.message }, 'worker: redis error'));
   const transport = createTransport(deps.env);
   const objectStore = createObjectStore(deps.env);

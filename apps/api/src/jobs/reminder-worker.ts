@@ -1,10 +1,10 @@
 import { Queue, Worker } from 'bullmq';
-import { Redis } from 'ioredis';
 import { DEFAULT_TIME_ZONE } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { Env } from '../config/env.ts';
 import type { Clock } from '../lib/clock.ts';
+import { connectRedis } from '../lib/redis-connection.ts';
 import { createMailQueue } from '../modules/mail/mail-queue.ts';
 import { runDueScans } from '../modules/reminders/reminder-scan.ts';
 
@@ -19,10 +19,10 @@ export const REMINDER_SWEEP_CRON = { pattern: '0 * * * *', tz: DEFAULT_TIME_ZONE
  * `firmIds` limits the sweep to those firms (tests share the database with other test files).
  */
 export function startReminderWorker(deps: { env: Env; db: Knex; logger: Logger; clock: Clock; firmIds?: number[] }) {
-  const connection = new Redis(deps.env.REDIS_URL, { maxRetriesPerRequest: null });
+  const connection = connectRedis(deps.env, { maxRetriesPerRequest: null });
   connection.on('error', (err) => deps.logger.warn({ err: err.message }, 'reminder worker: redis error'));
   const queue = new Queue(REMINDER_QUEUE, { connection });
-  const mailQueue = createMailQueue(deps.env.REDIS_URL, deps.logger);
+  const mailQueue = createMailQueue(deps.env, deps.logger);
   const scanDeps = { db: deps.db, mailQueue, env: deps.env, logger: deps.logger };
 
   const worker = new Worker(

@@ -1,5 +1,5 @@
 import type { Request, RequestHandler, Response } from 'express';
-import { rateLimit, ipKeyGenerator, type Options } from 'express-rate-limit';
+import { rateLimit, ipKeyGenerator, type Options, type Store } from 'express-rate-limit';
 import { HttpError } from '../../lib/http-error.ts';
 
 /**
@@ -108,7 +108,11 @@ function tooMany(message: string): Options['handler'] {
   };
 }
 
+/** Where a limiter keeps its counts, by the limiter's name (each limiter needs a store of its own). */
+export type LimitStoreFactory = (name: keyof RateLimiters) => Store;
+
 function limiter(opts: {
+  store?: Store;
   windowMs: number;
   limit: number;
   key: (req: Request, res: Response) => string;
@@ -116,6 +120,7 @@ function limiter(opts: {
   failuresOnly: boolean;
 }): RequestHandler {
   return rateLimit({
+    ...(opts.store !== undefined && { store: opts.store }),
     windowMs: opts.windowMs,
     limit: opts.limit,
     standardHeaders: 'draft-8',
@@ -128,11 +133,16 @@ function limiter(opts: {
   });
 }
 
-export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLimiters {
+/**
+ * Without a store factory the counts live in this process's memory (one replica only); create-deps.ts passes
+ * one that keeps them on the shared Redis.
+ */
+export function createRateLimiters(overrides: Partial<RateLimits> = {}, storeFor?: LimitStoreFactory): RateLimiters {
   const l = { ...defaultRateLimits, ...overrides };
   const w = l.windowMs;
   return {
     signInByAccount: limiter({
+      store: storeFor?.('signInByAccount'),
       windowMs: w,
       limit: l.perAccount,
       key: emailKey,
@@ -140,6 +150,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many failed sign-ins for this account.',
     }),
     signInByAddress: limiter({
+      store: storeFor?.('signInByAddress'),
       windowMs: w,
       limit: l.perAddress,
       key: addressKey,
@@ -147,6 +158,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many failed sign-ins from this network.',
     }),
     signUpByAccount: limiter({
+      store: storeFor?.('signUpByAccount'),
       windowMs: HOUR_MS,
       limit: l.signUpsPerAccount,
       key: emailKey,
@@ -154,6 +166,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many sign-ups for this e-mail address.',
     }),
     signUpByAddress: limiter({
+      store: storeFor?.('signUpByAddress'),
       windowMs: HOUR_MS,
       limit: l.signUpsPerAddress,
       key: addressKey,
@@ -161,6 +174,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many sign-ups from this network.',
     }),
     resetRequestByAccount: limiter({
+      store: storeFor?.('resetRequestByAccount'),
       windowMs: HOUR_MS,
       limit: l.resetsPerAccount,
       key: emailKey,
@@ -168,6 +182,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many password-reset e-mails asked for this address.',
     }),
     resetRequestByAddress: limiter({
+      store: storeFor?.('resetRequestByAddress'),
       windowMs: HOUR_MS,
       limit: l.resetsPerAddress,
       key: addressKey,
@@ -175,6 +190,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many password-reset e-mails asked from this network.',
     }),
     linkByToken: limiter({
+      store: storeFor?.('linkByToken'),
       windowMs: w,
       limit: l.linkFailuresPerLink,
       key: tokenKey,
@@ -182,6 +198,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many failed tries with this link.',
     }),
     linkByAddress: limiter({
+      store: storeFor?.('linkByAddress'),
       windowMs: w,
       limit: l.linkFailuresPerAddress,
       key: addressKey,
@@ -189,6 +206,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many failed tries with links from this network.',
     }),
     passwordChangeByAccount: limiter({
+      store: storeFor?.('passwordChangeByAccount'),
       windowMs: w,
       limit: l.passwordChangeFailuresPerAccount,
       key: signedInUserKey,
@@ -196,6 +214,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many wrong current passwords.',
     }),
     passwordChangeByAddress: limiter({
+      store: storeFor?.('passwordChangeByAddress'),
       windowMs: w,
       limit: l.passwordChangeFailuresPerAddress,
       key: addressKey,
@@ -203,6 +222,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many wrong current passwords from this network.',
     }),
     invitationByAccount: limiter({
+      store: storeFor?.('invitationByAccount'),
       windowMs: HOUR_MS,
       limit: l.invitationsPerAccount,
       key: signedInUserKey,
@@ -210,6 +230,7 @@ export function createRateLimiters(overrides: Partial<RateLimits> = {}): RateLim
       message: 'Too many invitations sent from your account.',
     }),
     invitationByAddress: limiter({
+      store: storeFor?.('invitationByAddress'),
       windowMs: HOUR_MS,
       limit: l.invitationsPerAddress,
       key: addressKey,

@@ -1,4 +1,5 @@
 import { healthResponseSchema } from '@heatfleet/domain';
+import { redisAnswers } from '../../lib/redis-connection.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { pingDatabase } from './health-dal.ts';
 
@@ -9,15 +10,15 @@ export const healthRoutes: RouteDefinition[] = [
     tag: 'Meta',
     access: 'public',
     tenantData: false,
-    summary: 'Liveness and database reachability',
+    summary: 'Whether this replica reaches the database (else 503) and Redis',
     request: {},
     responses: {
-      200: { description: 'Up', schema: healthResponseSchema },
+      200: { description: 'Up: the database answers; Redis reachable or not', schema: healthResponseSchema },
       503: { description: 'Database unreachable' },
     },
     handle: async ({ res, deps }) => {
-      await pingDatabase(deps.db);
-      res.json({ status: 'ok' });
+      const [redis] = await Promise.all([redisAnswers(deps.redis), pingDatabase(deps.db)]);
+      res.json({ status: 'ok', database: 'reachable', redis: redis ? 'reachable' : 'unreachable' });
     },
   }),
 ];

@@ -1,5 +1,5 @@
 import { Queue } from 'bullmq';
-import { Redis } from 'ioredis';
+import { connectRedis, type RedisSettings } from '../../lib/redis-connection.ts';
 import type { Logger } from 'pino';
 
 export const EMAIL_QUEUE = 'email';
@@ -43,9 +43,9 @@ export function deliverJob(emailId: number) {
   };
 }
 
-export function createMailQueue(redisUrl: string, logger: Logger): MailQueue {
+export function createMailQueue(redis: RedisSettings, logger: Logger): MailQueue {
   // enableOfflineQueue false: with Redis down, add() fails at once instead of holding the request.
-  const connection = new Redis(redisUrl, { enableOfflineQueue: false, maxRetriesPerRequest: 1, lazyConnect: false });
+  const connection = connectRedis(redis, { enableOfflineQueue: false, maxRetriesPerRequest: 1, lazyConnect: false });
   connection.on('error', (err) => logger.debug({ err }, 'mail queue: redis error'));
   const queue = new Queue(EMAIL_QUEUE, { connection });
   queue.on('error', (err) => logger.debug({ err }, 'mail queue error'));
