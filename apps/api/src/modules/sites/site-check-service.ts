@@ -2,6 +2,7 @@ import { ForbiddenError } from '@casl/ability';
 import { addMonths, inhibitorCheck, type SiteCheckInput, type SiteCheckResponse } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { findProduct, insertSiteCheck } from './site-check-dal.ts';
 import { findSite, setSiteNextCheck } from './site-dal.ts';
@@ -12,16 +13,17 @@ const CHECK_INTERVAL_MONTHS = 12;
 
 /**
  * Records an inhibitor check visit: pass when the reading is within the product's target range,
- * and the site's next check a year on from the visit, in one transaction.
+ * and the site's next check a year on from the visit, in one transaction; at most once per Idempotency-Key.
  */
 export async function recordSiteCheck(
   deps: AppDeps,
   actor: Actor,
   siteId: number,
   input: SiteCheckInput,
+  idempotencyKey?: IdempotencyKey,
 ): Promise<SiteCheckResponse> {
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Customer');
-  const checkId = await deps.db.transaction(async (trx) => {
+  const out = await runIdempotent(deps, actor, idempotencyKey, `site check ${siteId}`, async (trx) => {
     const site = await findSite(trx, actor.firmId, siteId, true);
     if (!site) throw notFound('That site');
     const today = await firmToday(trx, actor.firmId, deps.clock.now());
@@ -58,8 +60,9 @@ export async function recordSiteCheck(
       byUserId: actor.userId,
     });
     await setSiteNextCheck(trx, actor.firmId, siteId, addMonths(input.checkedOn, CHECK_INTERVAL_MONTHS));
-    return id;
+    return { status: 201, body: id };
   });
+  const checkId = out.body;
   const detail = await getSite(deps, actor, siteId);
   return { check: detail.checks.find((c) => c.id === checkId)!, site: detail };
 }

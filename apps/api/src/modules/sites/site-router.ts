@@ -5,6 +5,7 @@ import {
   siteDetailSchema,
   siteListResponseSchema,
 } from '@heatfleet/domain';
+import { idempotencyKeyOf } from '../../lib/idempotency.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { recordSiteCheck } from './site-check-service.ts';
 import { getSite, listAllSites } from './site-service.ts';
@@ -43,14 +44,14 @@ export const siteRoutes: RouteDefinition[] = [
     access: 'member',
     tenantData: true,
     summary:
-      'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on',
+      'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on. Send an Idempotency-Key header: a retry with the same key records nothing twice.',
     request: { params: idParamSchema, body: siteCheckInputSchema },
     responses: {
       201: { description: 'Recorded', schema: siteCheckResponseSchema },
       422: { description: 'Not an inhibitor with a target range, or bad input' },
     },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.status(201).json(await recordSiteCheck(deps, actor, params.id, body));
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.status(201).json(await recordSiteCheck(deps, actor, params.id, body, idempotencyKeyOf(req)));
     },
   }),
 ];
