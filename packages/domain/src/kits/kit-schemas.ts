@@ -2,6 +2,10 @@ import { z } from 'zod';
 import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { optionalPlainText, singleLineName } from '../lib/text.ts';
 import { locationRefSchema } from '../locations/location-schemas.ts';
+import { electricalTestInputSchema, electricalTestSchema } from './electrical-test.ts';
+
+// The electrical test's schemas and rules travel with the kit schemas (the domain's index exports this file).
+export * from './electrical-test.ts';
 
 export const itemConditions = ['in_service', 'needs_attention', 'out_of_service'] as const;
 export const itemConditionSchema = z.enum(itemConditions, {
@@ -162,6 +166,8 @@ export const custodyEventSchema = z.object({
   missingParts: z.string().nullable(),
   note: z.string().nullable(),
   overdueReason: z.string().nullable(),
+  /** Ticked as cleaned at this check-in. */
+  cleaned: z.boolean(),
   photoId: z.number().nullable(),
   /** When it reached the server. */
   createdAt: z.string(),
@@ -182,10 +188,31 @@ export const checkOutInputSchema = z.strictObject({
 });
 export type CheckOutInput = z.infer<typeof checkOutInputSchema>;
 
+/** One item's own state at a kit's check-in: its condition, and whether it was cleaned after the job. */
+export const checkInItemSchema = z.strictObject({
+  itemId: id('Item'),
+  condition: itemConditionSchema.optional(),
+  /**
+   * Cleaned (a magnet set after each job): recorded as a passed inspection at the check-in, so an
+   * item inspected after every use is in date again. Only for kinds with a use rule.
+   */
+  cleaned: z.boolean({ error: 'Cleaned must be ticked or not.' }).optional(),
+});
+export type CheckInItem = z.infer<typeof checkInItemSchema>;
+
 export const checkInInputSchema = z.strictObject({
   /** The depot it comes back to; the firm's first depot when left out. */
   toLocationId: id('Depot').optional(),
-  condition: itemConditionSchema,
+  /** The condition of every item not listed in `items` with its own; in service unless said otherwise. */
+  condition: itemConditionSchema.default('in_service'),
+  /** Each item's own condition and cleaning tick (a kit's check-in); an item not listed takes `condition`. */
+  items: z
+    .array(checkInItemSchema)
+    .max(200, { error: 'A check-in can list at most 200 items.' })
+    .refine((list) => new Set(list.map((i) => i.itemId)).size === list.length, {
+      error: 'Each item may be listed once.',
+    })
+    .optional(),
   missingParts: text('Missing parts', 500),
   note: text('Note', 1000),
   photoId: id('Photo').optional(),
@@ -203,6 +230,8 @@ export const recordInspectionInputSchema = z.strictObject({
   notes: text('Notes', 1000),
   photoId: id('Photo').optional(),
   inspectedOn: calendarDateWithin('Inspection date', dateRanges.done).optional(),
+  /** An electrical kind's in-service inspection and test; left out for a visual inspection only. */
+  electrical: electricalTestInputSchema.optional(),
 });
 export type RecordInspectionInput = z.infer<typeof recordInspectionInputSchema>;
 
@@ -215,6 +244,9 @@ export const inspectionSchema = z.object({
   byName: z.string(),
   inspectedOn: z.string(),
   createdAt: z.string(),
+  /** Ticked as cleaned at a check-in rather than inspected on its own. */
+  cleanedAtCheckIn: z.boolean(),
+  electrical: electricalTestSchema.nullable(),
 });
 export type Inspection = z.infer<typeof inspectionSchema>;
 

@@ -17,6 +17,7 @@ export async function insertCustodyEvents(
     missing_parts: string | null;
     note: string | null;
     overdue_reason: string | null;
+    cleaned: boolean;
     photo_id: number | null;
     created_at: Date;
     /** When the engineer tapped (X-Tapped-At), if the request said. */
@@ -84,6 +85,7 @@ export async function listCustodyEvents(
     missingParts: (r.missing_parts as string | null) ?? null,
     note: (r.note as string | null) ?? null,
     overdueReason: (r.overdue_reason as string | null) ?? null,
+    cleaned: Boolean(r.cleaned),
     photoId: (r.photo_id as number | null) ?? null,
     createdAt: (r.created_at as Date).toISOString(),
     tappedAt: r.tapped_at ? (r.tapped_at as Date).toISOString() : null,

@@ -15,6 +15,8 @@ import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { findLocation, firstDepot, type LocationRow } from '../locations/location-dal.ts';
 import { attachPhotoToItem, photoExists } from '../photos/photo-dal.ts';
 import { insertCustodyEvents, listCustodyEvents } from './custody-dal.ts';
+import { checkInPerItem } from './check-in-rules.ts';
+import { recordCleanedAtCheckIn } from './inspection-service.ts';
 import { findKit } from './kit-dal.ts';
 import { lockItems, updateItems } from './kit-item-dal.ts';
 import { getItem, loadItems } from './kit-item-service.ts';
@@ -153,6 +155,7 @@ async function recordCustody(
   }
 
   const checkIn = action === 'check_in' ? (input as CheckInInput) : undefined;
+  const own = checkIn ? checkInPerItem(items, checkIn) : undefined;
   await checkPhoto(trx, actor.firmId, checkIn?.photoId);
   await insertCustodyEvents(
     trx,
@@ -164,17 +167,27 @@ async function recordCustody(
       from_location_id: here?.id ?? null,
       to_location_id: to.id,
       by_user_id: actor.userId,
-      condition: checkIn?.condition ?? null,
+      condition: own?.condition.get(i.id) ?? null,
       missing_parts: checkIn?.missingParts ?? null,
       note: input.note ?? null,
       overdue_reason: overdueReason,
+      cleaned: own?.cleaned.includes(i.id) ?? false,
       photo_id: checkIn?.photoId ?? null,
       created_at: now,
       tapped_at: tappedAt,
     })),
   );
   // The cached whereabouts follow the event just written, in the same transaction.
-  await updateItems(trx, actor.firmId, ids, { location_id: to.id, ...(checkIn && { condition: checkIn.condition }) });
+  if (!own) {
+    await updateItems(trx, actor.firmId, ids, { location_id: to.id });
+  } else {
+    for (const condition of new Set(own.condition.values())) {
+      const same = ids.filter((id) => own.condition.get(id) === condition);
+      await updateItems(trx, actor.firmId, same, { location_id: to.id, condition });
+    }
+    // Stamped with the check-in's own time: the use that just ended is before the cleaning, not after it.
+    await recordCleanedAtCheckIn(trx, deps, actor, own.cleaned, now);
+  }
   if (checkIn?.photoId) await attachPhotoToItem(trx, actor.firmId, checkIn.photoId, items[0]!.id);
 }
 

@@ -136,6 +136,19 @@ export async function findItemId(
   return row?.id;
 }
 
+/** An item's kind, locking the item row when asked (an inspection's rules depend on the kind). */
+export async function findItemKindId(
+  db: Db,
+  firmId: number,
+  id: number,
+  opts: { forUpdate?: boolean } = {},
+): Promise<number | undefined> {
+  const q = db('kit_items').where({ firm_id: firmId, id }).first('kind_id');
+  if (opts.forUpdate) q.forUpdate();
+  const row = (await q) as { kind_id: number } | undefined;
+  return row?.kind_id;
+}
+
 export async function assetTagTaken(db: Db, firmId: number, assetTag: string): Promise<boolean> {
   return Boolean(await db('kit_items').where({ firm_id: firmId, asset_tag: assetTag }).first('id'));
 }
