@@ -1,11 +1,16 @@
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { paths } from '@/config/paths';
-import { AppLayout, OutboxLayout } from '@/app/routes/app-layout';
+import { startBootReads, startHomeReads } from '@/app/early-data';
 import { NotFoundPage } from '@/app/routes/not-found-page';
 import { RouteErrorPage } from '@/app/routes/route-error-page';
 
-// Pages load on demand so the first download stays the shell, the router and the data layer.
+startBootReads();
+
+// Pages load on demand so the first download stays the router and the data layer; the signed-in shell (AppLayout)
+// is a chunk of its own, so the sign-in page never waits for it.
+const appLayout = () => import('@/app/routes/app-layout');
+
 export const router = createBrowserRouter([
   {
     errorElement: <RouteErrorPage />,
@@ -40,9 +45,15 @@ export const router = createBrowserRouter([
           })),
       },
       {
-        element: <AppLayout />,
+        lazy: () => appLayout().then((m) => ({ Component: m.AppLayout })),
         children: [
-          { index: true, lazy: () => import('@/app/routes/home/home-page').then((m) => ({ Component: m.HomePage })) },
+          {
+            index: true,
+            lazy: () => {
+              startHomeReads();
+              return import('@/app/routes/home/home-page').then((m) => ({ Component: m.HomePage }));
+            },
+          },
           {
             path: paths.team.path,
             lazy: () => import('@/app/routes/team/team-page').then((m) => ({ Component: m.TeamPage })),
@@ -158,7 +169,7 @@ export const router = createBrowserRouter([
         ],
       },
       {
-        element: <OutboxLayout />,
+        lazy: () => appLayout().then((m) => ({ Component: m.OutboxLayout })),
         children: [
           {
             path: paths.outbox.path,

@@ -122,6 +122,38 @@ function noteRead(path: string, response: Response): void {
   });
 }
 
+// GETs started before anything asked for them (app/early-data.ts): a page's first reads leave with its chunk
+// instead of after it. The first `send` of the same path takes the answer; one older than 10 s is not used.
+const earlyGets = new Map<string, { at: number; response: Promise<Response>; json: Promise<unknown> }>();
+const EARLY_GET_MS = 10_000;
+
+function readHeaders(): Record<string, string> {
+  const scope = activeScope();
+  return { Accept: 'application/json', ...(scope ? { [SCOPE_HEADER]: scopeHeaderValue(scope) } : {}) };
+}
+
+/** Starts a GET now, for the first `apiClient.get` of the same path to take. */
+export function startEarlyGet(path: string): void {
+  if (earlyGets.has(path)) return;
+  const response = fetch(path, { method: 'GET', headers: readHeaders(), credentials: 'same-origin' });
+  // A copy of the body for peekEarlyGet, read before `send` reads the original.
+  const json = response.then((r) => (r.ok ? r.clone().json() : null)).catch(() => null);
+  response.catch(() => undefined);
+  earlyGets.set(path, { at: Date.now(), response, json });
+}
+
+/** The body of an early GET still waiting to be taken (null if it failed or there is none). */
+export function peekEarlyGet(path: string): Promise<unknown> {
+  return earlyGets.get(path)?.json ?? Promise.resolve(null);
+}
+
+function takeEarlyGet(path: string): Promise<Response> | undefined {
+  const early = earlyGets.get(path);
+  if (!early) return undefined;
+  earlyGets.delete(path);
+  return Date.now() - early.at < EARLY_GET_MS ? early.response : undefined;
+}
+
 async function send(
   method: Method,
   path: string,
@@ -142,12 +174,14 @@ async function send(
 
   let response: Response;
   try {
-    response = await fetch(path, {
-      method,
-      headers,
-      credentials: 'same-origin',
-      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
-    });
+    const early = method === 'GET' && !options.fresh ? takeEarlyGet(path) : undefined;
+    response = await (early ??
+      fetch(path, {
+        method,
+        headers,
+        credentials: 'same-origin',
+        body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
+      }));
   } catch {
     throw new ApiError({ status: 0, code: 'NetworkError', message: UNREACHABLE_MESSAGE });
   }

@@ -1,12 +1,11 @@
 import { useQuery } from '@tanstack/react-query';
-import { productKindLabels } from '@heatfleet/domain';
 import { Card } from '@/components/ui/card';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { paths } from '@/config/paths';
 import { overviewQueries } from '@/features/overview/api/overview-queries';
 import { HavToday } from '@/features/overview/components/hav-today';
-import { UsageChart } from '@/features/overview/components/usage-chart';
+import { DeferredUsageChart } from '@/features/overview/components/deferred-usage-chart';
 import {
   ExpiringBatchesSummary,
   JobsThisMonthSummary,
@@ -65,7 +64,7 @@ export function OwnerOverview() {
         title="Chemical used per month"
         description="Litres taken off vans on jobs, by kind of product, over the last twelve months."
       >
-        <UsageChart months={o.usageByMonth} kindLabels={productKindLabels} />
+        <DeferredUsageChart months={o.usageByMonth} />
       </Card>
     </div>
   );
