@@ -76,6 +76,7 @@ const allowed: Record<string, Role[]> = {
   'GET /stock/restock-run': everyone,
   'POST /stock/restock-run': fleetManagers,
   'GET /stock/reorder-list.csv': everyone,
+  'GET /stock/booked-jobs-short': everyone,
   'GET /me/van/stock': everyone,
   'GET /customers': everyone,
   'POST /customers': everyone,

@@ -181,6 +181,7 @@ const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'GET /stock/restock-run': (f) => ({ depotId: String(f.depotId) }),
   'POST /stock/restock-run': (f) => ({ depotId: String(f.depotId) }),
   'GET /stock/reorder-list.csv': (f) => ({ depotId: String(f.depotId) }),
+  'GET /stock/booked-jobs-short': (f) => ({ engineerMemberId: String(f.people.engineer.memberId) }),
 };
 
 export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {

@@ -18,6 +18,8 @@ export const firmSettingsSchema = z.object({
   heatExchangerDefaults: heatExchangerDefaultsSchema,
   /** False while the firm uses the built-in defaults. */
   heatExchangerDefaultsOwn: z.boolean(),
+  /** Days of booked jobs the restock run covers. */
+  restockDays: z.number(),
 });
 export type FirmSettings = z.infer<typeof firmSettingsSchema>;
 

@@ -67,5 +67,12 @@ export const firmSettingsInputSchema = z.strictObject({
   registrationNumbers: optionalPlainText('Registration numbers', 300),
   /** Heat exchanger content by fuel and boiler kind; null goes back to the built-in defaults. */
   heatExchangerDefaults: heatExchangerDefaultsSchema.nullable().optional(),
+  /** Days of booked jobs the restock run covers. Left out: unchanged (7 unless set). */
+  restockDays: z
+    .number({ error: 'Restock days must be a number of days.' })
+    .int({ error: 'Restock days are whole days.' })
+    .min(1, { error: 'Restock days must be at least 1.' })
+    .max(60, { error: 'Restock days must be at most 60.' })
+    .optional(),
 });
 export type FirmSettingsInput = z.infer<typeof firmSettingsInputSchema>;

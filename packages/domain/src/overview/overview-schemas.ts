@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { HavLevel } from '../jobs/job-sheet.ts';
+import { stockHealth } from '../stock/stock-health.ts';
 
 // The owner's overview (GET /api/overview): the API declares this answer, the client parses with it.
 
@@ -10,7 +11,28 @@ export const overviewVanSchema = z.object({
   name: z.string(),
   registration: z.string().nullable(),
   engineerName: z.string().nullable(),
-  stock: z.object({ belowMinimum: z.number(), outOfStock: z.number(), usablePacks: z.number() }),
+  /**
+   * Stock health by the domain's one rule (`stockHealthOf`), product by product: the van's health is
+   * its worst product's. Packs are never added across products (a pack of cleaner is not inhibitor).
+   */
+  stock: z.object({
+    health: z.enum(stockHealth),
+    belowMinimum: z.number(),
+    outOfStock: z.number(),
+    shortForJobs: z.number(),
+    belowTarget: z.number(),
+    products: z.array(
+      z.object({
+        productId: z.number(),
+        name: z.string(),
+        packSizeMl: z.number(),
+        usable: z.number(),
+        target: z.number().nullable(),
+        booked: z.number(),
+        health: z.enum(stockHealth),
+      }),
+    ),
+  }),
   motDueOn: z.string().nullable(),
   serviceDueOn: z.string().nullable(),
   nextDue: z

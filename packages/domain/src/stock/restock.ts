@@ -1,5 +1,6 @@
 import type { CalendarDate } from '../lib/calendar-date.ts';
 import { allocateFefo, usableQuantity, type Allocation, type BatchStock } from './fefo.ts';
+import { stockNeedOf } from './stock-health.ts';
 
 export interface ParLevel {
   minimum: number;
@@ -11,7 +12,10 @@ export interface VanNeed {
   productId: number;
   /** Usable packs on the van now (expired batches do not count). */
   usable: number;
-  par: ParLevel;
+  /** The van's par level; null (or 0 and 0) when it has none. */
+  par: ParLevel | null;
+  /** Packs its booked jobs of the next days need (0 for par levels alone). */
+  booked?: number;
 }
 
 export interface RestockLine {
@@ -19,15 +23,19 @@ export interface RestockLine {
   productId: number;
   usable: number;
   par: ParLevel;
+  booked: number;
+  /** What the van is filled to (see `stockNeedOf`). */
+  need: ParLevel;
   wanted: number;
   allocations: Allocation[];
   shortfall: number;
 }
 
 /**
- * The restock run: every van below its target gets what brings it to target, taken from the
- * depot's batches first expiry first, while the depot lasts. Vans below their minimum are served
- * first (then the lowest relative to target, then by id), so scarce stock goes where it is needed.
+ * The restock run: every van below its need (its par target, or its booked jobs' packs plus its
+ * minimum if that is more) gets what brings it up to it, taken from the depot's batches first
+ * expiry first, while the depot lasts. Vans short for booked jobs or below their minimum are served
+ * first (then the lowest relative to the need, then by id), so scarce stock goes where it is needed.
  */
 export function planRestock(
   vans: VanNeed[],
@@ -40,18 +48,20 @@ export function planRestock(
       productId,
       batches.map((b) => ({ ...b })),
     );
-  const urgency = (v: VanNeed) => (v.usable < v.par.minimum ? 0 : 1);
-  const order = vans
-    .filter((v) => v.usable < v.par.target)
-    .sort(
-      (a, b) =>
-        urgency(a) - urgency(b) ||
-        a.usable / a.par.target - b.usable / b.par.target ||
-        a.locationId - b.locationId ||
-        a.productId - b.productId,
-    );
+  const withNeed = vans.flatMap((v) => {
+    const need = stockNeedOf(v.par, v.booked ?? 0);
+    return need && v.usable < need.target ? [{ ...v, need }] : [];
+  });
+  const urgency = (v: (typeof withNeed)[number]) => (v.usable < (v.booked ?? 0) || v.usable < v.need.minimum ? 0 : 1);
+  const order = withNeed.sort(
+    (a, b) =>
+      urgency(a) - urgency(b) ||
+      a.usable / a.need.target - b.usable / b.need.target ||
+      a.locationId - b.locationId ||
+      a.productId - b.productId,
+  );
   return order.map((v) => {
-    const wanted = v.par.target - v.usable;
+    const wanted = v.need.target - v.usable;
     const stock = remaining.get(v.productId) ?? [];
     const { allocations, shortfall } = allocateFefo(stock, wanted, today);
     for (const a of allocations) stock.find((b) => b.batchId === a.batchId)!.quantity -= a.quantity;
@@ -59,7 +69,9 @@ export function planRestock(
       locationId: v.locationId,
       productId: v.productId,
       usable: v.usable,
-      par: v.par,
+      par: v.par ?? { minimum: 0, target: 0 },
+      booked: v.booked ?? 0,
+      need: v.need,
       wanted,
       allocations,
       shortfall,

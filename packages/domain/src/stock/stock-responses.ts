@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { movementSchema, productKinds, productSchema, stockHealth } from './stock-schemas.ts';
+import { stockHealth } from './stock-health.ts';
+import { movementSchema, productKinds, productSchema } from './stock-schemas.ts';
 
 // The success bodies of the stock routes: the API declares them, the client's queries parse with them.
 
@@ -16,6 +17,10 @@ export const stockCellSchema = z.object({
   usable: z.number(),
   expired: z.number(),
   par: parSchema.nullable(),
+  /** Packs the place's booked jobs of the next days need (vans only; 0 otherwise). */
+  booked: z.number(),
+  /** What it should hold: the par level, its target raised to cover the booked jobs (see `stockNeedOf`). */
+  need: parSchema.nullable(),
   health: z.enum(stockHealth),
 });
 export type StockCell = z.infer<typeof stockCellSchema>;
@@ -30,6 +35,8 @@ export type StockPlace = z.infer<typeof stockPlaceSchema>;
 
 export const stockGridSchema = z.object({
   today: z.string(),
+  /** Days ahead the booked jobs are counted over (the firm's restock setting). */
+  restockDays: z.number(),
   products: z.array(z.object({ id: z.number(), name: z.string(), kind: z.enum(productKinds), packSizeMl: z.number() })),
   locations: z.array(stockPlaceSchema),
   cells: z.array(stockCellSchema),
@@ -63,6 +70,8 @@ export type ParLevelRow = z.infer<typeof parLevelRowSchema>;
 export const parLevelListResponseSchema = z.object({ parLevels: z.array(parLevelRowSchema) });
 export const parLevelResponseSchema = z.object({ parLevel: parLevelRowSchema });
 
+const productRefSchema = namedRefSchema.extend({ packSizeMl: z.number() });
+
 const allocationSchema = z.object({
   batchId: z.number(),
   lotNumber: z.string(),
@@ -78,14 +87,20 @@ export const restockRunSchema = z.object({
       locationId: z.number(),
       productId: z.number(),
       usable: z.number(),
+      /** The van's par level (0 and 0 when it has none but booked jobs need the product). */
       par: parSchema,
+      /** Packs its booked jobs of the next days need. */
+      booked: z.number(),
+      /** What the run fills to: the par target, or the booked packs plus the minimum if more. */
+      need: parSchema,
       wanted: z.number(),
       allocations: z.array(allocationSchema),
       shortfall: z.number(),
       van: z.object({ id: z.number(), name: z.string(), registration: z.string().nullable() }),
-      product: namedRefSchema,
+      product: productRefSchema,
     }),
   ),
+  restockDays: z.number(),
   reorder: z.array(
     z.object({
       productId: z.number(),
@@ -94,9 +109,13 @@ export const restockRunSchema = z.object({
       orderQuantity: z.number(),
       used90Days: z.number(),
       daysOfCover: z.number().nullable(),
-      product: namedRefSchema,
+      product: productRefSchema.extend({ supplierCode: z.string().nullable(), costPricePence: z.number().nullable() }),
+      /** Order packs x cost price; null when the product has no cost price. */
+      lineCostPence: z.number().nullable(),
     }),
   ),
+  /** The reorder list's cost, over the lines with a cost price. */
+  reorderTotalPence: z.number(),
 });
 export type RestockRun = z.infer<typeof restockRunSchema>;
 export type RestockRunLine = RestockRun['lines'][number];
@@ -108,7 +127,38 @@ export type RestockApplied = z.infer<typeof restockAppliedSchema>;
 /** The signed-in engineer's van and what is on it; van is null when they have none. */
 export const myVanStockSchema = z.object({
   van: z.object({ id: z.number(), name: z.string(), registration: z.string().nullable() }).nullable(),
-  stock: z.array(stockCellSchema.extend({ productName: z.string() })),
+  stock: z.array(stockCellSchema.extend({ productName: z.string(), packSizeMl: z.number() })),
   batches: z.array(batchStockRowSchema),
 });
 export type MyVanStock = z.infer<typeof myVanStockSchema>;
+
+/** Booked jobs of the restock window whose van will not hold their packs (GET /api/stock/booked-jobs-short). */
+export const bookedJobsShortSchema = z.object({
+  today: z.string(),
+  days: z.number(),
+  jobs: z.array(
+    z.object({
+      jobId: z.number(),
+      scheduledOn: z.string(),
+      address: z.string(),
+      van: namedRefSchema,
+      short: z.array(
+        z.object({
+          product: productRefSchema,
+          packs: z.number(),
+          available: z.number(),
+          shortBy: z.number(),
+        }),
+      ),
+    }),
+  ),
+});
+export type BookedJobsShort = z.infer<typeof bookedJobsShortSchema>;
+
+export const bookedJobsShortQuerySchema = z.strictObject({
+  engineerMemberId: z.coerce
+    .number({ error: 'The engineer must be a member id.' })
+    .int({ error: 'The engineer must be a member id.' })
+    .positive({ error: 'The engineer must be a member id.' })
+    .optional(),
+});

@@ -62,6 +62,23 @@ export const productInputSchema = z
       .max(1440, { error: 'Minimum circulation time must be at most 1440 minutes (a day).' })
       .nullable()
       .optional(),
+    /** Days of use a delivered lot must have left; less needs a confirm at receiving. Left out: 90. */
+    minShelfLifeDays: z
+      .number({ error: 'Minimum remaining life must be a number of days.' })
+      .int({ error: 'Minimum remaining life is whole days.' })
+      .min(0, { error: 'Minimum remaining life cannot be negative.' })
+      .max(3650, { error: 'Minimum remaining life must be at most 3650 days (ten years).' })
+      .optional(),
+    /** The supplier's own code for the pack, printed on the reorder list. */
+    supplierCode: text('Supplier code', 60),
+    /** What one pack costs the firm, in whole pence. */
+    costPricePence: z
+      .number({ error: 'Cost price must be a number of pence.' })
+      .int({ error: 'Cost price is whole pence.' })
+      .min(0, { error: 'Cost price cannot be negative.' })
+      .max(10_000_000, { error: 'Cost price must be at most £100,000 a pack.' })
+      .nullable()
+      .optional(),
   })
   .refine((p) => (p.packUnit === 'l' ? p.packSize <= 25 : p.packSize <= 25_000), {
     error: 'Pack size must be at most 25 litres.',
@@ -94,6 +111,9 @@ export const productSchema = z.object({
   shelfLifeMonths: z.number().nullable(),
   hazardNotes: z.string().nullable(),
   minCirculationMinutes: z.number().nullable(),
+  minShelfLifeDays: z.number(),
+  supplierCode: z.string().nullable(),
+  costPricePence: z.number().nullable(),
   safetyDataSheet: z.object({ url: z.string(), byteSize: z.number(), uploadedAt: z.string() }).nullable(),
   active: z.boolean(),
 });
@@ -104,6 +124,8 @@ export const lotNumberSchema = singleLineName('Lot number', { max: 60 });
 export const receiptInputSchema = z.strictObject({
   locationId: id('Depot'),
   reference: text('Delivery reference', 100),
+  /** Receive lots with less than their product's minimum remaining life anyway (the person confirmed). */
+  confirmShortLife: z.boolean({ error: 'Confirm short life is yes or no.' }).optional(),
   lines: z
     .array(
       z.strictObject({
@@ -146,19 +168,39 @@ export const usageInputSchema = z.strictObject({
 });
 export type UsageInput = z.infer<typeof usageInputSchema>;
 
-export const stocktakeInputSchema = z.strictObject({
-  locationId: id('Location'),
-  counts: z
-    .array(
-      z.strictObject({
-        batchId: id('Batch'),
-        counted: z.number().int().min(0, { error: 'A count cannot be negative.' }).max(100_000),
-      }),
-    )
-    .min(1, { error: 'Count at least one batch.' })
-    .max(500),
-  note: text('Note', 300),
-});
+export const stocktakeInputSchema = z
+  .strictObject({
+    locationId: id('Location'),
+    counts: z
+      .array(
+        z.strictObject({
+          batchId: id('Batch'),
+          counted: z
+            .number({ error: 'Enter the count as a number of packs.' })
+            .int({ error: 'A count is whole packs.' })
+            .min(0, { error: 'A count cannot be negative.' })
+            .max(100_000, { error: 'A count must be at most 100000 packs.' }),
+        }),
+      )
+      .max(500)
+      .default([]),
+    /** Stock found on the shelf that is not on record here: its product, lot and expiry, and how many. */
+    found: z
+      .array(
+        z.strictObject({
+          productId: id('Product'),
+          lotNumber: lotNumberSchema,
+          expiresOn: calendarDateWithin('Expiry date', dateRanges.planned),
+          counted: packs('Packs found'),
+        }),
+      )
+      .max(100)
+      .default([]),
+    /** Counting every batch at a place with stock down to nothing happens only when the person confirmed it. */
+    confirmZeroing: z.boolean({ error: 'Confirm zeroing is yes or no.' }).optional(),
+    note: text('Note', 300),
+  })
+  .refine((t) => t.counts.length + t.found.length > 0, { error: 'Count at least one batch.', path: ['counts'] });
 export type StocktakeInput = z.infer<typeof stocktakeInputSchema>;
 
 export const writeOffReasons = ['expired', 'damaged', 'spilled'] as const;
@@ -235,33 +277,14 @@ export const movementSchema = z.object({
 });
 export type Movement = z.infer<typeof movementSchema>;
 
-export const stockHealth = ['no_par', 'ok', 'below_target', 'below_minimum', 'empty'] as const;
-export const stockHealthLabels: Record<(typeof stockHealth)[number], string> = {
-  no_par: 'No level set',
-  ok: 'Stocked',
-  below_target: 'Below target',
-  below_minimum: 'Below minimum',
-  empty: 'None usable',
-};
-
-export function stockHealthOf(
-  usable: number,
-  par: { minimum: number; target: number } | null,
-): (typeof stockHealth)[number] {
-  if (!par) return 'no_par';
-  if (usable <= 0 && par.minimum > 0) return 'empty';
-  if (usable < par.minimum) return 'below_minimum';
-  if (usable < par.target) return 'below_target';
-  return 'ok';
-}
-
 export const restockApplyInputSchema = z.strictObject({
   lines: z
     .array(
       z.strictObject({
         toLocationId: id('Van'),
         productId: id('Product'),
-        batchId: id('Batch'),
+        /** Left out: taken from the depot first expiry first when the run is applied. */
+        batchId: id('Batch').optional(),
         quantity: packs('Quantity'),
       }),
     )

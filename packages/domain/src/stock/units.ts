@@ -25,3 +25,15 @@ export function formatPackSize(ml: number): string {
   const { size, unit } = packSizeInUnit(ml);
   return unit === 'l' ? `${size} L` : `${size} ml`;
 }
+
+/** A count of packs with the pack's size: "3 packs of 1 L", "1 pack of 500 ml". */
+export function formatPacks(n: number, packSizeMl: number): string {
+  return `${n} pack${n === 1 || n === -1 ? '' : 's'} of ${formatPackSize(packSizeMl)}`;
+}
+
+/** Whole pence as pounds with two decimals, for a CSV cell ("12.50"); the sign kept. */
+export function penceToPounds(pence: number): string {
+  const sign = pence < 0 ? '-' : '';
+  const abs = Math.abs(Math.round(pence));
+  return `${sign}${Math.floor(abs / 100)}.${String(abs % 100).padStart(2, '0')}`;
+}

@@ -52,6 +52,7 @@ interface FirmSettingsRow {
   email: string | null;
   registration_numbers: string | null;
   heat_exchanger_defaults: string | HeatExchangerDefaults | null;
+  restock_days: number;
 }
 
 /** A JSON column as MariaDB hands it back (a string), parsed against the domain's schema; null if unset or unreadable. */
@@ -85,6 +86,7 @@ export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: numb
       'email',
       'registration_numbers',
       'heat_exchanger_defaults',
+      'restock_days',
     )) as FirmSettingsRow | undefined;
   const own = row ? parseHeatExchangerDefaults(row.heat_exchanger_defaults) : null;
   return (
@@ -101,6 +103,7 @@ export async function findFirmSettings(db: Knex | Knex.Transaction, firmId: numb
       registrationNumbers: row.registration_numbers,
       heatExchangerDefaults: own ?? builtInHeatExchangerLitres,
       heatExchangerDefaultsOwn: own !== null,
+      restockDays: Number(row.restock_days),
     }
   );
 }
@@ -126,5 +129,6 @@ export async function updateFirmSettings(
         heat_exchanger_defaults:
           input.heatExchangerDefaults === null ? null : JSON.stringify(input.heatExchangerDefaults),
       }),
+      ...(input.restockDays !== undefined && { restock_days: input.restockDays }),
     });
 }

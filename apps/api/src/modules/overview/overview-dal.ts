@@ -148,8 +148,9 @@ export async function packsUsedByMonth(db: Db, firmId: number, bounds: Date[]) {
 }
 
 export async function listProductsForUsage(db: Db, firmId: number) {
-  return (await db('products').where('firm_id', firmId).select('id', 'kind', 'pack_size_ml')) as {
+  return (await db('products').where('firm_id', firmId).select('id', 'name', 'kind', 'pack_size_ml')) as {
     id: number;
+    name: string;
     kind: string;
     pack_size_ml: number;
   }[];

@@ -16,7 +16,9 @@ import {
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findFirm } from '../firms/firm-dal.ts';
 import { listBatchesHeldExpiringBy } from '../reminders/reminder-stock-dal.ts';
+import { firmBookedJobs } from '../stock/booked-need-service.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
+import { vanStockHealth } from './overview-stock.ts';
 import {
   countJobsScheduled,
   listActiveVans,
@@ -134,7 +136,9 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
 
   const [vans, levels, items, batches, jobs, usage, products, reminders, engineers, agitations] = await Promise.all([
     listActiveVans(deps.db, actor.firmId),
-    stockLevels(deps.db, actor.firmId, today),
+    firmBookedJobs(deps.db, actor.firmId, today).then((booked) =>
+      stockLevels(deps.db, actor.firmId, today, {}, booked.packs),
+    ),
     listItemDueInputs(deps.db, actor.firmId),
     listBatchesHeldExpiringBy(deps.db, actor.firmId, addDays(today, EXPIRY_WINDOW_DAYS)),
     countJobsScheduled(deps.db, actor.firmId, monthStart, addMonths(monthStart, 1)),
@@ -145,21 +149,13 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
     listAgitationsOn(deps.db, actor.firmId, today, havOf),
   ]);
 
-  const stockByVan = new Map<number, { belowMinimum: number; outOfStock: number; usablePacks: number }>();
-  for (const cell of levels) {
-    const s = stockByVan.get(cell.locationId) ?? { belowMinimum: 0, outOfStock: 0, usablePacks: 0 };
-    s.usablePacks += cell.usable;
-    // An empty line is below its minimum too; outOfStock picks those out.
-    if (cell.health === 'below_minimum' || cell.health === 'empty') s.belowMinimum += 1;
-    if (cell.health === 'empty') s.outOfStock += 1;
-    stockByVan.set(cell.locationId, s);
-  }
+  const stockByVan = vanStockHealth(levels, products);
   const vanRows = vans.map((v): OverviewVan => ({
     id: v.id,
     name: v.name,
     registration: v.registration,
     engineerName: v.engineer_name,
-    stock: stockByVan.get(v.id) ?? { belowMinimum: 0, outOfStock: 0, usablePacks: 0 },
+    stock: stockByVan(v.id),
     motDueOn: v.mot_due_on,
     serviceDueOn: v.service_due_on,
     nextDue: nextDueOf(v, today),

@@ -19,6 +19,9 @@ export interface ProductRow {
   shelf_life_months: number | null;
   hazard_notes: string | null;
   min_circulation_minutes: number | null;
+  min_shelf_life_days: number;
+  supplier_code: string | null;
+  cost_price_pence: number | null;
   sds_object_key: string | null;
   sds_byte_size: number | null;
   sds_uploaded_at: Date | null;
@@ -103,6 +106,35 @@ export async function listActiveProductSummaries(db: Db, firmId: number) {
     kind: Product['kind'];
     packSizeMl: number;
   }[];
+}
+
+/** Every product's name, pack size, supplier code and cost price (the restock run and reorder list). */
+export async function listProductOrderRefs(db: Db, firmId: number) {
+  return (await db('products')
+    .where({ firm_id: firmId })
+    .select(
+      'id',
+      'name',
+      'pack_size_ml as packSizeMl',
+      'supplier_code as supplierCode',
+      'cost_price_pence as costPricePence',
+    )) as {
+    id: number;
+    name: string;
+    packSizeMl: number;
+    supplierCode: string | null;
+    costPricePence: number | null;
+  }[];
+}
+
+/** The minimum remaining life of some products, for the receiving check. */
+export async function listMinShelfLifeDays(db: Db, firmId: number, productIds: number[]) {
+  if (productIds.length === 0) return new Map<number, number>();
+  const rows = (await db('products')
+    .where('firm_id', firmId)
+    .whereIn('id', productIds)
+    .select('id', 'min_shelf_life_days')) as { id: number; min_shelf_life_days: number }[];
+  return new Map(rows.map((r) => [r.id, r.min_shelf_life_days]));
 }
 
 export async function findBatch(db: Db, firmId: number, id: number, productId?: number): Promise<BatchRow | undefined> {

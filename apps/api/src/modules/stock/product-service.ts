@@ -1,7 +1,7 @@
 import { ForbiddenError } from '@casl/ability';
 import { randomUUID } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
-import { packSizeMl, type Product, type ProductInput } from '@heatfleet/domain';
+import { DEFAULT_MIN_SHELF_LIFE_DAYS, packSizeMl, type Product, type ProductInput } from '@heatfleet/domain';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notFound } from '../../lib/http-error.ts';
@@ -34,6 +34,9 @@ export function toProduct(r: ProductRow): Product {
     shelfLifeMonths: r.shelf_life_months,
     hazardNotes: r.hazard_notes,
     minCirculationMinutes: r.min_circulation_minutes ?? null,
+    minShelfLifeDays: r.min_shelf_life_days ?? DEFAULT_MIN_SHELF_LIFE_DAYS,
+    supplierCode: r.supplier_code ?? null,
+    costPricePence: r.cost_price_pence ?? null,
     safetyDataSheet:
       r.sds_object_key && r.sds_uploaded_at
         ? {
@@ -59,6 +62,10 @@ const toRow = (p: Partial<ProductInput>): ProductWrite => ({
   ...(p.shelfLifeMonths !== undefined && { shelf_life_months: p.shelfLifeMonths }),
   ...(p.hazardNotes !== undefined && { hazard_notes: p.hazardNotes }),
   ...(p.minCirculationMinutes !== undefined && { min_circulation_minutes: p.minCirculationMinutes }),
+  // Left out: unchanged (on a new product the column's default, 90 days, stands).
+  ...(p.minShelfLifeDays !== undefined && { min_shelf_life_days: p.minShelfLifeDays }),
+  ...(p.supplierCode !== undefined && { supplier_code: p.supplierCode }),
+  ...(p.costPricePence !== undefined && { cost_price_pence: p.costPricePence }),
 });
 
 export async function listProducts(deps: AppDeps, actor: Actor): Promise<Product[]> {

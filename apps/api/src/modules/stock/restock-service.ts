@@ -1,5 +1,6 @@
 import { ForbiddenError } from '@casl/ability';
 import {
+  allocateFefo,
   planReorder,
   planRestock,
   type BatchStock,
@@ -14,7 +15,8 @@ import { conflict, notFound } from '../../lib/http-error.ts';
 import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { firstDepot, findLocation } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
-import { findBatch, listProductNames } from './product-dal.ts';
+import { firmBookedJobs } from './booked-need-service.ts';
+import { findBatch, listProductOrderRefs } from './product-dal.ts';
 import { reorderCsv } from './stock-csv.ts';
 import { balancesAt, sumUsedByProductSince } from './stock-ledger-dal.ts';
 import { applyMovements } from './stock-ledger.ts';
@@ -40,21 +42,26 @@ async function depotBatches(db: Db, firmId: number, depotId: number): Promise<Ma
   return map;
 }
 
-/** The restock run and the reorder list it leaves, computed from balances (not summed from the ledger). */
+/**
+ * The restock run and the reorder list it leaves, computed from balances (not summed from the ledger).
+ * Each van is filled to its need: its par target, or what its booked jobs of the firm's restock window
+ * need plus its minimum, whichever is larger.
+ */
 export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotId?: number): Promise<RestockRun> {
   const depot = await depotOf(db, actor, depotId);
   const today = await firmToday(db, actor.firmId, deps.clock.now());
-  const [levels, vans, products, batches, used] = await Promise.all([
-    stockLevels(db, actor.firmId, today),
+  const [booked, vans, products, batches, used] = await Promise.all([
+    firmBookedJobs(db, actor.firmId, today),
     listActiveVanRefs(db, actor.firmId),
-    listProductNames(db, actor.firmId),
+    listProductOrderRefs(db, actor.firmId),
     depotBatches(db, actor.firmId, depot.id),
     sumUsedByProductSince(db, actor.firmId, new Date(deps.clock.now().getTime() - 90 * 86_400_000)),
   ]);
+  const levels = await stockLevels(db, actor.firmId, today, {}, booked.packs);
   const vanIds = new Set(vans.map((v) => v.id));
   const needs = levels
-    .filter((c) => vanIds.has(c.locationId) && c.par)
-    .map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par! }));
+    .filter((c) => vanIds.has(c.locationId) && (c.par || c.booked > 0))
+    .map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par, booked: c.booked }));
   const lines = planRestock(needs, batches, today);
   const usedBy = new Map(used.map((u) => [u.product_id, -Number(u.n)]));
   const depotPar = new Map(levels.filter((c) => c.locationId === depot.id && c.par).map((c) => [c.productId, c.par!]));
@@ -70,11 +77,25 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
   );
   const vanById = new Map(vans.map((v) => [v.id, v]));
   const productById = new Map(products.map((p) => [p.id, p]));
+  const ref = (id: number) => {
+    const p = productById.get(id)!;
+    return { id: p.id, name: p.name, packSizeMl: p.packSizeMl };
+  };
+  const reorderRows = reorder.map((r) => {
+    const p = productById.get(r.productId)!;
+    return {
+      ...r,
+      product: { ...ref(r.productId), supplierCode: p.supplierCode, costPricePence: p.costPricePence },
+      lineCostPence: p.costPricePence === null ? null : p.costPricePence * r.orderQuantity,
+    };
+  });
   return {
     today,
+    restockDays: booked.days,
     depot: { id: depot.id, name: depot.name },
-    lines: lines.map((l) => ({ ...l, van: vanById.get(l.locationId)!, product: productById.get(l.productId)! })),
-    reorder: reorder.map((r) => ({ ...r, product: productById.get(r.productId)! })),
+    lines: lines.map((l) => ({ ...l, van: vanById.get(l.locationId)!, product: ref(l.productId) })),
+    reorder: reorderRows,
+    reorderTotalPence: reorderRows.reduce((n, r) => n + (r.lineCostPence ?? 0), 0),
   };
 }
 
@@ -83,7 +104,12 @@ export async function getRestockRun(deps: AppDeps, actor: Actor, depotId?: numbe
   return computeRestock(deps.db, deps, actor, depotId);
 }
 
-/** Applies a reviewed restock run as transfers from the depot: all of them, or none. */
+/**
+ * Applies a reviewed restock run as transfers from the depot: all of them, or none. A line that
+ * names its lot moves that lot; a line without one (a quantity changed in review) is taken from the
+ * depot first expiry first, after what the lines before it took. Every decrease is checked against
+ * the depot's balance in the same transaction, so stock that moved since the review refuses the run.
+ */
 export async function applyRestockRun(
   trx: Knex.Transaction,
   deps: AppDeps,
@@ -94,32 +120,52 @@ export async function applyRestockRun(
   ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
   const depot = await depotOf(trx, actor, depotId);
   const today = await firmToday(trx, actor.firmId, deps.clock.now());
+  const stock = await depotBatches(trx, actor.firmId, depot.id);
   const lines = [];
   for (const l of input.lines) {
     const van = await findLocation(trx, actor.firmId, l.toLocationId);
-    if (!van || van.kind !== 'van') throw notFound('That van');
-    const b = await findBatch(trx, actor.firmId, l.batchId, l.productId);
-    if (!b) throw notFound('That batch');
-    if (b.expires_on < today)
-      throw conflict(`Lot ${b.lot_number} has expired since the run was computed; compute it again.`);
-    lines.push(
-      {
-        kind: 'transfer_out' as const,
-        locationId: depot.id,
-        productId: l.productId,
-        batchId: l.batchId,
-        quantityDelta: -l.quantity,
-        reason: `Restock run to ${van.name}`,
-      },
-      {
-        kind: 'transfer_in' as const,
-        locationId: van.id,
-        productId: l.productId,
-        batchId: l.batchId,
-        quantityDelta: l.quantity,
-        reason: 'Restock run',
-      },
-    );
+    if (!van || van.kind !== 'van' || !van.active) throw notFound('That van');
+    let picks: { batchId: number; quantity: number }[];
+    if (l.batchId) {
+      const b = await findBatch(trx, actor.firmId, l.batchId, l.productId);
+      if (!b) throw notFound('That batch');
+      if (b.expires_on < today)
+        throw conflict(`Lot ${b.lot_number} has expired since the run was computed; compute it again.`);
+      picks = [{ batchId: b.id, quantity: l.quantity }];
+    } else {
+      const held = stock.get(l.productId) ?? [];
+      const plan = allocateFefo(held, l.quantity, today);
+      if (plan.shortfall > 0) {
+        const name = (await listProductOrderRefs(trx, actor.firmId)).find((p) => p.id === l.productId)?.name;
+        if (!name) throw notFound('That product');
+        throw conflict(
+          `${depot.name} holds ${l.quantity - plan.shortfall} usable pack${l.quantity - plan.shortfall === 1 ? '' : 's'} of ${name} for this run; ${l.quantity} asked for ${van.name}. Nothing was moved.`,
+        );
+      }
+      picks = plan.allocations;
+    }
+    for (const pick of picks) {
+      const held = stock.get(l.productId)?.find((b) => b.batchId === pick.batchId);
+      if (held) held.quantity -= pick.quantity;
+      lines.push(
+        {
+          kind: 'transfer_out' as const,
+          locationId: depot.id,
+          productId: l.productId,
+          batchId: pick.batchId,
+          quantityDelta: -pick.quantity,
+          reason: `Restock run to ${van.name}`,
+        },
+        {
+          kind: 'transfer_in' as const,
+          locationId: van.id,
+          productId: l.productId,
+          batchId: pick.batchId,
+          quantityDelta: pick.quantity,
+          reason: 'Restock run',
+        },
+      );
+    }
   }
   return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
@@ -143,6 +189,6 @@ export async function applyRestockRunOnce(
 
 /** The reorder list the restock run leaves, as CSV. */
 export async function exportReorderCsv(deps: AppDeps, actor: Actor, depotId?: number): Promise<string> {
-  const { reorder } = await getRestockRun(deps, actor, depotId);
-  return reorderCsv(reorder);
+  const { reorder, reorderTotalPence } = await getRestockRun(deps, actor, depotId);
+  return reorderCsv(reorder, reorderTotalPence);
 }

@@ -1,5 +1,5 @@
 import type { Response } from 'express';
-import type { Movement, ReorderRow } from '@heatfleet/domain';
+import { formatPackSize, penceToPounds, type Movement, type ReorderRow } from '@heatfleet/domain';
 import { toCsv } from '../../lib/csv.ts';
 
 // Through lib/csv.ts: text cells quoted, and any formula trigger after a separator neutralised.
@@ -42,27 +42,49 @@ export function movementsCsv(rows: Movement[]): string {
 
 const reorderColumns = [
   'product',
-  'usable after restock',
-  'minimum',
-  'target',
-  'order packs',
-  'used in 90 days',
+  'supplier code',
+  'pack size',
+  'usable after restock (packs)',
+  'minimum (packs)',
+  'target (packs)',
+  'order (packs)',
+  'cost per pack (GBP)',
+  'line cost (GBP)',
+  'used in 90 days (packs)',
   'days of cover',
 ];
 
-export function reorderCsv(rows: ReorderRow[]): string {
-  return toCsv(
-    reorderColumns,
-    rows.map((r) => [
+/** The reorder list with pack sizes, supplier codes and cost prices, and a last row with the total. */
+export function reorderCsv(rows: ReorderRow[], totalPence: number): string {
+  const money = (pence: number | null) => (pence === null ? '' : penceToPounds(pence));
+  return toCsv(reorderColumns, [
+    ...rows.map((r) => [
       r.product.name,
+      r.product.supplierCode ?? '',
+      formatPackSize(r.product.packSizeMl),
       r.usableAfterTransfers,
       r.par.minimum,
       r.par.target,
       r.orderQuantity,
+      money(r.product.costPricePence),
+      money(r.lineCostPence),
       r.used90Days,
       r.daysOfCover ?? '',
     ]),
-  );
+    [
+      'Total',
+      '',
+      '',
+      '',
+      '',
+      '',
+      rows.reduce((n, r) => n + r.orderQuantity, 0),
+      '',
+      money(totalPence),
+      '',
+      rows.some((r) => r.lineCostPence === null) ? 'some lines have no cost price' : '',
+    ],
+  ]);
 }
 
 export function sendCsv(res: Response, filename: string, csv: string): void {

@@ -19,14 +19,9 @@ import { defineRoute, type RouteDefinition } from '../../routes/route-registry.t
 import { sendCsv } from './stock-csv.ts';
 import { recordMovement } from './stock-movement-service.ts';
 import { exportLedgerCsv, ledgerPage } from './stock-query-service.ts';
-import {
-  receiveDelivery,
-  recordStocktake,
-  reverseMovement,
-  transferStock,
-  useStock,
-  writeOff,
-} from './stock-service.ts';
+import { receiveDelivery } from './receiving-service.ts';
+import { reverseMovement, transferStock, useStock, writeOff } from './stock-service.ts';
+import { recordStocktake } from './stocktake-service.ts';
 
 type MovementWork<I> = (
   trx: Knex.Transaction,
@@ -56,6 +51,7 @@ function movementRoute<B extends z.ZodType>(
     responses: {
       201: { description: 'Moved', schema: stockMovedSchema },
       409: { description: 'Not enough usable stock, or an expired batch' },
+      422: { description: 'Refused: an expired or short-life lot at receiving, a whole place counted to nothing' },
     },
     ...(options.tapTime && { before: (deps: AppDeps) => [readTappedAt(deps)] }),
     handle: async ({ body: input, params: p, req, res, deps, actor }) => {
@@ -104,7 +100,7 @@ export const stockMovementRoutes: RouteDefinition[] = [
   movementRoute(
     '/stock/receipts',
     receiptInputSchema,
-    'Receive a delivery at a depot (lines with lot and expiry).',
+    'Receive a delivery at a depot (lines with lot and expiry). An expired lot is refused (write it off instead); a lot with less than its product\u2019s minimum remaining life needs confirmShortLife.',
     receiveDelivery,
   ),
   movementRoute(
@@ -124,7 +120,7 @@ export const stockMovementRoutes: RouteDefinition[] = [
   movementRoute(
     '/stock/stocktakes',
     stocktakeInputSchema,
-    'Record a stocktake: each difference becomes an adjustment.',
+    'Record a stocktake: each difference becomes an adjustment; found lots (product, lot, expiry) are counted in. Counting a whole place to nothing needs confirmZeroing.',
     recordStocktake,
   ),
   movementRoute('/stock/write-offs', writeOffInputSchema, 'Write off expired, damaged or spilled stock.', writeOff),

@@ -1,6 +1,7 @@
 import { ForbiddenError } from '@casl/ability';
 import {
   stockHealthOf,
+  stockNeedOf,
   type BatchStockRow,
   type LedgerPage,
   type LedgerQuery,
@@ -13,7 +14,8 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
-import { listActiveProductSummaries, listBatchExpiries, listProductNames } from './product-dal.ts';
+import { firmBookedJobs } from './booked-need-service.ts';
+import { listActiveProductSummaries, listBatchExpiries, listProductOrderRefs } from './product-dal.ts';
 import { listActivePlaces, listBalanceRows, listHeldBatchRows, listParLevelRows } from './stock-level-dal.ts';
 import { movementsCsv } from './stock-csv.ts';
 import { listLedgerMovements, type LedgerFilters } from './stock-movement-dal.ts';
@@ -30,6 +32,8 @@ export async function stockLevels(
   firmId: number,
   today: string,
   where: { locationId?: number } = {},
+  /** Packs booked jobs need, keyed by `vanProductKey` (see booked-need-service.ts); none: par levels alone. */
+  booked: Map<string, number> = new Map(),
 ): Promise<StockCell[]> {
   const [balanceRows, batchRows, parRows] = await Promise.all([
     listBalanceRows(db, firmId, where.locationId),
@@ -50,7 +54,7 @@ export async function stockLevels(
   // The order GROUP BY gave: by place, then product.
   const levels = [...sums.values()].sort((x, y) => x.location_id - y.location_id || x.product_id - y.product_id);
   const key = (l: number, p: number) => `${l}:${p}`;
-  const cells = new Map<string, Omit<StockCell, 'health'>>();
+  const cells = new Map<string, Omit<StockCell, 'health' | 'need'>>();
   for (const l of levels)
     cells.set(key(l.location_id, l.product_id), {
       locationId: l.location_id,
@@ -58,6 +62,7 @@ export async function stockLevels(
       usable: Number(l.usable),
       expired: Number(l.expired),
       par: null,
+      booked: 0,
     });
   for (const p of parRows) {
     const c = cells.get(key(p.location_id, p.product_id)) ?? {
@@ -66,22 +71,35 @@ export async function stockLevels(
       usable: 0,
       expired: 0,
       par: null,
+      booked: 0,
     };
     c.par = { minimum: p.minimum, target: p.target };
     cells.set(key(p.location_id, p.product_id), c);
   }
-  return [...cells.values()].map((c) => ({ ...c, health: stockHealthOf(c.usable, c.par) }));
+  for (const [k, packs] of booked) {
+    const [locationId, productId] = k.split(':').map(Number) as [number, number];
+    if (where.locationId && where.locationId !== locationId) continue;
+    const c = cells.get(k) ?? { locationId, productId, usable: 0, expired: 0, par: null, booked: 0 };
+    c.booked = packs;
+    cells.set(k, c);
+  }
+  return [...cells.values()].map((c) => ({
+    ...c,
+    need: stockNeedOf(c.par, c.booked),
+    health: stockHealthOf(c.usable, c.par, c.booked),
+  }));
 }
 
 export async function stockGrid(deps: AppDeps, actor: Actor): Promise<StockGrid> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   const today = await firmToday(deps.db, actor.firmId, deps.clock.now());
-  const [products, locations, cells] = await Promise.all([
+  const [products, locations, booked] = await Promise.all([
     listActiveProductSummaries(deps.db, actor.firmId),
     listActivePlaces(deps.db, actor.firmId),
-    stockLevels(deps.db, actor.firmId, today),
+    firmBookedJobs(deps.db, actor.firmId, today),
   ]);
-  return { today, products, locations, cells };
+  const cells = await stockLevels(deps.db, actor.firmId, today, {}, booked.packs);
+  return { today, restockDays: booked.days, products, locations, cells };
 }
 
 export async function batchesAt(
@@ -124,15 +142,20 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
   const van = await findVanOfMember(deps.db, actor.firmId, actor.memberId);
   if (!van) return { van: null, stock: [], batches: [] };
   const today = await firmToday(deps.db, actor.firmId, deps.clock.now());
-  const [levels, batches, products] = await Promise.all([
-    stockLevels(deps.db, actor.firmId, today, { locationId: van.id }),
+  const [booked, batches, products] = await Promise.all([
+    firmBookedJobs(deps.db, actor.firmId, today),
     batchesAt(deps, actor, { locationId: van.id }),
-    listProductNames(deps.db, actor.firmId),
+    listProductOrderRefs(deps.db, actor.firmId),
   ]);
-  const names = new Map(products.map((p) => [p.id, p.name]));
+  const levels = await stockLevels(deps.db, actor.firmId, today, { locationId: van.id }, booked.packs);
+  const byId = new Map(products.map((p) => [p.id, p]));
   return {
     van: { id: van.id, name: van.name, registration: van.registration },
-    stock: levels.map((l) => ({ ...l, productName: names.get(l.productId) ?? '' })),
+    stock: levels.map((l) => ({
+      ...l,
+      productName: byId.get(l.productId)?.name ?? '',
+      packSizeMl: byId.get(l.productId)?.packSizeMl ?? 0,
+    })),
     batches,
   };
 }

@@ -1,44 +1,30 @@
 import { ForbiddenError, subject } from '@casl/ability';
-import {
-  allocateFefo,
-  isExpired,
-  type ReceiptInput,
-  type StocktakeInput,
-  type TransferInput,
-  type UsageInput,
-  type WriteOffInput,
-} from '@heatfleet/domain';
+import { allocateFefo, isExpired, type TransferInput, type UsageInput, type WriteOffInput } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, HttpError, notAllowed, notFound, ruleBroken } from '../../lib/http-error.ts';
 import { findLocation, type LocationRow } from '../locations/location-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
-import { findBatch, findBatchByLot, findProductRef, insertBatch, type BatchRow } from './product-dal.ts';
-import {
-  anyReversed,
-  balancesAt,
-  findBalanceQuantity,
-  findMovementForUpdate,
-  listGroupMovementsForUpdate,
-} from './stock-ledger-dal.ts';
+import { findBatch, findProductRef, type BatchRow } from './product-dal.ts';
+import { anyReversed, balancesAt, findMovementForUpdate, listGroupMovementsForUpdate } from './stock-ledger-dal.ts';
 import { applyMovements, type MovementLine } from './stock-ledger.ts';
 
-type Trx = Knex.Transaction;
+export type Trx = Knex.Transaction;
 
-async function place(trx: Trx, actor: Actor, id: number, what: 'depot' | 'any' = 'any'): Promise<LocationRow> {
+export async function place(trx: Trx, actor: Actor, id: number, what: 'depot' | 'any' = 'any'): Promise<LocationRow> {
   const loc = await findLocation(trx, actor.firmId, id);
   if (!loc || !loc.active || (what === 'depot' && loc.kind !== 'depot'))
     throw notFound(what === 'depot' ? 'That depot' : 'That place');
   return loc;
 }
 
-async function product(trx: Trx, actor: Actor, id: number): Promise<{ id: number; name: string }> {
+export async function product(trx: Trx, actor: Actor, id: number): Promise<{ id: number; name: string }> {
   const p = await findProductRef(trx, actor.firmId, id);
   if (!p) throw notFound('That product');
   return p;
 }
 
-async function batch(trx: Trx, actor: Actor, id: number): Promise<BatchRow> {
+export async function batch(trx: Trx, actor: Actor, id: number): Promise<BatchRow> {
   const b = await findBatch(trx, actor.firmId, id);
   if (!b) throw notFound('That batch');
   return b;
@@ -52,33 +38,6 @@ function refuseExpired(b: { lot_number: string; expires_on: string }, today: str
       'BatchExpired',
     );
   }
-}
-
-/** A delivery to a depot: each line names its batch (made on first sight) and expiry. */
-export async function receiveDelivery(trx: Trx, deps: AppDeps, actor: Actor, input: ReceiptInput): Promise<string> {
-  ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
-  const depot = await place(trx, actor, input.locationId, 'depot');
-  const lines: MovementLine[] = [];
-  for (const line of input.lines) {
-    await product(trx, actor, line.productId);
-    const existing = await findBatchByLot(trx, actor.firmId, line.productId, line.lotNumber);
-    if (existing && existing.expires_on !== line.expiresOn) {
-      throw ruleBroken(
-        `Lot ${line.lotNumber} is already recorded with expiry ${existing.expires_on}, not ${line.expiresOn}.`,
-        [{ path: 'expiresOn', message: `Lot ${line.lotNumber} expires ${existing.expires_on}` }],
-      );
-    }
-    const batchId = existing?.id ?? (await insertBatch(trx, actor.firmId, line));
-    lines.push({
-      kind: 'received',
-      locationId: depot.id,
-      productId: line.productId,
-      batchId,
-      quantityDelta: line.quantity,
-      reference: input.reference ?? null,
-    });
-  }
-  return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
 
 /** Moves stock between places; a line without a batch is taken first expiry first. */
@@ -190,28 +149,6 @@ export async function useStock(
     })),
     deps.clock.now(),
   );
-}
-
-/** A stocktake: each counted batch's difference from the balance becomes an adjustment. */
-export async function recordStocktake(trx: Trx, deps: AppDeps, actor: Actor, input: StocktakeInput): Promise<string> {
-  ForbiddenError.from(actor.ability).throwUnlessCan('create', 'Stock');
-  const loc = await place(trx, actor, input.locationId);
-  const lines: MovementLine[] = [];
-  for (const count of input.counts) {
-    const b = await batch(trx, actor, count.batchId);
-    const onHand = await findBalanceQuantity(trx, actor.firmId, loc.id, b.id, { forUpdate: true });
-    const diff = count.counted - (onHand ?? 0);
-    if (diff !== 0)
-      lines.push({
-        kind: 'counted',
-        locationId: loc.id,
-        productId: b.product_id,
-        batchId: b.id,
-        quantityDelta: diff,
-        reason: input.note ?? 'Stocktake',
-      });
-  }
-  return applyMovements(trx, actor.firmId, actor.userId, lines, deps.clock.now());
 }
 
 export async function writeOff(trx: Trx, deps: AppDeps, actor: Actor, input: WriteOffInput): Promise<string> {

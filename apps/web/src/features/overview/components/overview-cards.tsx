@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import type { Overview, OverviewVan } from '@heatfleet/domain';
+import { formatPacks, stockHealthLabels, type Overview, type OverviewVan } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
 import { paths } from '@/config/paths';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
@@ -60,7 +60,44 @@ function vanConcern(v: OverviewVan) {
   return (
     v.stock.outOfStock * 100 +
     v.stock.belowMinimum * 10 +
+    v.stock.belowTarget * 2 +
     (v.nextDue?.state === 'overdue' ? 5 : v.nextDue?.state === 'due_soon' ? 1 : 0)
+  );
+}
+
+const healthTone = {
+  empty: 'danger',
+  short_for_jobs: 'danger',
+  below_minimum: 'warn',
+  below_target: 'warn',
+  ok: 'ok',
+  no_par: 'neutral',
+} as const;
+
+/** A van's stock, product by product, by the domain's one health rule (never packs added across products). */
+function VanStockHealth({ stock }: { stock: OverviewVan['stock'] }) {
+  const low = stock.products.filter((p) => p.health !== 'ok');
+  return (
+    <span className="block space-y-1">
+      <Badge tone={healthTone[stock.health]}>
+        {stock.health === 'ok'
+          ? 'Stock OK'
+          : stock.health === 'no_par'
+            ? 'No levels set'
+            : stockHealthLabels[stock.health]}
+      </Badge>
+      {low.length ? (
+        <span className="block text-sm text-ink">
+          {low.map((p) => (
+            <span key={p.productId} className="block [overflow-wrap:anywhere]">
+              {p.name}: {formatPacks(p.usable, p.packSizeMl)}
+              {p.target !== null ? ` of ${p.target}` : ''}
+              {p.booked > 0 ? `, ${p.booked} booked` : ''} ({stockHealthLabels[p.health].toLowerCase()})
+            </span>
+          ))}
+        </span>
+      ) : null}
+    </span>
   );
 }
 
@@ -83,10 +120,7 @@ export function VanHealthList({ vans }: { vans: OverviewVan[] }) {
               </span>
             </span>
             <span className="flex flex-wrap gap-1">
-              {v.stock.outOfStock > 0 ? <Badge tone="danger">{v.stock.outOfStock} out of stock</Badge> : null}
-              {v.stock.belowMinimum > 0 ? <Badge tone="warn">{v.stock.belowMinimum} below minimum</Badge> : null}
-              {v.stock.belowMinimum === 0 ? <Badge tone="ok">Stock OK</Badge> : null}
-              <Badge tone="neutral">{v.stock.usablePacks} usable packs</Badge>
+              <VanStockHealth stock={v.stock} />
               {v.nextDue && v.nextDue.state !== 'ok' ? (
                 <Badge tone={v.nextDue.state === 'overdue' ? 'danger' : 'warn'}>
                   {v.nextDue.what} {v.nextDue.state === 'overdue' ? 'overdue' : 'due'}{' '}

@@ -1,12 +1,13 @@
-import { stockHealthLabels, type stockHealth } from '@heatfleet/domain';
+import { formatPacks, stockHealthLabels, type StockHealth } from '@heatfleet/domain';
 
-export type StockHealth = (typeof stockHealth)[number];
+export type { StockHealth };
 
 // Our palette, with a second cue (the mark) so health never rests on colour alone.
 export const healthStyles: Record<StockHealth, { cell: string; mark: string }> = {
   ok: { cell: 'bg-ok-50 text-ok-700 border-ok-700/30', mark: '●' },
   below_target: { cell: 'bg-ember-100 text-ember-700 border-ember-700/30', mark: '◐' },
   below_minimum: { cell: 'bg-danger-50 text-danger-700 border-danger-700/40', mark: '▼' },
+  short_for_jobs: { cell: 'bg-danger-50 text-danger-700 border-danger-700', mark: '!' },
   empty: { cell: 'bg-danger-700 text-white border-danger-700', mark: '✕' },
   no_par: { cell: 'bg-card text-ink-muted border-line', mark: '–' },
 };
@@ -23,7 +24,7 @@ export function HealthBadge({ health }: { health: StockHealth }) {
   );
 }
 
-const legendOrder: StockHealth[] = ['ok', 'below_target', 'below_minimum', 'empty', 'no_par'];
+const legendOrder: StockHealth[] = ['ok', 'below_target', 'below_minimum', 'short_for_jobs', 'empty', 'no_par'];
 
 export function HealthLegend() {
   return (
@@ -39,4 +40,9 @@ export function HealthLegend() {
 
 export function packsText(n: number): string {
   return `${n} pack${n === 1 ? '' : 's'}`;
+}
+
+/** Packs with their size, the way every stock screen writes a count: "3 packs of 1 L". */
+export function packsOf(n: number, packSizeMl: number | undefined): string {
+  return packSizeMl ? formatPacks(n, packSizeMl) : packsText(n);
 }

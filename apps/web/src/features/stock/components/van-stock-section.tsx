@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { stockHealthRank } from '@heatfleet/domain';
 import { Link } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -6,9 +7,7 @@ import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { paths } from '@/config/paths';
 import { formatCalendarDate } from '@/lib/format';
 import { stockQueries } from '@/features/stock/api/stock-queries';
-import { HealthBadge, packsText } from '@/features/stock/components/stock-health';
-
-const lowFirst = { empty: 0, below_minimum: 1, below_target: 2, ok: 3, no_par: 4 } as const;
+import { HealthBadge, packsOf, packsText } from '@/features/stock/components/stock-health';
 
 /** The engineer's chemicals on board, what is low against the van's par levels first. */
 export function VanStockSection() {
@@ -18,14 +17,14 @@ export function VanStockSection() {
   const { van, stock, batches } = mine.data;
   if (!van) return null;
   const rows = [...stock].sort(
-    (a, b) => lowFirst[a.health] - lowFirst[b.health] || a.productName.localeCompare(b.productName),
+    (a, b) => stockHealthRank[a.health] - stockHealthRank[b.health] || a.productName.localeCompare(b.productName),
   );
-  const low = rows.filter((r) => r.health === 'empty' || r.health === 'below_minimum');
+  const low = rows.filter((r) => r.health === 'empty' || r.health === 'below_minimum' || r.health === 'short_for_jobs');
   const expired = batches.filter((b) => b.expired);
   return (
     <div className="space-y-4">
       {low.length > 0 ? (
-        <Alert tone="error" title={`${low.length} product${low.length === 1 ? '' : 's'} below minimum`}>
+        <Alert tone="error" title={`${low.length} product${low.length === 1 ? '' : 's'} below what the van must hold`}>
           {low.map((r) => r.productName).join(', ')}. Ask the stores for a restock.
         </Alert>
       ) : rows.length > 0 ? (
@@ -47,7 +46,9 @@ export function VanStockSection() {
               <div className="min-w-0">
                 <p className="font-semibold">{row.productName}</p>
                 <p className="text-sm text-ink-muted">
-                  {row.par ? `Minimum ${row.par.minimum}, target ${row.par.target}` : 'No level set'}
+                  {row.need
+                    ? `Minimum ${row.need.minimum}, target ${row.need.target}${row.booked > 0 ? ` (booked jobs need ${row.booked})` : ''}`
+                    : 'No level set'}
                   {batches
                     .filter((b) => b.product.id === row.productId && !b.expired)
                     .map((b) => ` · lot ${b.batch.lotNumber} use by ${formatCalendarDate(b.batch.expiresOn)}`)
@@ -55,7 +56,7 @@ export function VanStockSection() {
                 </p>
               </div>
               <div className="flex items-center gap-3">
-                <span className="text-lg font-bold">{packsText(row.usable)}</span>
+                <span className="text-lg font-bold">{packsOf(row.usable, row.packSizeMl)}</span>
                 <HealthBadge health={row.health} />
               </div>
             </li>

@@ -1,0 +1,37 @@
+import { placeHealthOf, stockHealthRank, type OverviewVan, type StockCell } from '@heatfleet/domain';
+
+/**
+ * Each van's stock health for the overview, product by product, by the same rule as the stock grid
+ * and My van (`stockHealthOf`, booked jobs counted): the van's health is its worst product's.
+ */
+export function vanStockHealth(
+  levels: StockCell[],
+  products: { id: number; name: string; pack_size_ml: number }[],
+): (vanId: number) => OverviewVan['stock'] {
+  const productById = new Map(products.map((p) => [p.id, p]));
+  const byVan = new Map<number, StockCell[]>();
+  for (const cell of levels) byVan.set(cell.locationId, [...(byVan.get(cell.locationId) ?? []), cell]);
+  return (vanId) => {
+    const cells = (byVan.get(vanId) ?? []).filter((c) => c.health !== 'no_par' && productById.has(c.productId));
+    const { health, counts } = placeHealthOf(cells.map((c) => c.health));
+    return {
+      health,
+      // An empty line or one short for booked jobs is below what it must hold too; the others pick them out.
+      belowMinimum: counts.below_minimum + counts.empty + counts.short_for_jobs,
+      outOfStock: counts.empty,
+      shortForJobs: counts.short_for_jobs,
+      belowTarget: counts.below_target,
+      products: cells
+        .map((c) => ({
+          productId: c.productId,
+          name: productById.get(c.productId)!.name,
+          packSizeMl: productById.get(c.productId)!.pack_size_ml,
+          usable: c.usable,
+          target: c.need?.target ?? null,
+          booked: c.booked,
+          health: c.health,
+        }))
+        .sort((a, b) => stockHealthRank[a.health] - stockHealthRank[b.health] || a.name.localeCompare(b.name)),
+    };
+  };
+}
