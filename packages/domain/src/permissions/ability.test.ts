@@ -104,6 +104,9 @@ const firmRecordTable: Record<
     create: ['owner', 'admin', 'stores', 'engineer'],
     delete: ['owner', 'admin', 'stores'],
   },
+  PriceList: { read: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin'] },
+  Quote: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'engineer'] },
+  Invoice: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin'], update: ['owner', 'admin'] },
 };
 
 describe('each subject, each role, in their own firm and another', () => {
@@ -179,5 +182,12 @@ describe('payments and billing', () => {
     expect(roles.filter((r) => ability(r).can('update', 'PaymentAccount'))).toEqual(['owner']);
     expect(roles.filter((r) => ability(r).can('read', 'PaymentAccount'))).toEqual(['owner', 'admin']);
     expect(roles.filter((r) => ability(r).can('read', 'Billing'))).toEqual(['owner']);
+  });
+  it('money: everyone reads; prices and invoices are the Owner and Admin; engineers make and take quotes', () => {
+    for (const s of ['PriceList', 'Quote', 'Invoice'] as const)
+      expect(roles.filter((r) => ability(r).can('read', s))).toEqual([...roles]);
+    expect(roles.filter((r) => ability(r).can('update', 'PriceList'))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('create', 'Invoice'))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('update', 'Quote'))).toEqual(['owner', 'admin', 'engineer']);
   });
 });

@@ -44,7 +44,10 @@ export type SubjectName =
   | 'Job'
   | 'Payment'
   | 'PaymentAccount'
-  | 'Billing';
+  | 'Billing'
+  | 'PriceList'
+  | 'Quote'
+  | 'Invoice';
 export type AppSubjects =
   | SubjectName
   | 'all'
@@ -97,6 +100,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
   );
   // Anyone may show a customer the pay QR for an invoice (a checkout for what is owed); refunds are the office's.
   can(['read', 'create'], 'Payment', inFirm);
+  // Money (issue 15): everyone sees prices, quotes and invoices; the office sets prices and invoices.
+  can('read', ['PriceList', 'Quote', 'Invoice'], inFirm);
 
   switch (member.role) {
     case 'owner':
@@ -128,6 +133,9 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
           'Customer',
           'Job',
           'Payment',
+          'PriceList',
+          'Quote',
+          'Invoice',
         ],
         inFirm,
       );
@@ -164,6 +172,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
         can('create', 'StockUse', { firmId: member.firmId, kind: 'van', engineerMemberId: member.memberId });
       }
       can('create', ['Inspection', 'Photo', 'Customer', 'Job'], inFirm);
+      // A quote from the survey, sent or accepted on the phone with the customer; never prices or invoices.
+      can(['create', 'update'], 'Quote', inFirm);
       if (member.memberId !== undefined)
         can('update', 'Job', { firmId: member.firmId, engineerMemberId: member.memberId });
       break;
