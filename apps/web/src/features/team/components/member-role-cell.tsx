@@ -1,8 +1,9 @@
+import { useState } from 'react';
 import { subject } from '@casl/ability';
 import { roleLabels, roles, type Member, type Role } from '@heatfleet/domain';
-import { SelectField } from '@/components/ui/select-field';
 import { useAbility } from '@/lib/ability';
 import { useUpdateMember } from '@/features/team/api/use-update-member';
+import { ChangeRoleDialog } from '@/features/team/components/change-role-dialog';
 
 interface MemberCellProps {
   member: Member;
@@ -17,27 +18,39 @@ function asSubject(member: Member, firmId: number, role: Role = member.role) {
 export function MemberRoleCell({ member, firmId, isYou }: MemberCellProps) {
   const ability = useAbility();
   const update = useUpdateMember();
+  const [open, setOpen] = useState(false);
   // Changing your own role could lock you out of this very screen; another Owner or Admin does it.
   const canChange = !isYou && ability.can('update', asSubject(member, firmId));
   if (!canChange) return <span>{roleLabels[member.role]}</span>;
 
   // Offer only the roles the rules allow the member to end up with (an Admin never makes an Owner).
-  const options = roles
-    .filter((role) => role === member.role || ability.can('update', asSubject(member, firmId, role)))
-    .map((role) => ({ value: role, label: roleLabels[role] }));
-  const shownRole = update.isPending && update.variables.role ? update.variables.role : member.role;
+  const allowed = roles.filter(
+    (role) => role === member.role || ability.can('update', asSubject(member, firmId, role)),
+  );
 
   return (
-    <div className="w-full max-w-44 max-sm:ml-auto sm:w-40">
-      <SelectField
-        label={`Role for ${member.name}`}
-        hideLabel
-        options={options}
-        value={shownRole}
-        disabled={update.isPending}
-        onChange={(event) => update.mutate({ id: member.id, role: event.target.value as Role })}
-        error={update.isError ? update.error.message : undefined}
-      />
+    <div className="flex flex-wrap items-center gap-x-3 gap-y-1 max-sm:justify-end">
+      <span>{roleLabels[member.role]}</span>
+      <button
+        type="button"
+        onClick={() => {
+          update.reset();
+          setOpen(true);
+        }}
+        className="min-h-12 rounded-md border border-line-strong bg-card px-3 font-semibold text-brand-700 hover:bg-brand-50"
+      >
+        Change role<span className="sr-only"> for {member.name}</span>
+      </button>
+      {open ? (
+        <ChangeRoleDialog
+          member={member}
+          roles={allowed}
+          busy={update.isPending}
+          error={update.isError ? update.error.message : undefined}
+          onClose={() => setOpen(false)}
+          onConfirm={(role) => update.mutate({ id: member.id, role }, { onSuccess: () => setOpen(false) })}
+        />
+      ) : null}
     </div>
   );
 }
