@@ -6,7 +6,7 @@ export interface NewEmail {
   subject: string;
   text: string;
   html: string | null;
-  purpose: 'invitation' | 'password-reset' | 'sign-up' | 'reminder' | 'job-report';
+  purpose: 'invitation' | 'password-reset' | 'sign-up' | 'reminder' | 'job-report' | 'site-check' | 'invoice' | 'quote';
   /** A file in object storage to attach, e.g. a completion report. */
   attachment?: { key: string; filename: string };
 }
