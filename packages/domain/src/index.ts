@@ -51,3 +51,4 @@ export * from './money/index.ts';
 export * from './payments/payment-schemas.ts';
 export * from './payments/payment-responses.ts';
 export * from './payments/grace-period.ts';
+export * from './lib/uk-dates.ts';
