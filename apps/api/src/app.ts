@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 import compression from 'compression';
-import express, { type Express } from 'express';
+import express, { raw as rawBody, type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps.ts';
@@ -11,6 +11,7 @@ import { requestId } from './middleware/request-id.ts';
 import { createSessionMiddleware } from './middleware/session.ts';
 import { apiRoutes } from './routes/api-routes.ts';
 import { mountRoutes } from './routes/mount-routes.ts';
+import { PAYMENT_WEBHOOK_PATH } from './modules/payments/payment-router.ts';
 
 /** Builds the app from its dependencies; it never listens (server.ts does). */
 export function createApp(deps: AppDeps): Express {
@@ -52,10 +53,15 @@ export function createApp(deps: AppDeps): Express {
   );
 
   const api = express.Router();
+  // The payment service signs the exact bytes it sends: that one route reads its body raw (the JSON parser
+  // below then leaves it alone), and carries a signature instead of a session's CSRF token.
+  api.use(PAYMENT_WEBHOOK_PATH, rawBody({ type: '*/*', limit: '1mb' }));
   api.use(express.json({ limit: '100kb' }));
   api.use(createSessionMiddleware(deps.env, deps.db, deps.logger));
   api.use(originCheck(deps.env.APP_ORIGIN, deps.env.NODE_ENV));
-  api.use(csrfProtection);
+  api.use((req, res, next) =>
+    req.path === PAYMENT_WEBHOOK_PATH && req.method === 'POST' ? next() : csrfProtection(req, res, next),
+  );
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();

@@ -381,11 +381,13 @@ export const billingRoutes: ApiRoute[] = [
     handle: ({ query, state, account }) => {
       const customer = optionalString(query, 'customer');
       const subscription = optionalString(query, 'subscription');
+      const status = optionalString(query, 'status');
       const invoices = state.list<Invoice>(
         account,
         'invoice',
         (i) =>
           (customer === undefined || i.customer === customer) &&
+          (status === undefined || i.status === status) &&
           (subscription === undefined || i.parent.subscription_details.subscription === subscription),
       );
       return listOf('/v1/invoices', invoices, optionalInteger(query, 'limit') ?? 10);

@@ -219,6 +219,11 @@ export const checkoutRoutes: ApiRoute[] = [
     pattern: /^\/v1\/payment_intents\/([^/]+)$/,
     handle: ({ params, state, account }) => state.get(account, params[0]!, 'payment_intent', 'intent'),
   },
+  {
+    method: 'GET',
+    pattern: /^\/v1\/charges\/([^/]+)$/,
+    handle: ({ params, state, account }) => state.get(account, params[0]!, 'charge', 'charge'),
+  },
   { method: 'POST', pattern: /^\/v1\/refunds$/, handle: refund },
 ];
 

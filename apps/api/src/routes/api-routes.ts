@@ -22,6 +22,8 @@ import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
 import { firmRoutes } from '../modules/firms/firm-router.ts';
 import { overviewRoutes } from '../modules/overview/overview-router.ts';
 import { siteRoutes } from '../modules/sites/site-router.ts';
+import { paymentRoutes } from '../modules/payments/payment-router.ts';
+import { billingRoutes } from '../modules/billing/billing-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
 /**
@@ -52,5 +54,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...overviewRoutes,
   ...siteRoutes,
   ...outboxRoutes,
+  ...paymentRoutes,
+  ...billingRoutes,
   openApiRoute(() => apiRoutes),
 ];

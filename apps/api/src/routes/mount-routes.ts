@@ -1,6 +1,7 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import type { Actor, AppDeps } from '../app-deps.ts';
 import { authenticate } from '../middleware/authenticate.ts';
+import { assertFirmWritable } from '../middleware/firm-read-only.ts';
 import { emptyParamsSchema, emptyQuerySchema, type RouteDefinition } from './route-registry.ts';
 
 /**
@@ -9,13 +10,18 @@ import { emptyParamsSchema, emptyQuerySchema, type RouteDefinition } from './rou
  */
 export function mountRoutes(routes: RouteDefinition[], deps: AppDeps): Router {
   const router = Router();
-  const signedIn: RequestHandler = async (req, res, next) => {
-    res.locals.actor = await authenticate(req, deps);
-    next();
-  };
+  // A read-only firm (an unpaid subscription past its grace period) is refused every write before anything else.
+  const signedIn =
+    (route: RouteDefinition): RequestHandler =>
+    async (req, res, next) => {
+      const actor = await authenticate(req, deps);
+      res.locals.actor = actor;
+      await assertFirmWritable(deps, actor, route);
+      next();
+    };
   for (const route of routes) {
     if (route.devOnly && deps.env.NODE_ENV === 'production') continue;
-    const chain = [...(route.access === 'member' ? [signedIn] : []), ...(route.before?.(deps) ?? [])];
+    const chain = [...(route.access === 'member' ? [signedIn(route)] : []), ...(route.before?.(deps) ?? [])];
     router[route.method](route.path, ...chain, async (req, res) => {
       const actor = (res.locals.actor as Actor | undefined) ?? null;
       const params = (route.request.params ?? emptyParamsSchema).parse(req.params);

@@ -107,6 +107,13 @@ const firmRecordTable: Record<
   PriceList: { read: ['owner', 'admin', 'stores', 'engineer'], update: ['owner', 'admin'] },
   Quote: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin', 'engineer'] },
   Invoice: { read: ['owner', 'admin', 'stores', 'engineer'], create: ['owner', 'admin'], update: ['owner', 'admin'] },
+  Payment: {
+    read: ['owner', 'admin', 'stores', 'engineer'],
+    create: ['owner', 'admin', 'stores', 'engineer'],
+    update: ['owner', 'admin'],
+  },
+  PaymentAccount: { read: ['owner', 'admin'], update: ['owner'] },
+  Billing: { read: ['owner'], update: ['owner'] },
 };
 
 describe('each subject, each role, in their own firm and another', () => {

@@ -13,6 +13,7 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { conflict, notFound, ruleBroken } from '../../lib/http-error.ts';
 import { listKits } from '../kits/kit-service.ts';
 import { loadItems } from '../kits/kit-item-service.ts';
+import { syncVanCountAfterChange } from '../billing/billing-subscription.ts';
 import { findMember } from '../members/member-dal.ts';
 import {
   contentsByLocation,
@@ -117,6 +118,8 @@ export async function createVan(deps: AppDeps, actor: Actor, input: CreateVanInp
       notes: input.notes ?? null,
     });
   });
+  // The firm's subscription is per active van (README, Payments), prorated from today.
+  await syncVanCountAfterChange(deps, actor.firmId);
   return getVan(deps, actor, id);
 }
 
@@ -138,6 +141,7 @@ export async function updateVan(deps: AppDeps, actor: Actor, id: number, input: 
       ...(input.active !== undefined && { active: input.active ? 1 : 0 }),
     });
   });
+  if (input.active !== undefined) await syncVanCountAfterChange(deps, actor.firmId);
   return getVan(deps, actor, id);
 }
 
