@@ -3,6 +3,7 @@ import {
   restockAppliedSchema,
   stockMovedSchema,
   type ReceiptInput,
+  type RestockApplyInput,
   type StocktakeInput,
   type TransferInput,
   type UsageInput,
@@ -52,13 +53,8 @@ export function useReverseMovement() {
 export function useApplyRestockRun() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({
-      lines,
-      idempotencyKey,
-    }: {
-      lines: { toLocationId: number; productId: number; batchId: number; quantity: number }[];
-      idempotencyKey: string;
-    }) => apiClient.post('/api/stock/restock-run', { lines }, restockAppliedSchema, { idempotencyKey }),
+    mutationFn: ({ lines, idempotencyKey }: { lines: RestockApplyInput['lines']; idempotencyKey: string }) =>
+      apiClient.post('/api/stock/restock-run', { lines }, restockAppliedSchema, { idempotencyKey }),
     // A refused run (stock moved since it was computed) is recomputed too, so the next try starts from the truth.
     onSettled: () => queryClient.invalidateQueries({ queryKey: stockQueries.all() }),
   });

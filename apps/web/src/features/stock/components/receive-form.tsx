@@ -1,9 +1,16 @@
 import { useMemo, useState } from 'react';
-import { receiptInputSchema, type Product, type StockPlace } from '@heatfleet/domain';
+import {
+  receiptInputSchema,
+  type ApiErrorDetail,
+  type ReceiptInput,
+  type Product,
+  type StockPlace,
+} from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { isApiError } from '@/lib/api-client';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
 import { placeLabel } from '@/features/stock/api/use-stock-choices';
@@ -30,6 +37,8 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
   const [lineKeys, setLineKeys] = useState<number[]>([1]);
   const [nextKey, setNextKey] = useState(2);
   const [done, setDone] = useState<string | null>(null);
+  // A lot with less than its product's minimum life left: the server asked, the person confirms.
+  const [shortLife, setShortLife] = useState<{ input: ReceiptInput; lots: ApiErrorDetail[] } | null>(null);
   const movement = useStockMovement();
   const idempotency = useIdempotencyKey();
   const fields = useMemo(
@@ -43,32 +52,40 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
     ...products.map((p) => ({ value: String(p.id), label: p.name })),
   ];
 
+  const send = (input: ReceiptInput) => {
+    setDone(null);
+    setShortLife(null);
+    const request = { action: 'receipts' as const, input };
+    movement.mutate(
+      { request, idempotencyKey: idempotency.keyFor(request) },
+      {
+        onSuccess: () => {
+          idempotency.done();
+          const total = input.lines.reduce((n, l) => n + l.quantity, 0);
+          setDone(`Received ${packsText(total)} on ${input.lines.length} line${input.lines.length === 1 ? '' : 's'}.`);
+          form.formRef.current?.reset();
+          setLineKeys([nextKey]);
+          setNextKey((k) => k + 1);
+        },
+        onError: (error) => {
+          if (isApiError(error) && error.code === 'ShortShelfLife') {
+            form.clearErrors();
+            setShortLife({ input, lots: error.details });
+            return;
+          }
+          form.showError(error);
+        },
+      },
+    );
+  };
+
   return (
     <form
       ref={form.formRef}
       noValidate
       aria-label="Receive a delivery"
       className="space-y-4"
-      onSubmit={form.handleSubmit((input) => {
-        setDone(null);
-        const request = { action: 'receipts' as const, input };
-        movement.mutate(
-          { request, idempotencyKey: idempotency.keyFor(request) },
-          {
-            onSuccess: () => {
-              idempotency.done();
-              const total = input.lines.reduce((n, l) => n + l.quantity, 0);
-              setDone(
-                `Received ${packsText(total)} on ${input.lines.length} line${input.lines.length === 1 ? '' : 's'}.`,
-              );
-              form.formRef.current?.reset();
-              setLineKeys([nextKey]);
-              setNextKey((k) => k + 1);
-            },
-            onError: form.showError,
-          },
-        );
-      })}
+      onSubmit={form.handleSubmit((input) => send(input))}
     >
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField
@@ -138,6 +155,7 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
       {form.fieldErrors.lines ? (
         <p className="text-sm font-semibold text-danger-700">{form.fieldErrors.lines}</p>
       ) : null}
+      {/* Adding a line sits with the lines; receiving sits apart, below a rule, so one cannot be tapped for the other. */}
       <Button
         variant="secondary"
         onClick={() => {
@@ -149,9 +167,37 @@ export function ReceiveForm({ depots, products }: { depots: StockPlace[]; produc
       </Button>
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       {done ? <Alert tone="success">{done}</Alert> : null}
-      <Button type="submit" busy={movement.isPending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">
-        Receive delivery
-      </Button>
+      {shortLife ? (
+        <section
+          aria-label="Short shelf life"
+          className="space-y-3 rounded-lg border-2 border-ember-700 bg-ember-100 p-3"
+        >
+          <p className="font-semibold">Less use left than this product should have:</p>
+          <ul className="list-disc pl-5">
+            {shortLife.lots.map((lot) => (
+              <li key={lot.path}>{lot.message}</li>
+            ))}
+          </ul>
+          <p>Receive it anyway only if it will be used before it expires; otherwise send it back to the supplier.</p>
+          <div className="flex flex-col gap-2 sm:flex-row">
+            <Button
+              busy={movement.isPending}
+              onClick={() => send({ ...shortLife.input, confirmShortLife: true })}
+              className="min-h-12"
+            >
+              Receive it anyway
+            </Button>
+            <Button variant="secondary" className="min-h-12" onClick={() => setShortLife(null)}>
+              Go back and change it
+            </Button>
+          </div>
+        </section>
+      ) : null}
+      <div className="mt-8 border-t-2 border-line pt-6">
+        <Button type="submit" busy={movement.isPending} className="min-h-14 w-full text-lg sm:w-auto sm:min-w-48">
+          Receive delivery
+        </Button>
+      </div>
     </form>
   );
 }

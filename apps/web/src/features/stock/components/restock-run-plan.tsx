@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import type { RestockRunLine } from '@heatfleet/domain';
+import type { RestockRun, RestockRunLine } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -9,7 +9,15 @@ import { formatCalendarDate } from '@/lib/format';
 import { useIdempotencyKey } from '@/lib/idempotency';
 import { stockQueries } from '@/features/stock/api/stock-queries';
 import { useApplyRestockRun } from '@/features/stock/api/use-stock-movement';
+import {
+  RestockReviewLine,
+  reviewedPacks,
+  suggestedPacks,
+  type Reviewed,
+} from '@/features/stock/components/restock-review-line';
 import { packsText } from '@/features/stock/components/stock-health';
+
+const lineKey = (line: RestockRunLine) => `${line.van.id}:${line.product.id}`;
 
 function byVan(lines: RestockRunLine[]) {
   const vans = new Map<number, { van: RestockRunLine['van']; lines: RestockRunLine[] }>();
@@ -21,29 +29,37 @@ function byVan(lines: RestockRunLine[]) {
   return [...vans.values()].sort((a, b) => a.van.name.localeCompare(b.van.name, 'en-GB', { numeric: true }));
 }
 
-/**
- * The restock run as a pick list: per van, what to take from which lot. Reviewed on screen, printed
- * for the shelf, and applied in one step (all the transfers, or none if stock moved meanwhile).
- */
-export function RestockRunPlan({ canApply }: { canApply: boolean }) {
-  const run = useQuery(stockQueries.restockRun());
+/** The lines the server gets: a line as suggested keeps its lots; a changed one is taken first expiry first. */
+function reviewedTransfers(lines: RestockRunLine[], review: Record<string, Reviewed>) {
+  return lines.flatMap((line) => {
+    const r = review[lineKey(line)];
+    const packs = r ? reviewedPacks(r) : suggestedPacks(line);
+    if (!packs) return [];
+    if (packs === suggestedPacks(line))
+      return line.allocations.map((a) => ({
+        toLocationId: line.van.id,
+        productId: line.product.id,
+        batchId: a.batchId,
+        quantity: a.quantity,
+      }));
+    return [{ toLocationId: line.van.id, productId: line.product.id, quantity: packs }];
+  });
+}
+
+function Review({ run, canApply }: { run: RestockRun; canApply: boolean }) {
   const apply = useApplyRestockRun();
   const idempotency = useIdempotencyKey();
   const [applied, setApplied] = useState<string | null>(null);
-
-  if (run.isPending) return <PageSpinner label="Working out the restock run…" />;
-  if (run.isError) return <QueryErrorNotice error={run.error} onRetry={() => void run.refetch()} />;
-  const { depot, lines, today } = run.data;
-  const vans = byVan(lines);
-  const transfers = lines.flatMap((line) =>
-    line.allocations.map((a) => ({
-      toLocationId: line.van.id,
-      productId: line.product.id,
-      batchId: a.batchId,
-      quantity: a.quantity,
-    })),
+  const [review, setReview] = useState<Record<string, Reviewed>>(() =>
+    Object.fromEntries(run.lines.map((l) => [lineKey(l), { packs: String(suggestedPacks(l)), dropped: false }])),
   );
+  const { depot, lines, today } = run;
+  const vans = byVan(lines);
+  const invalid = lines.some((l) => reviewedPacks(review[lineKey(l)]!) === null);
+  const transfers = reviewedTransfers(lines, review);
   const totalPacks = transfers.reduce((n, t) => n + t.quantity, 0);
+  const vanCount = new Set(transfers.map((t) => t.toLocationId)).size;
+  const dropped = lines.filter((l) => review[lineKey(l)]?.dropped).length;
   const shortLines = lines.filter((line) => line.shortfall > 0);
 
   return (
@@ -57,129 +73,91 @@ export function RestockRunPlan({ canApply }: { canApply: boolean }) {
           {apply.error.message}
         </Alert>
       ) : null}
-      {lines.length === 0 ? (
-        <Alert tone="success">Every van is at or above its target. Nothing to pick.</Alert>
-      ) : (
-        <>
-          <p className="print:hidden">
-            From <strong>{depot.name}</strong>: {packsText(totalPacks)} to {vans.length} van
-            {vans.length === 1 ? '' : 's'}, first expiry first.
-            {shortLines.length > 0
-              ? ` ${shortLines.length} line${shortLines.length === 1 ? ' is' : 's are'} short: the depot does not hold enough.`
-              : ''}
-          </p>
-          <div className="flex flex-col gap-2 sm:flex-row print:hidden">
-            {canApply ? (
-              <Button
-                busy={apply.isPending}
-                disabled={transfers.length === 0}
-                className="min-h-14 text-lg sm:min-w-48"
-                onClick={() => {
-                  setApplied(null);
-                  const body = { lines: transfers };
-                  apply.mutate(
-                    { ...body, idempotencyKey: idempotency.keyFor(body) },
-                    {
-                      onSuccess: () => {
-                        idempotency.done();
-                        setApplied(
-                          `Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vans.length} van${vans.length === 1 ? '' : 's'}.`,
-                        );
-                      },
+      <p className="print:hidden">
+        From <strong>{depot.name}</strong>, first expiry first. Each van is filled to its target, or to what its booked
+        jobs of the next {run.restockDays} days need plus its minimum if that is more. Change or drop any line, then
+        apply what you reviewed.
+        {shortLines.length > 0
+          ? ` ${shortLines.length} line${shortLines.length === 1 ? ' is' : 's are'} short: the depot does not hold enough.`
+          : ''}
+      </p>
+      <ol className="space-y-4 print:space-y-2" aria-label="Pick list by van">
+        {vans.map(({ van, lines: vanLines }) => (
+          <li
+            key={van.id}
+            className="rounded-xl border border-line bg-card p-4 print:break-inside-avoid print:rounded-none print:border-ink print:p-2"
+          >
+            <h3 className="text-lg font-bold text-brand-900 print:text-black">
+              {van.name}{' '}
+              {van.registration ? <span className="font-mono text-base font-normal">{van.registration}</span> : null}
+            </h3>
+            <ul aria-label={`Lines for ${van.name}`}>
+              {vanLines.map((line) => (
+                <RestockReviewLine
+                  key={lineKey(line)}
+                  line={line}
+                  reviewed={review[lineKey(line)]!}
+                  onChange={(next) => {
+                    setApplied(null);
+                    setReview((r) => ({ ...r, [lineKey(line)]: next }));
+                  }}
+                />
+              ))}
+            </ul>
+          </li>
+        ))}
+      </ol>
+      <section
+        aria-label="Apply the reviewed run"
+        className="sticky bottom-0 space-y-2 border-t-2 border-line bg-canvas py-3 print:hidden"
+      >
+        <p className="font-semibold">
+          Reviewed: {packsText(totalPacks)} to {vanCount} van{vanCount === 1 ? '' : 's'}
+          {dropped > 0 ? `, ${dropped} line${dropped === 1 ? '' : 's'} dropped` : ''}.
+        </p>
+        <div className="flex flex-col gap-2 sm:flex-row">
+          {canApply ? (
+            <Button
+              busy={apply.isPending}
+              disabled={transfers.length === 0 || invalid}
+              className="min-h-14 text-lg sm:min-w-48"
+              onClick={() => {
+                setApplied(null);
+                const body = { lines: transfers };
+                apply.mutate(
+                  { ...body, idempotencyKey: idempotency.keyFor(body) },
+                  {
+                    onSuccess: () => {
+                      idempotency.done();
+                      setApplied(
+                        `Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vanCount} van${vanCount === 1 ? '' : 's'}.`,
+                      );
                     },
-                  );
-                }}
-              >
-                Apply restock run
-              </Button>
-            ) : null}
-            <Button variant="secondary" className="min-h-14" onClick={() => window.print()}>
-              Print pick list
+                  },
+                );
+              }}
+            >
+              Apply reviewed run
             </Button>
-          </div>
-          <ol className="space-y-4 print:space-y-2" aria-label="Pick list by van">
-            {vans.map(({ van, lines: vanLines }) => (
-              <li
-                key={van.id}
-                className="rounded-xl border border-line bg-card p-4 print:break-inside-avoid print:rounded-none print:border-ink print:p-2"
-              >
-                <h3 className="text-lg font-bold text-brand-900 print:text-black">
-                  {van.name}{' '}
-                  {van.registration ? (
-                    <span className="font-mono text-base font-normal">{van.registration}</span>
-                  ) : null}
-                </h3>
-                <table className="mt-2 w-full border-collapse text-left text-sm">
-                  <caption className="sr-only">What to pick for {van.name}</caption>
-                  <thead>
-                    <tr className="border-b border-line">
-                      <th scope="col" className="py-1 pr-2">
-                        Product
-                      </th>
-                      <th scope="col" className="py-1 pr-2">
-                        Lot and use by
-                      </th>
-                      <th scope="col" className="py-1 pr-2 text-right">
-                        Packs
-                      </th>
-                      <th scope="col" className="hidden w-10 py-1 print:table-cell">
-                        ✓
-                      </th>
-                    </tr>
-                  </thead>
-                  <tbody>
-                    {vanLines.map((line) => {
-                      // One row per lot to pick, so each count sits beside its own lot; a shortfall gets a row of its own.
-                      const picks = line.allocations.map((a) => ({ key: `lot-${a.batchId}`, allocation: a }));
-                      const rows = [
-                        ...picks,
-                        ...(line.shortfall > 0 || picks.length === 0 ? [{ key: 'short', allocation: null }] : []),
-                      ];
-                      return rows.map((row, i) => (
-                        <tr
-                          key={`${line.product.id}-${row.key}`}
-                          className={`align-top ${i === rows.length - 1 ? 'border-b border-line' : ''}`}
-                        >
-                          {i === 0 ? (
-                            <th
-                              scope="row"
-                              rowSpan={rows.length}
-                              className="py-1 pr-2 font-semibold [overflow-wrap:anywhere]"
-                            >
-                              {line.product.name}
-                              <span className="block text-xs font-normal text-ink-muted">
-                                has {line.usable}, target {line.par.target}
-                              </span>
-                            </th>
-                          ) : null}
-                          {row.allocation ? (
-                            <>
-                              <td className="py-1 pr-2">
-                                <span className="font-mono">{row.allocation.lotNumber}</span>{' '}
-                                <span className="text-xs whitespace-nowrap text-ink-muted">
-                                  use by {formatCalendarDate(row.allocation.expiresOn)}
-                                </span>
-                              </td>
-                              <td className="py-1 pr-2 text-right font-semibold">{row.allocation.quantity}</td>
-                              <td className="hidden py-1 print:table-cell">
-                                <span className="inline-block size-4 border border-black" />
-                              </td>
-                            </>
-                          ) : (
-                            <td colSpan={3} className="py-1 pr-2 font-semibold text-danger-700">
-                              Short by {packsText(line.shortfall)}: the depot has no more usable stock of it.
-                            </td>
-                          )}
-                        </tr>
-                      ));
-                    })}
-                  </tbody>
-                </table>
-              </li>
-            ))}
-          </ol>
-        </>
-      )}
+          ) : null}
+          <Button variant="secondary" className="min-h-14" onClick={() => window.print()}>
+            Print pick list
+          </Button>
+        </div>
+      </section>
     </div>
   );
+}
+
+/**
+ * The restock run as a review: per van, what to take from which lot, each line changeable or dropped,
+ * then applied as reviewed in one step (all the transfers, or none if stock moved meanwhile).
+ */
+export function RestockRunPlan({ canApply }: { canApply: boolean }) {
+  const run = useQuery(stockQueries.restockRun());
+  if (run.isPending) return <PageSpinner label="Working out the restock run…" />;
+  if (run.isError) return <QueryErrorNotice error={run.error} onRetry={() => void run.refetch()} />;
+  if (run.data.lines.length === 0) return <Alert tone="success">Every van holds what it needs. Nothing to pick.</Alert>;
+  // A fresh review each time the run is recomputed (after applying, or stock moving).
+  return <Review key={run.dataUpdatedAt} run={run.data} canApply={canApply} />;
 }
