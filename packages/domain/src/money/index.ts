@@ -5,3 +5,4 @@ export * from './price-list.ts';
 export * from './money-schemas.ts';
 export * from './money-responses.ts';
 export * from './cancellation.ts';
+export * from './document-number.ts';

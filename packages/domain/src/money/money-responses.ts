@@ -10,6 +10,9 @@ export const moneySettingsSchema = z.object({
   quoteValidityDays: z.number(),
   firstReminderDays: z.number(),
   secondReminderDays: z.number(),
+  invoiceOnCompletion: z.boolean(),
+  /** False until the firm first saves its money settings: nothing is invoiced before. */
+  saved: z.boolean(),
   roundingRule: z.string(),
 });
 export type MoneySettings = z.infer<typeof moneySettingsSchema>;

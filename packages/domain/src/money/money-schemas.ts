@@ -26,6 +26,8 @@ export const moneySettingsInputSchema = z
     quoteValidityDays: z.number().int().min(1, { error: 'A quote must be valid for at least a day.' }).max(365),
     firstReminderDays: z.number().int().min(1).max(365),
     secondReminderDays: z.number().int().min(1).max(365),
+    /** Issue the invoice when a job is completed (else the office makes it by hand). */
+    invoiceOnCompletion: z.boolean().optional().default(true),
   })
   .refine((s) => !s.vatRegistered || !!s.vatNumber, {
     error: 'A VAT-registered firm must give its VAT number (it is printed on every invoice).',
@@ -128,3 +130,13 @@ export const exportQuerySchema = z.strictObject({ from: calendarDateSchema, to: 
 export const tokenParamSchema = z.strictObject({
   token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, { error: 'That link is not valid.' }),
 });
+
+export const invoiceLinesInputSchema = z.strictObject({
+  lines: z.array(moneyLineInputSchema).min(1, { error: 'An invoice needs at least one line.' }).max(50),
+});
+export const invoiceListQuerySchema = z.strictObject({
+  status: z.enum(['draft', 'issued', 'part_paid', 'paid', 'credited']).optional(),
+  jobId: z.coerce.number().int().positive().optional(),
+});
+export const jobIdQuerySchema = z.strictObject({ jobId: z.coerce.number().int().positive().optional() });
+export const suggestedLinesSchema = z.object({ lines: z.array(moneyLineInputSchema) });

@@ -53,7 +53,9 @@ export function priceLines(
 }
 
 /** VAT totals by rate, for the invoice's summary (regulation 14 asks for the rate and the VAT payable). */
-export function vatByRate(lines: readonly PricedLine[]): { vatRateBp: number; netPence: number; vatPence: number }[] {
+export function vatByRate(
+  lines: readonly Pick<PricedLine, 'vatRateBp' | 'netPence' | 'vatPence'>[],
+): { vatRateBp: number; netPence: number; vatPence: number }[] {
   const map = new Map<number, { vatRateBp: number; netPence: number; vatPence: number }>();
   for (const l of lines) {
     const r = map.get(l.vatRateBp) ?? { vatRateBp: l.vatRateBp, netPence: 0, vatPence: 0 };
