@@ -11,6 +11,7 @@ import { paths } from '@/config/paths';
 import { useSignedInMe } from '@/lib/auth';
 import { FirmList } from '@/features/firms/components/firm-list';
 import { MyJobs } from '@/features/jobs/components/my-jobs';
+import { BookedJobsWarning } from '@/features/stock/components/booked-jobs-warning';
 import { MyHavToday, OwnerOverview } from '@/features/overview/components/owner-overview';
 import { vanQueries } from '@/features/vans/api/van-queries';
 import { VanSummary } from '@/features/vans/components/van-summary';
@@ -83,6 +84,8 @@ export function HomePage() {
         {me.role === 'engineer' ? (
           <>
             <Card title="Your jobs" description="Today's first, then the next ones.">
+              {/* Stock's warning (features/stock): your booked jobs whose van does not hold their packs. */}
+              <BookedJobsWarning engineerMemberId={me.memberId} />
               <MyJobs memberId={me.memberId} today={calendarDateIn(new Date(), me.activeFirm.timeZone)} />
             </Card>
             <MyVanCard timeZone={me.activeFirm.timeZone} />

@@ -7,6 +7,7 @@ import { paths } from '@/config/paths';
 import { Can, useAbility } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
 import { JobsTable, type EngineerFilterChoice } from '@/features/jobs/components/jobs-table';
+import { BookedJobsWarning } from '@/features/stock/components/booked-jobs-warning';
 import { memberQueries } from '@/features/team/api/member-queries';
 
 export function JobsPage() {
@@ -31,6 +32,8 @@ export function JobsPage() {
             Customers and sites
           </Link>
         </div>
+        {/* Stock's warning (features/stock): booked jobs whose van does not hold their packs. */}
+        <BookedJobsWarning />
         <Card title="Jobs">
           <JobsTable
             engineers={engineers.length ? engineers : [{ memberId: me.memberId, name: `${me.user.name} (me)` }]}

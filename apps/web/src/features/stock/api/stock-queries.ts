@@ -1,6 +1,7 @@
 import { infiniteQueryOptions, queryOptions } from '@tanstack/react-query';
 import {
   batchStockResponseSchema,
+  bookedJobsShortSchema,
   ledgerPageSchema,
   myVanStockSchema,
   parLevelListResponseSchema,
@@ -89,6 +90,13 @@ export const stockQueries = {
     queryOptions({
       queryKey: [...stockQueries.all(), 'par-levels'] as const,
       queryFn: async () => (await apiClient.get('/api/par-levels', parLevelListResponseSchema)).parLevels,
+    }),
+  /** Booked jobs of the restock window whose van does not hold their packs; one engineer's, or all. */
+  bookedJobsShort: (engineerMemberId?: number) =>
+    queryOptions({
+      queryKey: [...stockQueries.all(), 'booked-jobs-short', engineerMemberId ?? 'all'] as const,
+      queryFn: () =>
+        apiClient.get(`/api/stock/booked-jobs-short${searchOf({ engineerMemberId })}`, bookedJobsShortSchema),
     }),
   mine: () =>
     queryOptions({
