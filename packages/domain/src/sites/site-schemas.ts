@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { jobStatusSchema } from '../jobs/job-responses.ts';
 
+// The inhibitor check visit's input and outcome travel with the site schemas (the domain's index exports this file).
+export * from './inhibitor-check-visit.ts';
+
 // The success bodies of the customer and site routes: the API declares them, the client's queries parse with them.
 
 export const customerSchema = z.object({
@@ -66,7 +69,17 @@ export const siteCheckSchema = z.object({
   inhibitorReading: z.number(),
   target: z.object({ min: z.number(), max: z.number(), unit: z.string().nullable() }),
   systemTdsPpm: z.number().nullable(),
+  /** The visit's result: the re-test's when there was one. */
   result: z.enum(['pass', 'fail']),
+  /** The first reading's result, before any top-up. */
+  firstResult: z.enum(['pass', 'fail']),
+  retestReading: z.number().nullable(),
+  /** Inhibitor added in the visit, taken off that van's stock. */
+  topUp: z.object({ packs: z.number(), van: z.object({ id: z.number(), name: z.string() }) }).nullable(),
+  /** The next check this visit set: a year on when it passed, sooner when it failed (null for older visits). */
+  nextCheckOn: z.string().nullable(),
+  /** Whether the customer was sent a note of the result. */
+  noteEmailed: z.boolean(),
   notes: z.string().nullable(),
   byName: z.string(),
   createdAt: z.string(),

@@ -1,6 +1,6 @@
 import {
   idParamSchema,
-  siteCheckInputSchema,
+  inhibitorCheckVisitInputSchema,
   siteCheckResponseSchema,
   siteDetailSchema,
   siteListResponseSchema,
@@ -44,14 +44,17 @@ export const siteRoutes: RouteDefinition[] = [
     access: 'member',
     tenantData: true,
     summary:
-      'Record an inhibitor check visit: pass or fail against the product\u2019s target range; the next check falls 12 months on. Send an Idempotency-Key header: a retry with the same key records nothing twice.',
-    request: { params: idParamSchema, body: siteCheckInputSchema },
+      'Record an inhibitor check visit: pass or fail against the product\u2019s target range, with an optional top-up off the van and a re-test that decides the visit; the next check falls 12 months on after a pass, 1 month on after a fail; the customer is e-mailed a short note. Send an Idempotency-Key header: a retry with the same key replays the first answer.',
+    request: { params: idParamSchema, body: inhibitorCheckVisitInputSchema },
     responses: {
       201: { description: 'Recorded', schema: siteCheckResponseSchema },
+      403: { description: 'A top-up from a van other than the engineer\u2019s own' },
+      409: { description: 'Not enough usable inhibitor on the van for the top-up' },
       422: { description: 'Not an inhibitor with a target range, or bad input' },
     },
     handle: async ({ params, body, req, res, deps, actor }) => {
-      res.status(201).json(await recordSiteCheck(deps, actor, params.id, body, idempotencyKeyOf(req)));
+      const out = await recordSiteCheck(deps, actor, params.id, body, idempotencyKeyOf(req));
+      res.status(out.status).json(out.body);
     },
   }),
 ];

@@ -1,9 +1,8 @@
 import { useState } from 'react';
 import { useLocation } from 'react-router-dom';
-import { checkInInputSchema, itemConditionLabels, itemConditions } from '@heatfleet/domain';
+import { checkInInputSchema, itemConditionLabels, type KitItem } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { ChoiceGroup } from '@/components/ui/choice-group';
 import { SelectField } from '@/components/ui/select-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { TextField } from '@/components/ui/text-field';
@@ -19,23 +18,25 @@ import {
   type CustodyFinish,
   type CustodyTargets,
 } from '@/features/kits/components/custody-shared';
+import {
+  CheckInItems,
+  checkInItems,
+  initialItemStates,
+  type CheckInItemState,
+} from '@/features/kits/components/check-in-items';
 import { PhotoField } from '@/features/kits/components/photo-field';
 
-const fields = ['condition', 'missingParts', 'note', 'toLocationId'] as const;
+const fields = ['missingParts', 'note', 'toLocationId'] as const;
 
 function prepare(values: Record<string, string | undefined>) {
   return { ...values, toLocationId: values.toLocationId ? Number(values.toLocationId) : undefined };
 }
 
-const conditionHints = {
-  in_service: 'Clean, complete, ready for the next job',
-  needs_attention: 'Usable, but something wants looking at',
-  out_of_service: 'Not to go out again until repaired',
-} as const;
-
 interface CheckInFormProps {
   targets: CustodyTargets;
   depots: CustodyDepot[];
+  /** The items being checked in with the kit (or the one item), each given its own condition. */
+  items: KitItem[];
   onDone: CustodyFinish;
   onCancel: () => void;
 }
@@ -44,11 +45,17 @@ interface CheckInFormProps {
 interface CheckInExtra {
   scope: CustodyScope;
   photo: File | null;
+  conditions: CheckInItemState;
 }
 
-export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormProps) {
-  const [extra, setExtra] = useState<CheckInExtra>(() => ({ scope: defaultScope(targets), photo: null }));
-  const { scope, photo } = extra;
+export function CheckInForm({ targets, depots, items, onDone, onCancel }: CheckInFormProps) {
+  const [extra, setExtra] = useState<CheckInExtra>(() => ({
+    scope: defaultScope(targets),
+    photo: null,
+    conditions: initialItemStates(items),
+  }));
+  const { scope, photo, conditions } = extra;
+  const inScope = scope.kind === 'kit' ? items : items.filter((i) => i.id === scope.id);
   const custody = useQueuedCustody();
   const href = useLocation().pathname;
   const form = useSchemaForm(checkInInputSchema, fields, prepare);
@@ -67,11 +74,14 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
         const to = depot
           ? { id: depot.id, kind: 'depot' as const, name: depot.name, registration: null, engineerName: null }
           : null;
+        const perItem = checkInItems(inScope, conditions);
+        const notInService = perItem.filter((i) => i.condition !== 'in_service').length;
+        const cleaned = perItem.filter((i) => i.cleaned).length;
         try {
           // The photo is shrunk on the phone and uploaded just before the check-in, which then carries its id.
           const outcome = await custody.send(
             scope,
-            { action: 'check-in', input },
+            { action: 'check-in', input: { ...input, items: perItem } },
             {
               label: `Check in ${what}${depot ? ` to ${depot.name}` : ''}${photo ? ' with a photo' : ''}`,
               to,
@@ -82,7 +92,11 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
           );
           reportOutcome(
             outcome,
-            `Checked in${depot ? ` to ${depot.name}` : ''}, ${itemConditionLabels[input.condition].toLowerCase()}.`,
+            `Checked in${depot ? ` to ${depot.name}` : ''}: ${
+              notInService
+                ? `${notInService} item${notInService === 1 ? '' : 's'} not in service`
+                : itemConditionLabels.in_service.toLowerCase()
+            }${cleaned ? `, ${cleaned} cleaned` : ''}.`,
             'the check-in',
             onDone,
           );
@@ -92,19 +106,25 @@ export function CheckInForm({ targets, depots, onDone, onCancel }: CheckInFormPr
       })}
     >
       <ScopeChoice targets={targets} scope={scope} onChange={(next) => setExtra((was) => ({ ...was, scope: next }))} />
-      <ChoiceGroup
-        legend="Condition"
-        name="condition"
-        options={itemConditions.map((c) => ({ value: c, label: itemConditionLabels[c], hint: conditionHints[c] }))}
-        error={form.fieldErrors.condition}
-      />
       {depots.length > 1 ? (
         <SelectField
-          label="Back to"
+          label="Back to depot"
           name="toLocationId"
           defaultValue={String(depots[0]!.id)}
           options={depots.map((d) => ({ value: String(d.id), label: d.name }))}
           error={form.fieldErrors.toLocationId}
+        />
+      ) : depots[0] ? (
+        <p>
+          <span className="font-semibold">Back to depot: </span>
+          {depots[0].name}
+        </p>
+      ) : null}
+      {inScope.length ? (
+        <CheckInItems
+          items={inScope}
+          states={conditions}
+          onChange={(next) => setExtra((was) => ({ ...was, conditions: next }))}
         />
       ) : null}
       <TextField

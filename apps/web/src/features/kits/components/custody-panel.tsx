@@ -120,7 +120,9 @@ export function CustodyPanel({ firmId, targets, location: recorded, vans, depots
       {open === 'check-out' ? (
         <CheckOutForm targets={targets} vans={outTargets} items={items} onDone={finish} onCancel={cancel} />
       ) : null}
-      {open === 'check-in' ? <CheckInForm targets={targets} depots={depots} onDone={finish} onCancel={cancel} /> : null}
+      {open === 'check-in' ? (
+        <CheckInForm targets={targets} depots={depots} items={items} onDone={finish} onCancel={cancel} />
+      ) : null}
       {open === 'move' ? <MoveForm targets={targets} vans={moveTargets} onDone={finish} onCancel={cancel} /> : null}
     </section>
   );
