@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
+import { formatCsvDateTime } from '@heatfleet/domain';
 import { createTestApp, signIn, type Client, type TestApp } from './support/test-app.ts';
 import { seedFirm } from './support/seed-firm.ts';
 
@@ -141,7 +142,10 @@ describe('X-Tapped-At on stock used by hand', () => {
 
     const csv = await stores.get(`/api/stock/movements.csv?locationId=${firm.van.id}`).expect(200);
     const lines = parse(csv.text, { columns: true }) as Record<string, string>[];
-    expect(lines.find((l) => l.kind === 'used')?.tapped).toBe(tappedAt);
+    // In the firm's zone, named in the header (issue 14).
+    expect(lines.find((l) => l.kind === 'used')?.['tapped (Europe/London)']).toBe(
+      formatCsvDateTime(tappedAt, 'Europe/London'),
+    );
   });
 
   it('refuses a stock use tapped in the future and takes nothing off the van', async () => {

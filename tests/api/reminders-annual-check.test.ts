@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { addDays } from '@heatfleet/domain';
+import { addDays, formatUkCalendarDate } from '@heatfleet/domain';
 import { runReminderScan } from '@heatfleet/api/modules/reminders/reminder-scan.ts';
 import { signIn, uniqueEmail, type TestApp } from './support/test-app.ts';
 import { findEmails, waitForEmail } from './support/outbox.ts';
@@ -30,7 +30,9 @@ describe('annual check reminders', () => {
     expect(first.reminders).toBe(1);
     // The owner and stores each get the digest (the 30-day window: common practice (no source)).
     const mail = await waitForEmail(firm.people.owner.email, { subject: /annual checks/ });
-    expect(mail.text).toContain(`Annual Test Customer, 7 Check Lane: annual inhibitor check due on ${soon}`);
+    expect(mail.text).toContain(
+      `Annual Test Customer, 7 Check Lane: annual inhibitor check due on ${formatUkCalendarDate(soon)}`,
+    );
     expect(mail.text).not.toContain('9 Later Lane');
     await waitForEmail(firm.people.stores.email, { subject: /annual checks/ });
     expect((await runReminderScan(t.deps, firm.firmId, t.clock.now())).reminders).toBe(0);

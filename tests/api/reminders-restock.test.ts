@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { addDays, BATCH_EXPIRY_WINDOW_DAYS } from '@heatfleet/domain';
+import { addDays, BATCH_EXPIRY_WINDOW_DAYS, formatUkCalendarDate } from '@heatfleet/domain';
 import { runReminderScan } from '@heatfleet/api/modules/reminders/reminder-scan.ts';
 import { signIn, type TestApp } from './support/test-app.ts';
 import {
@@ -48,7 +48,7 @@ describe('restock reminders', () => {
         "Test Cleaner Alpha at Depot-Main: 6 usable after the planned restock, under its minimum of 8; order 6 packs to reach 12 (about 270 days of cover at the last 90 days' use)",
       ],
       'Batches expiring': [
-        `Test Cleaner Alpha lot RT-C1: expires on ${addDays(seededOn, 30)} (in 30 days); 2 packs held: Depot-Main 2`,
+        `Test Cleaner Alpha lot RT-C1: expires on ${formatUkCalendarDate(addDays(seededOn, 30))} (in 30 days); 2 packs held: Depot-Main 2`,
       ],
     };
     for (const person of [firm.people.owner, firm.people.stores]) {
@@ -126,7 +126,7 @@ describe('restock reminders', () => {
     });
     expect(sectionsOf(owner)).toEqual({
       'Batches expiring': [
-        `Test Inhibitor Beta lot RT-I2: expires on ${addDays(seededOn, 61)} (in 60 days); 1 pack held: Depot-Main 1`,
+        `Test Inhibitor Beta lot RT-I2: expires on ${formatUkCalendarDate(addDays(seededOn, 61))} (in 60 days); 1 pack held: Depot-Main 1`,
       ],
     });
     expect(await runReminderScan(t.deps, firm.firmId, t.clock.now())).toEqual({ reminders: 0, emails: 0, ran: true });

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { addDays, VAN_DUE_WINDOW_DAYS } from '@heatfleet/domain';
+import { addDays, formatUkCalendarDate, VAN_DUE_WINDOW_DAYS } from '@heatfleet/domain';
 import { startReminderWorker } from '@heatfleet/api/jobs/reminder-worker.ts';
 import { runReminderScan } from '@heatfleet/api/modules/reminders/reminder-scan.ts';
 import { signIn, type TestApp } from './support/test-app.ts';
@@ -49,17 +49,23 @@ describe('service-due reminders', () => {
     }
     const north = await onlyEmailTo(firm.people.engineer.email, /reminder/);
     expect(digestKeys(north)).toEqual(['RT-H1', 'RT-M1', 'Van-North MOT']);
-    expect(north.text).toContain(`Van-North (RT11 NRT): MOT due on ${addDays(seededOn, 10)}`);
+    expect(north.text).toContain(`Van-North (RT11 NRT): MOT due on ${formatUkCalendarDate(addDays(seededOn, 10))}`);
     // 30 days ahead for MOT and service: common practice (no source).
     expect(VAN_DUE_WINDOW_DAYS).toBe(30);
-    expect(north.text).toContain(`RT-H1 (Hose set, on Van-North): inspection overdue since ${addDays(seededOn, -10)}`);
+    expect(north.text).toContain(
+      `RT-H1 (Hose set, on Van-North): inspection overdue since ${formatUkCalendarDate(addDays(seededOn, -10))}`,
+    );
     expect(north.text).toContain(
       'RT-M1 (Magnet set, on Van-North): inspection overdue: used 3 times since the last one (rule: every 3 uses)',
     );
     const south = await onlyEmailTo(firm.target.email, /reminder/);
     expect(digestKeys(south)).toEqual(['RT-H2', 'Van-South service']);
-    expect(south.text).toContain(`RT-H2 (Hose set, on Van-South): inspection due by ${addDays(seededOn, 5)}`);
-    expect(south.text).toContain(`Van-South (RT22 STH): service overdue since ${addDays(seededOn, -3)}`);
+    expect(south.text).toContain(
+      `RT-H2 (Hose set, on Van-South): inspection due by ${formatUkCalendarDate(addDays(seededOn, 5))}`,
+    );
+    expect(south.text).toContain(
+      `Van-South (RT22 STH): service overdue since ${formatUkCalendarDate(addDays(seededOn, -3))}`,
+    );
     // The Admin manages settings but is not on the digest: Owner and Stores are the ones who watch stock and kit.
     expect(await reminderEmailsTo(firm.people.admin.email)).toHaveLength(0);
 
@@ -232,7 +238,7 @@ describe('service-due reminders', () => {
     expect(result.reminders).toBe(2);
     const latest = await waitForEmail(firm.people.engineer.email, { subject: /2 reminders/ });
     expect(digestKeys(latest)).toEqual(['RT-H1', 'RT-M1']);
-    expect(latest.text).toContain(`RT-H1 (Hose set, on Van-North): inspection due by ${nextDue}`);
+    expect(latest.text).toContain(`RT-H1 (Hose set, on Van-North): inspection due by ${formatUkCalendarDate(nextDue)}`);
     const periods = await t.deps
       .db('reminders')
       .where({ firm_id: firm.firmId, subject_id: ids.m1, kind: 'inspection_due' })

@@ -108,6 +108,7 @@ const allowed: Record<string, Role[]> = {
   'POST /reminders/scan': managers,
   'GET /reminder-settings': managers,
   'PUT /reminder-settings': managers,
+  'GET /marketing-suppressions': managers,
   'GET /firm': everyone,
   'PUT /firm': managers,
   'GET /overview': everyone,

@@ -23,6 +23,8 @@ const notTenantData: Record<string, string> = {
   'PUT /me/password': 'the caller\u2019s own account',
   'GET /invitations/by-token/:token': 'the token is the invitee\u2019s capability; it names only the inviting firm',
   'POST /invitations/by-token/:token/accept': 'the token is the invitee\u2019s capability',
+  'GET /unsubscribe/:token': 'the token is the recipient\u2019s capability; it names only the sending firm',
+  'POST /unsubscribe/:token': 'the token is the recipient\u2019s capability to stop one firm\u2019s marketing',
   'GET /outbox': 'the local mail catcher (development and tests only; not mounted in production)',
   'GET /outbox/:id': 'the local mail catcher (development and tests only; not mounted in production)',
 };

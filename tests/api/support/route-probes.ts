@@ -29,6 +29,8 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'jobs:phase': () => 'before',
   'jobs:kind': () => 'acknowledgement',
   'sites:id': (f) => String(f.siteId),
+  // An unsubscribe link's token is its own capability; a made-up one answers 404.
+  'unsubscribe:token': () => 'u'.repeat(43),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */

@@ -19,11 +19,14 @@ import { restockRoutes } from '../modules/stock/restock-router.ts';
 import { stockMovementRoutes } from '../modules/stock/stock-movement-router.ts';
 import { stockRoutes } from '../modules/stock/stock-router.ts';
 import { reminderRoutes } from '../modules/reminders/reminder-router.ts';
+import { unsubscribeRoutes } from '../modules/reminders/unsubscribe-router.ts';
 import { firmRoutes } from '../modules/firms/firm-router.ts';
 import { overviewRoutes } from '../modules/overview/overview-router.ts';
 import { siteRoutes } from '../modules/sites/site-router.ts';
+import { vibrationRoutes } from '../modules/vibration/vibration-router.ts';
 import { paymentRoutes } from '../modules/payments/payment-router.ts';
 import { billingRoutes } from '../modules/billing/billing-router.ts';
+import { invoiceRoutes } from '../modules/money/invoice-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
 /**
@@ -50,11 +53,14 @@ export const apiRoutes: RouteDefinition[] = [
   ...jobSheetRoutes,
   ...visitRoutes,
   ...reminderRoutes,
+  ...unsubscribeRoutes,
   ...firmRoutes,
   ...overviewRoutes,
   ...siteRoutes,
+  ...vibrationRoutes,
   ...outboxRoutes,
   ...paymentRoutes,
   ...billingRoutes,
+  ...invoiceRoutes,
   openApiRoute(() => apiRoutes),
 ];

@@ -7,6 +7,7 @@ import {
   formatUkDate,
   formatUkDateTime,
   formatUkTime,
+  zoneLabel,
 } from './uk-dates.ts';
 
 // UK clock changes: British Summer Time runs from 01:00 GMT on the last Sunday of March to 01:00 GMT on the last
@@ -20,7 +21,7 @@ describe('UK dates in the firm\u2019s zone', () => {
     expect(formatUkDate(at, LONDON)).toBe('15 Jul 2026');
     expect(formatUkDateTime(at, LONDON)).toBe('15 Jul 2026, 00:30');
     expect(formatUkTime(at, LONDON)).toBe('00:30');
-    expect(formatCsvDateTime(at, LONDON)).toBe('2026-07-15 00:30');
+    expect(formatCsvDateTime(at, LONDON)).toBe('2026-07-15 00:30:00');
   });
 
   it('keeps a winter instant on the same day (GMT, UTC+0) and writes the 24-hour clock', () => {
@@ -41,6 +42,11 @@ describe('UK dates in the firm\u2019s zone', () => {
     // The day the clocks go forward is 23 hours long; the day they go back, 25.
     expect(firmDayEnd('2026-03-29', LONDON).getTime() - firmDayStart('2026-03-29', LONDON).getTime()).toBe(23 * 3600e3);
     expect(firmDayEnd('2026-10-25', LONDON).getTime() - firmDayStart('2026-10-25', LONDON).getTime()).toBe(25 * 3600e3);
+  });
+
+  it('names London as UK time and any other zone by its name', () => {
+    expect(zoneLabel(LONDON)).toBe('UK time');
+    expect(zoneLabel('Europe/Dublin')).toBe('Europe/Dublin time');
   });
 
   it('follows another zone when the firm has one', () => {

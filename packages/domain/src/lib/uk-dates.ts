@@ -33,9 +33,9 @@ export function formatUkCalendarDate(day: CalendarDate): string {
   return format(new Date(y, m - 1, d), 'd MMM yyyy');
 }
 
-/** "2026-12-03 14:05": sortable, for a CSV cell, in the firm's zone (name the zone in the column's header). */
+/** "2026-12-03 14:05:09": sortable, for a CSV cell, in the firm's zone (name the zone in the column's header). */
 export function formatCsvDateTime(at: Instant, timeZone: string): string {
-  return format(inZone(at, timeZone), 'yyyy-MM-dd HH:mm');
+  return format(inZone(at, timeZone), 'yyyy-MM-dd HH:mm:ss');
 }
 
 /** The instant the firm's calendar day starts (midnight there, whether GMT or BST). */
@@ -47,4 +47,9 @@ export function firmDayStart(day: CalendarDate, timeZone: string): Date {
 /** The instant after the firm's calendar day ends: `[firmDayStart(day), firmDayEnd(day))` is the whole day. */
 export function firmDayEnd(day: CalendarDate, timeZone: string): Date {
   return firmDayStart(addDays(day, 1), timeZone);
+}
+
+/** How a zone is named beside a time a person reads: "UK time" for Europe/London, else the zone's own name. */
+export function zoneLabel(timeZone: string): string {
+  return timeZone === 'Europe/London' ? 'UK time' : `${timeZone} time`;
 }

@@ -67,7 +67,14 @@ export async function createInvitation(deps: AppDeps, actor: Actor, input: Creat
         firmId: actor.firmId,
         to: input.email,
         purpose: 'invitation',
-        ...invitationEmail({ firmName: firm!.name, inviterName: inviter!.name, role: input.role, link, expiresAt }),
+        ...invitationEmail({
+          firmName: firm!.name,
+          inviterName: inviter!.name,
+          role: input.role,
+          link,
+          expiresAt,
+          timeZone: firm!.time_zone,
+        }),
       });
       const [invitation] = await listPendingInvitations(trx, actor.firmId, now, id);
       return { invitation: invitation!, emailId };

@@ -1,4 +1,4 @@
-import { roleLabels, type Role } from '@heatfleet/domain';
+import { DEFAULT_TIME_ZONE, formatUkDateTime, roleLabels, zoneLabel, type Role } from '@heatfleet/domain';
 
 export interface RenderedEmail {
   subject: string;
@@ -27,10 +27,12 @@ export function invitationEmail(p: {
   role: Role;
   link: string;
   expiresAt: Date;
+  /** The firm's zone, so "expires on 10 Dec 2026, 14:05" is the time on the firm's clocks. */
+  timeZone?: string;
 }): RenderedEmail {
   const lines = [
     `${p.inviterName} has invited you to join ${p.firmName} on Heatfleet as ${roleLabels[p.role]}.`,
-    `The link works once and expires on ${p.expiresAt.toUTCString()}.`,
+    `The link works once and expires on ${formatUkDateTime(p.expiresAt, p.timeZone ?? DEFAULT_TIME_ZONE)} (${zoneLabel(p.timeZone ?? DEFAULT_TIME_ZONE)}).`,
     'If you were not expecting this, you can ignore this e-mail.',
   ];
   return {

@@ -1,4 +1,4 @@
-import type { ReminderKind } from '@heatfleet/domain';
+import { formatUkCalendarDate, type ReminderKind } from '@heatfleet/domain';
 
 export interface DigestLine {
   kind: ReminderKind;
@@ -78,31 +78,34 @@ ${parts.map((s) => `<h3>${escapeHtml(s.title)}</h3>\n<ul>${s.lines.map((l) => `<
   return { subject, text: `${text}\n`, html };
 }
 
-/** To a customer whose site falls due its yearly inhibitor check, when the firm has turned this on. */
+/**
+ * To a customer whose site falls due its yearly inhibitor check, when the firm has turned this on. It offers a paid
+ * visit, so it is direct marketing: it names the sender and ends with a free, one-step way to refuse more
+ * (Privacy and Electronic Communications (EC Directive) Regulations 2003, regulations 22 and 23).
+ */
 export function annualCheckCustomerEmail(p: {
   firmName: string;
   customerName: string;
   address: string;
   dueOn: string;
+  unsubscribeLink: string;
 }): RenderedDigest {
-  const due = new Date(`${p.dueOn}T12:00:00Z`).toLocaleDateString('en-GB', {
-    day: 'numeric',
-    month: 'long',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
+  const due = formatUkCalendarDate(p.dueOn);
   const paragraphs = [
     `Dear ${p.customerName},`,
     `The heating system at ${p.address} is due its yearly inhibitor check on ${due}. The check tests that the protective inhibitor in the system water is still at the right strength, so the radiators and boiler stay free of sludge and scale.`,
     `Please contact ${p.firmName} to arrange a visit.`,
     p.firmName,
   ];
+  const why = `You get this because ${p.firmName} looks after the heating at ${p.address}.`;
+  const optOut = `${why} To stop these e-mails from ${p.firmName}, open this link (no sign-in needed):`;
   const html = `<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">
 ${paragraphs.map((line) => `<p>${escapeHtml(line)}</p>`).join('\n')}
+<p style="color:#555; font-size: 0.9em">${escapeHtml(why)} <a href="${escapeHtml(p.unsubscribeLink)}">Stop these e-mails from ${escapeHtml(p.firmName)}</a> (one click on the page that opens, no sign-in needed).</p>
 </body></html>`;
   return {
     subject: `${p.firmName}: your heating system's yearly check is due`,
-    text: `${paragraphs.join('\n\n')}\n`,
+    text: `${paragraphs.join('\n\n')}\n\n${optOut}\n${p.unsubscribeLink}\n`,
     html,
   };
 }

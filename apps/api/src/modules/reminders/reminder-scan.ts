@@ -4,6 +4,7 @@ import {
   ANNUAL_CHECK_WINDOW_DAYS,
   calendarDateIn,
   daysBetween,
+  formatUkCalendarDate as day,
   inspectionDue,
   VAN_DUE_WINDOW_DAYS,
   type CalendarDate,
@@ -31,6 +32,7 @@ import {
 } from './reminder-settings-dal.ts';
 import { annualCheckCustomerEmail, reminderDigestEmail, type DigestLine } from './reminder-email.ts';
 import { stockCandidates } from './reminder-stock.ts';
+import { createUnsubscribeLink, mayMarketTo } from './unsubscribe-service.ts';
 
 /** What a scan needs; AppDeps has all of it, and the worker builds the same from its own parts. */
 export interface ReminderScanDeps {
@@ -96,7 +98,8 @@ function inspectionCandidates(items: ItemForScan[], today: CalendarDate): Candid
           : `inspection due after ${due.usesLeft === 1 ? 'its next use' : `${due.usesLeft} more uses`} (rule: every ${item.intervalUses} uses)`;
     } else if (due.dueOn !== null) {
       periodKey = due.dueOn;
-      why = due.state === 'overdue' ? `inspection overdue since ${due.dueOn}` : `inspection due by ${due.dueOn}`;
+      why =
+        due.state === 'overdue' ? `inspection overdue since ${day(due.dueOn)}` : `inspection due by ${day(due.dueOn)}`;
     } else {
       continue;
     }
@@ -129,7 +132,7 @@ function vanCandidates(vans: VanForScan[], today: CalendarDate): Candidate[] {
         subjectType: 'van',
         subjectId: van.id,
         periodKey: dueOn,
-        summary: `${label}: ${what} ${daysLeft < 0 ? `overdue since ${dueOn}` : `due on ${dueOn}`}`,
+        summary: `${label}: ${what} ${daysLeft < 0 ? `overdue since ${day(dueOn)}` : `due on ${day(dueOn)}`}`,
         vanEngineerMemberId: van.engineerMemberId,
       });
     }
@@ -148,7 +151,7 @@ function annualCheckCandidates(sites: SiteForScan[], today: CalendarDate): Candi
       subjectType: 'site',
       subjectId: site.id,
       periodKey: site.nextCheckOn,
-      summary: `${site.customerName}, ${site.address}: annual inhibitor check ${daysLeft < 0 ? `overdue since ${site.nextCheckOn}` : `due on ${site.nextCheckOn}`}`,
+      summary: `${site.customerName}, ${site.address}: annual inhibitor check ${daysLeft < 0 ? `overdue since ${day(site.nextCheckOn)}` : `due on ${day(site.nextCheckOn)}`}`,
       vanEngineerMemberId: null,
       customer: { name: site.customerName, email: site.customerEmail, address: site.address, dueOn: site.nextCheckOn },
     });
@@ -231,11 +234,15 @@ export async function runReminderScan(
     if (firm.settings.annualCheckCustomerEmails) {
       for (const r of fresh) {
         if (r.kind !== 'annual_check_due' || !r.customer?.email) continue;
+        // The offer of a paid visit is direct marketing: never to an address on the firm's suppression list, and
+        // each message carries its own unsubscribe link (PECR 2003 regulation 22).
+        if (!(await mayMarketTo(trx, firmId, r.customer.email))) continue;
         const email = annualCheckCustomerEmail({
           firmName: firm.name,
           customerName: r.customer.name,
           address: r.customer.address,
           dueOn: r.customer.dueOn,
+          unsubscribeLink: await createUnsubscribeLink(trx, firmId, r.customer.email, deps.env.APP_ORIGIN),
         });
         const emailId = await insertEmail(trx, { firmId, to: r.customer.email, ...email, purpose: 'reminder' });
         emailIds.push(emailId);

@@ -3,6 +3,7 @@ import {
   addDays,
   BATCH_EXPIRY_WINDOW_DAYS,
   daysBetween,
+  formatUkCalendarDate,
   planReorder,
   planRestock,
   type BatchStock,
@@ -68,10 +69,10 @@ function batchSummary(batch: BatchHeld, today: CalendarDate): string {
   const days = daysBetween(today, batch.expiresOn);
   const when =
     days < 0
-      ? `expired on ${batch.expiresOn}, write it off`
+      ? `expired on ${formatUkCalendarDate(batch.expiresOn)}, write it off`
       : days === 0
-        ? `expires today (${batch.expiresOn})`
-        : `expires on ${batch.expiresOn} (in ${days} day${days === 1 ? '' : 's'})`;
+        ? `expires today (${formatUkCalendarDate(batch.expiresOn)})`
+        : `expires on ${formatUkCalendarDate(batch.expiresOn)} (in ${days} day${days === 1 ? '' : 's'})`;
   const total = batch.places.reduce((n, p) => n + p.quantity, 0);
   const where = batch.places.map((p) => `${p.name} ${p.quantity}`).join(', ');
   return `${batch.productName} lot ${batch.lotNumber}: ${when}; ${packs(total)} held: ${where}`;

@@ -1,12 +1,13 @@
 import type { Response } from 'express';
-import { formatPackSize, penceToPounds, type Movement, type ReorderRow } from '@heatfleet/domain';
+import { formatCsvDateTime, formatPackSize, penceToPounds, type Movement, type ReorderRow } from '@heatfleet/domain';
 import { toCsv } from '../../lib/csv.ts';
 
 // Through lib/csv.ts: text cells quoted, and any formula trigger after a separator neutralised.
 
-const movementColumns = [
+/** Times in the firm's zone, named in the header (issue 14): "when (Europe/London)". */
+const movementColumns = (timeZone: string) => [
   'id',
-  'when',
+  `when (${timeZone})`,
   'kind',
   'place',
   'product',
@@ -17,15 +18,15 @@ const movementColumns = [
   'reference',
   'by',
   // Last, so a sheet built on the earlier columns keeps reading them: when the engineer tapped, if the phone said.
-  'tapped',
+  `tapped (${timeZone})`,
 ];
 
-export function movementsCsv(rows: Movement[]): string {
+export function movementsCsv(rows: Movement[], timeZone: string): string {
   return toCsv(
-    movementColumns,
+    movementColumns(timeZone),
     rows.map((m) => [
       m.id,
-      m.createdAt,
+      formatCsvDateTime(m.createdAt, timeZone),
       m.kind,
       m.location.name,
       m.product.name,
@@ -35,7 +36,7 @@ export function movementsCsv(rows: Movement[]): string {
       m.reason ?? '',
       m.reference ?? '',
       m.byName,
-      m.tappedAt ?? '',
+      m.tappedAt ? formatCsvDateTime(m.tappedAt, timeZone) : '',
     ]),
   );
 }

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { LedgerQuery, Movement } from '@heatfleet/domain';
+import { firmDayEnd, firmDayStart, type LedgerQuery, type Movement } from '@heatfleet/domain';
 
 type Db = Knex | Knex.Transaction;
 
@@ -14,7 +14,7 @@ function ledgerRows(
   db: Db,
   firmId: number,
   query: LedgerFilters,
-  page: { limit: number; before?: number | undefined; ids?: number[] },
+  page: { limit: number; before?: number | undefined; ids?: number[]; timeZone?: string },
 ) {
   // Named, because left to itself MariaDB 10.11 walks the primary key (or the firm's whole index
   // entry) from the top and filters: 0.3 s for a first page and 5 s for a deep one at a million rows.
@@ -32,9 +32,10 @@ function ledgerRows(
   if (query.locationId) picked.where('location_id', query.locationId);
   if (query.productId) picked.where('product_id', query.productId);
   if (query.kind) picked.where('kind', query.kind);
-  // Day bounds in UTC: a day filter is a convenience, the ledger itself keeps exact instants.
-  if (query.from) picked.where('created_at', '>=', new Date(`${query.from}T00:00:00Z`));
-  if (query.to) picked.where('created_at', '<', new Date(Date.parse(`${query.to}T00:00:00Z`) + 86_400_000));
+  // Days are the firm's (issue 14): a movement at 23:30 UTC on a summer day belongs to the next day in London.
+  const zone = page.timeZone ?? 'UTC';
+  if (query.from) picked.where('created_at', '>=', firmDayStart(query.from, zone));
+  if (query.to) picked.where('created_at', '<', firmDayEnd(query.to, zone));
   if (page.before) picked.where('id', '<', page.before);
   if (page.ids) picked.whereIn('id', page.ids);
   return db
@@ -77,7 +78,7 @@ export async function listLedgerMovements(
   db: Db,
   firmId: number,
   query: LedgerFilters,
-  page: { limit: number; before?: number | undefined },
+  page: { limit: number; before?: number | undefined; timeZone?: string },
 ): Promise<Movement[]> {
   return ((await ledgerRows(db, firmId, query, page)) as Record<string, unknown>[]).map(toMovement);
 }

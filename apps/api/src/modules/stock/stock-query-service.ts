@@ -1,5 +1,6 @@
 import { ForbiddenError } from '@casl/ability';
 import {
+  DEFAULT_TIME_ZONE,
   stockHealthOf,
   stockNeedOf,
   type BatchStockRow,
@@ -13,6 +14,7 @@ import {
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
+import { findFirm } from '../firms/firm-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { firmBookedJobs } from './booked-need-service.ts';
 import { listActiveProductSummaries, listBatchExpiries, listProductOrderRefs } from './product-dal.ts';
@@ -125,6 +127,7 @@ export async function ledgerPage(deps: AppDeps, actor: Actor, query: LedgerQuery
   const rows = await listLedgerMovements(deps.db, actor.firmId, query, {
     limit: query.limit + 1,
     before: query.before,
+    timeZone: await firmTimeZone(deps, actor),
   });
   const page = rows.slice(0, query.limit);
   return { movements: page, nextCursor: rows.length > query.limit ? page[page.length - 1]!.id : null };
@@ -132,9 +135,21 @@ export async function ledgerPage(deps: AppDeps, actor: Actor, query: LedgerQuery
 
 export const LEDGER_CSV_MAX_ROWS = 100_000;
 
-export async function ledgerForExport(deps: AppDeps, actor: Actor, query: LedgerFilters): Promise<Movement[]> {
+async function firmTimeZone(deps: AppDeps, actor: Actor): Promise<string> {
+  return (await findFirm(deps.db, actor.firmId))?.time_zone ?? DEFAULT_TIME_ZONE;
+}
+
+export async function ledgerForExport(
+  deps: AppDeps,
+  actor: Actor,
+  query: LedgerFilters,
+  timeZone?: string,
+): Promise<Movement[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
-  return listLedgerMovements(deps.db, actor.firmId, query, { limit: LEDGER_CSV_MAX_ROWS });
+  return listLedgerMovements(deps.db, actor.firmId, query, {
+    limit: LEDGER_CSV_MAX_ROWS,
+    timeZone: timeZone ?? (await firmTimeZone(deps, actor)),
+  });
 }
 
 /** The signed-in engineer's van stock, with product names; no van, nothing to show. */
@@ -162,5 +177,6 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
 
 /** The ledger with the same filters, as CSV, up to LEDGER_CSV_MAX_ROWS rows. */
 export async function exportLedgerCsv(deps: AppDeps, actor: Actor, query: LedgerFilters): Promise<string> {
-  return movementsCsv(await ledgerForExport(deps, actor, query));
+  const timeZone = await firmTimeZone(deps, actor);
+  return movementsCsv(await ledgerForExport(deps, actor, query, timeZone), timeZone);
 }
