@@ -42,6 +42,18 @@ export function parseTappedAt(value: string, now: Date): Date {
 }
 
 /**
+ * A tap on a job's sheet cannot come before the job was booked (beyond the phone's drift): such a time is the
+ * phone's clock, not the engineer's work. Throws 422 in the engineer's words.
+ */
+export function checkTapAfter(at: Date | null, bookedAt: Date, what = 'the job was booked'): void {
+  if (at === null || at.getTime() >= bookedAt.getTime() - TAP_CLOCK_SKEW_MS) return;
+  throw refuse(
+    `The time this was done (${at.toISOString()}) is before ${what} (${bookedAt.toISOString()}). Check the date and time on the phone, then send it again.`,
+    `Not before ${what}.`,
+  );
+}
+
+/**
  * Reads `X-Tapped-At`: when the engineer tapped, which for a write sent from the phone's queue is earlier
  * than when it arrives. Sane or refused with 422 before the route runs; routes read it with tappedAtOf.
  * A route opts in with `before: () => [readTappedAt(deps)]`.

@@ -182,6 +182,8 @@ export const jobSheetSchema = z.object({
   kitOnVan: z.array(sheetKitItemSchema.extend({ vibrationMs2: z.number().nullable() })),
   photos: z.array(jobPhotoSchema),
   notes: z.string(),
+  /** Raised by each change of the notes: a write names the version it was made on (409 when stale). */
+  notesVersion: z.number(),
 });
 export type JobSheet = z.infer<typeof jobSheetSchema>;
 export type SheetKitItem = JobSheet['kitOnVan'][number];
@@ -220,6 +222,8 @@ export const jobDetailSchema = z.object({
     completionReasons: z.array(completionReasonSchema),
     /** What the engineer recommends to the customer, given at completion. */
     recommendation: z.string().nullable(),
+    /** Raised by each change of the survey: an edit names the version it was made on (409 when stale). */
+    surveyVersion: z.number(),
   }),
   survey: surveySchema,
   volume: volumeBreakdownSchema,

@@ -129,6 +129,8 @@ export type WaterTestsInput = z.infer<typeof waterTestsInputSchema>;
 export const jobKitInputSchema = z.strictObject({ kitItemIds: z.array(z.number().int().positive()).max(60) });
 export const jobNotesInputSchema = z.strictObject({
   notes: z.string().trim().max(4000, { error: 'Notes must be at most 4,000 characters.' }),
+  /** The notesVersion the notes were edited from: another person's save since then is a 409, not overwritten. */
+  notesVersion: z.number().int().min(0).optional(),
 });
 export const jobPhotoTags = [
   'magnet_before',

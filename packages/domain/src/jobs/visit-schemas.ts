@@ -15,6 +15,8 @@ export const updateJobInputSchema = z
     scheduledTime: timeOfDaySchema.nullable().optional(),
     engineerMemberId: memberId.nullable().optional(),
     survey: surveySchema.optional(),
+    /** The surveyVersion the survey was edited from: another change since then is a 409, not overwritten. */
+    surveyVersion: z.number().int().min(0).optional(),
     productIds: z.array(z.number().int().positive()).max(6).optional(),
     visitKind: z
       .enum(visitKinds, { error: () => ({ message: 'The visit must be a full clean or inhibitor only.' }) })

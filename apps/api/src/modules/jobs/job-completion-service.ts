@@ -10,7 +10,9 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
 import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { conflict, HttpError } from '../../lib/http-error.ts';
+import { checkTapAfter } from '../../middleware/tapped-at.ts';
 import { recordKitUses } from '../kits/kit-use-dal.ts';
+import { issueInvoiceAtCompletion } from '../money/invoice-issue.ts';
 import { applyMovements } from '../stock/stock-ledger.ts';
 import { setSiteNextCheck } from '../sites/site-dal.ts';
 import { CANCELLED_MESSAGE, requireJob, throwUnlessMayUpdateJob } from './job-access.ts';
@@ -40,19 +42,24 @@ export async function completeJob(
   id: number,
   input: CompleteJobInput,
   idempotencyKey: IdempotencyKey | undefined,
+  tappedAt: Date | null = null,
 ): Promise<{ status: number; body: JobDetail }> {
   let emailId: number | null = null;
+  let invoiceEmailId: number | null = null;
   const out = await withTransactionRetry(() =>
     runIdempotent(deps, actor, idempotencyKey, `complete job ${id}`, async (trx) => {
       emailId = null;
-      await takeChemicalsAndComplete(trx, deps, actor, id, input);
+      await takeChemicalsAndComplete(trx, deps, actor, id, input, tappedAt);
       const detail = await loadJobDetail(trx, deps, actor, id);
       // The report e-mail is written with the completion, so it exists exactly when the job is done.
       emailId = await queueJobReportEmail(trx, deps, actor, detail);
+      // The job's invoice, numbered in this transaction when the firm invoices on completion (modules/money).
+      invoiceEmailId = await issueInvoiceAtCompletion(trx, deps, actor.firmId, actor.userId, id);
       return { status: 200, body: detail };
     }),
   );
   if (emailId !== null) await deps.mailQueue.notify([emailId]);
+  if (invoiceEmailId !== null) await deps.mailQueue.notify([invoiceEmailId]);
   return { status: out.status, body: out.body };
 }
 
@@ -67,12 +74,14 @@ async function takeChemicalsAndComplete(
   actor: Actor,
   id: number,
   input: CompleteJobInput,
+  tappedAt: Date | null,
 ): Promise<void> {
   const row = await requireJob(trx, actor.firmId, id, { forUpdate: true });
   throwUnlessMayUpdateJob(actor, row);
   if (row.status === 'completed')
     throw conflict('This job is already completed; its chemicals were taken off the van then.');
   if (row.status === 'cancelled') throw conflict(CANCELLED_MESSAGE);
+  checkTapAfter(tappedAt, row.created_at);
   const reasons = await guardCompletion(trx, deps, actor, row, input);
   const plan = await planJob(trx, deps, actor.firmId, row);
   const short = plan.doses.filter((d) => d.shortfall > 0);
@@ -104,6 +113,7 @@ async function takeChemicalsAndComplete(
   const now = deps.clock.now();
   await markJobCompleted(trx, actor.firmId, id, {
     at: now,
+    tappedAt,
     byUserId: actor.userId,
     nextCheckOn,
     recommendation: input.recommendation,

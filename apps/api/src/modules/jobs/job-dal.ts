@@ -22,6 +22,10 @@ export interface JobRow {
   cancelled_by_user_id: number | null;
   cancellation_reason: string | null;
   recommendation: string | null;
+  created_at: Date;
+  completed_tapped_at: Date | null;
+  notes_version: number;
+  survey_version: number;
 }
 
 export async function findJobRow(
@@ -171,21 +175,23 @@ export async function markJobCompleted(
   trx: Knex.Transaction,
   firmId: number,
   jobId: number,
-  done: { at: Date; byUserId: number; nextCheckOn: string; recommendation?: string | null },
+  done: { at: Date; tappedAt?: Date | null; byUserId: number; nextCheckOn: string; recommendation?: string | null },
 ): Promise<void> {
   await trx('jobs')
     .where({ firm_id: firmId, id: jobId })
     .update({
       status: 'completed',
       completed_at: done.at,
+      completed_tapped_at: done.tappedAt ?? null,
       completed_by_user_id: done.byUserId,
       next_check_on: done.nextCheckOn,
       recommendation: done.recommendation ?? null,
     });
 }
 
+/** The notes, and their version one on (a write made on the earlier version is refused by the caller). */
 export async function updateJobNotes(db: Db, firmId: number, jobId: number, notes: string): Promise<void> {
   await db('jobs')
     .where({ firm_id: firmId, id: jobId })
-    .update({ notes: notes === '' ? null : notes });
+    .update({ notes: notes === '' ? null : notes, notes_version: db.raw('notes_version + 1') });
 }

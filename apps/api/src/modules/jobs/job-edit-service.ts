@@ -1,7 +1,9 @@
 import type { CancelJobInput, JobDetail, UpdateJobInput } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
-import { conflict, notFound, ruleBroken } from '../../lib/http-error.ts';
+import { conflict, HttpError, notFound, ruleBroken } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
+import { checkTapAfter } from '../../middleware/tapped-at.ts';
 import { findVanOfMember } from '../locations/location-dal.ts';
 import {
   COMPLETED_MESSAGE,
@@ -18,11 +20,28 @@ import { highestRecordedRadiator, markJobCancelled, replaceJobProducts, updateJo
 // A booked job changed before or during the visit: edited (survey, products, visit kind, system
 // details), rescheduled (its date), given to another engineer, or cancelled with a reason.
 
-/** Changes what was sent and leaves the rest; the job row is locked, so completion waits or refuses it. */
-export async function updateJob(deps: AppDeps, actor: Actor, id: number, input: UpdateJobInput): Promise<JobDetail> {
+export const STALE_SURVEY_MESSAGE =
+  'Someone else changed this job\u2019s survey while you were editing it, so your changes were not saved over theirs. Your edit is kept on this phone: open the job to see theirs, then make your changes again.';
+
+/**
+ * Changes what was sent and leaves the rest; the job row is locked, so completion waits or refuses it. At most
+ * once per Idempotency-Key; a survey sent with the surveyVersion it was edited from is refused (409) when
+ * another change landed since.
+ */
+export async function updateJob(
+  deps: AppDeps,
+  actor: Actor,
+  id: number,
+  input: UpdateJobInput,
+  meta: { idempotencyKey?: IdempotencyKey | undefined; tappedAt?: Date | null } = {},
+): Promise<JobDetail> {
   await withTransactionRetry(() =>
-    deps.db.transaction(async (trx) => {
+    runIdempotent(deps, actor, meta.idempotencyKey, `edit job ${id}`, async (trx) => {
       const row = await lockOpenJob(trx, actor, id);
+      checkTapAfter(meta.tappedAt ?? null, row.created_at);
+      if (input.surveyVersion !== undefined && input.surveyVersion !== row.survey_version) {
+        throw new HttpError(409, STALE_SURVEY_MESSAGE, 'StaleVersion');
+      }
       const survey = input.survey ?? parseSurvey(row);
       const fields: Parameters<typeof updateJobFields>[3] = {};
       if (input.scheduledOn !== undefined) fields.scheduled_on = input.scheduledOn;
@@ -41,6 +60,7 @@ export async function updateJob(deps: AppDeps, actor: Actor, id: number, input: 
           throw ruleBroken(message, [{ path: 'survey.radiators', message }]);
         }
         fields.survey = JSON.stringify(input.survey);
+        fields.survey_version = row.survey_version + 1;
       }
       if (input.visitKind !== undefined) fields.visit_kind = input.visitKind;
       const details = input.systemDetails && { ...parseSystemDetails(row), ...input.systemDetails };
@@ -53,6 +73,7 @@ export async function updateJob(deps: AppDeps, actor: Actor, id: number, input: 
         await replaceJobProducts(trx, actor.firmId, id, productIds);
       }
       await updateJobFields(trx, actor.firmId, id, fields);
+      return { status: 200, body: { applied: true } };
     }),
   );
   return loadJobDetail(deps.db, deps, actor, id);

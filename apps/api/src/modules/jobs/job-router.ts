@@ -7,6 +7,7 @@ import {
   jobListResponseSchema,
 } from '@heatfleet/domain';
 import { idempotencyKeyOf } from '../../lib/idempotency.ts';
+import { readTappedAt, tappedAtOf } from '../../middleware/tapped-at.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { completeJob } from './job-completion-service.ts';
 import { createJob, getJob, listJobs } from './job-service.ts';
@@ -64,15 +65,16 @@ export const jobRoutes: RouteDefinition[] = [
     access: 'member',
     tenantData: true,
     summary:
-      'Complete a job: its chemicals come off the van by batch, exactly once (send an Idempotency-Key). Anything not done (short circulation, no water test, radiators without after readings or flush ticks, unsaved input) needs a reason in confirmations; the reasons are kept and printed on the report',
+      'Complete a job: its chemicals come off the van by batch, exactly once (send an Idempotency-Key; X-Tapped-At records when the engineer tapped). Anything not done (short circulation, no water test, radiators without after readings or flush ticks, unsaved input) needs a reason in confirmations; the reasons are kept and printed on the report',
     request: { params: idParamSchema, body: completeJobInputSchema.optional() },
     responses: {
       200: { description: 'Completed', schema: jobDetailSchema },
       409: { description: 'Already completed or cancelled, or the van is short' },
       422: { description: 'Something not done needs a reason: details list each, path confirmations.<code>' },
     },
+    before: (deps) => [readTappedAt(deps)],
     handle: async ({ params, body, req, res, deps, actor }) => {
-      const out = await completeJob(deps, actor, params.id, body ?? {}, idempotencyKeyOf(req));
+      const out = await completeJob(deps, actor, params.id, body ?? {}, idempotencyKeyOf(req), tappedAtOf(res));
       res.status(out.status).json(out.body);
     },
   }),

@@ -116,7 +116,8 @@ export async function loadJobDetail(db: Db, deps: AppDeps, actor: Actor, id: num
       scheduledTime: row.scheduled_time,
       engineerMemberId: row.engineer_member_id,
       vanLocationId: row.van_location_id,
-      completedAt: row.completed_at?.toISOString() ?? null,
+      // The engineer's time (the tap) where the phone said it, else when the server completed it.
+      completedAt: (row.completed_tapped_at ?? row.completed_at)?.toISOString() ?? null,
       nextCheckOn: row.next_check_on,
       site,
       visitKind: row.visit_kind,
@@ -128,6 +129,7 @@ export async function loadJobDetail(db: Db, deps: AppDeps, actor: Actor, id: num
         : null,
       completionReasons: reasons.map((r) => ({ ...r, label: completionCodeLabels[r.code] })),
       recommendation: row.recommendation ?? null,
+      surveyVersion: row.survey_version,
     },
     ...plan,
     chemicalsUsed,

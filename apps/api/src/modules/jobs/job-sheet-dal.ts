@@ -78,7 +78,7 @@ export async function loadSheetRows(
     db('job_steps as s')
       .leftJoin('users as u', 'u.id', 's.done_by_user_id')
       .where({ 's.firm_id': firmId, 's.job_id': job.id })
-      .select('s.step', 's.done_at', 'u.name as done_by_name') as Promise<
+      .select('s.step', db.raw('coalesce(s.tapped_at, s.done_at) as done_at'), 'u.name as done_by_name') as Promise<
       { step: JobStep; done_at: Date; done_by_name: string | null }[]
     >,
     db('job_radiator_readings')
@@ -114,7 +114,14 @@ export async function loadSheetRows(
     db('photos')
       .where(jobOf)
       .orderBy('id')
-      .select('id', 'tag', 'caption', 'content_type', 'object_key', 'created_at') as Promise<
+      .select(
+        'id',
+        'tag',
+        'caption',
+        'content_type',
+        'object_key',
+        db.raw('coalesce(tapped_at, created_at) as created_at'),
+      ) as Promise<
       {
         id: number;
         tag: string | null;
@@ -136,7 +143,9 @@ export async function loadSheetRows(
         'p.target_max',
         'p.target_unit',
       ) as Promise<Record<string, string | number | null>[]>,
-    db('job_radiator_flushes').where(jobOf).select('radiator_index', 'flushed_at') as Promise<
+    db('job_radiator_flushes')
+      .where(jobOf)
+      .select('radiator_index', db.raw('coalesce(tapped_at, flushed_at) as flushed_at')) as Promise<
       { radiator_index: number; flushed_at: Date }[]
     >,
   ]);

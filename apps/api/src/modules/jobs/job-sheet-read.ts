@@ -169,6 +169,7 @@ export async function buildSheet(
       createdAt: p.createdAt.toISOString(),
     })),
     notes: row.notes ?? '',
+    notesVersion: row.notes_version,
   };
 }
 

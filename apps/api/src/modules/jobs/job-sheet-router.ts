@@ -11,7 +11,10 @@ import {
   readingPhases,
   waterTestsInputSchema,
 } from '@heatfleet/domain';
+import type { Request, Response } from 'express';
 import { HttpError } from '../../lib/http-error.ts';
+import { idempotencyKeyOf } from '../../lib/idempotency.ts';
+import { readTappedAt, tappedAtOf } from '../../middleware/tapped-at.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { receivePhoto } from '../photos/receive-photo.ts';
 import {
@@ -48,9 +51,15 @@ const stepInputSchema = z.strictObject({
 });
 
 const conflictResponse = {
-  409: { description: 'The job is completed' },
+  409: { description: 'The job is completed (or, for the notes, someone saved them since your version)' },
   404: { description: 'Not this firm\u2019s job, or no such radiator on its survey' },
+  422: { description: 'The body, or X-Tapped-At in the future, older than 7 days or before the job was booked' },
 };
+
+/** Every sheet write: at most once per Idempotency-Key, and the engineer's tap time (X-Tapped-At). */
+const metaOf = (req: Request, res: Response) => ({ idempotencyKey: idempotencyKeyOf(req), tappedAt: tappedAtOf(res) });
+const ONCE =
+  ' Send an Idempotency-Key header: a retry with the same key applies nothing twice. X-Tapped-At (ISO 8601) records when it was done.';
 
 export const jobPhotoFieldsSchema = z.strictObject({
   tag: z.enum(jobPhotoTags, {
@@ -66,11 +75,12 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Tick a step of the visit (the first tick\u2019s time stands) or clear it',
+    summary: 'Tick a step of the visit (the first tick\u2019s time stands) or clear it' + ONCE,
     request: { params: stepParams, body: stepInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await setStep(deps, actor, params.id, params.step, body.done) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await setStep(deps, actor, params.id, params.step, body.done, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -80,11 +90,15 @@ export const jobSheetRoutes: RouteDefinition[] = [
     access: 'member',
     tenantData: true,
     summary:
-      'Record a radiator\u2019s surface temperatures before or after the clean (index: its place in the survey, from 0)',
+      'Record a radiator\u2019s surface temperatures before or after the clean (index: its place in the survey, from 0)' +
+      ONCE,
     request: { params: readingParams, body: radiatorReadingInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await recordReading(deps, actor, params.id, params.index, params.phase, body) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({
+        sheet: await recordReading(deps, actor, params.id, params.index, params.phase, body, metaOf(req, res)),
+      });
     },
   }),
   defineRoute({
@@ -93,11 +107,13 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Record a radiator\u2019s agitation time and the vibrating tool used (a kit item on the job\u2019s van)',
+    summary:
+      'Record a radiator\u2019s agitation time and the vibrating tool used (a kit item on the job\u2019s van)' + ONCE,
     request: { params: radiatorParams, body: agitationInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await recordAgitation(deps, actor, params.id, params.index, body) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await recordAgitation(deps, actor, params.id, params.index, body, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -106,11 +122,12 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Tick a radiator flushed until clear (the first tick\u2019s time stands) or clear it',
+    summary: 'Tick a radiator flushed until clear (the first tick\u2019s time stands) or clear it' + ONCE,
     request: { params: radiatorParams, body: stepInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await setFlushed(deps, actor, params.id, params.index, body.done) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await setFlushed(deps, actor, params.id, params.index, body.done, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -119,11 +136,12 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Record the water tests (the whole set: a field left out is cleared)',
+    summary: 'Record the water tests (the whole set: a field left out is cleared)' + ONCE,
     request: { params: jobParams, body: waterTestsInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await recordWaterTests(deps, actor, params.id, body) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await recordWaterTests(deps, actor, params.id, body, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -132,11 +150,12 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Record the kit used, as a set chosen from the items on the job\u2019s van',
+    summary: 'Record the kit used, as a set chosen from the items on the job\u2019s van' + ONCE,
     request: { params: jobParams, body: jobKitInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await recordKit(deps, actor, params.id, body.kitItemIds) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await recordKit(deps, actor, params.id, body.kitItemIds, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -145,11 +164,12 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'The engineer\u2019s notes on the visit',
+    summary: 'The engineer\u2019s notes on the visit' + ONCE,
     request: { params: jobParams, body: jobNotesInputSchema },
     responses: { 200: { description: 'The job sheet', schema: jobSheetResponseSchema }, ...conflictResponse },
-    handle: async ({ params, body, res, deps, actor }) => {
-      res.json({ sheet: await recordNotes(deps, actor, params.id, body.notes) });
+    before: (deps) => [readTappedAt(deps)],
+    handle: async ({ params, body, req, res, deps, actor }) => {
+      res.json({ sheet: await recordNotes(deps, actor, params.id, body, metaOf(req, res)) });
     },
   }),
   defineRoute({
@@ -158,23 +178,26 @@ export const jobSheetRoutes: RouteDefinition[] = [
     tag: 'Jobs',
     access: 'member',
     tenantData: true,
-    summary: 'Add a photo to the job (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; tag; optional caption)',
+    summary:
+      'Add a photo to the job (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; tag; optional caption).' + ONCE,
     request: { params: jobParams },
     multipart: { fileField: 'photo', fields: jobPhotoFieldsSchema },
     responses: {
       201: { description: 'Stored', schema: jobPhotoResponseSchema },
       413: { description: 'Too large' },
-      422: { description: 'Not a JPEG, PNG or WebP, or no tag' },
       ...conflictResponse,
+      422: { description: 'Not a JPEG, PNG or WebP, or no tag; or X-Tapped-At not sane' },
     },
-    before: () => [receivePhoto],
+    before: (deps) => [readTappedAt(deps), receivePhoto],
     handle: async ({ params, req, res, deps, actor }) => {
       const fields = jobPhotoFieldsSchema.parse(req.body ?? {});
       if (!req.file)
         throw new HttpError(422, 'Attach a photo in the field "photo".', 'ValidationFailed', [
           { path: 'photo', message: 'Required' },
         ]);
-      res.status(201).json({ photo: await addJobPhoto(deps, actor, params.id, req.file.buffer, fields) });
+      res
+        .status(201)
+        .json({ photo: await addJobPhoto(deps, actor, params.id, req.file.buffer, fields, metaOf(req, res)) });
     },
   }),
 ];

@@ -13,11 +13,14 @@ import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { withTransactionRetry } from '../../db/with-retry.ts';
 import { conflict, HttpError } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
+import { checkTapAfter } from '../../middleware/tapped-at.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { savePhoto } from '../photos/photo-service.ts';
 import { COMPLETED_MESSAGE, lockOpenJob, parseSurvey, requireJob, throwUnlessMayUpdateJob } from './job-access.ts';
 import { updateJobNotes, type JobRow } from './job-dal.ts';
 import { findInhibitor } from './job-sheet-dal.ts';
+import { logSheetEvent } from './job-sheet-event-dal.ts';
 import { getSheet } from './job-sheet-read.ts';
 import {
   kitItemsForJob,
@@ -32,19 +35,44 @@ import {
 } from './job-sheet-write-dal.ts';
 
 // The job sheet's writes: each locks the open job, changes one part in a short transaction, and
-// answers with the whole sheet read afresh.
+// answers with the whole sheet read afresh. Each applies at most once per Idempotency-Key, and keeps the
+// engineer's tap time (X-Tapped-At) beside the time it arrived.
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
+
+/** How a write reached the server: its Idempotency-Key and when the engineer tapped (null: not said). */
+export interface SheetWriteMeta {
+  idempotencyKey?: IdempotencyKey | undefined;
+  tappedAt?: Date | null;
+}
+
+export interface SheetWork {
+  trx: Knex.Transaction;
+  row: JobRow;
+  now: Date;
+  tappedAt: Date | null;
+  /** Logs the write as an event of `target` and says whether it is the latest (then apply it). */
+  latest: (target: string, value: unknown) => Promise<boolean>;
+}
 
 export async function writeSheet(
   deps: AppDeps,
   actor: Actor,
   jobId: number,
-  work: (trx: Knex.Transaction, row: JobRow) => Promise<void>,
+  work: (trx: Knex.Transaction, row: JobRow, w: SheetWork) => Promise<void>,
+  meta: SheetWriteMeta = {},
 ): Promise<JobSheet> {
+  const tappedAt = meta.tappedAt ?? null;
+  // The replayed answer is not the stored sheet (it may be old by now): the sheet is read afresh either way.
   await withTransactionRetry(() =>
-    deps.db.transaction(async (trx) => {
-      await work(trx, await lockOpenJob(trx, actor, jobId));
+    runIdempotent(deps, actor, meta.idempotencyKey, `job sheet ${jobId}`, async (trx) => {
+      const row = await lockOpenJob(trx, actor, jobId);
+      checkTapAfter(tappedAt, row.created_at);
+      const now = deps.clock.now();
+      const latest = (target: string, value: unknown) =>
+        logSheetEvent(trx, { firmId: actor.firmId, jobId, target, value, tappedAt, now, userId: actor.userId });
+      await work(trx, row, { trx, row, now, tappedAt, latest });
+      return { status: 200, body: { applied: true } };
     }),
   );
   return getSheet(deps, actor, jobId);
@@ -60,8 +88,15 @@ function checkRadiator(row: JobRow, index: number): Survey {
 
 const invalid = (path: string, message: string) => new HttpError(422, message, 'ValidationFailed', [{ path, message }]);
 
-export function setStep(deps: AppDeps, actor: Actor, jobId: number, step: JobStep, done: boolean) {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+export function setStep(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  step: JobStep,
+  done: boolean,
+  meta?: SheetWriteMeta,
+) {
+  const work = async (trx: Knex.Transaction, row: JobRow, w: SheetWork) => {
     const survey = parseSurvey(row);
     const steps = visitSteps({ systemType: survey.systemType, fuel: survey.fuel, visitKind: row.visit_kind });
     if (!steps.some((s) => s.step === step)) {
@@ -70,9 +105,11 @@ export function setStep(deps: AppDeps, actor: Actor, jobId: number, step: JobSte
         `That step is not part of this visit: its steps are ${steps.map((s) => s.step).join(', ')}.`,
       );
     }
-    if (done) await tickStep(trx, actor.firmId, jobId, step, actor.userId, deps.clock.now());
+    if (!(await w.latest(`step:${step}`, { done }))) return;
+    if (done) await tickStep(trx, actor.firmId, jobId, step, actor.userId, w.now, w.tappedAt);
     else await untickStep(trx, actor.firmId, jobId, step);
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
 export function recordReading(
@@ -82,37 +119,61 @@ export function recordReading(
   index: number,
   phase: ReadingPhase,
   input: RadiatorReadingInput,
+  meta?: SheetWriteMeta,
 ) {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+  const work = async (trx: Knex.Transaction, row: JobRow, w: SheetWork) => {
     checkRadiator(row, index);
     // The columns keep one decimal place, as thermometers and cameras show.
     const c = (v: number | null | undefined) => (v === null || v === undefined ? null : round1(v));
-    await upsertReading(trx, {
-      firm_id: actor.firmId,
-      job_id: jobId,
-      radiator_index: index,
-      phase,
+    const values = {
       top_c: round1(input.topC),
       bottom_c: round1(input.bottomC),
       flow_c: c(input.flowC),
       return_c: c(input.returnC),
       room_c: c(input.roomC),
+    };
+    // An event: every reading is kept in the log; the sheet shows the one done last.
+    if (!(await w.latest(`reading:${index}:${phase}`, values))) return;
+    await upsertReading(trx, {
+      firm_id: actor.firmId,
+      job_id: jobId,
+      radiator_index: index,
+      phase,
+      ...values,
       recorded_by_user_id: actor.userId,
-      recorded_at: deps.clock.now(),
+      recorded_at: w.now,
+      tapped_at: w.tappedAt,
     });
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
-export function setFlushed(deps: AppDeps, actor: Actor, jobId: number, index: number, done: boolean) {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+export function setFlushed(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  index: number,
+  done: boolean,
+  meta?: SheetWriteMeta,
+) {
+  const work = async (trx: Knex.Transaction, row: JobRow, w: SheetWork) => {
     checkRadiator(row, index);
-    if (done) await tickFlush(trx, actor.firmId, jobId, index, actor.userId, deps.clock.now());
+    if (!(await w.latest(`flush:${index}`, { done }))) return;
+    if (done) await tickFlush(trx, actor.firmId, jobId, index, actor.userId, w.now, w.tappedAt);
     else await untickFlush(trx, actor.firmId, jobId, index);
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
-export function recordAgitation(deps: AppDeps, actor: Actor, jobId: number, index: number, input: AgitationInput) {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+export function recordAgitation(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  index: number,
+  input: AgitationInput,
+  meta?: SheetWriteMeta,
+) {
+  const work = async (trx: Knex.Transaction, row: JobRow, w: SheetWork) => {
     checkRadiator(row, index);
     let magnitude: number | null = null;
     const kitItemId = input.kitItemId ?? null;
@@ -129,7 +190,7 @@ export function recordAgitation(deps: AppDeps, actor: Actor, jobId: number, inde
       // Copied now, so a later change of the kit setting leaves this day's exposure as it was.
       magnitude = item.vibration_ms2 === null ? null : Number(item.vibration_ms2);
     }
-    const now = deps.clock.now();
+    if (!(await w.latest(`agitation:${index}`, { minutes: input.minutes, kitItemId }))) return;
     await upsertAgitation(trx, {
       firm_id: actor.firmId,
       job_id: jobId,
@@ -138,15 +199,24 @@ export function recordAgitation(deps: AppDeps, actor: Actor, jobId: number, inde
       kit_item_id: kitItemId,
       magnitude_ms2: magnitude,
       engineer_member_id: row.engineer_member_id,
-      recorded_on: await firmToday(trx, actor.firmId, now),
+      // The day the engineer did it (the tap), which for a write kept on the phone may be before today.
+      recorded_on: await firmToday(trx, actor.firmId, w.tappedAt ?? w.now),
       recorded_by_user_id: actor.userId,
-      recorded_at: now,
+      recorded_at: w.now,
+      tapped_at: w.tappedAt,
     });
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
-export function recordWaterTests(deps: AppDeps, actor: Actor, jobId: number, input: WaterTestsInput) {
-  return writeSheet(deps, actor, jobId, async (trx) => {
+export function recordWaterTests(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  input: WaterTestsInput,
+  meta?: SheetWriteMeta,
+) {
+  const work = async (trx: Knex.Transaction, _row: JobRow, w: SheetWork) => {
     const productId = input.inhibitorProductId ?? null;
     if (productId !== null && !(await findInhibitor(trx, actor.firmId, productId))) {
       throw invalid(
@@ -155,23 +225,29 @@ export function recordWaterTests(deps: AppDeps, actor: Actor, jobId: number, inp
       );
     }
     // A PUT of the whole set of tests: a field left out is cleared.
-    await upsertWaterTests(trx, {
-      firm_id: actor.firmId,
-      job_id: jobId,
+    const values = {
       mains_tds_ppm: input.mainsTdsPpm ?? null,
       system_tds_ppm: input.systemTdsPpm ?? null,
       water_clear: input.waterClear ?? null,
       inhibitor_reading: input.inhibitorReading ?? null,
       inhibitor_product_id: productId,
       ph: input.ph ?? null,
+    };
+    if (!(await w.latest('water-tests', values))) return;
+    await upsertWaterTests(trx, {
+      firm_id: actor.firmId,
+      job_id: jobId,
+      ...values,
       recorded_by_user_id: actor.userId,
-      recorded_at: deps.clock.now(),
+      recorded_at: w.now,
+      tapped_at: w.tappedAt,
     });
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
-export function recordKit(deps: AppDeps, actor: Actor, jobId: number, kitItemIds: number[]) {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+export function recordKit(deps: AppDeps, actor: Actor, jobId: number, kitItemIds: number[], meta?: SheetWriteMeta) {
+  const work = async (trx: Knex.Transaction, row: JobRow, w: SheetWork) => {
     const ids = [...new Set(kitItemIds)];
     const found = await kitItemsForJob(trx, actor.firmId, jobId, ids);
     const missing = ids.filter((id) => !found.some((f) => f.id === id));
@@ -190,12 +266,33 @@ export function recordKit(deps: AppDeps, actor: Actor, jobId: number, kitItemIds
         `${away.map((f) => f.asset_tag).join(', ')} ${away.length > 1 ? 'are' : 'is'} not on this job\u2019s van: choose kit the van holds.`,
       );
     }
+    if (!(await w.latest('kit', ids))) return;
     await replaceJobKit(trx, actor.firmId, jobId, ids);
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
-export function recordNotes(deps: AppDeps, actor: Actor, jobId: number, notes: string) {
-  return writeSheet(deps, actor, jobId, (trx) => updateJobNotes(trx, actor.firmId, jobId, notes));
+export const STALE_NOTES_MESSAGE =
+  'Someone else saved the notes while you were writing yours, so yours were not saved over theirs. Your notes are kept on this phone: look at both, then save the ones to keep.';
+
+/**
+ * The notes, which two people could edit at once: a write that names the version it was edited from is refused
+ * (409) when another save landed since, so neither overwrites the other unseen.
+ */
+export function recordNotes(
+  deps: AppDeps,
+  actor: Actor,
+  jobId: number,
+  input: { notes: string; notesVersion?: number | undefined },
+  meta?: SheetWriteMeta,
+) {
+  const work = async (trx: Knex.Transaction, row: JobRow) => {
+    if (input.notesVersion !== undefined && input.notesVersion !== row.notes_version) {
+      throw new HttpError(409, STALE_NOTES_MESSAGE, 'StaleVersion');
+    }
+    await updateJobNotes(trx, actor.firmId, jobId, input.notes);
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
 /**
@@ -208,11 +305,15 @@ export async function addJobPhoto(
   jobId: number,
   file: Buffer,
   fields: { tag: string; caption?: string | undefined },
+  meta: SheetWriteMeta = {},
 ): Promise<JobPhoto> {
   const row = await requireJob(deps.db, actor.firmId, jobId);
   throwUnlessMayUpdateJob(actor, row);
   if (row.status === 'completed') throw conflict(COMPLETED_MESSAGE);
+  checkTapAfter(meta.tappedAt ?? null, row.created_at);
   const photo = await savePhoto(deps, actor, file, {
+    idempotencyKey: meta.idempotencyKey,
+    tappedAt: meta.tappedAt ?? null,
     jobId,
     tag: fields.tag,
     ...(fields.caption ? { caption: fields.caption } : {}),

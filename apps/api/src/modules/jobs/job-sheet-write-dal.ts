@@ -10,10 +10,11 @@ export async function tickStep(
   step: JobStep,
   userId: number,
   now: Date,
+  tappedAt: Date | null = null,
 ): Promise<void> {
   // The first tick's time stands: a second tick (a retry, a double tap) changes nothing.
   await trx('job_steps')
-    .insert({ firm_id: firmId, job_id: jobId, step, done_at: now, done_by_user_id: userId })
+    .insert({ firm_id: firmId, job_id: jobId, step, done_at: now, done_by_user_id: userId, tapped_at: tappedAt })
     .onConflict(['firm_id', 'job_id', 'step'])
     .ignore();
 }
@@ -26,6 +27,7 @@ export async function tickFlush(
   radiatorIndex: number,
   userId: number,
   now: Date,
+  tappedAt: Date | null = null,
 ): Promise<void> {
   await trx('job_radiator_flushes')
     .insert({
@@ -34,6 +36,7 @@ export async function tickFlush(
       radiator_index: radiatorIndex,
       flushed_at: now,
       flushed_by_user_id: userId,
+      tapped_at: tappedAt,
     })
     .onConflict(['firm_id', 'job_id', 'radiator_index'])
     .ignore();
@@ -66,12 +69,13 @@ export async function upsertReading(
     room_c: number | null;
     recorded_by_user_id: number;
     recorded_at: Date;
+    tapped_at: Date | null;
   },
 ): Promise<void> {
   await trx('job_radiator_readings')
     .insert(row)
     .onConflict(['firm_id', 'job_id', 'radiator_index', 'phase'])
-    .merge(['top_c', 'bottom_c', 'flow_c', 'return_c', 'room_c', 'recorded_by_user_id', 'recorded_at']);
+    .merge(['top_c', 'bottom_c', 'flow_c', 'return_c', 'room_c', 'recorded_by_user_id', 'recorded_at', 'tapped_at']);
 }
 
 export async function upsertAgitation(
@@ -87,6 +91,7 @@ export async function upsertAgitation(
     recorded_on: string;
     recorded_by_user_id: number;
     recorded_at: Date;
+    tapped_at: Date | null;
   },
 ): Promise<void> {
   await trx('job_agitations')
@@ -100,6 +105,7 @@ export async function upsertAgitation(
       'recorded_on',
       'recorded_by_user_id',
       'recorded_at',
+      'tapped_at',
     ]);
 }
 
@@ -116,6 +122,7 @@ export async function upsertWaterTests(
     ph: number | null;
     recorded_by_user_id: number;
     recorded_at: Date;
+    tapped_at: Date | null;
   },
 ): Promise<void> {
   await trx('job_water_tests')
@@ -130,6 +137,7 @@ export async function upsertWaterTests(
       'ph',
       'recorded_by_user_id',
       'recorded_at',
+      'tapped_at',
     ]);
 }
 

@@ -14,10 +14,19 @@ export interface SignatureRow {
 }
 
 export async function listSignatures(db: Db, firmId: number, jobId: number): Promise<SignatureRow[]> {
-  return (await db('job_signatures')
-    .where({ firm_id: firmId, job_id: jobId })
-    .orderBy('signed_at')
-    .select('kind', 'signer_name', 'object_key', 'byte_size', 'signed_at')) as SignatureRow[];
+  return (
+    (await db('job_signatures')
+      .where({ firm_id: firmId, job_id: jobId })
+      .orderBy('signed_at')
+      // The engineer's time (the tap) where the phone said it, else when it arrived.
+      .select(
+        'kind',
+        'signer_name',
+        'object_key',
+        'byte_size',
+        db.raw('coalesce(tapped_at, signed_at) as signed_at'),
+      )) as SignatureRow[]
+  );
 }
 
 export async function findSignature(
@@ -42,13 +51,14 @@ export async function upsertSignature(
     object_key: string;
     byte_size: number;
     signed_at: Date;
+    tapped_at: Date | null;
     recorded_by_user_id: number;
   },
 ): Promise<void> {
   await trx('job_signatures')
     .insert(row)
     .onConflict(['firm_id', 'job_id', 'kind'])
-    .merge(['signer_name', 'object_key', 'byte_size', 'signed_at', 'recorded_by_user_id']);
+    .merge(['signer_name', 'object_key', 'byte_size', 'signed_at', 'tapped_at', 'recorded_by_user_id']);
 }
 
 export interface CompletionReasonRow {
@@ -98,6 +108,7 @@ export async function updateJobFields(
     engineer_member_id?: number | null;
     van_location_id?: number | null;
     survey?: string;
+    survey_version?: number;
     visit_kind?: string;
     system_details?: string;
   },

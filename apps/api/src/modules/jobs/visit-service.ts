@@ -9,12 +9,16 @@ import {
   type SignatureInput,
   type SignatureKind,
 } from '@heatfleet/domain';
+import type { Knex } from 'knex';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
+import { runIdempotent } from '../../lib/idempotency.ts';
+import { checkTapAfter } from '../../middleware/tapped-at.ts';
 import { setSiteFlushOrder } from '../sites/site-dal.ts';
 import { lockOpenJob, parseSurvey, requireJob, throwUnlessMayUpdateJob } from './job-access.ts';
-import { writeSheet } from './job-sheet-service.ts';
+import type { JobRow } from './job-dal.ts';
+import { writeSheet, type SheetWriteMeta } from './job-sheet-service.ts';
 import { findSignature, upsertSignature } from './visit-dal.ts';
 
 const invalid = (path: string, message: string) => new HttpError(422, message, 'ValidationFailed', [{ path, message }]);
@@ -25,8 +29,9 @@ export function setFlushOrder(
   actor: Actor,
   jobId: number,
   radiatorIndexes: number[],
+  meta?: SheetWriteMeta,
 ): Promise<JobSheet> {
-  return writeSheet(deps, actor, jobId, async (trx, row) => {
+  const work = async (trx: Knex.Transaction, row: JobRow) => {
     const rooms = parseSurvey(row).radiators.map((r) => r.room);
     if (!isWholeFlushOrder(radiatorIndexes, rooms.length)) {
       throw invalid(
@@ -35,7 +40,8 @@ export function setFlushOrder(
       );
     }
     await setSiteFlushOrder(trx, actor.firmId, row.site_id, flushOrderRooms(radiatorIndexes, rooms));
-  });
+  };
+  return writeSheet(deps, actor, jobId, work, meta);
 }
 
 const PNG_SIGNATURE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -64,26 +70,34 @@ export function decodeSignaturePng(dataUrl: string): Buffer {
 const signatureUrl = (jobId: number, kind: SignatureKind) => `/api/jobs/${jobId}/signatures/${kind}`;
 
 /**
- * Stores a customer's drawn signature on an open job: the PNG goes to the object store first and
- * is removed again if its row cannot be written (as photos are); signing the same kind again
- * replaces the earlier one, whose object is removed after the commit.
+ * Stores a customer's drawn signature on an open job, at most once per Idempotency-Key (a replay answers the
+ * first and uploads nothing): the PNG goes to the object store inside the key's transaction and is removed
+ * again if its row cannot be written (as photos are); signing the same kind again replaces the earlier one,
+ * whose object is removed after the commit. The time shown is the engineer's (X-Tapped-At) where sent.
  */
 export async function addSignature(
   deps: AppDeps,
   actor: Actor,
   jobId: number,
   input: SignatureInput,
+  meta: SheetWriteMeta = {},
 ): Promise<JobSignature> {
   const png = decodeSignaturePng(input.imagePngDataUrl);
   const row = await requireJob(deps.db, actor.firmId, jobId);
   throwUnlessMayUpdateJob(actor, row);
+  const tappedAt = meta.tappedAt ?? null;
+  checkTapAfter(tappedAt, row.created_at);
   const key = `firms/${actor.firmId}/signatures/${randomUUID()}.png`;
-  await deps.objectStore.put(key, png, 'image/png');
   const signedAt = deps.clock.now();
+  let uploaded = false;
   let replaced: string | undefined;
   try {
-    await deps.db.transaction(async (trx) => {
+    const out = await runIdempotent(deps, actor, meta.idempotencyKey, `signature ${jobId}`, async (trx) => {
       await lockOpenJob(trx, actor, jobId);
+      if (!uploaded) {
+        await deps.objectStore.put(key, png, 'image/png');
+        uploaded = true;
+      }
       replaced = (await findSignature(trx, actor.firmId, jobId, input.kind))?.object_key;
       await upsertSignature(trx, {
         firm_id: actor.firmId,
@@ -93,15 +107,23 @@ export async function addSignature(
         object_key: key,
         byte_size: png.length,
         signed_at: signedAt,
+        tapped_at: tappedAt,
         recorded_by_user_id: actor.userId,
       });
+      const signature: JobSignature = {
+        kind: input.kind,
+        name: input.name,
+        signedAt: (tappedAt ?? signedAt).toISOString(),
+        url: signatureUrl(jobId, input.kind),
+      };
+      return { status: 201, body: signature };
     });
+    if (replaced && !out.replayed) await removeObject(deps, replaced);
+    return out.body;
   } catch (err) {
-    await removeObject(deps, key);
+    if (uploaded) await removeObject(deps, key);
     throw err;
   }
-  if (replaced) await removeObject(deps, replaced);
-  return { kind: input.kind, name: input.name, signedAt: signedAt.toISOString(), url: signatureUrl(jobId, input.kind) };
 }
 
 async function removeObject(deps: AppDeps, key: string): Promise<void> {

@@ -10,15 +10,19 @@ export interface PhotoRow {
   byte_size: number;
   caption: string | null;
   created_at: Date;
+  tapped_at?: Date | null;
 }
 
-export const toPhoto = (r: Pick<PhotoRow, 'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at'>): Photo => ({
+/** createdAt is the engineer's time (the tap) where the phone said it, else when it arrived. */
+export const toPhoto = (
+  r: Pick<PhotoRow, 'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at' | 'tapped_at'>,
+): Photo => ({
   id: r.id,
   url: `/api/photos/${r.id}/content`,
   contentType: r.content_type,
   byteSize: r.byte_size,
   caption: r.caption,
-  createdAt: r.created_at.toISOString(),
+  createdAt: (r.tapped_at ?? r.created_at).toISOString(),
 });
 
 export async function findPhoto(db: Db, firmId: number, id: number): Promise<PhotoRow | undefined> {
@@ -34,9 +38,9 @@ export async function listItemPhotos(db: Db, firmId: number, itemId: number): Pr
   const rows = (await db('photos')
     .where({ firm_id: firmId, item_id: itemId })
     .orderBy('id', 'desc')
-    .select('id', 'content_type', 'byte_size', 'caption', 'created_at')) as Pick<
+    .select('id', 'content_type', 'byte_size', 'caption', 'created_at', 'tapped_at')) as Pick<
     PhotoRow,
-    'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at'
+    'id' | 'content_type' | 'byte_size' | 'caption' | 'created_at' | 'tapped_at'
   >[];
   return rows.map(toPhoto);
 }
@@ -60,6 +64,7 @@ export interface NewPhotoRow {
   byte_size: number;
   caption: string | null;
   uploaded_by_user_id: number;
+  tapped_at?: Date | null;
 }
 
 export async function insertPhoto(trx: Knex.Transaction, firmId: number, row: NewPhotoRow): Promise<number> {

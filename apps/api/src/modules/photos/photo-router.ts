@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { idParamSchema, photoResponseSchema } from '@heatfleet/domain';
 import { HttpError } from '../../lib/http-error.ts';
+import { idempotencyKeyOf } from '../../lib/idempotency.ts';
+import { readTappedAt, tappedAtOf } from '../../middleware/tapped-at.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
 import { openPhoto, savePhoto } from './photo-service.ts';
 import { receivePhoto } from './receive-photo.ts';
@@ -17,22 +19,28 @@ export const photoRoutes: RouteDefinition[] = [
     tag: 'Photos',
     access: 'member',
     tenantData: true,
-    summary: 'Upload a photo (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; optional itemId, caption)',
+    summary:
+      'Upload a photo (multipart field "photo": JPEG, PNG or WebP, up to 8 MB; optional itemId, caption). Send an Idempotency-Key header: a retry with the same key answers the first photo. X-Tapped-At (ISO 8601) records when it was taken.',
     request: {},
     multipart: { fileField: 'photo', fields: photoFieldsSchema },
     responses: {
       201: { description: 'Stored', schema: photoResponseSchema },
       413: { description: 'Too large' },
-      422: { description: 'Not a JPEG, PNG or WebP' },
+      422: { description: 'Not a JPEG, PNG or WebP, or X-Tapped-At in the future or older than 7 days' },
     },
-    before: () => [receivePhoto],
+    before: (deps) => [readTappedAt(deps), receivePhoto],
     handle: async ({ req, res, deps, actor }) => {
       const fields = photoFieldsSchema.parse(req.body ?? {});
       if (!req.file)
         throw new HttpError(422, 'Attach a photo in the field "photo".', 'ValidationFailed', [
           { path: 'photo', message: 'Required' },
         ]);
-      res.status(201).json({ photo: await savePhoto(deps, actor, req.file.buffer, fields) });
+      const photo = await savePhoto(deps, actor, req.file.buffer, {
+        ...fields,
+        idempotencyKey: idempotencyKeyOf(req),
+        tappedAt: tappedAtOf(res),
+      });
+      res.status(201).json({ photo });
     },
   }),
   defineRoute({

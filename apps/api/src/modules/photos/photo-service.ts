@@ -6,6 +6,7 @@ import type { Knex } from 'knex';
 import type { Readable } from 'node:stream';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { HttpError, notFound } from '../../lib/http-error.ts';
+import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { findItemId } from '../kits/kit-item-dal.ts';
 import { findPhoto, insertPhoto, toPhoto } from './photo-dal.ts';
 
@@ -23,6 +24,10 @@ export interface SavePhotoOptions {
   caption?: string;
   /** Runs in the row's transaction before the insert (e.g. locks the job and checks it is still open). */
   guard?: (trx: Knex.Transaction) => Promise<void>;
+  /** At most once per key: a retry (a queued upload sent again) answers the first photo and stores nothing. */
+  idempotencyKey?: IdempotencyKey | undefined;
+  /** When the engineer took it (X-Tapped-At), kept beside when it arrived. */
+  tappedAt?: Date | null;
 }
 
 /**
@@ -45,9 +50,14 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
   }
   if (opts.itemId !== undefined && !(await findItemId(deps.db, actor.firmId, opts.itemId))) throw notFound('That item');
   const key = `firms/${actor.firmId}/photos/${randomUUID()}.${extensionFor[type]}`;
-  await deps.objectStore.put(key, file, type);
+  let uploaded = false;
   try {
-    return await deps.db.transaction(async (trx) => {
+    // The key row first (a replay stops there, before any upload), then the object, then its row.
+    const out = await runIdempotent(deps, actor, opts.idempotencyKey, 'photo', async (trx) => {
+      if (!uploaded) {
+        await deps.objectStore.put(key, file, type);
+        uploaded = true;
+      }
       await opts.guard?.(trx);
       const id = await insertPhoto(trx, actor.firmId, {
         item_id: opts.itemId ?? null,
@@ -58,15 +68,22 @@ export async function savePhoto(deps: AppDeps, actor: Actor, file: Buffer, opts:
         byte_size: file.length,
         caption: opts.caption ?? null,
         uploaded_by_user_id: actor.userId,
+        tapped_at: opts.tappedAt ?? null,
       });
-      return toPhoto((await findPhoto(trx, actor.firmId, id))!);
+      return { status: 201, body: toPhoto((await findPhoto(trx, actor.firmId, id))!) };
     });
+    if (out.replayed && uploaded) await removeOrphan(deps, key);
+    return out.body;
   } catch (err) {
-    await deps.objectStore
-      .delete(key)
-      .catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
+    if (uploaded) await removeOrphan(deps, key);
     throw err;
   }
+}
+
+async function removeOrphan(deps: AppDeps, key: string): Promise<void> {
+  await deps.objectStore
+    .delete(key)
+    .catch((e: unknown) => deps.logger.error({ err: e, key }, 'could not remove an orphaned photo object'));
 }
 
 export async function openPhoto(deps: AppDeps, actor: Actor, id: number): Promise<{ photo: Photo; body: Readable }> {
