@@ -45,6 +45,10 @@ export const router = createBrowserRouter([
           })),
       },
       {
+        path: paths.unsubscribe.path,
+        lazy: () => import('@/app/routes/unsubscribe/unsubscribe-page').then((m) => ({ Component: m.UnsubscribePage })),
+      },
+      {
         lazy: () => appLayout().then((m) => ({ Component: m.AppLayout })),
         children: [
           {

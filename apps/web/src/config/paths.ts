@@ -17,6 +17,10 @@ export const paths = {
     getHref: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
   },
   invitation: { path: '/invitations/:token', getHref: (token: string) => `/invitations/${encodeURIComponent(token)}` },
+  unsubscribe: {
+    path: '/unsubscribe/:token',
+    getHref: (token: string) => `/unsubscribe/${encodeURIComponent(token)}`,
+  },
   team: { path: '/team', getHref: () => '/team' },
   vans: { path: '/vans', getHref: () => '/vans' },
   van: { path: '/vans/:id', getHref: (id: number) => `/vans/${id}` },
