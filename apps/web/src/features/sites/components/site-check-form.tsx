@@ -1,5 +1,10 @@
 import { useState } from 'react';
-import { calendarDateIn, inhibitorCheck, siteCheckInputSchema, type CheckableInhibitor } from '@heatfleet/domain';
+import {
+  calendarDateIn,
+  inhibitorCheck,
+  inhibitorCheckVisitInputSchema,
+  type CheckableInhibitor,
+} from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
@@ -8,8 +13,19 @@ import { TextareaField } from '@/components/ui/textarea-field';
 import { formatCalendarDate } from '@/lib/format';
 import { textOrNull, useSchemaForm } from '@/lib/form';
 import { useRecordSiteCheck } from '@/features/sites/api/use-record-site-check';
+import { TopUpFields } from '@/features/sites/components/top-up-fields';
 
-const fields = ['checkedOn', 'inhibitorProductId', 'inhibitorReading', 'systemTdsPpm', 'notes'] as const;
+const fields = [
+  'checkedOn',
+  'inhibitorProductId',
+  'inhibitorReading',
+  'systemTdsPpm',
+  'notes',
+  'topUp.vanId',
+  'topUp.packs',
+  'retestReading',
+  'emailCustomer',
+] as const;
 
 const numberOrUndefined = (v: string | undefined) => (v === undefined || v.trim() === '' ? undefined : Number(v));
 
@@ -20,6 +36,12 @@ function prepare(values: Record<string, string | undefined>) {
     inhibitorReading: numberOrUndefined(values.inhibitorReading),
     systemTdsPpm: numberOrUndefined(values.systemTdsPpm) ?? null,
     notes: textOrNull(values.notes),
+    // A top-up is sent when packs are given; the van is then required by the schema.
+    topUp: values['topUp.packs']?.trim()
+      ? { vanId: numberOrUndefined(values['topUp.vanId']), packs: numberOrUndefined(values['topUp.packs']) }
+      : undefined,
+    retestReading: numberOrUndefined(values.retestReading) ?? null,
+    emailCustomer: values.emailCustomer === 'on',
   };
 }
 
@@ -61,7 +83,8 @@ export function SiteCheckForm({
   timeZone: string;
 }) {
   const record = useRecordSiteCheck(siteId);
-  const form = useSchemaForm(siteCheckInputSchema, fields, prepare);
+  const form = useSchemaForm(inhibitorCheckVisitInputSchema, fields, prepare);
+  const [retest, setRetest] = useState('');
   const [productId, setProductId] = useState(inhibitors.length === 1 ? String(inhibitors[0]!.id) : '');
   const [reading, setReading] = useState('');
   const product = inhibitors.find((p) => String(p.id) === productId);
@@ -81,19 +104,30 @@ export function SiteCheckForm({
       aria-label="Record an inhibitor check"
       className="space-y-4"
       onSubmit={form.handleSubmit((input) =>
-        record.mutate(input, {
-          onError: form.showError,
-          onSuccess: () => {
-            form.formRef.current?.reset();
-            setReading('');
+        record.mutate(
+          { input, idempotencyKey: crypto.randomUUID() },
+          {
+            onError: form.showError,
+            onSuccess: () => {
+              form.formRef.current?.reset();
+              setReading('');
+              setRetest('');
+            },
           },
-        }),
+        ),
       )}
     >
       {form.formError ? <Alert tone="error">{form.formError}</Alert> : null}
       {record.isSuccess ? (
-        <Alert tone="success" title={`Check recorded: ${record.data.check.result === 'pass' ? 'pass' : 'fail'}`}>
+        <Alert
+          tone={record.data.check.result === 'pass' ? 'success' : 'info'}
+          title={`Check recorded: ${record.data.check.result === 'pass' ? 'pass' : 'fail'}${record.data.check.retestReading !== null ? ' on the re-test' : ''}`}
+        >
           Next check due {record.data.site.nextCheckOn ? formatCalendarDate(record.data.site.nextCheckOn) : 'not set'}.
+          {record.data.check.topUp
+            ? ` ${record.data.check.topUp.packs} pack${record.data.check.topUp.packs === 1 ? '' : 's'} taken off ${record.data.check.topUp.van.name}.`
+            : ''}
+          {record.data.check.noteEmailed ? ' The customer has been e-mailed the result.' : ''}
         </Alert>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
@@ -138,7 +172,16 @@ export function SiteCheckForm({
         />
       </div>
       <LiveResult product={product} reading={reading} />
+      {product &&
+      reading.trim() !== '' &&
+      inhibitorCheck(Number(reading), { min: product.targetMin, max: product.targetMax }) !== 'pass' ? (
+        <TopUpFields product={product} retest={retest} onRetest={setRetest} errors={form.fieldErrors} />
+      ) : null}
       <TextareaField label="Notes" name="notes" rows={3} error={form.fieldErrors.notes} />
+      <label className="flex min-h-12 cursor-pointer items-center gap-3">
+        <input type="checkbox" name="emailCustomer" defaultChecked className="size-6 accent-brand-700" />
+        <span>E-mail the customer a short note of the result (when they have an address)</span>
+      </label>
       <Button type="submit" busy={record.isPending} className="w-full sm:w-auto">
         Save the check
       </Button>

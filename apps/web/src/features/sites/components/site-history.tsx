@@ -52,8 +52,23 @@ export function SiteChecks({ checks }: { checks: SiteDetail['checks'] }) {
             {c.target.unit ? ` ${c.target.unit}` : ''} (target {c.target.min} to {c.target.max})
             {c.systemTdsPpm !== null ? `; system TDS ${c.systemTdsPpm} ppm` : ''}
           </p>
+          {c.topUp || c.retestReading !== null ? (
+            <p className="text-sm">
+              {c.topUp
+                ? `Topped up ${c.topUp.packs} pack${c.topUp.packs === 1 ? '' : 's'} from ${c.topUp.van.name}`
+                : 'Tested again'}
+              {c.retestReading !== null
+                ? `; re-test ${c.retestReading}${c.target.unit ? ` ${c.target.unit}` : ''}`
+                : ''}
+              {c.firstResult !== c.result ? ` (first reading: ${c.firstResult})` : ''}
+            </p>
+          ) : null}
+          {c.nextCheckOn ? <p className="text-sm">Next check set for {formatCalendarDate(c.nextCheckOn)}</p> : null}
           {c.notes ? <p className="text-sm text-ink-muted">{c.notes}</p> : null}
-          <p className="text-sm text-ink-muted">By {c.byName}</p>
+          <p className="text-sm text-ink-muted">
+            By {c.byName}
+            {c.noteEmailed ? ' · result e-mailed to the customer' : ''}
+          </p>
         </li>
       ))}
     </ul>
