@@ -29,6 +29,14 @@ export function OwnerOverview() {
   const o = overview.data;
   return (
     <div className="space-y-5">
+      {/* First, so the vans' stock health is above the fold on a phone and a laptop. */}
+      <LinkCard
+        title={`Vans: stock health, MOT and service (${o.vansDue} due)`}
+        to={paths.vans.getHref()}
+        linkLabel="All vans"
+      >
+        <VanHealthList vans={o.vans} />
+      </LinkCard>
       <div className="grid gap-5 md:grid-cols-2 xl:grid-cols-3">
         <LinkCard title="Kit due" to={paths.kits.getHref()} linkLabel="All kits">
           <KitDueSummary kit={o.kit} />
@@ -53,13 +61,6 @@ export function OwnerOverview() {
           </LinkCard>
         ) : null}
       </div>
-      <LinkCard
-        title={`Vans: stock health, MOT and service (${o.vansDue} due)`}
-        to={paths.vans.getHref()}
-        linkLabel="All vans"
-      >
-        <VanHealthList vans={o.vans} />
-      </LinkCard>
       <Card
         title="Chemical used per month"
         description="Litres taken off vans on jobs, by kind of product, over the last twelve months."

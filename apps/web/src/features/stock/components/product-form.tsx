@@ -33,6 +33,9 @@ const fields = [
   'shelfLifeMonths',
   'hazardNotes',
   'minCirculationMinutes',
+  'minShelfLifeDays',
+  'supplierCode',
+  'costPricePence',
 ] as const;
 
 const numberOrNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : Number(value));
@@ -52,6 +55,9 @@ function prepare(values: Record<string, string | undefined>) {
     testMethod: values.testMethod ?? '',
     shelfLifeMonths: numberOrNull(values.shelfLifeMonths),
     hazardNotes: values.hazardNotes ?? '',
+    ...(values.minShelfLifeDays?.trim() ? { minShelfLifeDays: Number(values.minShelfLifeDays) } : {}),
+    supplierCode: values.supplierCode ?? '',
+    costPricePence: numberOrNull(values.costPricePence),
     // Only a cleaner shows the field; for other kinds it is left out and keeps what is stored.
     ...(values.minCirculationMinutes === undefined
       ? {}
@@ -240,6 +246,36 @@ export function ProductForm({ product, onSaved }: { product?: Product; onSaved?:
             error={form.fieldErrors.minCirculationMinutes}
           />
         ) : null}
+        <TextField
+          label="Minimum remaining life at receiving (days)"
+          name="minShelfLifeDays"
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          hint="A delivered lot with less use left asks for a confirm. 90 days unless you change it."
+          defaultValue={str(product?.minShelfLifeDays ?? 90)}
+          error={form.fieldErrors.minShelfLifeDays}
+        />
+        <TextField
+          label="Supplier code (optional)"
+          name="supplierCode"
+          maxLength={60}
+          autoComplete="off"
+          defaultValue={product?.supplierCode ?? ''}
+          error={form.fieldErrors.supplierCode}
+        />
+        <TextField
+          label="Cost price per pack, in pence (optional)"
+          name="costPricePence"
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          hint="Whole pence: 1250 is £12.50. The reorder list adds it up."
+          defaultValue={str(product?.costPricePence)}
+          error={form.fieldErrors.costPricePence}
+        />
       </div>
       <TextareaField
         label="Hazard notes"

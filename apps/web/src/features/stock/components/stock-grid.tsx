@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { stockHealthLabels, type StockCell } from '@heatfleet/domain';
+import { formatPackSize, formatPacks, stockHealthLabels, type StockCell } from '@heatfleet/domain';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { stockQueries } from '@/features/stock/api/stock-queries';
@@ -74,13 +74,16 @@ export function StockGridView() {
                   className="sticky left-0 z-[1] max-w-36 bg-card min-w-28 px-2 py-1 text-sm font-semibold hyphens-auto [overflow-wrap:break-word] sm:max-w-none"
                 >
                   {product.name}
+                  <span className="block text-xs font-normal text-ink-muted">
+                    packs of {formatPackSize(product.packSizeMl)}
+                  </span>
                 </th>
                 {locations.map((place) => {
                   const cell = cells.get(`${place.id}:${product.id}`);
                   const health = cell?.health ?? 'no_par';
                   const usable = cell?.usable ?? 0;
                   const isSelected = selected?.locationId === place.id && selected.productId === product.id;
-                  const label = `${product.name} at ${place.name}: ${usable} usable, ${stockHealthLabels[health]}${cell?.par ? `, minimum ${cell.par.minimum}, target ${cell.par.target}` : ''}${cell?.expired ? `, ${cell.expired} expired` : ''}`;
+                  const label = `${product.name} at ${place.name}: ${formatPacks(usable, product.packSizeMl)} usable, ${stockHealthLabels[health]}${cell?.need ? `, minimum ${cell.need.minimum}, target ${cell.need.target}` : ''}${cell?.booked ? `, ${cell.booked} booked` : ''}${cell?.expired ? `, ${cell.expired} expired` : ''}`;
                   return (
                     <td key={place.id} className="px-1 py-1">
                       <button
@@ -96,7 +99,8 @@ export function StockGridView() {
                           </span>
                           {usable}
                         </span>
-                        {cell?.par ? <span className="text-xs font-normal">of {cell.par.target}</span> : null}
+                        {cell?.need ? <span className="text-xs font-normal">of {cell.need.target}</span> : null}
+                        {cell?.booked ? <span className="text-xs font-normal">{cell.booked} booked</span> : null}
                         {cell?.expired ? <span className="text-xs font-normal">+{cell.expired} expired</span> : null}
                       </button>
                     </td>
