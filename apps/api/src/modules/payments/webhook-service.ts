@@ -1,5 +1,6 @@
 import type Stripe from 'stripe';
 import type { AppDeps } from '../../app-deps.ts';
+import { withTransactionRetry } from '../../db/with-retry.ts';
 import { HttpError } from '../../lib/http-error.ts';
 import { applyBillingEvent, prepareBillingEvent } from '../billing/billing-events.ts';
 import { callPaymentService, paymentClient } from './payment-client.ts';
@@ -36,15 +37,17 @@ export async function receiveWebhook(
       prepareBillingEvent(deps, stripe, event),
     );
     if (!prepared) return { received: true, applied: false };
-    const emails = await deps.db.transaction(async (trx) => {
-      const fresh = await insertEventOnce(trx, {
-        firm_id: prepared.row.firm_id,
-        event_id: event.id,
-        type: event.type,
-        received_at: now,
-      });
-      return fresh ? applyBillingEvent(deps, trx, prepared, now) : null;
-    });
+    const emails = await withTransactionRetry(() =>
+      deps.db.transaction(async (trx) => {
+        const fresh = await insertEventOnce(trx, {
+          firm_id: prepared.row.firm_id,
+          event_id: event.id,
+          type: event.type,
+          received_at: now,
+        });
+        return fresh ? applyBillingEvent(deps, trx, prepared, now) : null;
+      }),
+    );
     if (emails === null) return { received: true, applied: false };
     if (emails.length > 0) await deps.mailQueue.notify(emails);
     return { received: true, applied: true };
@@ -53,21 +56,24 @@ export async function receiveWebhook(
   const account = await findPaymentAccountByProviderId(deps.db, event.account);
   if (!account) return { received: true, applied: false };
   const firmId = account.firm_id;
-  const applied = await deps.db.transaction(async (trx) => {
-    if (!(await insertEventOnce(trx, { firm_id: firmId, event_id: event.id, type: event.type, received_at: now }))) {
-      return false;
-    }
-    if (event.type === 'account.updated') {
-      const object = event.data.object;
-      await setPaymentAccountStatus(
-        trx,
-        firmId,
-        { chargesEnabled: object.charges_enabled, detailsSubmitted: object.details_submitted },
-        now,
-      );
-      return true;
-    }
-    return applyPaymentEvent(trx, firmId, event, now);
-  });
+  // The service sends a payment's events together: two may lock the same payment at once (a deadlock is retried).
+  const applied = await withTransactionRetry(() =>
+    deps.db.transaction(async (trx) => {
+      if (!(await insertEventOnce(trx, { firm_id: firmId, event_id: event.id, type: event.type, received_at: now }))) {
+        return false;
+      }
+      if (event.type === 'account.updated') {
+        const object = event.data.object;
+        await setPaymentAccountStatus(
+          trx,
+          firmId,
+          { chargesEnabled: object.charges_enabled, detailsSubmitted: object.details_submitted },
+          now,
+        );
+        return true;
+      }
+      return applyPaymentEvent(trx, firmId, event, now);
+    }),
+  );
   return { received: true, applied };
 }
