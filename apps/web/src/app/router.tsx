@@ -95,6 +95,10 @@ export const router = createBrowserRouter([
             lazy: () => import('@/app/routes/reminders/reminders-page').then((m) => ({ Component: m.RemindersPage })),
           },
           {
+            path: paths.vibration.path,
+            lazy: () => import('@/app/routes/vibration/vibration-page').then((m) => ({ Component: m.VibrationPage })),
+          },
+          {
             path: paths.jobs.path,
             lazy: () => import('@/app/routes/jobs/jobs-page').then((m) => ({ Component: m.JobsPage })),
           },

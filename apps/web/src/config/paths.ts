@@ -35,6 +35,7 @@ export const paths = {
       'kitId' in of ? `/labels?kitId=${of.kitId}` : `/labels?ids=${of.ids.join(',')}`,
   },
   reminders: { path: '/reminders', getHref: () => '/reminders' },
+  vibration: { path: '/vibration', getHref: () => '/vibration' },
   stock: { path: '/stock', getHref: () => '/stock' },
   products: { path: '/stock/products', getHref: () => '/stock/products' },
   product: { path: '/stock/products/:id', getHref: (id: number) => `/stock/products/${id}` },

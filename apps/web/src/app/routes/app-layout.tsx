@@ -173,6 +173,10 @@ function SignedInHeader({ me }: { me: Me }) {
             <Can I="read" a="Member">
               <NavItem to={paths.team.getHref()}>Team</NavItem>
             </Can>
+            {/* The vibration register is for those who run the firm, as its API route (Owner, Admin). */}
+            <Can I="update" a="Firm">
+              <NavItem to={paths.vibration.getHref()}>Vibration</NavItem>
+            </Can>
             {showSettings ? <NavItem to={paths.settings.getHref()}>Settings</NavItem> : null}
             {showOutbox ? <NavItem to={paths.outbox.getHref()}>Outbox</NavItem> : null}
           </ul>
