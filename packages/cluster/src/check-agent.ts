@@ -9,7 +9,9 @@ export const createMonitorUserSql = `
 CREATE USER IF NOT EXISTS '${monitorUser.user}'@'127.0.0.1' IDENTIFIED BY '${monitorUser.password}';
 GRANT USAGE ON *.* TO '${monitorUser.user}'@'127.0.0.1';`;
 
-const checkTimeoutMs = 1_500;
+// Longer than a commit stall: while a frozen node is suspected (evs.suspect_timeout, 5 s) the cluster pauses, and a
+// check that failed then would move the writes off a healthy node. A node that is gone refuses the connection at once.
+const checkTimeoutMs = 6_000;
 
 async function nodeState(node: GaleraNode): Promise<{ synced: boolean; detail: string }> {
   const connection = await createConnection({
@@ -38,7 +40,7 @@ async function nodeState(node: GaleraNode): Promise<{ synced: boolean; detail: s
 
 /**
  * A node's check for HAProxy (as Galera's clustercheck does): 200 only while the node is Synced (wsrep_local_state
- * 4) in the Primary component and ready; 503 while it joins, donates, is cut off, or does not answer within 1.5 s.
+ * 4) in the Primary component and ready; 503 while it joins, donates, is cut off, or does not answer within 6 s.
  * A TCP check or HAProxy's mysql-check would pass a node that is up but not in the cluster.
  */
 export function startCheckAgent(node: GaleraNode): Promise<Server> {
@@ -50,7 +52,7 @@ export function startCheckAgent(node: GaleraNode): Promise<Server> {
       res.writeHead(code, { 'content-type': 'text/plain', connection: 'close' });
       res.end(`${node.name}: ${text}\n`);
     };
-    const timer = setTimeout(() => answer(503, 'no answer within 1.5 s'), checkTimeoutMs + 200);
+    const timer = setTimeout(() => answer(503, `no answer within ${checkTimeoutMs / 1000} s`), checkTimeoutMs + 200);
     nodeState(node)
       .then((s) => answer(s.synced ? 200 : 503, `${s.synced ? 'synced' : 'not synced'} ${s.detail}`))
       .catch((err: unknown) => answer(503, `unreachable (${err instanceof Error ? err.message : String(err)})`))

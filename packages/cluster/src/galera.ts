@@ -131,6 +131,41 @@ export async function isSynced(node: GaleraNode): Promise<boolean> {
   }
 }
 
+function serverArgs(node: GaleraNode): string[] {
+  return [
+    '--no-defaults',
+    `--datadir=${node.dataDir}`,
+    `--socket=${mariadbSocket(node)}`,
+    `--port=${node.sqlPort}`,
+    '--bind-address=127.0.0.1',
+    `--pid-file=${join(node.dataDir, 'mariadbd.pid')}`,
+    `--log-error=${mariadbErrorLog(node)}`,
+    `--character-set-server=${databaseCharset}`,
+    `--collation-server=${databaseCollation}`,
+    '--default-time-zone=+00:00',
+    '--skip-name-resolve',
+    ...nodeArgs(node),
+  ];
+}
+
+/**
+ * After a crash (kill -9) grastate.dat holds seqno -1: the node does not know how far it got, and would ask for a
+ * full copy (SST). Recovering the position from InnoDB first, as Debian's galera_recovery does, lets it ask for
+ * only the write sets it missed (IST) from a donor's gcache.
+ */
+async function recoverPosition(node: GaleraNode): Promise<string | null> {
+  const state = grastate(node);
+  if (state === null || state.seqno !== -1) return null;
+  const log = join(node.dataDir, 'wsrep-recover.log');
+  rmSync(log, { force: true });
+  const args = serverArgs(node).map((arg) => (arg.startsWith('--log-error=') ? `--log-error=${log}` : arg));
+  await capture(findExecutable('mariadbd'), [...args, '--wsrep-recover'], { timeoutMs: 120_000 });
+  if (!existsSync(log)) return null;
+  const text = readFileSync(log, 'utf8');
+  const found = [...text.matchAll(/WSREP: Recovered position: ([0-9a-f-]{36}:-?\d+)/g)].pop();
+  return found?.[1] ?? null;
+}
+
 /** Starts one node: a new cluster from it (bootstrap), or joining the running ones; waits until it is Synced. */
 export async function startNode(node: GaleraNode, options: { bootstrap: boolean }): Promise<{ ms: number }> {
   const began = Date.now();
@@ -138,21 +173,12 @@ export async function startNode(node: GaleraNode, options: { bootstrap: boolean 
   await chownToMysql(node.dataDir);
   // Spawned here, not by devstack's startMariadb: that one passes --user=root first, and the rsync state transfer
   // takes the first --user it finds among the server's arguments.
+  const position = await recoverPosition(node);
   const child = spawn(
     findExecutable('mariadbd'),
     [
-      '--no-defaults',
-      `--datadir=${node.dataDir}`,
-      `--socket=${mariadbSocket(node)}`,
-      `--port=${node.sqlPort}`,
-      '--bind-address=127.0.0.1',
-      `--pid-file=${join(node.dataDir, 'mariadbd.pid')}`,
-      `--log-error=${mariadbErrorLog(node)}`,
-      `--character-set-server=${databaseCharset}`,
-      `--collation-server=${databaseCollation}`,
-      '--default-time-zone=+00:00',
-      '--skip-name-resolve',
-      ...nodeArgs(node),
+      ...serverArgs(node),
+      ...(position !== null ? [`--wsrep-start-position=${position}`] : []),
       ...(options.bootstrap ? ['--wsrep-new-cluster'] : []),
     ],
     { detached: true, stdio: 'ignore' },

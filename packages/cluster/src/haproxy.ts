@@ -7,7 +7,7 @@ import { cluster } from './cluster-profile.ts';
  * One HAProxy, two jobs. SQL: every connection to one Galera node, the others backups, judged by each node's check
  * agent, because a row lock (SELECT ... FOR UPDATE, which keeps stock from going below zero) holds only on the node
  * that took it. The API: round robin over the replicas, judged by GET /api/health (200 only when the replica
- * reaches the database). Check every second; 2 failures take a server out, 3 successes put it back.
+ * reaches the database). Check every second; 3 failures in a row take a server out, 2 successes put it back.
  */
 export function haproxyConfig(): string {
   const [first, ...others] = cluster.galera;
@@ -26,7 +26,8 @@ defaults
   # A pooled database connection may sit idle for a long time: the pool, not the proxy, decides when it goes.
   timeout client 1h
   timeout server 1h
-  default-server inter 1s fall 2 rise 3
+  default-server inter 1s fall 3 rise 2
+  timeout check 7s
 
 frontend galera_writer
   mode tcp

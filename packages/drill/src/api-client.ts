@@ -18,6 +18,11 @@ export class ApiClient {
     readonly label: string,
   ) {}
 
+  /** The session cookie (name=value), for a load tool that should act as this person. */
+  get sessionCookie(): string {
+    return this.cookie;
+  }
+
   private remember(response: Response): void {
     for (const line of response.headers.getSetCookie()) {
       const pair = line.split(';')[0] ?? '';

@@ -76,8 +76,15 @@ export interface BalanceCheck {
   mismatched: string[];
 }
 
-/** Every balance row against the sum of its ledger, for every firm. */
+/**
+ * Every balance row against the sum of its ledger, for every firm. Both are read in one transaction (one InnoDB
+ * snapshot), so a write landing between the two reads under load is not taken for a mismatch.
+ */
 export async function checkBalances(db: Knex): Promise<BalanceCheck> {
+  return db.transaction((trx) => readBalances(trx));
+}
+
+async function readBalances(db: Knex.Transaction): Promise<BalanceCheck> {
   const balances = (await db('stock_balances').select('firm_id', 'location_id', 'batch_id', 'quantity')) as {
     firm_id: number;
     location_id: number;

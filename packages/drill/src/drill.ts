@@ -6,6 +6,7 @@ import { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import { repoRoot } from '@heatfleet/devstack/src/repo-root.ts';
 import { ApiClient } from './api-client.ts';
 import { checkAcks, checkBalances, connectDatabase, emailStates } from './checks.ts';
+import { runClusterDrill } from './cluster-run.ts';
 import { check, renderTable, type DrillResult } from './drill-report.ts';
 import { DrillStack, profile } from './drill-stack.ts';
 import {
@@ -18,11 +19,12 @@ import {
 } from './drills.ts';
 import { answered, SteadyLoad } from './steady-load.ts';
 
-// npm run drill [-- --quick]: the full outages of issue 6, or short ones for development.
+// npm run drill [-- --quick | --cluster]: the full outages of issue 6, short ones for development, or the
+// cluster's (packages/cluster: Galera, HAProxy, API replicas, Redis Sentinel).
 const argv = process.argv.slice(2);
-const unknown = argv.filter((arg) => arg !== '--quick');
-if (unknown.length > 0) {
-  process.stderr.write(`Unknown option ${unknown.join(' ')}. Usage: npm run drill [-- --quick]\n`);
+const unknown = argv.filter((arg) => arg !== '--quick' && arg !== '--cluster');
+if (unknown.length > 0 || argv.length > 1) {
+  process.stderr.write(`Unknown option ${argv.join(' ')}. Usage: npm run drill [-- --quick | --cluster]\n`);
   process.exit(2);
 }
 const mode = argv.includes('--quick') ? 'quick' : 'full';
@@ -167,7 +169,8 @@ async function main(): Promise<void> {
   await life.shutdown(failed.length === 0 ? 0 : 1);
 }
 
-main().catch((error: unknown) => {
+const run = argv.includes('--cluster') ? () => runClusterDrill(life, say, began) : main;
+run().catch((error: unknown) => {
   if (life.stopping) return;
   void life.shutdown(
     1,
