@@ -21,7 +21,7 @@ describe('invoices', () => {
     expect(list.body.invoices).toHaveLength(1);
     const inv = (await m.owner.get(`/api/invoices/${list.body.invoices[0].id}`)).body;
     expect(inv.status).toBe('issued');
-    expect(inv.number).toBe('INV-00001');
+    expect(inv.number).toBe('INV-00002');
     expect(inv.vatNumber).toBe(VAT_NUMBER);
     expect(inv.firmName).toBe(m.firm.firmName);
     expect(inv.customerName).toContain('inv-complete customer');
@@ -44,7 +44,7 @@ describe('invoices', () => {
     expect([inv.netPence, inv.vatPence, inv.totalPence]).toEqual([19_499, 3_900, 23_399]);
     expect(inv.duePence).toBe(23_399);
     const email = await t.deps.db('emails').where({ firm_id: m.firm.firmId, purpose: 'invoice' }).first();
-    expect(email.subject).toContain('INV-00001');
+    expect(email.subject).toContain('INV-00002');
     expect(email.text_body).toMatch(/\/pay\/[A-Za-z0-9_-]{40,}/);
     expect(email.attachment_key).toMatch(/invoices\/invoice-/);
     const pdf = await m.owner.get(`/api/invoices/${inv.id}/invoice.pdf`);
@@ -72,9 +72,9 @@ describe('invoices', () => {
       lines: [{ invoiceLineId: cleaner.id, quantity: 1 }],
     });
     expect(credit.status).toBe(201);
-    expect(credit.body.creditNotes).toHaveLength(1);
+    expect(credit.body.creditNotes).toHaveLength(1); // the seeded CN-00001 is on another invoice
     expect(credit.body.creditNotes[0]).toMatchObject({
-      number: 'CN-00001',
+      number: 'CN-00002',
       netPence: 2_999,
       vatPence: 600,
       totalPence: 3_599,
@@ -93,7 +93,7 @@ describe('invoices', () => {
     // The rest credited: the invoice is credited, nothing due.
     const rest = await m.owner.post(`/api/invoices/${inv.id}/credit-notes`, { reason: 'Job written off' });
     expect(rest.status).toBe(201);
-    expect(rest.body.creditNotes.map((n: { number: string }) => n.number)).toEqual(['CN-00001', 'CN-00002']);
+    expect(rest.body.creditNotes.map((n: { number: string }) => n.number)).toEqual(['CN-00002', 'CN-00003']);
     expect(rest.body.status).toBe('credited');
     expect(rest.body.duePence).toBe(0);
     const pdf = await m.owner.get(`/api/credit-notes/${rest.body.creditNotes[1].id}/credit-note.pdf`);
@@ -134,7 +134,7 @@ describe('invoices', () => {
     expect((await m.owner.post('/api/invoices', { jobId: m.firm.jobId })).status).toBe(409);
     const issued = await m.owner.post(`/api/invoices/${draft.body.id}/issue`);
     expect(issued.status).toBe(200);
-    expect(issued.body).toMatchObject({ status: 'issued', number: 'INV-00001' });
+    expect(issued.body).toMatchObject({ status: 'issued', number: 'INV-00002' });
     // A later completion does not invoice the job again.
     await m.engineer.post(`/api/jobs/${m.firm.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
     expect((await m.owner.get(`/api/invoices?jobId=${m.firm.jobId}`)).body.invoices).toHaveLength(1);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { calendarDateSchema } from '../lib/calendar-date.ts';
+import { signatureInputSchema } from '../jobs/visit-schemas.ts';
 import { optionalPlainText, singleLineName } from '../lib/text.ts';
 import { penceSchema, vatRateBpSchema } from './pence.ts';
 import { bandsProblem, priceItemKinds, priceVisitKinds, visitPricings } from './price-list.ts';
@@ -140,3 +141,9 @@ export const invoiceListQuerySchema = z.strictObject({
 });
 export const jobIdQuerySchema = z.strictObject({ jobId: z.coerce.number().int().positive().optional() });
 export const suggestedLinesSchema = z.object({ lines: z.array(moneyLineInputSchema) });
+
+/** Acceptance taken on the engineer's phone: the customer's name, tick, express request and drawn signature. */
+export const quotePhoneAcceptInputSchema = quoteAcceptInputSchema.extend({
+  imagePngDataUrl: signatureInputSchema.shape.imagePngDataUrl,
+});
+export type QuotePhoneAcceptInput = z.infer<typeof quotePhoneAcceptInputSchema>;
