@@ -1,7 +1,6 @@
 import type { Knex } from 'knex';
 import type { ItemCondition } from '@heatfleet/domain';
 import { toLocationRef } from '../locations/location-dal.ts';
-import { usesSinceInspection } from './kit-use-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -43,11 +42,11 @@ export interface ItemFilter {
 }
 
 /**
- * Items with their kind's rule, kit, location and the inputs of the due computation (last
- * inspection day; check-ins since the last inspection was recorded), in one query.
+ * Items with their kind's rule, kit, location and the inputs of the due computation, in one query. The last
+ * inspection day and the uses since it are columns of the item, kept by the database with every inspection,
+ * check-in and job use (migrations/20261203230810_keep-kit-item-inspection-state.ts), so this is a plain read.
  */
 export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
-  const lastInspection = db('inspections as ins').whereRaw('ins.firm_id = i.firm_id').whereRaw('ins.item_id = i.id');
   const q = db('kit_items as i')
     .join('item_kinds as ik', function joinKind() {
       this.on('ik.id', '=', 'i.kind_id').andOn('ik.firm_id', '=', 'i.firm_id');
@@ -77,8 +76,6 @@ export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
       'l.registration as loc_registration',
       'l.engineer_member_id as loc_engineer_member_id',
       'u.name as loc_engineer_name',
-      lastInspection.clone().max('ins.inspected_on').as('last_inspected_on'),
-      usesSinceInspection(db, lastInspection.clone().max('ins.created_at')),
     )
     .orderBy('i.asset_tag');
   if (filter.ids) q.whereIn('i.id', filter.ids);
@@ -98,6 +95,31 @@ export function selectItems(db: Db, firmId: number, filter: ItemFilter = {}) {
     );
   }
   return q as unknown as Promise<ItemRow[]>;
+}
+
+// The sorts that are columns; the due sort and the inspection-state filter need each item's computed due state.
+const sortColumns = { assetTag: 'i.asset_tag', kind: 'ik.name', kit: 'k.name', location: 'l.name' } as const;
+export type ItemSortColumn = keyof typeof sortColumns;
+
+/** One page of items in SQL (LIMIT/OFFSET over the firm's indexed rows), ties by asset tag, and the total. */
+export async function selectItemPage(
+  db: Db,
+  firmId: number,
+  filter: ItemFilter,
+  page: { sort: ItemSortColumn; dir: 'asc' | 'desc'; limit: number; offset: number },
+): Promise<{ rows: ItemRow[]; total: number }> {
+  const base = selectItems(db, firmId, filter) as unknown as Knex.QueryBuilder;
+  const rowsQuery = base.clone().clearOrder();
+  if (page.sort !== 'assetTag') rowsQuery.orderBy(sortColumns[page.sort], page.dir);
+  rowsQuery
+    .orderBy('i.asset_tag', page.sort === 'assetTag' ? page.dir : 'asc')
+    .limit(page.limit)
+    .offset(page.offset);
+  const [rows, counted] = await Promise.all([
+    rowsQuery as unknown as Promise<ItemRow[]>,
+    base.clone().clearSelect().clearOrder().count({ n: '*' }) as unknown as Promise<{ n: number | string }[]>,
+  ]);
+  return { rows, total: Number(counted[0]?.n ?? 0) };
 }
 
 export function locationRefOf(row: ItemRow) {

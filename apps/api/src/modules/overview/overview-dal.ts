@@ -1,5 +1,4 @@
 import type { Knex } from 'knex';
-import { jobUsesByItem } from '../kits/kit-use-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -42,18 +41,34 @@ export interface ItemDueInputs {
 }
 
 /**
- * The due computation's inputs for every item with an inspection rule. Four flat queries for the whole
- * firm, joined here by id: as one statement with nested derived tables MariaDB re-read them per item
- * and took minutes at 5,000 items. Uses are counted as the kit screens count them: check-ins and
- * uses on completed jobs recorded after the item's last inspection was.
+ * The due computation's inputs for every item with an inspection rule. Three flat queries for the whole firm,
+ * joined here by id (as one statement with derived tables MariaDB re-read them per item). The last inspection day
+ * and the uses since it (check-ins and completed-job uses, as the kit screens count them) are the item's own
+ * columns, kept by the database with every event (migrations/20261203230810_keep-kit-item-inspection-state.ts).
  */
 export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDueInputs[]> {
-  const [items, kinds, places, inspections, uses, jobUses] = await Promise.all([
+  const [items, kinds, places] = await Promise.all([
     db('kit_items')
       .where('firm_id', firmId)
       .whereNot('condition', 'out_of_service')
-      .select('id', 'asset_tag', 'in_service_since', 'kind_id', 'location_id') as Promise<
-      { id: number; asset_tag: string; in_service_since: string; kind_id: number; location_id: number | null }[]
+      .select(
+        'id',
+        'asset_tag',
+        'in_service_since',
+        'kind_id',
+        'location_id',
+        'last_inspected_on',
+        'uses_since_inspection',
+      ) as Promise<
+      {
+        id: number;
+        asset_tag: string;
+        in_service_since: string;
+        kind_id: number;
+        location_id: number | null;
+        last_inspected_on: string | null;
+        uses_since_inspection: number;
+      }[]
     >,
     db('item_kinds')
       .where('firm_id', firmId)
@@ -61,36 +76,11 @@ export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDue
       { id: number; name: string; interval_days: number | null; interval_uses: number | null; due_soon_days: number }[]
     >,
     db('locations').where('firm_id', firmId).select('id', 'name') as Promise<{ id: number; name: string }[]>,
-    db('inspections')
-      .where('firm_id', firmId)
-      .groupBy('item_id')
-      .select('item_id')
-      .max({ last_on: 'inspected_on' }) as Promise<{ item_id: number; last_on: string | null }[]>,
-    db('custody_events as e')
-      .leftJoin(
-        db('inspections')
-          .where('firm_id', firmId)
-          .groupBy('item_id')
-          .select('item_id')
-          .max({ last_at: 'created_at' })
-          .as('li'),
-        'li.item_id',
-        'e.item_id',
-      )
-      .where({ 'e.firm_id': firmId, 'e.action': 'check_in' })
-      .whereRaw("e.created_at > COALESCE(li.last_at, '1970-01-01')")
-      .groupBy('e.item_id')
-      .select('e.item_id')
-      .count({ n: '*' }) as Promise<{ item_id: number; n: number | string }[]>,
-    jobUsesByItem(db, firmId),
   ]);
   const kindById = new Map(
     kinds.filter((k) => k.interval_days !== null || k.interval_uses !== null).map((k) => [k.id, k]),
   );
   const placeById = new Map(places.map((p) => [p.id, p.name]));
-  const lastOn = new Map(inspections.map((r) => [r.item_id, r.last_on]));
-  const usesOf = new Map(uses.map((r) => [r.item_id, Number(r.n)]));
-  for (const r of jobUses) usesOf.set(r.item_id, (usesOf.get(r.item_id) ?? 0) + Number(r.n));
   return items.flatMap((i) => {
     const kind = kindById.get(i.kind_id);
     if (!kind) return [];
@@ -104,8 +94,8 @@ export async function listItemDueInputs(db: Db, firmId: number): Promise<ItemDue
         interval_uses: kind.interval_uses,
         due_soon_days: kind.due_soon_days,
         location_name: i.location_id === null ? null : (placeById.get(i.location_id) ?? null),
-        last_inspected_on: lastOn.get(i.id) ?? null,
-        uses_since_inspection: usesOf.get(i.id) ?? 0,
+        last_inspected_on: i.last_inspected_on,
+        uses_since_inspection: i.uses_since_inspection,
       },
     ];
   });
