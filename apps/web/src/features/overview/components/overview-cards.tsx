@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatPacks, stockHealthLabels, type Overview, type OverviewVan } from '@heatfleet/domain';
 import { Badge } from '@/components/ui/badge';
+import { WindowedList } from '@/components/ui/windowed-list';
 import { paths } from '@/config/paths';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
 
@@ -102,36 +103,38 @@ function VanStockHealth({ stock }: { stock: OverviewVan['stock'] }) {
 }
 
 /** Stock health and MOT or service per van, the vans that need something first. */
+/** Most concerning first; windowed, so 200 vans put only the rows on screen into the page (issue 16). */
 export function VanHealthList({ vans }: { vans: OverviewVan[] }) {
   if (vans.length === 0) return <p className="text-ink-muted">No vans yet.</p>;
   const sorted = [...vans].sort((a, b) => vanConcern(b) - vanConcern(a) || a.name.localeCompare(b.name));
   return (
-    <ul className="divide-y divide-line">
-      {sorted.map((v) => (
-        <li key={v.id}>
-          <Link
-            to={paths.van.getHref(v.id)}
-            className="flex min-h-11 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between"
-          >
-            <span>
-              <span className="font-semibold text-brand-700 underline underline-offset-4">{v.name}</span>
-              <span className="block text-sm text-ink-muted">
-                {[v.registration, v.engineerName ?? 'No engineer'].filter(Boolean).join(' · ')}
-              </span>
+    <WindowedList
+      items={sorted}
+      itemKey={(v) => v.id}
+      estimateRowPx={76}
+      label="Vans, most concerning first"
+      renderItem={(v) => (
+        <Link
+          to={paths.van.getHref(v.id)}
+          className="flex min-h-11 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between"
+        >
+          <span>
+            <span className="font-semibold text-brand-700 underline underline-offset-4">{v.name}</span>
+            <span className="block text-sm text-ink-muted">
+              {[v.registration, v.engineerName ?? 'No engineer'].filter(Boolean).join(' · ')}
             </span>
-            <span className="flex flex-wrap gap-1">
-              <VanStockHealth stock={v.stock} />
-              {v.nextDue && v.nextDue.state !== 'ok' ? (
-                <Badge tone={v.nextDue.state === 'overdue' ? 'danger' : 'warn'}>
-                  {v.nextDue.what} {v.nextDue.state === 'overdue' ? 'overdue' : 'due'}{' '}
-                  {formatCalendarDate(v.nextDue.on)}
-                </Badge>
-              ) : null}
-            </span>
-          </Link>
-        </li>
-      ))}
-    </ul>
+          </span>
+          <span className="flex flex-wrap gap-1">
+            <VanStockHealth stock={v.stock} />
+            {v.nextDue && v.nextDue.state !== 'ok' ? (
+              <Badge tone={v.nextDue.state === 'overdue' ? 'danger' : 'warn'}>
+                {v.nextDue.what} {v.nextDue.state === 'overdue' ? 'overdue' : 'due'} {formatCalendarDate(v.nextDue.on)}
+              </Badge>
+            ) : null}
+          </span>
+        </Link>
+      )}
+    />
   );
 }
 
