@@ -116,6 +116,8 @@ const allowed: Record<string, Role[]> = {
   'GET /sites/:id': everyone,
   // The probe's product is a cleaner, so anyone allowed gets 422 (not an inhibitor); sites.test.ts records real checks.
   'POST /sites/:id/checks': everyone,
+  // Health surveillance is arranged by those who run the firm (Control of Vibration at Work Regulations 2005, reg. 7).
+  'GET /vibration/register': managers,
 };
 
 let t: TestApp;

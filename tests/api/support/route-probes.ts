@@ -184,6 +184,7 @@ const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'POST /stock/restock-run': (f) => ({ depotId: String(f.depotId) }),
   'GET /stock/reorder-list.csv': (f) => ({ depotId: String(f.depotId) }),
   'GET /stock/booked-jobs-short': (f) => ({ engineerMemberId: String(f.people.engineer.memberId) }),
+  'GET /vibration/register': () => ({ weeks: '4' }),
 };
 
 export function probeQuery(route: RouteDefinition, firm: SeededFirm): string {

@@ -3,7 +3,6 @@ import { useLocation } from 'react-router-dom';
 import { checkInInputSchema, itemConditionLabels, type KitItem } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { SelectField } from '@/components/ui/select-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
@@ -21,6 +20,7 @@ import {
 import {
   CheckInItems,
   checkInItems,
+  DepotSelect,
   initialItemStates,
   type CheckInItemState,
 } from '@/features/kits/components/check-in-items';
@@ -107,13 +107,7 @@ export function CheckInForm({ targets, depots, items, onDone, onCancel }: CheckI
     >
       <ScopeChoice targets={targets} scope={scope} onChange={(next) => setExtra((was) => ({ ...was, scope: next }))} />
       {depots.length > 1 ? (
-        <SelectField
-          label="Back to depot"
-          name="toLocationId"
-          defaultValue={String(depots[0]!.id)}
-          options={depots.map((d) => ({ value: String(d.id), label: d.name }))}
-          error={form.fieldErrors.toLocationId}
-        />
+        <DepotSelect depots={depots} error={form.fieldErrors.toLocationId} />
       ) : depots[0] ? (
         <p>
           <span className="font-semibold">Back to depot: </span>

@@ -86,3 +86,33 @@ export function CheckInItems({
     </fieldset>
   );
 }
+
+/** Which depot the kit comes back to (the first unless changed), a 48 px target on a phone. */
+export function DepotSelect({ depots, error }: { depots: { id: number; name: string }[]; error?: string | undefined }) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor="check-in-depot" className="font-semibold">
+        Back to depot
+      </label>
+      <select
+        id="check-in-depot"
+        name="toLocationId"
+        defaultValue={String(depots[0]?.id ?? '')}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? 'check-in-depot-error' : undefined}
+        className={`min-h-12 w-full rounded-md border bg-card px-3 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
+      >
+        {depots.map((d) => (
+          <option key={d.id} value={String(d.id)}>
+            {d.name}
+          </option>
+        ))}
+      </select>
+      {error ? (
+        <p id="check-in-depot-error" className="text-sm font-semibold text-danger-700">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
