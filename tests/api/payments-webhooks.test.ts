@@ -70,7 +70,7 @@ describe('payment webhooks', () => {
     const real = stack.fake.state.events.find((e) => e.type === 'payment_intent.succeeded')!;
     const forged = structuredClone(real);
     forged.id = 'evt_forged_one';
-    (forged.data.object as { metadata: Record<string, string> }).metadata.invoiceId = String(invoiceId);
+    (forged.data.object as unknown as { metadata: Record<string, string> }).metadata.invoiceId = String(invoiceId);
     const original = JSON.stringify(real);
     const tampered = JSON.stringify(forged);
     const send = (body: string, header: string) =>

@@ -45,6 +45,10 @@ export const router = createBrowserRouter([
           })),
       },
       {
+        path: paths.pay.path,
+        lazy: () => import('@/app/routes/payments/pay-page').then((m) => ({ Component: m.PayPage })),
+      },
+      {
         path: paths.unsubscribe.path,
         lazy: () => import('@/app/routes/unsubscribe/unsubscribe-page').then((m) => ({ Component: m.UnsubscribePage })),
       },
@@ -125,6 +129,20 @@ export const router = createBrowserRouter([
           {
             path: paths.site.path,
             lazy: () => import('@/app/routes/sites/site-page').then((m) => ({ Component: m.SitePage })),
+          },
+          {
+            path: paths.paymentSettings.path,
+            lazy: () =>
+              import('@/app/routes/payments/payment-settings-page').then((m) => ({ Component: m.PaymentSettingsPage })),
+          },
+          {
+            path: paths.invoicePayment.path,
+            lazy: () =>
+              import('@/app/routes/payments/invoice-payment-page').then((m) => ({ Component: m.InvoicePaymentPage })),
+          },
+          {
+            path: paths.billing.path,
+            lazy: () => import('@/app/routes/billing/billing-page').then((m) => ({ Component: m.BillingPage })),
           },
           {
             path: paths.settings.path,

@@ -48,6 +48,13 @@ export const paths = {
   restockRun: { path: '/stock/restock-run', getHref: () => '/stock/restock-run' },
   reorderList: { path: '/stock/reorder-list', getHref: () => '/stock/reorder-list' },
   settings: { path: '/settings', getHref: () => '/settings' },
+  /** The payment service's onboarding returns here (the API builds the same URL). */
+  paymentSettings: { path: '/settings/payments', getHref: () => '/settings/payments' },
+  /** The customer's pay link in the invoice e-mail and the doorstep QR code (the API builds the same URL). */
+  pay: { path: '/pay/:token', getHref: (token: string) => `/pay/${encodeURIComponent(token)}` },
+  invoicePayment: { path: '/invoices/:id/payment', getHref: (id: number) => `/invoices/${id}/payment` },
+  /** The payment service's card page returns here (the API builds the same URL). */
+  billing: { path: '/billing', getHref: () => '/billing' },
   jobs: { path: '/jobs', getHref: () => '/jobs' },
   newJob: { path: '/jobs/new', getHref: () => '/jobs/new' },
   job: { path: '/jobs/:id', getHref: (id: number) => `/jobs/${id}` },

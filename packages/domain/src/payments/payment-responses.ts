@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { invoiceStates } from '../money/invoice-state.ts';
 import { SUBSCRIPTION_GRACE_DAYS } from './payment-schemas.ts';
 
 export const paymentStatuses = ['pending', 'succeeded', 'failed', 'expired'] as const;
@@ -28,6 +29,15 @@ export type Payment = z.infer<typeof paymentSchema>;
 
 export const invoicePaymentsResponseSchema = z.object({
   invoiceId: z.number(),
+  /** The invoice's money as its own record holds it (the state follows payments and refunds). */
+  invoice: z.object({
+    number: z.string().nullable(),
+    customerName: z.string(),
+    status: z.enum(invoiceStates),
+    totalPence: z.number(),
+    paidPence: z.number(),
+    duePence: z.number(),
+  }),
   payments: z.array(paymentSchema),
   /** Whether the firm's payment account takes cards yet (the pay QR needs it). */
   cardPaymentsReady: z.boolean(),

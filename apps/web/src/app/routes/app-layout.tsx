@@ -13,6 +13,7 @@ import { changesText } from '@/lib/offline/outbox-actions';
 import { sendOutbox } from '@/lib/offline/outbox-sender';
 import { RequireSession, sessionQueries } from '@/lib/auth';
 import { useSignOut } from '@/features/auth/api/use-sign-out';
+import { ReadOnlyBanner } from '@/features/billing/components/read-only-banner';
 import { FirmSwitcher } from '@/features/firms/components/firm-switcher';
 import { outboxQueries } from '@/features/outbox/api/outbox-queries';
 import { vanQueries } from '@/features/vans/api/van-queries';
@@ -178,6 +179,9 @@ function SignedInHeader({ me }: { me: Me }) {
               <NavItem to={paths.vibration.getHref()}>Vibration</NavItem>
             </Can>
             {showSettings ? <NavItem to={paths.settings.getHref()}>Settings</NavItem> : null}
+            <Can I="read" a="Billing">
+              <NavItem to={paths.billing.getHref()}>Billing</NavItem>
+            </Can>
             {showOutbox ? <NavItem to={paths.outbox.getHref()}>Outbox</NavItem> : null}
           </ul>
         </nav>
@@ -206,6 +210,7 @@ export function AppLayout() {
             <SkipLink />
             <SignedInHeader me={me} />
             <OfflineStatus me={me} />
+            <ReadOnlyBanner timeZone={me.activeFirm.timeZone} />
             <Main />
           </div>
         </MemberAbilityProvider>

@@ -1,4 +1,6 @@
+import { Link } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
+import { paths } from '@/config/paths';
 import { PageHeader } from '@/components/ui/page-header';
 import { Can } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
@@ -20,6 +22,16 @@ export function SettingsPage() {
             description="Name, address, time zone, units and the cold-bottom threshold of the radiator log."
           >
             <FirmSettingsForm />
+          </Card>
+        </Can>
+        <Can I="read" a="PaymentAccount">
+          <Card title="Card payments" description="The firm's own account for customers' card payments.">
+            <Link
+              to={paths.paymentSettings.getHref()}
+              className="inline-flex min-h-12 items-center font-semibold text-brand-700 underline"
+            >
+              Payment account
+            </Link>
           </Card>
         </Can>
         <Can I="update" a="ReminderSettings">
