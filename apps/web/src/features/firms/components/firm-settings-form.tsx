@@ -29,6 +29,7 @@ const fields = [
   'phone',
   'email',
   'registrationNumbers',
+  'restockDays',
   ...heatExchangerFieldNames,
 ] as const;
 
@@ -43,6 +44,7 @@ function prepare(values: Record<string, string | undefined>) {
     email: values.email ?? '',
     registrationNumbers: values.registrationNumbers ?? '',
     heatExchangerDefaults: heatExchangerInput(values),
+    restockDays: values.restockDays?.trim() ? Number(values.restockDays) : undefined,
   };
 }
 
@@ -148,6 +150,19 @@ function Form({ firm }: { firm: FirmSettings }) {
         defaultValue={String(firm.coldBottomThresholdK)}
         hint={`A radiator is flagged for sludge when its top is warmer than its bottom by more than this (${COLD_BOTTOM_THRESHOLD_MIN_K} to ${COLD_BOTTOM_THRESHOLD_MAX_K} K; 10 K is common practice).`}
         error={form.fieldErrors.coldBottomThresholdK}
+        className="sm:max-w-xs"
+      />
+      <TextField
+        label="Restock for booked jobs (days ahead)"
+        name="restockDays"
+        type="number"
+        inputMode="numeric"
+        min={1}
+        max={60}
+        step={1}
+        defaultValue={String(firm.restockDays)}
+        hint="The restock run fills each van for its booked jobs of this many days (today included), keeping its minimum."
+        error={form.fieldErrors.restockDays}
         className="sm:max-w-xs"
       />
       <HeatExchangerFields

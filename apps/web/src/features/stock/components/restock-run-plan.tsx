@@ -46,10 +46,20 @@ function reviewedTransfers(lines: RestockRunLine[], review: Record<string, Revie
   });
 }
 
-function Review({ run, canApply }: { run: RestockRun; canApply: boolean }) {
-  const apply = useApplyRestockRun();
+type Apply = ReturnType<typeof useApplyRestockRun>;
+
+function Review({
+  run,
+  canApply,
+  apply,
+  setApplied,
+}: {
+  run: RestockRun;
+  canApply: boolean;
+  apply: Apply;
+  setApplied: (message: string | null) => void;
+}) {
   const idempotency = useIdempotencyKey();
-  const [applied, setApplied] = useState<string | null>(null);
   const [review, setReview] = useState<Record<string, Reviewed>>(() =>
     Object.fromEntries(run.lines.map((l) => [lineKey(l), { packs: String(suggestedPacks(l)), dropped: false }])),
   );
@@ -67,12 +77,6 @@ function Review({ run, canApply }: { run: RestockRun; canApply: boolean }) {
       <p className="hidden print:block">
         Pick list from {depot.name}, {formatCalendarDate(today)}
       </p>
-      {applied ? <Alert tone="success">{applied}</Alert> : null}
-      {apply.error ? (
-        <Alert tone="error" title="Nothing was moved.">
-          {apply.error.message}
-        </Alert>
-      ) : null}
       <p className="print:hidden">
         From <strong>{depot.name}</strong>, first expiry first. Each van is filled to its target, or to what its booked
         jobs of the next {run.restockDays} days need plus its minimum if that is more. Change or drop any line, then
@@ -155,9 +159,25 @@ function Review({ run, canApply }: { run: RestockRun; canApply: boolean }) {
  */
 export function RestockRunPlan({ canApply }: { canApply: boolean }) {
   const run = useQuery(stockQueries.restockRun());
+  // Kept here, above the review: applying recomputes the run, which starts a fresh review.
+  const apply = useApplyRestockRun();
+  const [applied, setApplied] = useState<string | null>(null);
   if (run.isPending) return <PageSpinner label="Working out the restock run…" />;
   if (run.isError) return <QueryErrorNotice error={run.error} onRetry={() => void run.refetch()} />;
-  if (run.data.lines.length === 0) return <Alert tone="success">Every van holds what it needs. Nothing to pick.</Alert>;
-  // A fresh review each time the run is recomputed (after applying, or stock moving).
-  return <Review key={run.dataUpdatedAt} run={run.data} canApply={canApply} />;
+  return (
+    <div className="space-y-4">
+      {applied ? <Alert tone="success">{applied}</Alert> : null}
+      {apply.error ? (
+        <Alert tone="error" title="Nothing was moved.">
+          {apply.error.message}
+        </Alert>
+      ) : null}
+      {run.data.lines.length === 0 ? (
+        <Alert tone="success">Every van holds what it needs. Nothing to pick.</Alert>
+      ) : (
+        // A fresh review each time the run is recomputed (after applying, or stock moving).
+        <Review key={run.dataUpdatedAt} run={run.data} canApply={canApply} apply={apply} setApplied={setApplied} />
+      )}
+    </div>
+  );
 }
