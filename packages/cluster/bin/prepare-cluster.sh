@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # What `npm run cluster` and `npm run drill -- --cluster` need beyond `npm start`'s set-up: HAProxy and rsync
-# (Galera's state transfer) from Debian. galera-4 comes with mariadb-server; Sentinel is redis-server --sentinel.
+# (Galera's state transfer) and mariadb-backup (backups) from Debian. galera-4 comes with mariadb-server; Sentinel is redis-server --sentinel.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/../../.."
 bash packages/devstack/bin/prepare.sh
@@ -9,6 +9,7 @@ packages=()
 [ -x /usr/sbin/haproxy ] || command -v haproxy >/dev/null 2>&1 || packages+=(haproxy)
 command -v rsync >/dev/null 2>&1 || packages+=(rsync)
 [ -e /usr/lib/galera/libgalera_smm.so ] || packages+=(galera-4)
+command -v mariadb-backup >/dev/null 2>&1 || packages+=(mariadb-backup)
 
 if [ "${#packages[@]}" -gt 0 ]; then
   if [ "$(id -u)" != 0 ]; then
