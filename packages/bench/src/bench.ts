@@ -35,6 +35,7 @@ import {
   type GeneratedDatabase,
 } from './generate-large-firm.ts';
 import { balancesDisagreeingWithLedger } from './large-firm.ts';
+import { restockSimulationFigures } from './restock-simulation.ts';
 import { getJson, load, postJson, round, serialLatency, signIn, type LoadResult, type Session } from './load.ts';
 import { sampleRss } from './rss-sampler.ts';
 
@@ -196,6 +197,14 @@ async function main(): Promise<void> {
   const db = createKnex(benchDatabase);
   const applied = await migrateLatest(db).finally(() => db.destroy());
   if (applied.length > 0) say(`Applied ${applied.length} new migration(s): ${applied.join(', ')}`);
+  // Restock for booked jobs (restock-simulation.ts): the demo firm's year replayed; target 0 jobs starting short.
+  const simDb = createKnex(benchDatabase);
+  const restockSimulation = await restockSimulationFigures(simDb).finally(() => simDb.destroy());
+  say(
+    restockSimulation
+      ? `Restock simulation, ${restockSimulation.jobs} demo jobs: ${restockSimulation.shortStartsBookedJobs} started short of chemical with booked-job restock (target 0), ${restockSimulation.shortStartsParOnly} with par levels alone`
+      : 'Restock simulation: no demo firm in the bench database',
+  );
 
   say('Building the client for production…');
   const buildCode = await runStep(
@@ -513,6 +522,7 @@ async function main(): Promise<void> {
     lighthouse,
     apiRss,
     targets,
+    restockSimulation,
   };
   const file = join(benchStack.resultsDir, `bench-${machineInfo.date.replace(/[:.]/g, '-')}.json`);
   writeFileSync(file, `${JSON.stringify(result, null, 2)}\n`);
