@@ -1,4 +1,4 @@
-import { readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { mariadbSocket, runMariadbSql, startMariadb, stopMariadb } from '@heatfleet/devstack/src/mariadb.ts';
 import { capture, findExecutable } from '@heatfleet/devstack/src/processes.ts';
@@ -35,6 +35,7 @@ async function tableCounts(target: { dataDir: string }): Promise<Map<string, num
 
 async function main(): Promise<void> {
   rmSync(join(cluster.dataDir, 'backup-test'), { recursive: true, force: true });
+  mkdirSync(join(cluster.dataDir, 'backup-test'), { recursive: true });
   // Writes stop for the comparison only: the backup itself runs while the cluster serves (--galera-info records
   // the position; the node desyncs itself for the short lock at the end, so HAProxy's check takes it out meanwhile).
   const backupMs = await step('Backup from db3', 'mariadb-backup', [
@@ -50,7 +51,7 @@ async function main(): Promise<void> {
     `--target-dir=${backupDir}`,
     `--datadir=${restored.dataDir}`,
   ]);
-  const position = readFileSync(join(backupDir, 'mariadb_backup_galera_info'), 'utf8').trim();
+  const position = readFileSync(join(backupDir, 'xtrabackup_galera_info'), 'utf8').trim();
   await startMariadb({ dataDir: restored.dataDir, port: restored.port, timeoutMs: 120_000 });
   try {
     const [fromCluster, fromBackup] = [await tableCounts(source), await tableCounts(restored)];
