@@ -105,10 +105,12 @@ export class WebhookSender {
         return;
       }
       const wait = this.options.retryDelaysMs[delivery.attempts - 1];
-      this.options.log(
-        `webhook ${event.type} ${event.id}: attempt ${delivery.attempts} got ${status ?? 'no answer'}` +
-          (wait === undefined ? ', giving up' : `, retrying in ${wait} ms`),
-      );
+      // Only the last failure is told: while nothing listens (npm test's API-only phase) retries would flood the log.
+      if (wait === undefined) {
+        this.options.log(
+          `webhook ${event.type} ${event.id}: gave up after ${delivery.attempts} attempts (last: ${status ?? 'no answer'})`,
+        );
+      }
       if (wait === undefined || this.closed) return;
       const timer = setTimeout(() => {
         this.timers.delete(timer);
