@@ -116,6 +116,42 @@ const allowed: Record<string, Role[]> = {
   'GET /sites/:id': everyone,
   // The probe's product is a cleaner, so anyone allowed gets 422 (not an inhibitor); sites.test.ts records real checks.
   'POST /sites/:id/checks': everyone,
+  // Money: everyone sees prices, quotes and invoices; engineers make, send and take acceptance of quotes;
+  // prices, invoices, credit notes, the export and the money overview are the Owner's and Admin's.
+  'GET /money/prices': everyone,
+  'PUT /money/settings': managers,
+  'POST /money/price-items': managers,
+  'PUT /price-items/:id': managers,
+  'GET /jobs/:id/price-lines': everyone,
+  'GET /money/export.csv': managers,
+  'GET /money/overview': managers,
+  'GET /invoices': everyone,
+  'POST /invoices': managers,
+  'GET /invoices/:id': everyone,
+  'PUT /invoices/:id/lines': managers,
+  'POST /invoices/:id/issue': managers,
+  'POST /invoices/:id/credit-notes': managers,
+  'GET /invoices/:id/invoice.pdf': everyone,
+  'GET /credit-notes/:id/credit-note.pdf': everyone,
+  'GET /quotes': everyone,
+  'POST /quotes': ['owner', 'admin', 'engineer'],
+  'GET /quotes/:id': everyone,
+  'PUT /quotes/:id': ['owner', 'admin', 'engineer'],
+  'POST /quotes/:id/send': ['owner', 'admin', 'engineer'],
+  'POST /quotes/:id/accept': ['owner', 'admin', 'engineer'],
+  'GET /quotes/:id/quote.pdf': everyone,
+  // Payments: anyone may show the pay QR and see an invoice's payments; Owners and Admins refund and see the payment
+  // account; the Owner connects it and keeps the firm's own subscription (DEVELOPERS.md, Product rules; issue 15).
+  // The probe's firm has no payment account, so the QR answers 409 and its pending payment cannot be refunded (409).
+  'GET /payments/account': managers,
+  'POST /payments/account/onboarding': ['owner'],
+  'GET /invoices/:id/payments': everyone,
+  'POST /invoices/:id/pay-link': everyone,
+  'POST /payments/:id/refunds': managers,
+  'GET /billing': ['owner'],
+  'GET /billing/status': everyone,
+  'POST /billing/card': ['owner'],
+  'POST /billing/pay': ['owner'],
   // Health surveillance is arranged by those who run the firm (Control of Vibration at Work Regulations 2005, reg. 7).
   'GET /vibration/register': managers,
 };

@@ -27,6 +27,8 @@ import { vibrationRoutes } from '../modules/vibration/vibration-router.ts';
 import { paymentRoutes } from '../modules/payments/payment-router.ts';
 import { billingRoutes } from '../modules/billing/billing-router.ts';
 import { invoiceRoutes } from '../modules/money/invoice-router.ts';
+import { quoteRoutes } from '../modules/money/quote-router.ts';
+import { moneyReportRoutes } from '../modules/money/money-report-router.ts';
 import type { RouteDefinition } from './route-registry.ts';
 
 /**
@@ -62,5 +64,7 @@ export const apiRoutes: RouteDefinition[] = [
   ...paymentRoutes,
   ...billingRoutes,
   ...invoiceRoutes,
+  ...quoteRoutes,
+  ...moneyReportRoutes,
   openApiRoute(() => apiRoutes),
 ];

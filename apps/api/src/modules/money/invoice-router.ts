@@ -67,7 +67,7 @@ export const invoiceRoutes: RouteDefinition[] = [
   defineRoute({
     ...base,
     method: 'put',
-    path: '/money/price-items/:id',
+    path: '/price-items/:id',
     summary: 'Change a price (later quotes and invoices use it; issued ones keep theirs) (Owner, Admin)',
     request: { params: idParamSchema, body: priceItemInputSchema },
     responses: { 200: { description: 'Changed', schema: priceItemSchema } },
@@ -78,7 +78,7 @@ export const invoiceRoutes: RouteDefinition[] = [
   defineRoute({
     ...base,
     method: 'get',
-    path: '/money/job-lines/:id',
+    path: '/jobs/:id/price-lines',
     summary:
       "The lines the price list gives a job now: its visit by the survey's radiators, its chemicals (used, or planned) at their sell price",
     request: { params: idParamSchema },
