@@ -1,5 +1,6 @@
 import { useRef, useState } from 'react';
-import { calendarDateIn, recordInspectionInputSchema } from '@heatfleet/domain';
+import { useQuery } from '@tanstack/react-query';
+import { calendarDateIn, electricalTestInputSchema, recordInspectionInputSchema } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -7,8 +8,15 @@ import { TextareaField } from '@/components/ui/textarea-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSchemaForm } from '@/lib/form';
 import { useIdempotencyKey } from '@/lib/idempotency';
+import { itemKindQueries, kitItemQueries } from '@/features/kits/api/kit-queries';
 import { uploadPhoto } from '@/features/kits/api/upload-photo';
 import { useRecordInspection } from '@/features/kits/api/use-record-inspection';
+import {
+  ElectricalTestFields,
+  electricalInput,
+  emptyElectrical,
+  type ElectricalDraft,
+} from '@/features/kits/components/electrical-test-fields';
 import { PhotoField } from '@/features/kits/components/photo-field';
 
 const fields = ['result', 'notes', 'inspectedOn'] as const;
@@ -24,6 +32,13 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
   // Re-rendering the inputs with a new key clears them after a save without a page reload.
   const [formKey, setFormKey] = useState(0);
   const today = calendarDateIn(new Date(), timeZone);
+  // An electrical kind may be given a visual inspection only, or the inspection and test (IET Code of Practice).
+  const item = useQuery(kitItemQueries.detail(itemId));
+  const kinds = useQuery(itemKindQueries.list());
+  const electricalKind = kinds.data?.find((k) => k.id === item.data?.item.kind.id)?.electrical ?? false;
+  const [testing, setTesting] = useState(false);
+  const [electrical, setElectrical] = useState<ElectricalDraft>(emptyElectrical);
+  const [electricalErrors, setElectricalErrors] = useState<Record<string, string>>({});
 
   return (
     <form
@@ -34,6 +49,18 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
       aria-label="Record an inspection"
       onSubmit={form.handleSubmit(async (input) => {
         setSaved(null);
+        let test: ReturnType<typeof electricalTestInputSchema.parse> | undefined;
+        if (electricalKind && testing) {
+          const parsed = electricalTestInputSchema.safeParse(electricalInput(electrical));
+          if (!parsed.success) {
+            setElectricalErrors(
+              Object.fromEntries(parsed.error.issues.map((i) => [`electrical.${i.path.join('.')}`, i.message])),
+            );
+            return;
+          }
+          setElectricalErrors({});
+          test = parsed.data;
+        }
         let photoId: number | undefined;
         if (photo) {
           if (uploaded.current?.file !== photo) {
@@ -49,7 +76,10 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
           }
           photoId = uploaded.current.id;
         }
-        const body = { itemId, input: { ...input, ...(photoId ? { photoId } : {}) } };
+        const body = {
+          itemId,
+          input: { ...input, ...(photoId ? { photoId } : {}), ...(test ? { electrical: test } : {}) },
+        };
         record.mutate(
           { ...body, idempotencyKey: idempotency.keyFor(body) },
           {
@@ -58,10 +88,13 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
               uploaded.current = null;
               setPhoto(null);
               setFormKey((n) => n + 1);
+              setElectrical(emptyElectrical);
               setSaved(
                 inspection.result === 'passed'
                   ? 'Inspection recorded: passed.'
-                  : 'Inspection recorded: failed. The item now needs attention.',
+                  : inspection.electrical?.result === 'fail'
+                    ? 'Inspection recorded: failed. The item is out of service until it is repaired and tested again.'
+                    : 'Inspection recorded: failed. The item now needs attention.',
               );
             },
             onError: form.showError,
@@ -80,6 +113,22 @@ export function InspectionForm({ itemId, timeZone }: { itemId: number; timeZone:
         ]}
         error={form.fieldErrors.result}
       />
+      {electricalKind ? (
+        <ChoiceGroup
+          legend="What was done"
+          name="inspection-kind"
+          columns={2}
+          value={testing ? 'test' : 'visual'}
+          onChange={(v) => setTesting(v === 'test')}
+          options={[
+            { value: 'visual', label: 'Visual inspection', hint: 'Looked over, not tested' },
+            { value: 'test', label: 'Inspection and test', hint: 'Earth, insulation and polarity measured' },
+          ]}
+        />
+      ) : null}
+      {electricalKind && testing ? (
+        <ElectricalTestFields draft={electrical} onChange={setElectrical} errors={electricalErrors} />
+      ) : null}
       <TextField
         label="Inspected on"
         name="inspectedOn"

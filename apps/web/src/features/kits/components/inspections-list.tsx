@@ -25,6 +25,20 @@ export function InspectionsList({
               <span className="font-mono text-sm">{assetTags.get(inspection.itemId)}</span>
             ) : null}
           </p>
+          {inspection.cleanedAtCheckIn ? <p className="mt-1 text-sm">Cleaned after use, ticked at check-in</p> : null}
+          {inspection.electrical ? (
+            <p className="mt-1 text-sm">
+              Electrical test (Class {inspection.electrical.equipmentClass}):{' '}
+              {inspection.electrical.result === 'pass' ? 'passed' : inspection.electrical.failures.join(' ')}
+              {inspection.electrical.earthContinuityOhms !== null
+                ? ` · earth ${inspection.electrical.earthContinuityOhms} Ω (limit ${inspection.electrical.earthLimitOhms} Ω)`
+                : ''}
+              {inspection.electrical.insulationResistanceMohms !== null
+                ? ` · insulation ${inspection.electrical.insulationResistanceMohms} MΩ (min ${inspection.electrical.insulationMinMohms} MΩ)`
+                : ''}
+              {` · tester ${inspection.electrical.testerUsed}, calibrated ${formatCalendarDate(inspection.electrical.testerCalibratedOn)}`}
+            </p>
+          ) : null}
           {inspection.notes ? <p className="mt-1 text-sm whitespace-pre-line">{inspection.notes}</p> : null}
           {inspection.photoId ? (
             <a
