@@ -1,11 +1,17 @@
 import type { Page } from '@playwright/test';
-import type { Movement, OutboxMessage, OutboxMessageSummary, Product, SessionEnvelope } from '@heatfleet/domain';
-import { callApi, openApiSession, type ApiSession } from './support/api-session';
+import type { Movement, Product } from '@heatfleet/domain';
+import { callApi, type ApiSession } from './support/api-session';
 import { firmWithCrew, type Crew } from './support/crew-fixtures';
 import { runId, signIn } from './support/e2e-helpers';
-import { signUpFirm, type Firm, type Person } from './support/firm-fixtures';
 import { expect, test } from './support/fixture-test';
-import { expectSaved, phone, statusLine, storedKeys, waitForServiceWorker } from './support/offline-helpers';
+import {
+  expectSaved,
+  joinSecondFirm,
+  phone,
+  statusLine,
+  storedKeys,
+  waitForServiceWorker,
+} from './support/offline-helpers';
 import { createProduct, isoDaysFromNow, receiveStock, transferStock } from './support/stock-fixtures';
 
 /** A fresh firm whose engineer has `packs` packs of a cleaner of its own on Van 1. */
@@ -113,39 +119,6 @@ test('a sign-out mid-queue sends what waits first and loses nothing; afterwards 
   await expect.poll(() => storedKeys(page, 'query-cache')).toEqual([]);
   expect(await page.evaluate(() => caches.has('heatfleet-api'))).toBe(false);
 });
-
-/** The engineer joins a second firm with the same account, as a person working for two firms would. */
-async function joinSecondFirm(baseURL: string, person: Person): Promise<Firm> {
-  const other = await signUpFirm(baseURL, 'Morwenna Hale');
-  await callApi(other.owner.session, 'post', '/api/invitations', { data: { email: person.email, role: 'engineer' } });
-  // Their first firm's invitation went to the same address: take the one naming this firm.
-  let invitation: OutboxMessageSummary | undefined;
-  await expect
-    .poll(async () => {
-      const { messages } = await callApi<{ messages: OutboxMessageSummary[] }>(
-        other.owner.session,
-        'get',
-        '/api/outbox',
-      );
-      invitation = messages.find((m) => m.to.includes(person.email) && m.subject.includes(other.name));
-      return invitation !== undefined;
-    })
-    .toBe(true);
-  const { message } = await callApi<{ message: OutboxMessage }>(
-    other.owner.session,
-    'get',
-    `/api/outbox/${invitation!.id}`,
-  );
-  const token = new URL(message.links.find((l) => new URL(l).pathname.startsWith('/invitations/'))!).pathname
-    .split('/')
-    .pop()!;
-  const session = await openApiSession(baseURL);
-  await callApi<SessionEnvelope>(session, 'post', `/api/invitations/by-token/${token}/accept`, {
-    data: { password: person.password },
-    status: 200,
-  });
-  return other;
-}
 
 test('a firm switch mid-queue sends nothing into the other firm: the write waits for its own', async ({
   page,

@@ -1,5 +1,8 @@
 import { deflateSync } from 'node:zlib';
 import { expect, type BrowserContext, type Page } from '@playwright/test';
+import type { OutboxMessage, OutboxMessageSummary, SessionEnvelope } from '@heatfleet/domain';
+import { callApi, openApiSession } from './api-session';
+import { signUpFirm, type Firm, type Person } from './firm-fixtures';
 
 // Working offline (README): the service worker, the status line, and what the app keeps in IndexedDB.
 
@@ -43,6 +46,30 @@ export async function storedKeys(page: Page, kind: 'drafts' | 'outbox' | 'query-
       db.close();
     }
   }, kind);
+}
+
+/** The labels of the writes kept in the phone's queue, oldest first, with their state. */
+export async function queuedWrites(page: Page): Promise<{ label: string; state: string; path: string }[]> {
+  return page.evaluate(async () => {
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const request = indexedDB.open('heatfleet-outbox');
+      request.onupgradeneeded = () => request.result.createObjectStore('outbox');
+      request.onsuccess = () => resolve(request.result);
+      request.onerror = () => reject(request.error);
+    });
+    try {
+      const all = await new Promise<{ label: string; state: string; path: string; seq: string }[]>(
+        (resolve, reject) => {
+          const request = db.transaction('outbox', 'readonly').objectStore('outbox').getAll();
+          request.onsuccess = () => resolve(request.result as never);
+          request.onerror = () => reject(request.error);
+        },
+      );
+      return all.sort((a, b) => (a.seq < b.seq ? -1 : 1)).map(({ label, state, path }) => ({ label, state, path }));
+    } finally {
+      db.close();
+    }
+  });
 }
 
 /** The query keys of the saved query cache (what the app can show with no signal). */
@@ -135,4 +162,37 @@ export function jpegSize(jpeg: Buffer): { width: number; height: number } {
     at += 2 + length;
   }
   throw new Error('No start-of-frame marker in the JPEG.');
+}
+
+/** The engineer joins a second firm with the same account, as a person working for two firms would. */
+export async function joinSecondFirm(baseURL: string, person: Person): Promise<Firm> {
+  const other = await signUpFirm(baseURL, 'Morwenna Hale');
+  await callApi(other.owner.session, 'post', '/api/invitations', { data: { email: person.email, role: 'engineer' } });
+  // Their first firm's invitation went to the same address: take the one naming this firm.
+  let invitation: OutboxMessageSummary | undefined;
+  await expect
+    .poll(async () => {
+      const { messages } = await callApi<{ messages: OutboxMessageSummary[] }>(
+        other.owner.session,
+        'get',
+        '/api/outbox',
+      );
+      invitation = messages.find((m) => m.to.includes(person.email) && m.subject.includes(other.name));
+      return invitation !== undefined;
+    })
+    .toBe(true);
+  const { message } = await callApi<{ message: OutboxMessage }>(
+    other.owner.session,
+    'get',
+    `/api/outbox/${invitation!.id}`,
+  );
+  const token = new URL(message.links.find((l) => new URL(l).pathname.startsWith('/invitations/'))!).pathname
+    .split('/')
+    .pop()!;
+  const session = await openApiSession(baseURL);
+  await callApi<SessionEnvelope>(session, 'post', `/api/invitations/by-token/${token}/accept`, {
+    data: { password: person.password },
+    status: 200,
+  });
+  return other;
 }

@@ -87,13 +87,27 @@ async function sendOne(write: QueuedWrite): Promise<unknown> {
       const form = new FormData();
       form.append(upload.field, upload.file, upload.fileName);
       for (const [name, value] of Object.entries(upload.fields ?? {})) form.append(name, value);
-      const id = valueAt(await apiClient.write('POST', upload.path, form, {}), upload.idFrom);
+      // A key of its own, made from the write's: an upload whose answer was lost is not stored twice.
+      const id = valueAt(
+        await apiClient.write('POST', upload.path, form, {
+          idempotencyKey: `${write.idempotencyKey}:photo`,
+          tappedAt: write.tappedAt,
+        }),
+        upload.idFrom,
+      );
       if (typeof id !== 'number')
         throw new ApiError({ status: 500, code: 'UploadUnread', message: 'The photo upload answered without its id.' });
       upload.uploadedId = id;
       await saveWrite(write);
     }
     body = { ...(body as Record<string, unknown>), [upload.bodyKey]: upload.uploadedId };
+  }
+  if (write.form) {
+    const form = new FormData();
+    // The fields first, the file last: the server may stream the file before it reads fields after it.
+    for (const [name, value] of Object.entries(write.form.fields)) form.append(name, value);
+    form.append(write.form.field, write.form.file, write.form.fileName);
+    body = form;
   }
   return apiClient.write(write.method, write.path, body, {
     idempotencyKey: write.idempotencyKey,

@@ -18,6 +18,14 @@ export interface QueuedUpload {
   uploadedId?: number;
 }
 
+/** A write that is itself a multipart upload (a job's photo): the file and its fields, sent to the write's path. */
+export interface QueuedForm {
+  field: string;
+  fileName: string;
+  file: Blob;
+  fields: Record<string, string>;
+}
+
 /**
  * One write waiting on the phone: what to send, made when the engineer tapped (its Idempotency-Key and the tap
  * time), for which person and firm. Kept in IndexedDB until the server confirms it.
@@ -48,6 +56,8 @@ export interface QueuedWrite {
   /** Query keys to refresh once it is sent. */
   invalidate?: readonly (readonly unknown[])[];
   upload?: QueuedUpload;
+  /** Sent as multipart (the body is ignored): a job's photo, with the write's own Idempotency-Key and tap time. */
+  form?: QueuedForm;
   /** waiting: to be sent; attention: the server refused it after a replay, with its message. */
   state: 'waiting' | 'attention';
   attempts: number;

@@ -3,7 +3,7 @@ import type { Me } from '@heatfleet/domain';
 import { randomUuid } from '@/lib/idempotency';
 import { serverNow } from '@/lib/offline/data-age';
 import { clearDraft, loadDraft } from '@/lib/offline/drafts';
-import { nextSeq, saveWrite, type QueuedUpload, type QueuedWrite } from '@/lib/offline/outbox';
+import { nextSeq, saveWrite, type QueuedForm, type QueuedUpload, type QueuedWrite } from '@/lib/offline/outbox';
 import { awaitFirstAttempt, awaitSettled, sendOutbox, type Settled } from '@/lib/offline/outbox-sender';
 import { shrinkPhoto } from '@/lib/offline/shrink-photo';
 
@@ -24,6 +24,8 @@ export interface WriteRequest {
   invalidate?: readonly (readonly unknown[])[];
   /** A photo to upload first, shrunk on the phone; its id goes in the body. */
   photo?: Omit<QueuedUpload, 'file' | 'fileName' | 'uploadedId'> & { file: Blob };
+  /** The write is itself a photo upload (multipart to `path`), shrunk on the phone first. */
+  form?: Omit<QueuedForm, 'file' | 'fileName'> & { file: Blob };
 }
 
 export type WriteOutcome =
@@ -69,6 +71,11 @@ export async function queueWrite(request: WriteRequest, me: Me): Promise<WriteOu
     const { file, ...rest } = request.photo;
     const shrunk = await shrinkPhoto(file);
     write.upload = { ...rest, file: shrunk, fileName: shrunk.name };
+  }
+  if (request.form) {
+    const { file, ...rest } = request.form;
+    const shrunk = await shrinkPhoto(file);
+    write.form = { ...rest, file: shrunk, fileName: shrunk.name };
   }
   const draft = write.draftKey ? await loadDraft(write.draftKey) : undefined;
   if (draft) write.draft = draft;

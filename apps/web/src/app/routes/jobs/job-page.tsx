@@ -9,9 +9,9 @@ import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { paths } from '@/config/paths';
 import { useAbility } from '@/lib/ability';
-import { useSignedInMe } from '@/lib/auth';
+import { sessionQueries } from '@/lib/auth';
 import { formatCalendarDate, formatDateTime } from '@/lib/format';
-import { jobQueries } from '@/features/jobs/api/job-queries';
+import { useJobDetail } from '@/features/jobs/api/use-job-detail';
 import { AutosaveProvider } from '@/features/jobs/components/autosave-context';
 import { CancelJobForm } from '@/features/jobs/components/cancel-job-form';
 import { ChemicalsUsed } from '@/features/jobs/components/chemicals-used';
@@ -95,11 +95,15 @@ function DoneCard({ detail, timeZone }: { detail: JobDetail; timeZone: string })
 /** The job sheet: the booking and its plan, the visit in the order of the work, then completion and the report. */
 export function JobPage() {
   const id = Number(useParams().id);
-  const me = useSignedInMe();
+  // Not useSignedInMe: at sign-out the session is cleared while this page may still render once (its queued
+  // writes change as the phone is wiped), and it then renders nothing rather than failing.
+  const me = useQuery(sessionQueries.me()).data;
   const ability = useAbility();
-  const job = useQuery({ ...jobQueries.detail(id), enabled: Number.isInteger(id) && id > 0 });
+  // With the visit's writes still waiting on the phone laid over it (features/jobs/api/sheet-overlay.ts).
+  const job = useJobDetail(id, Number.isInteger(id) && id > 0);
   // Only for the inhibitors' target ranges; the sheet still works (without the live check) if this fails.
   const products = useQuery(productQueries.list());
+  if (!me) return null;
   if (job.isPending) return <PageSpinner label="Loading the job…" />;
   if (job.isError) return <QueryErrorNotice error={job.error} onRetry={() => void job.refetch()} />;
   const detail = job.data;
@@ -127,7 +131,7 @@ export function JobPage() {
         </span>
       </PageHeader>
       {/* Keyed by the job: moving from one job to another starts with fresh drafts and the radiator list. */}
-      <AutosaveProvider key={row.id}>
+      <AutosaveProvider key={row.id} jobId={row.id}>
         <div className="space-y-5">
           {row.cancellation ? (
             <Card title="Cancelled">

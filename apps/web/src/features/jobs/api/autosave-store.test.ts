@@ -95,3 +95,41 @@ describe('fields that save themselves', () => {
     expect(store.view('r')?.status).toBe('saved');
   });
 });
+
+describe('drafts of the fields on the phone', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => vi.useRealTimers());
+
+  const options = (send: () => Promise<void | 'kept'>) => ({
+    label: 'Radiator 1: before reading',
+    parse,
+    send,
+    savedInput: null,
+  });
+
+  it('hands what is typed and unsaved to persist, and nothing once it is saved (or kept in the queue)', async () => {
+    const persist = vi.fn();
+    const store = new AutosaveStore(persist);
+    store.slot<Pair, { top: number; bottom: number }>(
+      'r',
+      { top: '', bottom: '' },
+      options(() => Promise.resolve('kept')),
+    );
+    store.edit('r', { top: '62', bottom: '' });
+    expect(persist).toHaveBeenLastCalledWith({ r: { top: '62', bottom: '' } });
+    store.edit('r', { top: '62', bottom: '40' });
+    await vi.advanceTimersByTimeAsync(800);
+    expect(persist).toHaveBeenLastCalledWith({});
+    expect(store.view('r')).toMatchObject({ status: 'saved', kept: true });
+  });
+
+  it('a draft seeded from an earlier page comes back into its field and, being valid, is sent', async () => {
+    const send = vi.fn(() => Promise.resolve());
+    const store = new AutosaveStore();
+    store.seed({ r: { top: '70', bottom: '51' } });
+    store.slot<Pair, { top: number; bottom: number }>('r', { top: '', bottom: '' }, options(send));
+    expect(store.view<Pair>('r')?.draft).toEqual({ top: '70', bottom: '51' });
+    await vi.advanceTimersByTimeAsync(800);
+    expect(send).toHaveBeenCalledWith({ top: 70, bottom: 51 });
+  });
+});

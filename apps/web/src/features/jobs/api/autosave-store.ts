@@ -3,7 +3,9 @@
  * slot holding what is typed, sent as one small idempotent PUT once it is valid (after a short pause,
  * or at once on Enter or leaving the field). The slots live for the page, not the component, so a
  * radiator's card can close with a save in flight or a half-typed reading, and the completion guard
- * can still see it ("unsaved input on the page").
+ * can still see it ("unsaved input on the page"). What is typed and not yet saved is also handed to `persist` (the
+ * page keeps it as a draft on the phone) and comes back through `seed` after a reload or a closed tab; a send kept
+ * in the phone's queue for lack of signal counts as saved ("kept"), since the queue holds it until the server has it.
  */
 
 export type SlotStatus =
@@ -30,13 +32,16 @@ export interface SlotView<D> {
   savedAt: number | null;
   /** The API holds a value for the slot (saved here or before). */
   stored: boolean;
+  /** The last save is kept in the phone's queue, waiting for signal. */
+  kept: boolean;
 }
 
 export interface SlotOptions<D, I> {
   /** Words for the completion summary, e.g. "Radiator 3, Lounge: before reading". */
   label: string;
   parse: (draft: D) => Parsed<I>;
-  send: (input: I) => Promise<void>;
+  /** Resolves when the value is safe: sent, or 'kept' in the phone's queue until there is signal. */
+  send: (input: I) => Promise<void | 'kept'>;
   /** The input as the API holds it now, or null when nothing is saved. */
   savedInput: I | null;
   delayMs?: number;
@@ -64,6 +69,17 @@ export class AutosaveStore {
   private slots = new Map<string, Slot<unknown, unknown>>();
   private listeners = new Set<() => void>();
   private unsavedList: UnsavedSlot[] = [];
+  private seeds = new Map<string, unknown>();
+
+  constructor(private readonly persist?: (drafts: Record<string, unknown>) => void) {}
+
+  /** Drafts kept on the phone from an earlier page: back into their fields, and sent if they are valid. */
+  seed(drafts: Record<string, unknown>): void {
+    for (const [key, draft] of Object.entries(drafts)) {
+      if (this.slots.has(key)) this.edit(key, draft);
+      else this.seeds.set(key, draft);
+    }
+  }
 
   subscribe = (listener: () => void) => {
     this.listeners.add(listener);
@@ -80,14 +96,16 @@ export class AutosaveStore {
       existing.options = options;
       return;
     }
+    const seeded = this.seeds.has(key);
     const slot: Slot<D, I> = {
       view: {
-        draft: initialDraft,
+        draft: seeded ? (this.seeds.get(key) as D) : initialDraft,
         status: 'saved',
         errors: {},
         failure: null,
         savedAt: null,
         stored: options.savedInput !== null,
+        kept: false,
       },
       options,
       savedJson: options.savedInput === null ? null : JSON.stringify(options.savedInput),
@@ -96,6 +114,11 @@ export class AutosaveStore {
       timer: null,
     };
     this.slots.set(key, slot as Slot<unknown, unknown>);
+    if (seeded) {
+      this.seeds.delete(key);
+      // Judged and sent after this render, as if just typed.
+      queueMicrotask(() => this.edit(key, slot.view.draft));
+    }
   }
 
   view<D>(key: string): SlotView<D> | undefined {
@@ -112,6 +135,19 @@ export class AutosaveStore {
       if (slot.timer) clearTimeout(slot.timer);
       slot.timer = setTimeout(() => void this.flush(key), slot.options.delayMs ?? 800);
     }
+    this.changed();
+  }
+
+  /** The draft is what the server holds now (the engineer kept another person's value): shown as saved, not sent. */
+  settle<D>(key: string, draft: D): void {
+    const slot = this.slots.get(key);
+    if (!slot) return;
+    if (slot.timer) clearTimeout(slot.timer);
+    slot.timer = null;
+    const parsed = slot.options.parse(draft);
+    slot.savedJson = parsed.ok ? JSON.stringify(parsed.input) : slot.savedJson;
+    slot.view = { ...slot.view, draft, failure: null, kept: false };
+    this.judge(slot);
     this.changed();
   }
 
@@ -136,9 +172,9 @@ export class AutosaveStore {
     slot.inFlight = slot.options
       .send(parsed.input)
       .then(
-        () => {
+        (outcome) => {
           slot.savedJson = json;
-          slot.view = { ...slot.view, savedAt: Date.now(), stored: true };
+          slot.view = { ...slot.view, savedAt: Date.now(), stored: true, kept: outcome === 'kept' };
           this.judge(slot);
         },
         (error: unknown) => {
@@ -190,6 +226,11 @@ export class AutosaveStore {
       next.length === this.unsavedList.length &&
       next.every((s, i) => s.key === this.unsavedList[i]!.key && s.status === this.unsavedList[i]!.status);
     if (!same) this.unsavedList = next;
+    if (this.persist) {
+      const drafts: Record<string, unknown> = {};
+      for (const { key } of next) drafts[key] = this.slots.get(key)!.view.draft;
+      this.persist(drafts);
+    }
     for (const listener of this.listeners) listener();
   }
 }

@@ -4,30 +4,12 @@ import {
   jobDetailSchema,
   newSiteResponseSchema,
   type CancelJobInput,
-  type CompleteJobInput,
   type CreateJobInput,
-  type UpdateJobInput,
   type CustomerInput,
   type SiteInput,
 } from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
-import { queryRoots } from '@/lib/query-keys';
 import { customerQueries, jobQueries } from '@/features/jobs/api/job-queries';
-
-export function useCompleteJob(id: number) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: ({ input, idempotencyKey }: { input: CompleteJobInput; idempotencyKey: string }) =>
-      apiClient.post(`/api/jobs/${id}/complete`, input, jobDetailSchema, { idempotencyKey }),
-    onSuccess: (detail) => {
-      queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
-      // The van's stock and the site's next check changed too.
-      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
-      void queryClient.invalidateQueries({ queryKey: queryRoots.stock });
-      void queryClient.invalidateQueries({ queryKey: queryRoots.vans });
-    },
-  });
-}
 
 export function useCreateJob() {
   const queryClient = useQueryClient();
@@ -55,18 +37,6 @@ export function useCreateSite(customerId: number | null) {
     mutationFn: async (input: SiteInput) =>
       (await apiClient.post(`/api/customers/${customerId}/sites`, input, newSiteResponseSchema)).site,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: customerQueries.all() }),
-  });
-}
-
-/** Edit or reschedule a booked job: only the fields sent change. */
-export function useUpdateJob(id: number) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (input: UpdateJobInput) => apiClient.patch(`/api/jobs/${id}`, input, jobDetailSchema),
-    onSuccess: (detail) => {
-      queryClient.setQueryData(jobQueries.detail(id).queryKey, detail);
-      void queryClient.invalidateQueries({ queryKey: jobQueries.lists() });
-    },
   });
 }
 

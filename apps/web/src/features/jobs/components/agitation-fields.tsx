@@ -94,7 +94,13 @@ export function AgitationFields({
   return (
     <div role="group" aria-label="Agitation" className="space-y-3">
       <div className="flex flex-wrap items-center justify-end gap-2">
-        <SavedMark status={slot.status} stored={slot.stored} failure={slot.failure} onRetry={() => void slot.flush()} />
+        <SavedMark
+          status={slot.status}
+          stored={slot.stored}
+          kept={slot.kept}
+          failure={slot.failure}
+          onRetry={() => void slot.flush()}
+        />
       </div>
       <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] items-start gap-3">
         <NumberField

@@ -1,11 +1,52 @@
-import { createContext, useContext, useState, useSyncExternalStore, type ReactNode } from 'react';
+import { createContext, useContext, useEffect, useState, useSyncExternalStore, type ReactNode } from 'react';
 import { AutosaveStore, type SlotOptions, type UnsavedSlot } from '@/features/jobs/api/autosave-store';
+import { clearDraft, loadDraft, saveDraft } from '@/lib/offline/drafts';
 
 const AutosaveContext = createContext<AutosaveStore | null>(null);
+const SAVE_AFTER_MS = 250;
 
-/** One store per job page: its fields' drafts outlive the radiator card they were typed in. */
-export function AutosaveProvider({ children }: { children: ReactNode }) {
-  const [store] = useState(() => new AutosaveStore());
+/** The phone's draft of a job sheet's fields: what was typed and not yet saved or queued (lib/offline/drafts.ts). */
+export const sheetDraftKey = (jobId: number) => `job:${jobId}:sheet-fields`;
+
+/**
+ * One store per job page: its fields' drafts outlive the radiator card they were typed in, and are kept on the phone
+ * from the first keystroke (a reload, a crash or a closed tab brings them back, and what is valid is sent).
+ */
+export function AutosaveProvider({ jobId, children }: { jobId: number; children: ReactNode }) {
+  const [{ store, flush }] = useState(() => {
+    let timer: ReturnType<typeof setTimeout> | null = null;
+    let latest: Record<string, unknown> | null = null;
+    const write = () => {
+      if (timer) clearTimeout(timer);
+      timer = null;
+      if (!latest) return;
+      const drafts = latest;
+      latest = null;
+      void (Object.keys(drafts).length ? saveDraft(sheetDraftKey(jobId), drafts) : clearDraft(sheetDraftKey(jobId)));
+    };
+    const persist = (drafts: Record<string, unknown>) => {
+      latest = drafts;
+      if (!timer) timer = setTimeout(write, SAVE_AFTER_MS);
+    };
+    return { store: new AutosaveStore(persist), flush: write };
+  });
+  useEffect(() => {
+    let cancelled = false;
+    void loadDraft<Record<string, unknown>>(sheetDraftKey(jobId)).then((draft) => {
+      if (!cancelled && draft) store.seed(draft.value);
+    });
+    const onHide = () => {
+      if (document.visibilityState === 'hidden') flush();
+    };
+    document.addEventListener('visibilitychange', onHide);
+    window.addEventListener('pagehide', flush);
+    return () => {
+      cancelled = true;
+      flush();
+      document.removeEventListener('visibilitychange', onHide);
+      window.removeEventListener('pagehide', flush);
+    };
+  }, [jobId, store, flush]);
   return <AutosaveContext.Provider value={store}>{children}</AutosaveContext.Provider>;
 }
 
@@ -24,6 +65,7 @@ export function useAutosave<D, I>(key: string, initialDraft: () => D, options: S
   return {
     ...view,
     edit: (draft: D) => store.edit(key, draft),
+    settle: (draft: D) => store.settle(key, draft),
     flush: () => store.flush(key),
   };
 }

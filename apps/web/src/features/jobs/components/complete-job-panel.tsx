@@ -10,9 +10,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { isApiError } from '@/lib/api-client';
-import { useIdempotencyKey } from '@/lib/idempotency';
-import { useCompleteJob } from '@/features/jobs/api/use-job-mutations';
-import { useAddSignature } from '@/features/jobs/api/use-job-sheet-mutations';
+import { useAddSignature, useCompleteJob } from '@/features/jobs/api/use-job-sheet-mutations';
 import { useAutosaveStore, useUnsavedSlots } from '@/features/jobs/components/autosave-context';
 import { SignatureFields, SignedLine, useSignatureDraft } from '@/features/jobs/components/customer-signature';
 import { radiatorCounts } from '@/features/jobs/components/radiator-progress';
@@ -54,7 +52,6 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
   const unsaved = useUnsavedSlots();
   const complete = useCompleteJob(jobId);
   const addSignature = useAddSignature(jobId);
-  const idempotency = useIdempotencyKey();
   const accepted = sheet.signatures.find((s) => s.kind === 'acceptance');
 
   const issues: Issue[] = sheet.completionIssues.filter((i) => i.code !== 'unsaved_input');
@@ -104,10 +101,8 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
       ...(unsaved.length ? { unsavedInput: true } : {}),
       ...(recommendation.trim() ? { recommendation: recommendation.trim() } : {}),
     };
-    complete.mutate(
-      { input, idempotencyKey: idempotency.keyFor({ complete: jobId, input }) },
-      { onSuccess: () => idempotency.done() },
-    );
+    // Its Idempotency-Key and tap time are made now, in the queue: sent again, it completes the job once.
+    complete.mutate({ input });
   };
 
   if (!open) {
@@ -185,6 +180,12 @@ export function CompleteJobPanel({ detail, timeZone }: { detail: JobDetail; time
         address.
       </p>
       {complete.isError ? <Alert tone="error">{complete.error.message}</Alert> : null}
+      {complete.isSuccess && complete.data === null ? (
+        <Alert tone="info">
+          No signal: the completion is saved on this phone and goes when the signal returns. If the server cannot
+          complete it then, it appears under &ldquo;needs your attention&rdquo; with the reason.
+        </Alert>
+      ) : null}
       <div className="flex flex-wrap gap-3">
         <Button
           className="min-h-14 flex-1 text-lg"

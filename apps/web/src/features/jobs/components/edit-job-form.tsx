@@ -4,7 +4,8 @@ import { updateJobInputSchema, type HeatExchangerDefaults, type JobDetail } from
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { firstErrorPerField, type FieldErrors } from '@/lib/form';
-import { useUpdateJob } from '@/features/jobs/api/use-job-mutations';
+import { clearDraft } from '@/lib/offline/drafts';
+import { useUpdateJob } from '@/features/jobs/api/use-job-sheet-mutations';
 import {
   JobForm,
   jobFormInput,
@@ -34,6 +35,7 @@ export function EditJobForm({
   const navigate = useNavigate();
   const update = useUpdateJob(detail.job.id);
   const [errors, setErrors] = useState<FieldErrors>({});
+  const draftKey = `job:${detail.job.id}:edit`;
   const [formError, setFormError] = useState<string | null>(null);
   const [initial] = useState<JobFormValues>(() => ({
     scheduledOn: detail.job.scheduledOn,
@@ -54,8 +56,13 @@ export function EditJobForm({
     }
     setErrors({});
     setFormError(null);
-    update.mutate(parsed.data, {
-      onSuccess: () => navigate(paths.job.getHref(detail.job.id)),
+    // Written from the survey this form opened with: if someone changed it since, the server says so (409).
+    const input = parsed.data.survey ? { ...parsed.data, surveyVersion: detail.job.surveyVersion } : parsed.data;
+    update.mutate(input, {
+      onSuccess: () => {
+        void clearDraft(draftKey);
+        void navigate(paths.job.getHref(detail.job.id));
+      },
       onError: (error) => {
         if (isApiError(error) && error.details.length) setErrors(firstErrorPerField(error.details));
         setFormError(error.message);
@@ -77,6 +84,7 @@ export function EditJobForm({
         </p>
       }
       submitLabel="Save the changes"
+      draftKey={draftKey}
       busy={update.isPending}
       formError={formError}
       errors={errors}

@@ -1,4 +1,5 @@
 import { useMemo, useState, type FormEvent, type ReactNode } from 'react';
+import { useValuesDraft } from '@/features/jobs/components/use-values-draft';
 import {
   boilerKinds,
   builtInHeatExchangerLitres,
@@ -120,6 +121,7 @@ export function JobForm({
   formError,
   errors,
   onSubmit,
+  draftKey = null,
 }: {
   initial: JobFormValues;
   products: DoseProduct[];
@@ -134,8 +136,11 @@ export function JobForm({
   formError: string | null;
   errors: FieldErrors;
   onSubmit: (values: JobFormValues) => void;
+  /** Kept on the phone under this key from the first change until the server has it (lib/offline/drafts.ts). */
+  draftKey?: string | null;
 }) {
   const [values, setValues] = useState<JobFormValues>(initial);
+  const restoredAt = useValuesDraft(draftKey, values, setValues);
   const survey = values.survey;
   const set = (patch: Partial<JobFormValues>) => setValues((v) => ({ ...v, ...patch }));
   const setSurvey = (patch: Partial<SurveyDraft>) => setValues((v) => ({ ...v, survey: { ...v.survey, ...patch } }));
@@ -163,6 +168,11 @@ export function JobForm({
         onSubmit={submit}
         className="space-y-6 rounded-xl border border-line bg-card p-4 shadow-sm sm:p-6 [&_input:not([type=checkbox]):not([type=radio])]:min-h-12 [&_select]:min-h-12"
       >
+        {restoredAt ? (
+          <p role="status" className="rounded-md bg-brand-50 px-3 py-2 text-sm font-semibold text-brand-800">
+            Brought back what you typed here before (kept on this phone).
+          </p>
+        ) : null}
         {customerPicker}
 
         <fieldset className="space-y-3">

@@ -103,6 +103,11 @@ function AddPhotoForm({ jobId }: { jobId: number }) {
         onChange={(e) => setCaption(e.target.value)}
       />
       <SaveFeedback error={upload.error} saved={upload.isSuccess} />
+      {upload.isSuccess && navigator.onLine === false ? (
+        <p role="status" className="text-sm font-semibold text-ink-muted">
+          No signal: the photo is shrunk and saved on this phone, and goes when the signal returns.
+        </p>
+      ) : null}
       <Button type="submit" variant="secondary" className="min-h-12 w-full sm:w-auto" busy={upload.isPending}>
         Add the photo
       </Button>
@@ -120,14 +125,21 @@ export function JobPhotos({ jobId, sheet, timeZone }: { jobId: number; sheet: Jo
           {sheet.photos.map((photo) => (
             <li key={photo.id}>
               <figure className="space-y-1">
-                <a href={photo.url} target="_blank" rel="noreferrer" className="block">
-                  <img
-                    src={photo.url}
-                    alt={photo.caption ?? tagLabel(photo.tag)}
-                    loading="lazy"
-                    className="aspect-square w-full rounded-md border border-line bg-canvas object-cover"
-                  />
-                </a>
+                {photo.url ? (
+                  <a href={photo.url} target="_blank" rel="noreferrer" className="block">
+                    <img
+                      src={photo.url}
+                      alt={photo.caption ?? tagLabel(photo.tag)}
+                      loading="lazy"
+                      className="aspect-square w-full rounded-md border border-line bg-canvas object-cover"
+                    />
+                  </a>
+                ) : (
+                  // Kept in the phone's queue (shrunk), not on the server yet.
+                  <p className="grid aspect-square w-full place-items-center rounded-md border-2 border-dashed border-line-strong p-2 text-center text-sm font-semibold text-ink-muted">
+                    Saved on this phone; goes when there is signal
+                  </p>
+                )}
                 <figcaption className="text-sm">
                   <span className="block font-semibold">{tagLabel(photo.tag)}</span>
                   {photo.caption ? <span className="block break-words">{photo.caption}</span> : null}

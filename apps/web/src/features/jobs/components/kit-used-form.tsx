@@ -50,6 +50,7 @@ export function KitUsedForm({ jobId, sheet }: { jobId: number; sheet: JobSheet }
       </fieldset>
       <SavedMark
         status={slot.status}
+        kept={slot.kept}
         stored={slot.stored && chosen.length > 0}
         failure={slot.failure}
         onRetry={() => void slot.flush()}

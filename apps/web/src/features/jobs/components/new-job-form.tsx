@@ -3,6 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import { createJobInputSchema, type HeatExchangerDefaults } from '@heatfleet/domain';
 import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
+import { clearDraft } from '@/lib/offline/drafts';
 import { firstErrorPerField, type FieldErrors } from '@/lib/form';
 import { useCreateJob } from '@/features/jobs/api/use-job-mutations';
 import { CustomerSitePicker } from '@/features/jobs/components/customer-search';
@@ -18,6 +19,9 @@ import { defaultProductIds } from '@/features/jobs/components/product-choices';
 import { initialSurveyDraft } from '@/features/jobs/components/survey-draft';
 
 export type { EngineerChoice };
+
+/** The booking's draft on the phone (booking needs signal: it is kept, not queued). */
+const NEW_JOB_DRAFT = 'job:new:booking';
 
 /** Books a job: the customer found by a few letters, the survey by count, the plan worked out as it is typed. */
 export function NewJobForm({
@@ -64,7 +68,10 @@ export function NewJobForm({
     setErrors({});
     setFormError(null);
     create.mutate(parsed.data, {
-      onSuccess: (detail) => navigate(paths.job.getHref(detail.job.id)),
+      onSuccess: (detail) => {
+        void clearDraft(NEW_JOB_DRAFT);
+        void navigate(paths.job.getHref(detail.job.id));
+      },
       onError: (error) => {
         if (isApiError(error) && error.details.length) setErrors(firstErrorPerField(error.details));
         setFormError(error.message);
@@ -82,6 +89,7 @@ export function NewJobForm({
       vanStock={vanStock}
       customerPicker={<CustomerSitePicker siteId={siteId} onSiteChange={setSiteId} siteError={errors.siteId} />}
       submitLabel="Book the job"
+      draftKey={NEW_JOB_DRAFT}
       busy={create.isPending}
       formError={formError}
       errors={errors}

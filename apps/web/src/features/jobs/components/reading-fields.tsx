@@ -141,6 +141,7 @@ export function ReadingFields({
       <div className="flex flex-wrap items-center justify-end gap-2">
         <SavedMark
           status={slot.status}
+          kept={slot.kept}
           stored={slot.stored}
           failure={slot.failure}
           incompleteWords="Not saved yet: give both"

@@ -7,12 +7,15 @@ import type { SlotStatus } from '@/features/jobs/api/autosave-store';
 export function SavedMark({
   status,
   stored,
+  kept = false,
   failure,
   incompleteWords = 'Not saved yet',
   onRetry,
 }: {
   status: SlotStatus;
   stored: boolean;
+  /** Kept in the phone's queue, waiting for signal. */
+  kept?: boolean;
   failure: string | null;
   incompleteWords?: string;
   onRetry: () => void;
@@ -38,9 +41,11 @@ export function SavedMark({
         ? [incompleteWords, 'text-ember-700']
         : status === 'invalid'
           ? ['Not saved: see the figure', 'text-danger-700']
-          : stored
-            ? ['✓ Saved', 'text-ok-700']
-            : ['', ''];
+          : stored && kept
+            ? ['✓ Saved on this phone', 'text-ok-700']
+            : stored
+              ? ['✓ Saved', 'text-ok-700']
+              : ['', ''];
   return (
     <span role="status" className={`text-sm font-semibold ${tone}`}>
       {text}

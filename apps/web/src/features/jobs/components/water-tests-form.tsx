@@ -189,6 +189,7 @@ export function WaterTestsForm({
       <div className="flex justify-end">
         <SavedMark
           status={slot.status}
+          kept={slot.kept}
           stored={tested || slot.savedAt !== null}
           failure={slot.failure}
           onRetry={() => void slot.flush()}
