@@ -39,14 +39,35 @@ export type SiteInput = z.infer<typeof siteInputSchema>;
 export const panelTypes = ['single', 'single_fins', 'double', 'double_fins', 'column', 'towel_rail', 'other'] as const;
 const tubeSizes = [...(Object.keys(copperTubes) as (keyof typeof copperTubes)[]), 'plastic'] as const;
 
+/** A radiator's dimension in whole millimetres, in words a person reads (issue 14). */
+const mm = (label: string, min: number, max: number) =>
+  z
+    .number({ error: `${label} must be a number of millimetres.` })
+    .int({ error: `${label} must be a whole number of millimetres.` })
+    .min(min, { error: `${label} must be at least ${min} millimetres.` })
+    .max(max, { error: `${label} must be at most ${max.toLocaleString('en-GB')} millimetres.` })
+    .nullable()
+    .optional();
+
 export const surveyRadiatorSchema = z.strictObject({
   room: name('Room', 80),
-  panel: z.enum(panelTypes),
-  heightMm: z.number().int().min(100).max(2500).nullable().optional(),
-  lengthMm: z.number().int().min(100).max(4000).nullable().optional(),
+  panel: z.enum(panelTypes, { error: 'Choose the panel type.' }),
+  heightMm: mm('Height', 100, 2500),
+  lengthMm: mm('Length', 100, 4000),
   /** Typed in from the maker's data instead of the dimensions. */
-  litres: z.number().min(0).max(200).nullable().optional(),
-  ratedWatts: z.number().int().min(0).max(20_000).nullable().optional(),
+  litres: z
+    .number({ error: 'Litres must be a number.' })
+    .min(0, { error: 'Litres cannot be below 0.' })
+    .max(200, { error: 'Litres must be at most 200 for one radiator.' })
+    .nullable()
+    .optional(),
+  ratedWatts: z
+    .number({ error: 'Rated output must be a number of watts.' })
+    .int({ error: 'Rated output must be a whole number of watts.' })
+    .min(0, { error: 'Rated output cannot be below 0 watts.' })
+    .max(20_000, { error: 'Rated output must be at most 20,000 watts.' })
+    .nullable()
+    .optional(),
   coldSpotNote: text('Cold spot note', 300),
 });
 

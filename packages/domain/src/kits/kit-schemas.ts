@@ -9,7 +9,7 @@ export * from './electrical-test.ts';
 
 export const itemConditions = ['in_service', 'needs_attention', 'out_of_service'] as const;
 export const itemConditionSchema = z.enum(itemConditions, {
-  error: () => ({ message: 'Condition must be in service, needs attention or out of service.' }),
+  error: () => ({ message: 'Choose the condition.' }),
 });
 export type ItemCondition = z.infer<typeof itemConditionSchema>;
 export const itemConditionLabels: Record<ItemCondition, string> = {

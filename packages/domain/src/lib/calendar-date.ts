@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { DATE_REQUIRED } from './zod-messages.ts';
 
 /** A calendar day as 'YYYY-MM-DD', with no time or zone: due dates are days, not instants. */
 export type CalendarDate = string;
 
 export const calendarDateSchema = z
-  .string({ error: 'A date is required.' })
+  .string({ error: DATE_REQUIRED })
   .trim()
   .regex(/^\d{4}-\d{2}-\d{2}$/, { error: (iss) => `"${String(iss.input)}" is not a date (use YYYY-MM-DD).` })
   .refine(
