@@ -57,8 +57,12 @@ test('an engineer checks a kit in with a condition per item, to the depot chosen
   await depot.selectOption({ label: 'North yard' });
 
   const tick = magnetRow.locator('label').filter({ hasText: 'Cleaned after the job' });
-  for (const target of [magnetCondition, hoseCondition, depot, tick]) {
-    expect((await target.boundingBox())!.height, 'a 48 px target').toBeGreaterThanOrEqual(48);
+  const targets = { magnetCondition, hoseCondition, depot, tick };
+  for (const [name, target] of Object.entries(targets)) {
+    await target.scrollIntoViewIfNeeded();
+    const box = await target.boundingBox();
+    expect(box, `${name} has a box`).not.toBeNull();
+    expect(box!.height, `${name} is a 48 px target`).toBeGreaterThanOrEqual(48);
   }
   await page.screenshot({ path: testInfo.outputPath('kit-check-in-360.png'), fullPage: true });
   const overflow = await horizontalOverflow(page);
