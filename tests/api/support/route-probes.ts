@@ -31,6 +31,13 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'sites:id': (f) => String(f.siteId),
   // An unsubscribe link's token is its own capability; a made-up one answers 404.
   'unsubscribe:token': () => 'u'.repeat(43),
+  // Money (support/seed-money.ts).
+  'price-items:id': (f) => String(f.money.priceItemId),
+  'invoices:id': (f) => String(f.money.invoiceId),
+  'credit-notes:id': (f) => String(f.money.creditNoteId),
+  'quotes:id': (f) => String(f.money.quoteId),
+  // The customer's quote link: a made-up token answers 404 (money-quotes.test.ts uses real ones).
+  'public:token': () => 'q'.repeat(43),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -158,6 +165,42 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
     volumeUnit: 'litres',
     coldBottomThresholdK: 10,
   }),
+  'PUT /money/settings': () => ({
+    vatRegistered: true,
+    vatNumber: 'GB999999973',
+    vatRateBp: 2000,
+    paymentTermsDays: 14,
+    quoteValidityDays: 30,
+    firstReminderDays: 7,
+    secondReminderDays: 21,
+    invoiceOnCompletion: false,
+  }),
+  'POST /money/price-items': () => ({ kind: 'extra', name: 'Probe valve', unitPence: 1_200 }),
+  'PUT /price-items/:id': () => ({
+    kind: 'visit',
+    name: 'Probe clean',
+    visitKind: 'full_clean',
+    pricing: 'bands',
+    bands: [{ upToRadiators: 8, pricePence: 30_000 }],
+  }),
+  'POST /invoices': (f) => ({ jobId: f.jobId }),
+  'PUT /invoices/:id/lines': () => ({
+    lines: [{ kind: 'other', description: 'Probe line', quantity: 1, unitPence: 100 }],
+  }),
+  'POST /invoices/:id/credit-notes': () => ({ reason: 'Probe credit' }),
+  'POST /quotes': (f) => ({
+    jobId: f.jobId,
+    lines: [{ kind: 'extra', description: 'Probe filter', quantity: 1, unitPence: 4_500 }],
+  }),
+  'PUT /quotes/:id': () => ({ lines: [{ kind: 'extra', description: 'Probe filter', quantity: 1, unitPence: 4_000 }] }),
+  'POST /quotes/:id/accept': () => ({
+    name: 'Probe Customer',
+    agree: true,
+    expressRequest: true,
+    imagePngDataUrl: `data:image/png;base64,${tinyPng.toString('base64')}`,
+  }),
+  'POST /public/quotes/:token/accept': () => ({ name: 'Probe Customer', agree: true }),
+  'POST /public/quotes/:token/decline': () => ({ reason: 'Probe' }),
   'POST /sites/:id/checks': (f) => ({
     checkedOn: '2026-11-30',
     inhibitorProductId: f.product.id,
@@ -175,6 +218,9 @@ const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
     sort: 'upcoming',
   }),
   'GET /customers': () => ({ q: 'Quarry' }),
+  'GET /invoices': (f) => ({ status: 'issued', jobId: String(f.jobId) }),
+  'GET /quotes': (f) => ({ jobId: String(f.jobId) }),
+  'GET /money/export.csv': () => ({ from: '2026-11-01', to: '2026-12-31' }),
   'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
   'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
   'GET /stock/batches': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),

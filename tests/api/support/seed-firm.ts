@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { seedMoney, type SeededMoney } from './seed-money.ts';
 import { roles, type Role } from '@heatfleet/domain';
 import { hashPassword } from '@heatfleet/api/modules/auth/password.ts';
 import { createToken } from '@heatfleet/api/lib/tokens.ts';
@@ -27,6 +28,8 @@ export interface SeededFirm {
   customerId: number;
   siteId: number;
   jobId: number;
+  /** Price, invoice, credit note and quote (support/seed-money.ts). */
+  money: SeededMoney;
   /** Strings that belong to this firm only: none may appear in another firm's answers. */
   sentinels: string[];
 }
@@ -244,6 +247,15 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
       productName,
       lotNumber,
     ];
+    const money = await seedMoney(trx, {
+      firmId: firmId!,
+      firmName,
+      siteId: siteId!,
+      customerId: customerId!,
+      customerName,
+      jobId: jobId!,
+      userId: people.owner.userId,
+    });
     return {
       firmId: firmId!,
       firmName,
@@ -264,6 +276,7 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
       customerId: customerId!,
       siteId: siteId!,
       jobId: jobId!,
+      money,
     };
   });
 }
