@@ -35,7 +35,7 @@ export function ChoiceGroup({
         {options.map((option) => (
           <label
             key={option.value}
-            className={`flex min-h-14 cursor-pointer items-center gap-3 rounded-lg border-2 bg-card px-4 py-2 has-[:checked]:border-brand-700 has-[:checked]:bg-brand-50 has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ember-500 ${
+            className={`flex min-h-14 cursor-pointer items-center gap-3 rounded-lg border-2 bg-card px-4 py-2 has-[:checked]:border-brand-700 has-[:checked]:bg-brand-50 has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ember-700 ${
               error ? 'border-danger-700' : 'border-line-strong'
             }`}
           >

@@ -34,7 +34,7 @@ export function SegmentedChoice<V extends string>({
         {options.map((option) => (
           <label
             key={option.value}
-            className="relative flex min-h-12 cursor-pointer items-center justify-center rounded-md border-2 border-line-strong bg-card px-1 text-center font-semibold leading-tight has-[:checked]:border-brand-700 has-[:checked]:bg-brand-700 has-[:checked]:text-white has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ember-500"
+            className="relative flex min-h-12 cursor-pointer items-center justify-center rounded-md border-2 border-line-strong bg-card px-1 text-center font-semibold leading-tight has-[:checked]:border-brand-700 has-[:checked]:bg-brand-700 has-[:checked]:text-white has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ember-700"
           >
             <input
               type="radio"

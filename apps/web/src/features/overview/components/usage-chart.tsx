@@ -4,7 +4,8 @@ import type { Overview } from '@heatfleet/domain';
 // One colour per product kind from the palette tokens, so the chart reads like the rest of the app.
 const kindColours: Record<string, string> = {
   cleaner: 'var(--color-brand-600)',
-  inhibitor: 'var(--color-ember-500)',
+  // Darker than the ember accent: the bar and its legend need contrast on white (WCAG 2.2 SC 1.4.11, 1.4.3).
+  inhibitor: 'var(--color-ember-600)',
   descaler: 'var(--color-brand-900)',
   leak_sealer: 'var(--color-ember-700)',
   neutraliser: 'var(--color-ok-700)',
@@ -42,12 +43,19 @@ export function UsageChart({
     <div>
       <div className="h-64 w-full sm:h-80" aria-hidden="true">
         <ResponsiveContainer width="100%" height="100%">
-          <BarChart data={data} margin={{ top: 8, right: 8, bottom: 0, left: -16 }}>
+          <BarChart
+            data={data}
+            margin={{ top: 8, right: 8, bottom: 0, left: -16 }}
+            // The chart is hidden from screen readers (the table below carries the figures), so nothing in it may
+            // take focus: recharts' keyboard layer would put a focusable element inside aria-hidden (axe
+            // aria-hidden-focus).
+            accessibilityLayer={false}
+          >
             <CartesianGrid vertical={false} stroke="var(--color-line)" />
             <XAxis dataKey="label" tick={{ fontSize: 12 }} interval="preserveStartEnd" />
             <YAxis tick={{ fontSize: 12 }} unit=" L" allowDecimals={false} />
             <Tooltip formatter={(value, name) => [`${Number(value).toFixed(1)} L`, kindLabel(String(name))]} />
-            <Legend formatter={(value: string) => kindLabel(value)} />
+            <Legend formatter={(value: string) => <span className="text-ink">{kindLabel(value)}</span>} />
             {kinds.map((k) => (
               <Bar
                 key={k}
