@@ -140,18 +140,18 @@ const allowed: Record<string, Role[]> = {
   'POST /quotes/:id/send': ['owner', 'admin', 'engineer'],
   'POST /quotes/:id/accept': ['owner', 'admin', 'engineer'],
   'GET /quotes/:id/quote.pdf': everyone,
-  // Payments: anyone may show the pay QR and see an invoice's payments; Owners and Admins refund and see the payment
-  // account; the Owner connects it and keeps the firm's own subscription (DEVELOPERS.md, Product rules; issue 15).
+  // Payments: anyone may show the pay QR and see an invoice's payments; Owners and Admins refund, connect the
+  // payment account and keep the firm's own subscription (firm settings: DEVELOPERS.md, Product rules; issue 15).
   // The probe's firm has no payment account, so the QR answers 409 and its pending payment cannot be refunded (409).
   'GET /payments/account': managers,
-  'POST /payments/account/onboarding': ['owner'],
+  'POST /payments/account/onboarding': managers,
   'GET /invoices/:id/payments': everyone,
   'POST /invoices/:id/pay-link': everyone,
   'POST /payments/:id/refunds': managers,
-  'GET /billing': ['owner'],
+  'GET /billing': managers,
   'GET /billing/status': everyone,
-  'POST /billing/card': ['owner'],
-  'POST /billing/pay': ['owner'],
+  'POST /billing/card': managers,
+  'POST /billing/pay': managers,
   // Health surveillance is arranged by those who run the firm (Control of Vibration at Work Regulations 2005, reg. 7).
   'GET /vibration/register': managers,
 };

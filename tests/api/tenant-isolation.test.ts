@@ -27,6 +27,9 @@ const notTenantData: Record<string, string> = {
   'POST /unsubscribe/:token': 'the token is the recipient\u2019s capability to stop one firm\u2019s marketing',
   'GET /outbox': 'the local mail catcher (development and tests only; not mounted in production)',
   'GET /outbox/:id': 'the local mail catcher (development and tests only; not mounted in production)',
+  'POST /payments/webhook': 'signed by the payment service; the event names its account, which names the firm',
+  'GET /pay/:token': 'the token is the customer\u2019s capability for one invoice',
+  'POST /pay/:token/checkout': 'the token is the customer\u2019s capability for one invoice',
 };
 
 /** Tables that are not a firm's: people (who may belong to several firms) and plumbing. */

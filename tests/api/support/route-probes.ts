@@ -38,6 +38,9 @@ const pathIds: Record<string, (f: SeededFirm) => string> = {
   'quotes:id': (f) => String(f.money.quoteId),
   // The customer's quote link: a made-up token answers 404 (money-quotes.test.ts uses real ones).
   'public:token': () => 'q'.repeat(43),
+  'payments:id': (f) => String(f.paymentId),
+  // The customer's pay link: a made-up token answers 404 (payments-*.test.ts use real ones).
+  'pay:token': () => 'p'.repeat(43),
 };
 
 /** A valid body per route, built from a firm's records (so another firm's ids can be slipped in). */
@@ -201,6 +204,8 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
   }),
   'POST /public/quotes/:token/accept': () => ({ name: 'Probe Customer', agree: true }),
   'POST /public/quotes/:token/decline': () => ({ reason: 'Probe' }),
+  'POST /payments/:id/refunds': () => ({ amountPence: 100 }),
+  'POST /pay/:token/checkout': () => ({ from: 'doorstep' }),
   'POST /sites/:id/checks': (f) => ({
     checkedOn: '2026-11-30',
     inhibitorProductId: f.product.id,

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { seedMoney, type SeededMoney } from './seed-money.ts';
+import { seedPayment } from './seed-payment.ts';
 import { roles, type Role } from '@heatfleet/domain';
 import { hashPassword } from '@heatfleet/api/modules/auth/password.ts';
 import { createToken } from '@heatfleet/api/lib/tokens.ts';
@@ -30,6 +31,8 @@ export interface SeededFirm {
   jobId: number;
   /** Price, invoice, credit note and quote (support/seed-money.ts). */
   money: SeededMoney;
+  /** A pending card payment against the seeded invoice (support/seed-payment.ts). */
+  paymentId: number;
   /** Strings that belong to this firm only: none may appear in another firm's answers. */
   sentinels: string[];
 }
@@ -277,6 +280,7 @@ export async function seedFirm(db: Knex, label: string): Promise<SeededFirm> {
       siteId: siteId!,
       jobId: jobId!,
       money,
+      paymentId: await seedPayment(trx, firmId!, money.invoiceId),
     };
   });
 }

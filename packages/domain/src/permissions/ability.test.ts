@@ -112,8 +112,8 @@ const firmRecordTable: Record<
     create: ['owner', 'admin', 'stores', 'engineer'],
     update: ['owner', 'admin'],
   },
-  PaymentAccount: { read: ['owner', 'admin'], update: ['owner'] },
-  Billing: { read: ['owner'], update: ['owner'] },
+  PaymentAccount: { read: ['owner', 'admin'], update: ['owner', 'admin'] },
+  Billing: { read: ['owner', 'admin'], update: ['owner', 'admin'] },
 };
 
 describe('each subject, each role, in their own firm and another', () => {
@@ -185,10 +185,10 @@ describe('payments and billing', () => {
     expect(roles.filter((r) => ability(r).can('create', 'Payment'))).toEqual([...roles]);
     expect(roles.filter((r) => ability(r).can('update', 'Payment'))).toEqual(['owner', 'admin']);
   });
-  it('only the Owner connects the payment account and sees the subscription', () => {
-    expect(roles.filter((r) => ability(r).can('update', 'PaymentAccount'))).toEqual(['owner']);
-    expect(roles.filter((r) => ability(r).can('read', 'PaymentAccount'))).toEqual(['owner', 'admin']);
-    expect(roles.filter((r) => ability(r).can('read', 'Billing'))).toEqual(['owner']);
+  it('the payment account and the subscription are firm settings: Owner and Admin', () => {
+    expect(roles.filter((r) => ability(r).can('update', 'PaymentAccount'))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('read', 'Billing'))).toEqual(['owner', 'admin']);
+    expect(roles.filter((r) => ability(r).can('update', 'Billing'))).toEqual(['owner', 'admin']);
   });
   it('money: everyone reads; prices and invoices are the Owner and Admin; engineers make and take quotes', () => {
     for (const s of ['PriceList', 'Quote', 'Invoice'] as const)

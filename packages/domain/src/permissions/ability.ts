@@ -139,8 +139,8 @@ export function defineAbilityFor(member: AbilityInput): AppAbility {
         ],
         inFirm,
       );
-      // The firm's payment account is the Owner's to connect; an Admin sees whether it is connected.
-      can('read', 'PaymentAccount', inFirm);
+      // The firm's payment account and its Heatfleet subscription are firm settings (DEVELOPERS.md, Product rules).
+      can('manage', ['PaymentAccount', 'Billing'], inFirm);
       break;
     case 'stores':
       can(

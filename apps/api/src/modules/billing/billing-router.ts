@@ -11,7 +11,7 @@ export const billingRoutes: RouteDefinition[] = [
     tag,
     access: 'member',
     tenantData: true,
-    summary: 'The firm\u2019s Heatfleet subscription: plan (active vans), card and invoices (Owner)',
+    summary: 'The firm\u2019s Heatfleet subscription: plan (active vans), card and invoices (Owner, Admin)',
     request: {},
     responses: { 200: { description: 'Billing', schema: billingResponseSchema } },
     handle: async ({ res, deps, actor }) => {
@@ -37,7 +37,7 @@ export const billingRoutes: RouteDefinition[] = [
     tag,
     access: 'member',
     tenantData: true,
-    summary: 'A link to the payment service\u2019s page to save the subscription\u2019s card (Owner)',
+    summary: 'A link to the payment service\u2019s page to save the subscription\u2019s card (Owner, Admin)',
     request: {},
     responses: { 200: { description: 'Where to send the Owner', schema: onboardingLinkSchema } },
     handle: async ({ res, deps, actor }) => {
@@ -50,7 +50,7 @@ export const billingRoutes: RouteDefinition[] = [
     tag,
     access: 'member',
     tenantData: true,
-    summary: 'Pay the unpaid subscription invoice with the saved card (Owner); lifts read-only at once',
+    summary: 'Pay the unpaid subscription invoice with the saved card (Owner, Admin); lifts read-only at once',
     request: {},
     responses: { 200: { description: 'Billing after paying', schema: billingResponseSchema } },
     handle: async ({ res, deps, actor }) => {

@@ -99,7 +99,7 @@ export async function startCardSetup(deps: AppDeps, actor: Actor): Promise<{ url
   return { url: session.url };
 }
 
-/** Pays the unpaid subscription invoice with the card on file; paying lifts a read-only firm at once. */
+/** Pays the unpaid subscription invoice with the card on file; paying lifts a read-only firm at once (Owner, Admin). */
 export async function payOpenInvoice(deps: AppDeps, actor: Actor): Promise<BillingResponse> {
   ForbiddenError.from(actor.ability).throwUnlessCan('update', 'Billing');
   const row = await syncVanCount(deps, actor.firmId);
@@ -107,9 +107,9 @@ export async function payOpenInvoice(deps: AppDeps, actor: Actor): Promise<Billi
   const open = await callPaymentService(deps.logger, 'invoices.list', () =>
     stripe.invoices.list({ customer: row.customer_id, status: 'open', limit: 1 }),
   );
-  const invoice = open.data[0];
-  if (!invoice?.id) throw conflict('Nothing is owed on the subscription.');
-  const invoiceId = invoice.id;
+  const invoiceId = open.data[0]?.id;
+  // Nothing owed: nothing to do, and the page shows so.
+  if (!invoiceId) return getBilling(deps, actor);
   await callPaymentService(deps.logger, 'invoices.pay', () => stripe.invoices.pay(invoiceId));
   await updateSubscription(deps.db, actor.firmId, { status: 'active', payment_failed_at: null }, deps.clock.now());
   return getBilling(deps, actor);

@@ -98,7 +98,7 @@ export const paymentRoutes: RouteDefinition[] = [
     tag,
     access: 'member',
     tenantData: true,
-    summary: 'A link to the payment service\u2019s onboarding for the firm\u2019s own account (Owner)',
+    summary: 'A link to the payment service\u2019s onboarding for the firm\u2019s own account (Owner, Admin)',
     request: {},
     responses: { 200: { description: 'Where to send the Owner', schema: onboardingLinkSchema } },
     handle: async ({ res, deps, actor }) => {
