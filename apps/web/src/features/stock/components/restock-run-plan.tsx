@@ -128,16 +128,15 @@ function Review({
               onClick={() => {
                 setApplied(null);
                 const body = { lines: transfers };
-                apply.mutate(
-                  { ...body, idempotencyKey: idempotency.keyFor(body) },
-                  {
-                    onSuccess: () => {
-                      idempotency.done();
-                      setApplied(
-                        `Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vanCount} van${vanCount === 1 ? '' : 's'}.`,
-                      );
-                    },
+                // Awaited: applying recomputes the run, which remounts this review before a callback could run.
+                void apply.mutateAsync({ ...body, idempotencyKey: idempotency.keyFor(body) }).then(
+                  () => {
+                    idempotency.done();
+                    setApplied(
+                      `Applied: ${packsText(totalPacks)} moved from ${depot.name} to ${vanCount} van${vanCount === 1 ? '' : 's'}.`,
+                    );
                   },
+                  () => undefined, // shown from apply.error above the review
                 );
               }}
             >

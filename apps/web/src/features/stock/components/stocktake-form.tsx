@@ -85,16 +85,12 @@ function CountForm({
   const save = (input: StocktakeInput) => {
     setConfirm(null);
     const request = { action: 'stocktakes' as const, input };
-    movement.mutate(
-      { request, idempotencyKey: idempotency.keyFor(request) },
-      {
-        onSuccess: (answer) => {
-          idempotency.done();
-          onDone({ answer, lines: linesOf(input) });
-        },
-        onError: form.showError,
-      },
-    );
+    // Awaited rather than a mutate callback: saving refreshes the batches, which remounts this form
+    // before a callback of the old one could run; the parent keeps the summary.
+    void movement.mutateAsync({ request, idempotencyKey: idempotency.keyFor(request) }).then((answer) => {
+      idempotency.done();
+      onDone({ answer, lines: linesOf(input) });
+    }, form.showError);
   };
   return (
     <form
