@@ -234,7 +234,7 @@ test('with no signal an engineer records readings, agitation, a flush tick, wate
     const card = await openRadiator(page, 'Lounge');
     const again = (await part(card, 'Before the clean')).getByRole('group', { name: 'Readings before' });
     await expect(again.getByLabel('Top (°C)', { exact: true })).toHaveValue('68');
-    await expect(card.getByText(/Flushed until clear at \d\d:\d\d/)).toBeVisible();
+    await expect((await part(card, 'Agitate and flush')).getByText(/Flushed until clear at \d\d:\d\d/)).toBeVisible();
     const hallCard = await openRadiator(page, 'Hall');
     const hallAgain = (await part(hallCard, 'Before the clean')).getByRole('group', { name: 'Readings before' });
     await expect(hallAgain.getByLabel('Top (°C)', { exact: true })).toHaveValue('61');
