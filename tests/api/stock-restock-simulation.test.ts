@@ -21,6 +21,8 @@ describe('the restock simulation over the demo firm\u2019s year', () => {
     const figures = await restockSimulationFigures(t.deps.db);
     expect(figures).not.toBeNull();
     const f = figures!;
+    // The figures README.md quotes (npm run bench prints the same on its own copy of the demo firm).
+    console.info(`restock simulation: ${JSON.stringify(f)}`);
     // About three visits a week over 52 weeks (seed-demo-jobs.ts): well over a hundred jobs replayed.
     expect(f.jobs).toBeGreaterThan(100);
     expect(f.shortStartsBookedJobs).toBeLessThanOrEqual(f.shortStartsParOnly);
