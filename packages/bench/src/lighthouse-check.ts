@@ -1,9 +1,12 @@
 import { join } from 'node:path';
+import { createKnex } from '@heatfleet/api/db/knex.ts';
+import { migrateLatest } from '@heatfleet/api/db/migrations.ts';
 import { apiFiles } from '@heatfleet/devstack/src/api-files.ts';
 import { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import { httpAnswers200, startService, waitUntil } from '@heatfleet/devstack/src/processes.ts';
 import {
   benchApiEnv,
+  benchDatabase,
   benchStack,
   startBenchMariadb,
   startBenchRedis,
@@ -31,6 +34,9 @@ async function main(): Promise<void> {
   await life.add('the bench MariaDB', () => stopBenchMariadb(mariadb));
   const redis = await startBenchRedis();
   await life.add('the bench Redis', () => stopBenchRedis(redis));
+  // The kept data gets the migrations added since it was generated, as `npm run bench` does.
+  const db = createKnex(benchDatabase);
+  await migrateLatest(db).finally(() => db.destroy());
   const service = startService({
     name: 'api-lighthouse',
     command: process.execPath,

@@ -1,12 +1,15 @@
 import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { createPool, type Pool } from 'mysql2/promise';
+import { createKnex } from '@heatfleet/api/db/knex.ts';
+import { migrateLatest } from '@heatfleet/api/db/migrations.ts';
 import { apiFiles } from '@heatfleet/devstack/src/api-files.ts';
 import { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import { httpAnswers200, startService, waitUntil, type Service } from '@heatfleet/devstack/src/processes.ts';
 import { repoRoot } from '@heatfleet/devstack/src/repo-root.ts';
 import {
   benchApiEnv,
+  benchDatabase,
   benchStack,
   startBenchMariadb,
   startBenchRedis,
@@ -64,6 +67,9 @@ async function main(): Promise<void> {
   await life.add('the bench MariaDB', () => stopBenchMariadb(mariadb));
   const redis = await startBenchRedis();
   await life.add('the bench Redis', () => stopBenchRedis(redis));
+  // The kept data gets the migrations added since it was generated, as `npm run bench` does.
+  const db = createKnex(benchDatabase);
+  await migrateLatest(db).finally(() => db.destroy());
   const pool = createPool({ ...connection(), connectionLimit: 1 });
   await life.add('the pool', () => pool.end());
 
