@@ -116,13 +116,13 @@ test('no serious or critical axe violation on any page, signed out or as any rol
   // Every page the app routes to is in the sweep: a new page without a parameter joins by itself; one with a
   // parameter fails here until its id is filled in above.
   const added = Object.entries(paths as Record<string, { path: string }>).filter(([key]) => !(key in table));
-  expect(added.filter(([, p]) => p.path.includes(':')).map(([key]) => key)).toEqual([]);
+  const unswept = added.filter(([, p]) => p.path.includes(':')).map(([key]) => `${key}: not swept (fill its id in)`);
   const signedIn = [
     ...Object.values(table).filter((href): href is string => href !== null),
-    ...added.map(([, p]) => p.path),
+    ...added.filter(([, p]) => !p.path.includes(':')).map(([, p]) => p.path),
   ];
 
-  const found: string[] = [...(await sweep(browser, baseURL!, publicPages()))];
+  const found: string[] = [...unswept, ...(await sweep(browser, baseURL!, publicPages()))];
   for (const role of roles as readonly Role[]) {
     await test.step(`as ${role}`, async () => {
       found.push(...(await sweep(browser, baseURL!, signedIn, firm.people[role])));

@@ -77,7 +77,7 @@ export function DataTableGrid<TData extends object>({
                     className="px-2 py-2 align-middle max-sm:flex max-sm:min-h-9 max-sm:[&:has(>div:empty)]:hidden max-sm:flex-wrap max-sm:items-center max-sm:justify-between max-sm:gap-x-3 max-sm:px-0 max-sm:py-1 max-sm:before:text-sm max-sm:before:font-semibold max-sm:before:text-ink-muted max-sm:before:content-[attr(data-label)]"
                   >
                     {/* A long value (an e-mail) drops below its label on a phone before it breaks mid-word. */}
-                    <div className="max-w-full min-w-0 [overflow-wrap:break-word] max-sm:grow max-sm:text-right">
+                    <div className="max-w-full min-w-0 [overflow-wrap:break-word] max-sm:grow max-sm:text-right [&_a]:inline-flex [&_a]:min-h-12 [&_a]:items-center">
                       <table.FlexRender cell={cell} />
                     </div>
                   </td>
