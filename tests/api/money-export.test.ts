@@ -58,3 +58,40 @@ describe('money export and overview', () => {
     expect(aged.days_0_30 + aged.days_31_60 + aged.days_over_60).toBe(res.body.owedPence);
   });
 });
+
+describe('overdue invoices', () => {
+  it('remind the customer at 7 and 21 days past due (the firm settings), once each, through the reminder scan', async () => {
+    const m = await setUpMoneyFirm(t, 'money-overdue');
+    await m.engineer.post(`/api/jobs/${m.firm.jobId}/complete`, allReasons).then((r) => expect(r.status).toBe(200));
+    const [inv] = (await m.owner.get(`/api/invoices?jobId=${m.firm.jobId}`)).body.invoices;
+    const customerEmail = inv.customerEmail as string;
+    const reminders = () =>
+      t.deps
+        .db('emails')
+        .where({ firm_id: m.firm.firmId, to_address: customerEmail })
+        .andWhere('subject', 'like', 'Reminder: invoice%')
+        .orderBy('id');
+    const dueDaysAgo = (n: number) =>
+      t.deps
+        .db('invoices')
+        .where({ id: inv.id })
+        .update({ due_on: new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10) });
+    await dueDaysAgo(6);
+    expect((await m.owner.post('/api/reminders/scan')).status).toBeLessThan(300);
+    expect(await reminders()).toHaveLength(0);
+    await dueDaysAgo(8);
+    await m.owner.post('/api/reminders/scan');
+    await m.owner.post('/api/reminders/scan');
+    const first = await reminders();
+    expect(first).toHaveLength(1);
+    expect(first[0].subject).toContain('INV-00002');
+    expect(first[0].text_body).toMatch(/\/pay\/[A-Za-z0-9_-]{40,}/);
+    expect(first[0].text_body).toContain('£233.99 is still owed');
+    await dueDaysAgo(22);
+    await m.owner.post('/api/reminders/scan');
+    await m.owner.post('/api/reminders/scan');
+    const both = await reminders();
+    expect(both).toHaveLength(2);
+    expect(both[1].text_body).toMatch(/second reminder/i);
+  });
+});

@@ -45,6 +45,10 @@ export const router = createBrowserRouter([
           })),
       },
       {
+        path: paths.quoteLink.path,
+        lazy: () => import('@/app/routes/money/quote-link-page').then((m) => ({ Component: m.QuoteLinkPage })),
+      },
+      {
         path: paths.pay.path,
         lazy: () => import('@/app/routes/payments/pay-page').then((m) => ({ Component: m.PayPage })),
       },

@@ -51,6 +51,8 @@ export const paths = {
   /** The payment service's onboarding returns here (the API builds the same URL). */
   paymentSettings: { path: '/settings/payments', getHref: () => '/settings/payments' },
   /** The customer's pay link in the invoice e-mail and the doorstep QR code (the API builds the same URL). */
+  /** The customer's quote link (modules/money quote e-mail): public, no sign-in. */
+  quoteLink: { path: '/q/:token', getHref: (token: string) => `/q/${encodeURIComponent(token)}` },
   pay: { path: '/pay/:token', getHref: (token: string) => `/pay/${encodeURIComponent(token)}` },
   invoicePayment: { path: '/invoices/:id/payment', getHref: (id: number) => `/invoices/${id}/payment` },
   /** The payment service's card page returns here (the API builds the same URL). */

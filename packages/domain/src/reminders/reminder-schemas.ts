@@ -8,6 +8,7 @@ export const reminderKinds = [
   'depot_reorder',
   'batch_expiring',
   'annual_check_due',
+  'invoice_overdue',
 ] as const;
 export type ReminderKind = (typeof reminderKinds)[number];
 export const reminderKindLabels: Record<ReminderKind, string> = {
@@ -18,10 +19,11 @@ export const reminderKindLabels: Record<ReminderKind, string> = {
   depot_reorder: 'Depot reorder',
   batch_expiring: 'Batch expiring',
   annual_check_due: 'Annual check due',
+  invoice_overdue: 'Invoice overdue',
 };
 
 /** What a reminder is about, for a link: a kit item, a van, a product (depot reorders), a batch or a customer's site. */
-export const reminderSubjectTypes = ['kit_item', 'van', 'product', 'batch', 'site'] as const;
+export const reminderSubjectTypes = ['kit_item', 'van', 'product', 'batch', 'site', 'invoice'] as const;
 export type ReminderSubjectType = (typeof reminderSubjectTypes)[number];
 
 export const reminderSettingsSchema = z.strictObject({

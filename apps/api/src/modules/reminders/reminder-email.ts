@@ -27,6 +27,7 @@ const sectionTitles: { title: string; kinds: ReminderKind[] }[] = [
   { title: 'Depot stock to reorder', kinds: ['depot_reorder'] },
   { title: 'Batches expiring', kinds: ['batch_expiring'] },
   { title: 'Customers due their annual check', kinds: ['annual_check_due'] },
+  { title: 'Invoices overdue (the customer was reminded)', kinds: ['invoice_overdue'] },
 ];
 
 function sections(lines: DigestLine[]): { title: string; lines: string[] }[] {
@@ -43,6 +44,7 @@ function topics(lines: DigestLine[]): string {
     ...(has(['mot_due', 'service_due']) ? ['vans'] : []),
     ...(has(['van_below_minimum', 'depot_reorder', 'batch_expiring']) ? ['stock'] : []),
     ...(has(['annual_check_due']) ? ['annual checks'] : []),
+    ...(has(['invoice_overdue']) ? ['overdue invoices'] : []),
   ];
   return words.length > 1
     ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`

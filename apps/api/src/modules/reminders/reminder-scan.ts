@@ -32,6 +32,7 @@ import {
 } from './reminder-settings-dal.ts';
 import { annualCheckCustomerEmail, reminderDigestEmail, type DigestLine } from './reminder-email.ts';
 import { stockCandidates } from './reminder-stock.ts';
+import { overdueInvoiceCandidates, overdueInvoiceEmail } from '../money/invoice-reminders.ts';
 import { createUnsubscribeLink, mayMarketTo } from './unsubscribe-service.ts';
 
 /** What a scan needs; AppDeps has all of it, and the worker builds the same from its own parts. */
@@ -209,6 +210,8 @@ export async function runReminderScan(
       ...(firm.settings.vanReminders ? vanCandidates(await listVansForScan(trx, firmId), today) : []),
       ...(firm.settings.stockReminders ? await stockCandidates(trx, firmId, today, now) : []),
       ...(firm.settings.annualCheckReminders ? annualCheckCandidates(await listSitesForScan(trx, firmId), today) : []),
+      // Overdue invoices, at the firm's money settings' days after the due date (modules/money).
+      ...(await overdueInvoiceCandidates(trx, firmId, today)),
     ];
     const fresh: (Candidate & { id: number })[] = [];
     for (const candidate of candidates) {
@@ -248,6 +251,14 @@ export async function runReminderScan(
         emailIds.push(emailId);
         await insertReminderDeliveries(trx, firmId, [{ reminderId: r.id, emailId, recipient: r.customer.email }]);
       }
+    }
+    // The customer's own reminder for each overdue invoice newly recorded (once per invoice per chase).
+    for (const r of fresh) {
+      if (r.kind !== 'invoice_overdue') continue;
+      const sent = await overdueInvoiceEmail(trx, deps.env.APP_ORIGIN, firmId, r.subjectId, r.periodKey, now);
+      if (!sent) continue;
+      emailIds.push(sent.emailId);
+      await insertReminderDeliveries(trx, firmId, [{ reminderId: r.id, emailId: sent.emailId, recipient: sent.to }]);
     }
     if (options.sweep) await markFirmScanned(trx, firmId, today);
     return { reminders: fresh.length, emailIds, ran: true };
