@@ -345,9 +345,17 @@ describe('restock and reorder', () => {
     expect(lines).toEqual([
       expect.objectContaining({
         product: firm.product.name,
-        'usable after restock': '6',
-        'order packs': '24',
+        'pack size': '1 L',
+        'usable after restock (packs)': '6',
+        'order (packs)': '24',
         'days of cover': '540',
+        'cost per pack (GBP)': '',
+      }),
+      // The last row totals the order; without a cost price the line adds nothing and the row says so.
+      expect.objectContaining({
+        product: 'Total (lines with a cost price)',
+        'order (packs)': '24',
+        'line cost (GBP)': '0.00',
       }),
     ]);
   });

@@ -73,7 +73,7 @@ export function reorderCsv(rows: ReorderRow[], totalPence: number): string {
       r.daysOfCover ?? '',
     ]),
     [
-      'Total',
+      rows.some((r) => r.lineCostPence === null) ? 'Total (lines with a cost price)' : 'Total',
       '',
       '',
       '',
@@ -83,7 +83,7 @@ export function reorderCsv(rows: ReorderRow[], totalPence: number): string {
       '',
       money(totalPence),
       '',
-      rows.some((r) => r.lineCostPence === null) ? 'some lines have no cost price' : '',
+      '',
     ],
   ]);
 }
