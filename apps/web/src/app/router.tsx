@@ -145,6 +145,10 @@ export const router = createBrowserRouter([
               import('@/app/routes/payments/invoice-payment-page').then((m) => ({ Component: m.InvoicePaymentPage })),
           },
           {
+            path: paths.money.path,
+            lazy: () => import('@/app/routes/money/money-page').then((m) => ({ Component: m.MoneyPage })),
+          },
+          {
             path: paths.billing.path,
             lazy: () => import('@/app/routes/billing/billing-page').then((m) => ({ Component: m.BillingPage })),
           },

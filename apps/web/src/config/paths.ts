@@ -52,6 +52,7 @@ export const paths = {
   paymentSettings: { path: '/settings/payments', getHref: () => '/settings/payments' },
   /** The customer's pay link in the invoice e-mail and the doorstep QR code (the API builds the same URL). */
   /** The customer's quote link (modules/money quote e-mail): public, no sign-in. */
+  money: { path: '/money', getHref: () => '/money' },
   quoteLink: { path: '/q/:token', getHref: (token: string) => `/q/${encodeURIComponent(token)}` },
   pay: { path: '/pay/:token', getHref: (token: string) => `/pay/${encodeURIComponent(token)}` },
   invoicePayment: { path: '/invoices/:id/payment', getHref: (id: number) => `/invoices/${id}/payment` },

@@ -179,6 +179,9 @@ function SignedInHeader({ me }: { me: Me }) {
               <NavItem to={paths.vibration.getHref()}>Vibration</NavItem>
             </Can>
             {showSettings ? <NavItem to={paths.settings.getHref()}>Settings</NavItem> : null}
+            <Can I="update" a="Invoice">
+              <NavItem to={paths.money.getHref()}>Money</NavItem>
+            </Can>
             <Can I="read" a="Billing">
               <NavItem to={paths.billing.getHref()}>Billing</NavItem>
             </Can>
