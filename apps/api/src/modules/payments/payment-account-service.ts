@@ -6,6 +6,7 @@ import { findFirm } from '../firms/firm-dal.ts';
 import { callPaymentService, paymentClient } from './payment-client.ts';
 import {
   findPaymentAccount,
+  deletePaymentAccount,
   insertPaymentAccount,
   setPaymentAccountStatus,
   type PaymentAccountRow,
@@ -20,16 +21,26 @@ function accountOf(row: PaymentAccountRow | undefined): PaymentAccount {
 }
 
 /**
- * The firm's payment account as the Settings page shows it. While onboarding is unfinished the service is asked
- * again (the person may have just come back from its onboarding page, ahead of the account.updated webhook).
+ * The firm's payment account as the Settings page shows it, asked of the service each time (the person may have
+ * just come back from its onboarding page, ahead of the account.updated webhook). An account the service no longer
+ * knows (disconnected there, or a restarted local stand-in) is forgotten here, so the Owner can connect again.
  */
 export async function getPaymentAccount(deps: AppDeps, actor: Actor): Promise<PaymentAccount> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'PaymentAccount');
   const row = await findPaymentAccount(deps.db, actor.firmId);
-  if (!row || row.charges_enabled) return accountOf(row);
+  if (!row) return accountOf(row);
+  const stripe = paymentClient(deps.env);
   const account = await callPaymentService(deps.logger, 'accounts.retrieve', () =>
-    paymentClient(deps.env).accounts.retrieve(row.provider_account_id),
+    stripe.accounts.retrieve(row.provider_account_id).catch((error: unknown) => {
+      const e = error as { statusCode?: number; code?: string };
+      if (e.statusCode === 403 || e.statusCode === 404 || e.code === 'resource_missing') return null;
+      throw error;
+    }),
   );
+  if (account === null) {
+    await deletePaymentAccount(deps.db, actor.firmId);
+    return accountOf(undefined);
+  }
   const status = { chargesEnabled: account.charges_enabled, detailsSubmitted: account.details_submitted };
   await setPaymentAccountStatus(deps.db, actor.firmId, status, deps.clock.now());
   return { connected: true, ...status };

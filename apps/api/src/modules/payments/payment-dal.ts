@@ -27,6 +27,11 @@ export async function insertPaymentAccount(db: Db, firmId: number, accountId: st
   await db('payment_accounts').insert({ firm_id: firmId, provider_account_id: accountId });
 }
 
+/** The service no longer knows the account: forgotten, so the Owner can connect again (payments keep their rows). */
+export async function deletePaymentAccount(db: Db, firmId: number): Promise<void> {
+  await db('payment_accounts').where({ firm_id: firmId }).delete();
+}
+
 export async function setPaymentAccountStatus(
   db: Db,
   firmId: number,
