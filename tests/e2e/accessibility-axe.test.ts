@@ -74,7 +74,8 @@ const publicPages = (): string[] => [
 
 /** The page has drawn its data: no spinner left, nothing fetching. */
 async function settle(page: Page): Promise<void> {
-  await page.waitForLoadState('networkidle');
+  // Not 'networkidle': a page that keeps a request open would never settle.
+  await page.waitForLoadState('load');
   await expect(page.getByRole('status').filter({ hasText: /Loading|Opening/ })).toHaveCount(0, { timeout: 15_000 });
 }
 
@@ -99,13 +100,16 @@ async function sweep(browser: Browser, baseURL: string, urls: string[], person?:
   for (const url of urls) {
     await page.goto(url);
     await settle(page);
-    found.push(...(await seriousViolations(page, `${person ? person.email.split('-')[0] : 'signed out'} ${url}`)));
+    const here = await seriousViolations(page, `${person ? person.email.split('-')[0] : 'signed out'} ${url}`);
+    // Logged as found, so a sweep cut short still shows what it saw.
+    for (const line of here) console.log(line);
+    found.push(...here);
   }
   await context.close();
   return found;
 }
 
-test.describe.configure({ timeout: 600_000 });
+test.describe.configure({ timeout: 1_200_000 });
 
 test('no serious or critical axe violation on any page, signed out or as any role', async ({ browser, baseURL }) => {
   const firm = await furnishedFirm(baseURL!);
