@@ -85,7 +85,8 @@ describe('tenant isolation', () => {
         for (const s of a.sentinels) expect(text.includes(s), `${label} leaks "${s}"`).toBe(false);
       }
       expect(await snapshotFirm(t.deps.db, a.firmId)).toEqual(before);
-    });
+      // One sign-in (argon2id) per route across some 160 routes: longer than the 30 s default on a busy machine.
+    }, 180_000);
   }
 
   it('the same calls with firm B\u2019s own ids do reach B\u2019s records (so the 404s above mean something)', async () => {
