@@ -32,6 +32,7 @@ test('the customer pays on the doorstep from the QR link; the owner refunds part
     siteId: site.id,
     scheduledOn: isoDaysFromNow(0),
     engineerMemberId: crew.engineer.memberId,
+    productIds: [],
     survey: {
       systemType: 'sealed',
       boilerKind: 'combi',
