@@ -24,6 +24,7 @@ import { SheetSection } from '@/features/jobs/components/sheet-section';
 import { StartVisit, startSummary } from '@/features/jobs/components/start-visit';
 import type { InhibitorChoice } from '@/features/jobs/components/water-tests-form';
 import { productQueries } from '@/features/stock/api/stock-queries';
+import { JobQuoteSection } from '@/features/money/components/job-quote-section';
 
 function visitStarted(detail: JobDetail): boolean {
   const { sheet } = detail;
@@ -143,6 +144,7 @@ export function JobPage() {
           ) : null}
           {row.status === 'completed' ? <DoneCard detail={detail} timeZone={timeZone} /> : null}
           <JobPlan detail={detail} defaultOpen={planned && !started} />
+          <JobQuoteSection jobId={row.id} />
           {row.status === 'cancelled' ? null : (
             <>
               <SheetSection title="Before you start" summary={startSummary(detail)} defaultOpen={planned}>
