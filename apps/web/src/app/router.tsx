@@ -149,6 +149,14 @@ export const router = createBrowserRouter([
             lazy: () => import('@/app/routes/money/money-page').then((m) => ({ Component: m.MoneyPage })),
           },
           {
+            path: paths.prices.path,
+            lazy: () => import('@/app/routes/money/prices-page').then((m) => ({ Component: m.PricesPage })),
+          },
+          {
+            path: paths.invoice.path,
+            lazy: () => import('@/app/routes/money/invoice-page').then((m) => ({ Component: m.InvoicePage })),
+          },
+          {
             path: paths.billing.path,
             lazy: () => import('@/app/routes/billing/billing-page').then((m) => ({ Component: m.BillingPage })),
           },

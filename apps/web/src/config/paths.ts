@@ -53,6 +53,9 @@ export const paths = {
   /** The customer's pay link in the invoice e-mail and the doorstep QR code (the API builds the same URL). */
   /** The customer's quote link (modules/money quote e-mail): public, no sign-in. */
   money: { path: '/money', getHref: () => '/money' },
+  /** Settings, Prices: VAT, terms, reminders and the price list (issue 15). */
+  prices: { path: '/settings/prices', getHref: () => '/settings/prices' },
+  invoice: { path: '/invoices/:id', getHref: (id: number) => `/invoices/${id}` },
   quoteLink: { path: '/q/:token', getHref: (token: string) => `/q/${encodeURIComponent(token)}` },
   pay: { path: '/pay/:token', getHref: (token: string) => `/pay/${encodeURIComponent(token)}` },
   invoicePayment: { path: '/invoices/:id/payment', getHref: (id: number) => `/invoices/${id}/payment` },

@@ -1,15 +1,16 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
 import { calendarDateIn, formatPence, invoiceStateLabels } from '@heatfleet/domain';
 import { PageHeader } from '@/components/ui/page-header';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { TextField } from '@/components/ui/text-field';
+import { paths } from '@/config/paths';
 import { exportHref, invoicePdfHref, moneyQueries } from '@/features/money/api/money-queries';
 import { MoneyOverviewSection } from '@/features/money/components/money-overview-section';
 
 // The office's money page (Owner, Admin): money owed and revenue, the invoices with their PDFs, and the
-// bookkeeper's CSV for a date range. Prices and VAT settings are set through the API for now (PUT /money/settings,
-// POST /money/price-items): their screen is not built yet.
+// bookkeeper's CSV for a date range. Each invoice opens its own page; prices and VAT are set in Settings, Prices.
 
 function Invoices() {
   const q = useQuery(moneyQueries.invoices());
@@ -32,7 +33,14 @@ function Invoices() {
         <tbody>
           {q.data.map((i) => (
             <tr key={i.id} className="border-b">
-              <td className="py-2 pr-2">{i.number ?? 'Draft'}</td>
+              <td className="py-2 pr-2">
+                <Link
+                  className="inline-flex min-h-12 items-center font-semibold underline"
+                  to={paths.invoice.getHref(i.id)}
+                >
+                  {i.number ?? 'Draft'}
+                </Link>
+              </td>
               <td className="py-2 pr-2">{i.customerName}</td>
               <td className="py-2 pr-2">{invoiceStateLabels[i.status]}</td>
               <td className="py-2 pr-2 text-right">{formatPence(i.totalPence)}</td>
@@ -56,7 +64,11 @@ export function MoneyPage() {
   const [to, setTo] = useState(today);
   return (
     <div className="space-y-6">
-      <PageHeader title="Money" />
+      <PageHeader title="Money">
+        <Link className="inline-flex min-h-12 items-center underline" to={paths.prices.getHref()}>
+          Prices and VAT
+        </Link>
+      </PageHeader>
       <MoneyOverviewSection />
       <section className="space-y-3">
         <h2 className="text-lg font-semibold">Invoices</h2>

@@ -24,6 +24,16 @@ export function SettingsPage() {
             <FirmSettingsForm />
           </Card>
         </Can>
+        <Can I="update" a="PriceList">
+          <Card title="Prices and VAT" description="The price list, VAT registration, payment terms and reminders.">
+            <Link
+              to={paths.prices.getHref()}
+              className="inline-flex min-h-12 items-center font-semibold text-brand-700 underline"
+            >
+              Prices
+            </Link>
+          </Card>
+        </Can>
         <Can I="read" a="PaymentAccount">
           <Card title="Card payments" description="The firm's own account for customers' card payments.">
             <Link
