@@ -18,7 +18,7 @@ const MADE_UP_TOKEN = 'a'.repeat(43);
 type PageKey = keyof typeof paths;
 
 /** Every client path with the ids of the sweep's firm filled in; a new path in config/paths.ts must be added here. */
-function hrefs(firm: FurnishedFirm, outboxId: string | null): Record<PageKey, string | null> {
+function hrefs(firm: FurnishedFirm, outboxId: string | null, invoiceId: number): Record<PageKey, string | null> {
   const { ids } = firm;
   return {
     home: paths.home.getHref(),
@@ -59,6 +59,7 @@ function hrefs(firm: FurnishedFirm, outboxId: string | null): Record<PageKey, st
     account: paths.account.getHref(),
     outbox: paths.outbox.getHref(),
     outboxMessage: outboxId ? paths.outboxMessage.getHref(outboxId) : null,
+    invoice: paths.invoice.getHref(invoiceId),
   } as Record<PageKey, string | null>;
 }
 
@@ -115,7 +116,11 @@ test('no serious or critical axe violation on any page, signed out or as any rol
   const firm = await furnishedFirm(baseURL!);
   const owner = firm.people.owner;
   const { messages } = await callApi<{ messages: OutboxMessageSummary[] }>(owner.session, 'get', '/api/outbox');
-  const table = hrefs(firm, messages[0]?.id ?? null);
+  // A draft invoice for the firm's job, so the invoice page is swept with its lines editor (issue 15).
+  const draft = await callApi<{ id: number }>(owner.session, 'post', '/api/invoices', {
+    data: { jobId: firm.ids.job },
+  });
+  const table = hrefs(firm, messages[0]?.id ?? null, draft.id);
 
   // Every page the app routes to is in the sweep: a new page without a parameter joins by itself; one with a
   // parameter fails here until its id is filled in above.

@@ -56,8 +56,7 @@ export function InvoiceLinesEditor({ invoice }: { invoice: Invoice }) {
       {save.isSuccess ? <Alert tone="success">Lines saved.</Alert> : null}
       {errors.lines ? <Alert tone="error">{errors.lines}</Alert> : null}
       {rows.map((r, i) => (
-        <fieldset key={i} className="grid gap-2 rounded-md border p-3 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end">
-          <legend className="sr-only">Line {i + 1}</legend>
+        <div key={i} className="grid gap-2 rounded-md border p-3 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end">
           <TextField
             label={`Line ${i + 1}`}
             name={`lines.${i}.description`}
@@ -88,7 +87,7 @@ export function InvoiceLinesEditor({ invoice }: { invoice: Invoice }) {
           >
             Remove
           </Button>
-        </fieldset>
+        </div>
       ))}
       <div className="flex flex-wrap gap-3">
         <Button
