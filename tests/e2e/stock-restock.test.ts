@@ -46,7 +46,7 @@ test('stores receives a delivery, runs a restock and the engineer sees it on My 
   await expect(page.getByRole('heading', { level: 1, name: 'Stock' })).toBeVisible();
   // The new product has no stock anywhere yet, and Van 1 is below its minimum of it.
   await expect(
-    page.getByRole('button', { name: `${name} at Van 1: 0 packs of 1 L usable, None usable, minimum 2, target 4` }),
+    page.getByRole('button', { name: `${name} at Van 1: (0 packs of 1 L usable, None usable, minimum 2, target 4)` }),
   ).toBeVisible();
   await page.screenshot({ path: testInfo.outputPath('stock-grid-360.png'), fullPage: true });
   await expectNoOverflow(page, 'the stock grid');

@@ -83,16 +83,20 @@ export function StockGridView() {
                   const health = cell?.health ?? 'no_par';
                   const usable = cell?.usable ?? 0;
                   const isSelected = selected?.locationId === place.id && selected.productId === product.id;
-                  const label = `${product.name} at ${place.name}: ${formatPacks(usable, product.packSizeMl)} usable, ${stockHealthLabels[health]}${cell?.need ? `, minimum ${cell.need.minimum}, target ${cell.need.target}` : ''}${cell?.booked ? `, ${cell.booked} booked` : ''}${cell?.expired ? `, ${cell.expired} expired` : ''}`;
+                  // Named by its content (visible figures plus words for screen readers), so the name always
+                  // holds what is seen (WCAG 2.2 SC 2.5.3, label in name).
+                  const detail = `${formatPacks(usable, product.packSizeMl)} usable, ${stockHealthLabels[health]}${cell?.need ? `, minimum ${cell.need.minimum}, target ${cell.need.target}` : ''}${cell?.booked ? `, ${cell.booked} booked` : ''}${cell?.expired ? `, ${cell.expired} expired` : ''}`;
                   return (
                     <td key={place.id} className="px-1 py-1">
                       <button
                         type="button"
-                        aria-label={label}
                         aria-pressed={isSelected}
                         onClick={() => setSelected(isSelected ? null : { locationId: place.id, productId: product.id })}
                         className={`flex min-h-11 w-full min-w-16 flex-col items-center justify-center rounded-md border px-2 font-semibold ${healthStyles[health].cell} ${isSelected ? 'ring-3 ring-brand-700' : ''}`}
                       >
+                        <span className="sr-only">
+                          {product.name} at {place.name}: ({detail}){' '}
+                        </span>
                         <span className="text-lg leading-tight">
                           <span aria-hidden="true" className="mr-1 text-xs">
                             {healthStyles[health].mark}

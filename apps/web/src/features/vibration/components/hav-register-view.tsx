@@ -56,7 +56,7 @@ export function HavRegisterView({ register }: { register: HavRegisterResponse })
           </li>
         ))}
       </ul>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Weeks per engineer, scrolls sideways">
         <table className="min-w-full text-sm">
           <caption className="sr-only">
             Highest day&apos;s points per week, {formatCalendarDate(register.from)} to {formatCalendarDate(register.to)}
