@@ -79,7 +79,7 @@ test('the engineer makes, changes and sends a quote, and the customer accepts it
 
   // The engineer changes the price to £162.50: net £162.50, VAT 20% £32.50, total £195.00 (arithmetic).
   await section.getByRole('button', { name: 'Change the lines' }).tap();
-  const price = section.getByLabel('Unit price (£)');
+  const price = section.getByLabel('Unit price excl. VAT (£)');
   await expect(price).toHaveValue('150.00');
   await expect(price).toHaveAttribute('inputmode', 'decimal');
   await price.fill('162.50');
@@ -114,6 +114,7 @@ test('the engineer makes, changes and sends a quote, and the customer accepts it
     await page.mouse.move(r.x + 20 + i * ((r.width - 40) / 24), r.y + r.height * (0.5 + 0.3 * Math.sin(i / 2)));
   await page.mouse.up();
   await expect(form.getByText('Signed. Clear it to sign again.')).toBeVisible();
+  await expect(form.getByRole('alert')).toHaveCount(0);
   await form.getByRole('button', { name: 'Accept the quote' }).tap();
   await expect(section.getByText('Accepted by Morwenna Haskett')).toBeVisible();
   await expect(section.getByText(/asked for the work to be done within the 14-day cancellation period/)).toBeVisible();

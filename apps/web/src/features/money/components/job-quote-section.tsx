@@ -86,6 +86,7 @@ export function JobQuoteSection({ jobId }: { jobId: number }) {
         {quote && editing ? (
           <QuoteLinesEditor
             lines={quote.lines}
+            vatRegistered={quote.vatRegistered}
             busy={change.isPending}
             onCancel={() => setEditing(false)}
             onSave={(lines) => change.mutate({ id: quote.id, lines }, { onSuccess: () => setEditing(false) })}

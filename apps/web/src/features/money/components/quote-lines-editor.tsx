@@ -45,11 +45,13 @@ function toInput(rows: Row[]): { lines: MoneyLineInput[] } | { problem: string }
 
 export function QuoteLinesEditor({
   lines,
+  vatRegistered,
   busy,
   onSave,
   onCancel,
 }: {
   lines: MoneyLine[];
+  vatRegistered: boolean;
   busy: boolean;
   onSave: (lines: MoneyLineInput[]) => void;
   onCancel: () => void;
@@ -88,7 +90,7 @@ export function QuoteLinesEditor({
               onChange={(e) => set(r.key, { quantity: e.target.value })}
             />
             <TextField
-              label="Unit price (£)"
+              label={vatRegistered ? 'Unit price excl. VAT (£)' : 'Unit price (£)'}
               name={`line-${i}-price`}
               inputMode="decimal"
               value={r.pounds}

@@ -49,10 +49,21 @@ export function QuotePhoneAccept({
         name="acceptName"
         autoComplete="off"
         value={name}
-        onChange={(e) => setName(e.target.value)}
+        onChange={(e) => {
+          setName(e.target.value);
+          setProblem(null);
+        }}
       />
       <label className="flex min-h-12 items-start gap-3">
-        <input type="checkbox" className="mt-1 h-6 w-6" checked={agree} onChange={(e) => setAgree(e.target.checked)} />
+        <input
+          type="checkbox"
+          className="mt-1 h-6 w-6"
+          checked={agree}
+          onChange={(e) => {
+            setAgree(e.target.checked);
+            setProblem(null);
+          }}
+        />
         <span>I accept quote {quote.number} for the work and prices above.</span>
       </label>
       <div className="space-y-2 rounded-lg border border-line bg-brand-50 p-3 text-sm">
@@ -72,7 +83,14 @@ export function QuotePhoneAccept({
         />
         <span>{EXPRESS_REQUEST_WORDS} (optional)</span>
       </label>
-      <SignatureBox label="The customer signs to accept" onChange={setPng} disabled={busy} />
+      <SignatureBox
+        label="The customer signs to accept"
+        onChange={(drawn) => {
+          setPng(drawn);
+          setProblem(null);
+        }}
+        disabled={busy}
+      />
       {shown ? (
         <p role="alert" className="font-semibold text-danger-700">
           {shown}
