@@ -37,7 +37,20 @@ test('an owner invites an engineer from Team, who joins from the e-mail and sees
     await expect(page.getByRole('heading', { level: 1, name: firmName })).toBeVisible();
     await expect(page.getByRole('heading', { name: 'Your role: Owner' })).toBeVisible();
     // A new firm has no van for its owner yet, so no "My van".
-    await expectNavLinks(page, ['Home', 'Vans', 'Jobs', 'Kits', 'Stock', 'Reminders', 'Team', 'Settings', 'Outbox']);
+    await expectNavLinks(page, [
+      'Home',
+      'Vans',
+      'Jobs',
+      'Kits',
+      'Stock',
+      'Reminders',
+      'Team',
+      'Vibration',
+      'Settings',
+      'Money',
+      'Billing',
+      'Outbox',
+    ]);
   });
 
   await test.step('the Owner invites an engineer from Team', async () => {

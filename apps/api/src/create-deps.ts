@@ -41,7 +41,13 @@ export function createDeps(env: Env, overrides: { clock?: Clock; limits?: Partia
     clock: overrides.clock ?? systemClock,
     mailQueue: createMailQueue(env, logger),
     objectStore: createObjectStore(env),
-    limiters: createRateLimiters(overrides.limits, limitStores(env, redis, logger)),
+    limiters: createRateLimiters(
+      {
+        ...(env.SIGN_UPS_PER_ADDRESS_PER_HOUR ? { signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS_PER_HOUR } : {}),
+        ...overrides.limits,
+      },
+      limitStores(env, redis, logger),
+    ),
     redis,
   };
 }

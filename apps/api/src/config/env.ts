@@ -45,6 +45,9 @@ const envSchema = z.object({
   REDIS_SENTINEL_NAME: z.string().default('heatfleet'),
   // Key prefix of the shared rate-limit counters (several deployments on one Redis each take their own).
   RATE_LIMIT_PREFIX: z.string().max(64).optional(),
+  // Sign-ups per client address per hour (default 20). The browser tests raise it: they sign up dozens of firms
+  // from one loopback address in one run.
+  SIGN_UPS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().min(1).max(100_000).optional(),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().default(2525),
   SMTP_SECURE: z.stringbool().default(false),
