@@ -125,6 +125,32 @@ describe('unsubscribing from the customer reminder e-mails', () => {
     expect(linkIn(theirs, '/unsubscribe/')).toMatch(/\/unsubscribe\/[A-Za-z0-9_-]{43}$/);
   });
 
+  it('the office adds an address a customer asked by phone to drop; the next offer is not sent to it', async () => {
+    const customerEmail = uniqueEmail('unsub-office');
+    const { firm, owner } = await firmWithCustomer('unsub-office', customerEmail);
+    const bad = await owner.post('/api/marketing-suppressions', { email: 'not an address' });
+    expect(bad.status).toBe(422);
+    expect(bad.body.message).toContain('"not an address" is not an e-mail address.');
+    expect(await t.deps.db('marketing_suppressions').where({ firm_id: firm.firmId })).toHaveLength(0);
+
+    const added = await owner.post('/api/marketing-suppressions', { email: `  ${customerEmail.toUpperCase()} ` });
+    expect(added.status).toBe(200);
+    expect(added.body.suppression).toEqual(
+      expect.objectContaining({ email: customerEmail.toLowerCase(), source: 'office' }),
+    );
+    // Again: one row, as it was.
+    expect((await owner.post('/api/marketing-suppressions', { email: customerEmail })).body.suppression.id).toBe(
+      added.body.suppression.id,
+    );
+    expect(await t.deps.db('marketing_suppressions').where({ firm_id: firm.firmId })).toHaveLength(1);
+
+    const scan = await runReminderScan(t.deps, firm.firmId, t.clock.now());
+    expect(scan.reminders).toBe(1);
+    expect(scan.emails).toBe(2); // owner and stores; not the customer
+    await new Promise((r) => setTimeout(r, 500));
+    expect(await findEmails(customerEmail)).toHaveLength(0);
+  });
+
   it('answers 404 for a link that does not exist and keeps the list from engineers', async () => {
     const stranger = new Client(t.app);
     const made = await stranger.post(`/api/unsubscribe/${'q'.repeat(43)}`);
@@ -134,5 +160,6 @@ describe('unsubscribing from the customer reminder e-mails', () => {
     const firm = await seedBareFirm(t, 'unsub-roles');
     const engineer = await signIn(t.app, firm.people.engineer.email);
     expect((await engineer.get('/api/marketing-suppressions')).status).toBe(403);
+    expect((await engineer.post('/api/marketing-suppressions', { email: 'a@example.test' })).status).toBe(403);
   });
 });

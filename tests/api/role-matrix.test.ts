@@ -109,6 +109,7 @@ const allowed: Record<string, Role[]> = {
   'GET /reminder-settings': managers,
   'PUT /reminder-settings': managers,
   'GET /marketing-suppressions': managers,
+  'POST /marketing-suppressions': managers,
   'GET /firm': everyone,
   'PUT /firm': managers,
   'GET /overview': everyone,

@@ -57,4 +57,33 @@ test('a role changes only after the confirm; cancelling or Escape changes nothin
     await expect.poll(roleOf).toBe('engineer');
     await expect(row.getByRole('cell', { name: /Engineer/ })).toBeVisible();
   });
+
+  const activeOf = async () =>
+    (await callApi<{ members: Member[] }>(firm.owner.session, 'get', '/api/members')).members.find(
+      (m) => m.id === stores.memberId,
+    )?.active;
+
+  await test.step('Deactivate asks first: keeping them active changes nothing, the confirm deactivates', async () => {
+    const deactivate = row.getByRole('button', { name: 'Deactivate Morwenna Pascoe' });
+    expect((await deactivate.boundingBox())?.height ?? 0).toBeGreaterThanOrEqual(48); // DEVELOPERS.md: 48 px
+    await deactivate.click();
+    const dialog = page.getByRole('dialog', { name: 'Deactivate Morwenna Pascoe?' });
+    await expect(dialog).toContainText('signed out of this firm at once');
+    await dialog.getByRole('button', { name: 'Keep Morwenna Pascoe active' }).click();
+    await expect(dialog).toHaveCount(0);
+    expect(await activeOf()).toBe(true);
+
+    await deactivate.click();
+    await page.keyboard.press('Escape');
+    await expect(dialog).toHaveCount(0);
+    expect(await activeOf()).toBe(true);
+
+    await deactivate.click();
+    await dialog.getByRole('button', { name: 'Deactivate Morwenna Pascoe' }).click();
+    await expect(dialog).toHaveCount(0);
+    await expect.poll(activeOf).toBe(false);
+    // Reactivating is harmless, so it happens at once.
+    await row.getByRole('button', { name: 'Reactivate Morwenna Pascoe' }).click();
+    await expect.poll(activeOf).toBe(true);
+  });
 });

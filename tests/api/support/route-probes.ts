@@ -160,6 +160,7 @@ const bodies: Record<string, (f: SeededFirm) => unknown> = {
     lines: [{ toLocationId: f.van.id, productId: f.product.id, batchId: f.product.batchId, quantity: 1 }],
   }),
   'PUT /reminder-settings': () => ({ scanHour: 7, inspectionReminders: true, vanReminders: true }),
+  'POST /marketing-suppressions': () => ({ email: 'probe-householder@example.test' }),
   // A fixed name: the isolation probe runs as firm B, so firm A's name here would leak into B's answers.
   'PUT /firm': () => ({
     name: 'Probe firm settings',

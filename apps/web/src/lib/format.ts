@@ -1,34 +1,23 @@
-const dateFormats = new Map<string, Intl.DateTimeFormat>();
+import { formatUkCalendarDate, formatUkDate, formatUkDateTime } from '@heatfleet/domain';
 
-function formatter(timeZone: string, withTime: boolean): Intl.DateTimeFormat {
-  const key = `${timeZone}|${withTime}`;
-  let format = dateFormats.get(key);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-GB', {
-      dateStyle: 'medium',
-      ...(withTime ? { timeStyle: 'short' } : {}),
-      timeZone,
-    });
-    dateFormats.set(key, format);
-  }
-  return format;
+// Dates become words in one place, the domain's uk-dates (the API's e-mails and PDFs use the same): UK dates and
+// 24-hour times in the firm's own zone, so a job at 23:30 in London is not filed under tomorrow.
+
+function isInstant(iso: string): boolean {
+  return !Number.isNaN(Date.parse(iso));
 }
 
-/** Dates show in the firm's own time zone, so a job at 23:30 in London is not filed under tomorrow. */
+/** "3 Dec 2026" in the firm's zone; an unreadable value is shown as it came. */
 export function formatDate(iso: string, timeZone: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : formatter(timeZone, false).format(date);
+  return isInstant(iso) ? formatUkDate(iso, timeZone) : iso;
 }
 
+/** "3 Dec 2026, 14:05" in the firm's zone. */
 export function formatDateTime(iso: string, timeZone: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : formatter(timeZone, true).format(date);
+  return isInstant(iso) ? formatUkDateTime(iso, timeZone) : iso;
 }
 
-/**
- * Due dates are calendar days ('YYYY-MM-DD') with no zone; formatting them in UTC keeps the day as
- * written whatever zone the phone is in.
- */
+/** Calendar days ('YYYY-MM-DD': due dates, expiries) have no zone and show as written. */
 export function formatCalendarDate(date: string): string {
-  return formatDate(`${date}T00:00:00Z`, 'UTC');
+  return /^\d{4}-\d{2}-\d{2}$/.test(date) ? formatUkCalendarDate(date) : date;
 }

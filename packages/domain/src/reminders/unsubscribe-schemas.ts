@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { tokenSchema } from '../auth/auth-schemas.ts';
+import { emailSchema, tokenSchema } from '../auth/auth-schemas.ts';
 
 // Marketing e-mails (the customer's annual check offer) carry a link that unsubscribes without signing in; the firm
 // keeps a suppression list its sender honours (Privacy and Electronic Communications (EC Directive) Regulations
@@ -30,6 +30,11 @@ export const marketingSuppressionSchema = z.object({
 export type MarketingSuppression = z.infer<typeof marketingSuppressionSchema>;
 /** The firm's suppression list, newest first. */
 export const marketingSuppressionListResponseSchema = z.object({ suppressions: z.array(marketingSuppressionSchema) });
+
+/** The office adds an address a customer asked by phone or letter not to be sent offers (regulation 22(2)). */
+export const marketingSuppressionInputSchema = z.strictObject({ email: emailSchema });
+export type MarketingSuppressionInput = z.infer<typeof marketingSuppressionInputSchema>;
+export const marketingSuppressionResponseSchema = z.object({ suppression: marketingSuppressionSchema });
 
 /** "j•••@example.com": enough for the person to recognise their address, not enough to read it off a shared screen. */
 export function maskEmail(email: string): string {

@@ -43,6 +43,18 @@ export async function insertSuppression(
     .ignore();
 }
 
+export async function findSuppression(
+  db: Db,
+  firmId: number,
+  email: string,
+): Promise<MarketingSuppression | undefined> {
+  const row = (await db('marketing_suppressions')
+    .where({ firm_id: firmId, email: normaliseEmail(email) })
+    .first('id', 'email', 'source', 'created_at')) as
+    { id: number; email: string; source: MarketingSuppression['source']; created_at: Date } | undefined;
+  return row && { id: row.id, email: row.email, source: row.source, createdAt: row.created_at.toISOString() };
+}
+
 export async function isSuppressed(db: Db, firmId: number, email: string): Promise<boolean> {
   return (
     (await db('marketing_suppressions')

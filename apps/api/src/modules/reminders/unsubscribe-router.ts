@@ -1,10 +1,17 @@
 import {
+  marketingSuppressionInputSchema,
   marketingSuppressionListResponseSchema,
+  marketingSuppressionResponseSchema,
   unsubscribePreviewResponseSchema,
   unsubscribeTokenParamSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { listMarketingSuppressions, previewUnsubscribe, unsubscribe } from './unsubscribe-service.ts';
+import {
+  addMarketingSuppression,
+  listMarketingSuppressions,
+  previewUnsubscribe,
+  unsubscribe,
+} from './unsubscribe-service.ts';
 
 export const unsubscribeRoutes: RouteDefinition[] = [
   defineRoute({
@@ -52,6 +59,21 @@ export const unsubscribeRoutes: RouteDefinition[] = [
     responses: { 200: { description: 'Suppression list', schema: marketingSuppressionListResponseSchema } },
     handle: async ({ res, deps, actor }) => {
       res.json({ suppressions: await listMarketingSuppressions(deps, actor) });
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/marketing-suppressions',
+    tag: 'Reminders',
+    access: 'member',
+    tenantData: true,
+    summary: 'Add an address to the suppression list, for a customer who asked by phone or letter (Owner, Admin)',
+    request: { body: marketingSuppressionInputSchema },
+    responses: {
+      200: { description: 'On the list (added now or already there)', schema: marketingSuppressionResponseSchema },
+    },
+    handle: async ({ body, res, deps, actor }) => {
+      res.json({ suppression: await addMarketingSuppression(deps, actor, body) });
     },
   }),
 ];

@@ -1,10 +1,16 @@
 import { ForbiddenError } from '@casl/ability';
-import { maskEmail, type MarketingSuppression, type UnsubscribePreview } from '@heatfleet/domain';
+import {
+  maskEmail,
+  type MarketingSuppression,
+  type MarketingSuppressionInput,
+  type UnsubscribePreview,
+} from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { notFound } from '../../lib/http-error.ts';
 import { createToken, hashToken } from '../../lib/tokens.ts';
 import {
+  findSuppression,
   findUnsubscribeToken,
   insertSuppression,
   insertUnsubscribeToken,
@@ -61,4 +67,20 @@ export async function unsubscribe(deps: AppDeps, token: string): Promise<Unsubsc
 export async function listMarketingSuppressions(deps: AppDeps, actor: Actor): Promise<MarketingSuppression[]> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'ReminderSettings');
   return listSuppressions(deps.db, actor.firmId);
+}
+
+/**
+ * The office adds an address a customer asked, by phone or letter, not to be sent offers. Adding one already on
+ * the list changes nothing and answers the entry as it stands (how it got there first is kept).
+ */
+export async function addMarketingSuppression(
+  deps: AppDeps,
+  actor: Actor,
+  input: MarketingSuppressionInput,
+): Promise<MarketingSuppression> {
+  ForbiddenError.from(actor.ability).throwUnlessCan('update', 'ReminderSettings');
+  await insertSuppression(deps.db, actor.firmId, input.email, 'office');
+  const added = await findSuppression(deps.db, actor.firmId, input.email);
+  if (!added) throw new Error('suppression not found after insert');
+  return added;
 }

@@ -7,6 +7,7 @@ import { useSignedInMe } from '@/lib/auth';
 import { FirmSettingsForm } from '@/features/firms/components/firm-settings-form';
 import { ItemKindsEditor } from '@/features/kits/components/item-kinds-editor';
 import { ReminderSettingsForm } from '@/features/reminders/components/reminder-settings-form';
+import { SuppressionList } from '@/features/reminders/components/suppression-list';
 
 export function SettingsPage() {
   const me = useSignedInMe();
@@ -50,6 +51,12 @@ export function SettingsPage() {
             description="One digest e-mail a day per firm, and one per engineer for their own van."
           >
             <ReminderSettingsForm timeZone={me.activeFirm.timeZone} />
+          </Card>
+          <Card
+            title="Customers not sent offers"
+            description="The yearly check e-mail offers a paid visit, so a customer can refuse it: by the link in each e-mail, or by asking the office. Nobody on this list is sent it again."
+          >
+            <SuppressionList timeZone={me.activeFirm.timeZone} />
           </Card>
         </Can>
         <Can I="update" a="ItemKind">

@@ -1,5 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { reminderScanResponseSchema, reminderSettingsResponseSchema, type ReminderSettings } from '@heatfleet/domain';
+import {
+  marketingSuppressionResponseSchema,
+  reminderScanResponseSchema,
+  reminderSettingsResponseSchema,
+  type MarketingSuppressionInput,
+  type ReminderSettings,
+} from '@heatfleet/domain';
 import { apiClient } from '@/lib/api-client';
 import { reminderQueries } from '@/features/reminders/api/reminder-queries';
 
@@ -24,5 +30,17 @@ export function useRunReminderScan() {
   return useMutation({
     mutationFn: runReminderScan,
     onSuccess: () => queryClient.invalidateQueries({ queryKey: reminderQueries.lists() }),
+  });
+}
+
+export async function addSuppression(input: MarketingSuppressionInput) {
+  return (await apiClient.post('/api/marketing-suppressions', input, marketingSuppressionResponseSchema)).suppression;
+}
+
+export function useAddSuppression() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: addSuppression,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: reminderQueries.suppressions().queryKey }),
   });
 }

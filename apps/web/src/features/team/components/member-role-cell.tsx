@@ -4,6 +4,7 @@ import { roleLabels, roles, type Member, type Role } from '@heatfleet/domain';
 import { useAbility } from '@/lib/ability';
 import { useUpdateMember } from '@/features/team/api/use-update-member';
 import { ChangeRoleDialog } from '@/features/team/components/change-role-dialog';
+import { DeactivateDialog } from '@/features/team/components/deactivate-dialog';
 
 interface MemberCellProps {
   member: Member;
@@ -58,6 +59,7 @@ export function MemberRoleCell({ member, firmId, isYou }: MemberCellProps) {
 export function MemberStatusAction({ member, firmId, isYou }: MemberCellProps) {
   const ability = useAbility();
   const update = useUpdateMember();
+  const [confirming, setConfirming] = useState(false);
   if (isYou || !ability.can('update', asSubject(member, firmId))) return null;
 
   return (
@@ -65,8 +67,13 @@ export function MemberStatusAction({ member, firmId, isYou }: MemberCellProps) {
       <button
         type="button"
         disabled={update.isPending}
-        onClick={() => update.mutate({ id: member.id, active: !member.active })}
-        className={`min-h-11 rounded-md border px-3 font-semibold disabled:opacity-60 ${
+        onClick={() => {
+          update.reset();
+          // Deactivating signs someone out, so it asks first; reactivating is harmless and happens at once.
+          if (member.active) setConfirming(true);
+          else update.mutate({ id: member.id, active: true });
+        }}
+        className={`min-h-12 rounded-md border px-3 font-semibold disabled:opacity-60 ${
           member.active
             ? 'border-danger-700 text-danger-700 hover:bg-danger-50'
             : 'border-brand-600 text-brand-700 hover:bg-brand-50'
@@ -75,7 +82,16 @@ export function MemberStatusAction({ member, firmId, isYou }: MemberCellProps) {
         {member.active ? 'Deactivate' : 'Reactivate'}
         <span className="sr-only"> {member.name}</span>
       </button>
-      {update.isError ? (
+      {confirming ? (
+        <DeactivateDialog
+          member={member}
+          busy={update.isPending}
+          error={update.isError ? update.error.message : undefined}
+          onClose={() => setConfirming(false)}
+          onConfirm={() => update.mutate({ id: member.id, active: false }, { onSuccess: () => setConfirming(false) })}
+        />
+      ) : null}
+      {update.isError && !confirming ? (
         <p role="alert" className="text-sm font-semibold text-danger-700">
           {update.error.message}
         </p>
