@@ -91,6 +91,12 @@ test('the customer pays on the doorstep from the QR link; the owner refunds part
   await expect(ownerPage.getByTestId('invoice-due')).toHaveText('£30.00');
   await expect(ownerPage.getByText('£180.00: Paid, £30.00 refunded')).toBeVisible();
 
+  // The owner's home shows the money owed (the £30.00 refunded is due again, invoiced today: 0 to 30 days).
+  await ownerPage.goto('/');
+  const money = ownerPage.getByRole('region', { name: 'Money owed' });
+  await expect(money.locator('dd').first()).toHaveText('£30.00');
+  await expect(money.locator('dd').nth(1)).toHaveText('£30.00');
+
   await phone.close();
   await customerPhone.close();
 });

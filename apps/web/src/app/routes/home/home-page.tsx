@@ -8,9 +8,11 @@ import { PageHeader } from '@/components/ui/page-header';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { paths } from '@/config/paths';
+import { Can } from '@/lib/ability';
 import { useSignedInMe } from '@/lib/auth';
 import { FirmList } from '@/features/firms/components/firm-list';
 import { MyJobs } from '@/features/jobs/components/my-jobs';
+import { MoneyOverviewSection } from '@/features/money/components/money-overview-section';
 import { BookedJobsWarning } from '@/features/stock/components/booked-jobs-warning';
 import { MyHavToday, OwnerOverview } from '@/features/overview/components/owner-overview';
 import { vanQueries } from '@/features/vans/api/van-queries';
@@ -69,6 +71,16 @@ export function HomePage() {
       <>
         <PageHeader title={me.activeFirm.name}>The firm at a glance. Each card links to its list.</PageHeader>
         <OwnerOverview />
+        <Can I="update" a="Invoice">
+          <div className="mt-5">
+            <Card title="Money" description="Owed by customers, aged from the invoice date, and revenue per month.">
+              <MoneyOverviewSection />
+              <Link to={paths.money.getHref()} className={buttonClasses('secondary', 'mt-4 min-h-12 w-full sm:w-auto')}>
+                Invoices and the bookkeeper's export
+              </Link>
+            </Card>
+          </div>
+        </Can>
         <div className="mt-5 grid gap-5 lg:grid-cols-3">
           <AccountCards withFirms />
         </div>

@@ -5,6 +5,7 @@ import { calendarDateIn, formatPence, invoiceStateLabels } from '@heatfleet/doma
 import { PageHeader } from '@/components/ui/page-header';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { TextField } from '@/components/ui/text-field';
+import { useSignedInMe } from '@/lib/auth';
 import { paths } from '@/config/paths';
 import { exportHref, invoicePdfHref, moneyQueries } from '@/features/money/api/money-queries';
 import { MoneyOverviewSection } from '@/features/money/components/money-overview-section';
@@ -59,7 +60,8 @@ function Invoices() {
 }
 
 export function MoneyPage() {
-  const today = calendarDateIn(new Date(), 'Europe/London');
+  const me = useSignedInMe();
+  const today = calendarDateIn(new Date(), me.activeFirm.timeZone);
   const [from, setFrom] = useState(`${today.slice(0, 7)}-01`);
   const [to, setTo] = useState(today);
   return (
