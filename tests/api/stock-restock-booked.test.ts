@@ -54,6 +54,19 @@ async function book(firm: SeededFirm, scheduledOn: string) {
   return res.body.job?.id ?? res.body.id;
 }
 
+/** Every cell of the stock grid, page by page of places (the grid is paged by place). */
+async function allGridCells(agent: { get: (url: string) => PromiseLike<{ body: Record<string, unknown> }> }) {
+  const cells: { locationId: number; productId: number }[] = [];
+  for (let page = 1; ; page += 1) {
+    const body = (await agent.get(`/api/stock?page=${page}`)).body as {
+      cells: { locationId: number; productId: number }[];
+      page: { pageCount: number };
+    };
+    cells.push(...body.cells);
+    if (page >= body.page.pageCount) return cells;
+  }
+}
+
 const vanLine = (run: { lines: { locationId: number }[] }, vanId: number) =>
   run.lines.find((l) => l.locationId === vanId) as Record<string, unknown> | undefined;
 
@@ -71,9 +84,8 @@ describe('restock for booked jobs', () => {
     // Booked 3 + minimum 1 = 4 > target 3: the van is filled to 4, so 2 packs.
     expect(vanLine(run, firm.van.id)).toMatchObject({ booked: 3, need: { minimum: 1, target: 4 }, wanted: 2 });
 
-    const grid = (await stores.get('/api/stock')).body;
-    const cell = grid.cells.find(
-      (c: { locationId: number; productId: number }) => c.locationId === firm.van.id && c.productId === firm.product.id,
+    const cell = (await allGridCells(stores)).find(
+      (c) => c.locationId === firm.van.id && c.productId === firm.product.id,
     );
     // 2 usable, 3 booked: short for the booked job (the grid, My van and the overview say the same).
     expect(cell).toMatchObject({ usable: 2, booked: 3, health: 'short_for_jobs' });

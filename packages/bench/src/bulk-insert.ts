@@ -17,6 +17,9 @@ export class BulkWriter {
     private readonly table: string,
     private readonly columns: string[],
     private readonly onProgress?: (written: number) => void,
+    /** 1 for a table whose triggers update shared rows (custody events and inspections update kit_items): two
+     * statements in flight there deadlock each other. */
+    private readonly maxInFlight = 2,
   ) {}
 
   async add(row: unknown[]): Promise<void> {
@@ -34,7 +37,7 @@ export class BulkWriter {
         this.onProgress?.(this.written);
       });
     this.inFlight.push(statement);
-    if (this.inFlight.length >= 2) await this.inFlight.shift();
+    if (this.inFlight.length >= this.maxInFlight) await this.inFlight.shift();
   }
 
   async close(): Promise<number> {

@@ -433,17 +433,17 @@ export async function generateFirm(
       'created_at',
     ],
     (n) => progress('custody events', n, events.length, eventsBegan),
+    1,
   );
   for (const e of events) await custody.add(e);
   await custody.close();
-  const inspectionRows = new BulkWriter(pool, 'inspections', [
-    'firm_id',
-    'item_id',
-    'result',
-    'by_user_id',
-    'inspected_on',
-    'created_at',
-  ]);
+  const inspectionRows = new BulkWriter(
+    pool,
+    'inspections',
+    ['firm_id', 'item_id', 'result', 'by_user_id', 'inspected_on', 'created_at'],
+    undefined,
+    1,
+  );
   for (const i of inspections) await inspectionRows.add(i);
   await inspectionRows.close();
   // The location cache of each item, from its last event: one UPDATE per holder rather than per item.

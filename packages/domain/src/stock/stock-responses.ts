@@ -33,13 +33,46 @@ export const stockPlaceSchema = z.object({
 });
 export type StockPlace = z.infer<typeof stockPlaceSchema>;
 
+/** Places per page of the stock grid unless asked otherwise, and at most. */
+export const STOCK_GRID_PAGE_SIZE = 20;
+export const STOCK_GRID_MAX_PAGE_SIZE = 100;
+
+/** `GET /api/stock?page=&limit=`: the grid is paged by place (columns), depots first, then by name. */
+export const stockGridQuerySchema = z.strictObject({
+  page: z.coerce
+    .number({ error: 'Page must be a whole number from 1.' })
+    .int('Page must be a whole number from 1.')
+    .min(1, 'Page must be a whole number from 1.')
+    .max(10_000, 'Page must be at most 10000.')
+    .default(1),
+  limit: z.coerce
+    .number({ error: `Places per page must be a whole number from 1 to ${STOCK_GRID_MAX_PAGE_SIZE}.` })
+    .int(`Places per page must be a whole number from 1 to ${STOCK_GRID_MAX_PAGE_SIZE}.`)
+    .min(1, `Places per page must be a whole number from 1 to ${STOCK_GRID_MAX_PAGE_SIZE}.`)
+    .max(STOCK_GRID_MAX_PAGE_SIZE, `Places per page must be a whole number from 1 to ${STOCK_GRID_MAX_PAGE_SIZE}.`)
+    .default(STOCK_GRID_PAGE_SIZE),
+});
+export type StockGridQuery = z.infer<typeof stockGridQuerySchema>;
+
 export const stockGridSchema = z.object({
   today: z.string(),
   /** Days ahead the booked jobs are counted over (the firm's restock setting). */
   restockDays: z.number(),
   products: z.array(z.object({ id: z.number(), name: z.string(), kind: z.enum(productKinds), packSizeMl: z.number() })),
+  /** The places of this page: the grid's columns. */
   locations: z.array(stockPlaceSchema),
+  /** Every active place, depots first, then by name (what the stock forms choose from). */
+  places: z.array(stockPlaceSchema),
+  page: z.object({
+    page: z.number(),
+    limit: z.number(),
+    placeCount: z.number(),
+    pageCount: z.number(),
+  }),
+  /** The cells of this page's places only. */
   cells: z.array(stockCellSchema),
+  /** Each product over every place (every page): usable and expired packs, and what booked jobs need. */
+  totals: z.array(z.object({ productId: z.number(), usable: z.number(), expired: z.number(), booked: z.number() })),
 });
 export type StockGrid = z.infer<typeof stockGridSchema>;
 

@@ -10,7 +10,11 @@ export function vanStockHealth(
 ): (vanId: number) => OverviewVan['stock'] {
   const productById = new Map(products.map((p) => [p.id, p]));
   const byVan = new Map<number, StockCell[]>();
-  for (const cell of levels) byVan.set(cell.locationId, [...(byVan.get(cell.locationId) ?? []), cell]);
+  for (const cell of levels) {
+    const cells = byVan.get(cell.locationId);
+    if (cells) cells.push(cell);
+    else byVan.set(cell.locationId, [cell]);
+  }
   return (vanId) => {
     const cells = (byVan.get(vanId) ?? []).filter((c) => c.health !== 'no_par' && productById.has(c.productId));
     const { health, counts } = placeHealthOf(cells.map((c) => c.health));

@@ -12,14 +12,17 @@ export interface BookedJobRow {
   engineer_member_id: number | null;
 }
 
-/** Booked (planned) jobs with a van on the days [from, toExclusive), soonest first. */
+/** Booked (planned) jobs with a van (or on one van) on the days [from, toExclusive), soonest first. */
 export async function listBookedJobRows(
   db: Db,
   firmId: number,
   from: string,
   toExclusive: string,
+  vanId?: number,
 ): Promise<BookedJobRow[]> {
-  return (await db('jobs as j')
+  const q = db('jobs as j');
+  if (vanId !== undefined) q.where('j.van_location_id', vanId);
+  return (await q
     .join('sites as s', (on) => on.on('s.id', '=', 'j.site_id').andOn('s.firm_id', '=', 'j.firm_id'))
     .where({ 'j.firm_id': firmId, 'j.status': 'planned' })
     .whereNotNull('j.van_location_id')

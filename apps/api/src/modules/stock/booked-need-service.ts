@@ -22,10 +22,16 @@ export interface FirmBookedJobs {
 /**
  * The booked jobs of the firm's restock window (today and the next days) with the packs each one's
  * dose plan needs: the same plan as the job page. A survey that no longer reads is skipped.
+ * `vanId` narrows it to one van's jobs (My van).
  */
-export async function firmBookedJobs(db: Db, firmId: number, today: string): Promise<FirmBookedJobs> {
+export async function firmBookedJobs(
+  db: Db,
+  firmId: number,
+  today: string,
+  where: { vanId?: number } = {},
+): Promise<FirmBookedJobs> {
   const days = (await findRestockDays(db, firmId)) ?? DEFAULT_RESTOCK_DAYS;
-  const rows = await listBookedJobRows(db, firmId, today, addDays(today, days));
+  const rows = await listBookedJobRows(db, firmId, today, addDays(today, days), where.vanId);
   const [rules, heatExchanger] = await Promise.all([
     listJobProductRules(
       db,
@@ -34,19 +40,25 @@ export async function firmBookedJobs(db: Db, firmId: number, today: string): Pro
     ),
     rows.length ? findHeatExchangerDefaults(db, firmId) : Promise.resolve(null),
   ]);
+  // Each job's products by its id: filtered from the whole list per job, the rules were read jobs x rules times.
+  const rulesOf = new Map<number, typeof rules>();
+  for (const rule of rules) {
+    const list = rulesOf.get(rule.job_id);
+    if (list) list.push(rule);
+    else rulesOf.set(rule.job_id, [rule]);
+  }
   const jobs: FirmBookedJobs['jobs'] = [];
   for (const r of rows) {
+    const chosen = rulesOf.get(r.id) ?? [];
     const survey = surveySchema.safeParse(typeof r.survey === 'string' ? JSON.parse(r.survey) : r.survey);
     if (!survey.success) continue;
-    const products = rules
-      .filter((p) => p.job_id === r.id)
-      .map((p) => ({
-        productId: p.product_id,
-        kind: p.kind,
-        packSizeMl: p.pack_size_ml,
-        doseLitresPer100L: p.dose_litres_per_100l === null ? null : Number(p.dose_litres_per_100l),
-        radiatorsPerPack: p.radiators_per_pack,
-      }));
+    const products = chosen.map((p) => ({
+      productId: p.product_id,
+      kind: p.kind,
+      packSizeMl: p.pack_size_ml,
+      doseLitresPer100L: p.dose_litres_per_100l === null ? null : Number(p.dose_litres_per_100l),
+      radiatorsPerPack: p.radiators_per_pack,
+    }));
     jobs.push({
       jobId: r.id,
       vanId: r.van_location_id,

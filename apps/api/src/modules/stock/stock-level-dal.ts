@@ -10,15 +10,29 @@ export interface ParLevelRow {
   target: number;
 }
 
-export async function listBalanceRows(db: Db, firmId: number, locationId?: number) {
+/** Packs held per place and batch, for some places (by the primary key) or the whole firm. */
+export async function listBalanceRows(db: Db, firmId: number, locationIds?: number[]) {
   const q = db('stock_balances').where('firm_id', firmId).select('location_id', 'product_id', 'batch_id', 'quantity');
-  if (locationId) q.where('location_id', locationId);
+  if (locationIds) q.whereIn('location_id', locationIds);
   return q as Promise<{ location_id: number; product_id: number; batch_id: number; quantity: number }[]>;
 }
 
-export async function listParLevelRows(db: Db, firmId: number, locationId?: number): Promise<ParLevelRow[]> {
+/**
+ * Packs of each product and batch over the firm's active places: the grid's totals. A few hundred rows
+ * (one per batch) however many places hold them; the expiry is applied by the caller.
+ */
+export async function sumActiveBalancesByBatch(db: Db, firmId: number) {
+  return (await db('stock_balances as s')
+    .join('locations as l', (j) => j.on('l.id', '=', 's.location_id').andOn('l.firm_id', '=', 's.firm_id'))
+    .where({ 's.firm_id': firmId, 'l.active': true })
+    .groupBy('s.batch_id', 's.product_id')
+    .select('s.batch_id', 's.product_id')
+    .sum({ quantity: 's.quantity' })) as { batch_id: number; product_id: number; quantity: string | number }[];
+}
+
+export async function listParLevelRows(db: Db, firmId: number, locationIds?: number[]): Promise<ParLevelRow[]> {
   const q = db('par_levels').where('firm_id', firmId).select('location_id', 'product_id', 'minimum', 'target');
-  if (locationId) q.where('location_id', locationId);
+  if (locationIds) q.whereIn('location_id', locationIds);
   return q;
 }
 

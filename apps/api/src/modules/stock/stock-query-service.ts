@@ -10,6 +10,7 @@ import {
   type MyVanStock,
   type StockCell,
   type StockGrid,
+  type StockGridQuery,
 } from '@heatfleet/domain';
 import type { Knex } from 'knex';
 import type { Actor, AppDeps } from '../../app-deps.ts';
@@ -18,90 +19,129 @@ import { findFirm } from '../firms/firm-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { firmBookedJobs } from './booked-need-service.ts';
 import { listActiveProductSummaries, listBatchExpiries, listProductOrderRefs } from './product-dal.ts';
-import { listActivePlaces, listBalanceRows, listHeldBatchRows, listParLevelRows } from './stock-level-dal.ts';
+import {
+  listActivePlaces,
+  listBalanceRows,
+  listHeldBatchRows,
+  listParLevelRows,
+  sumActiveBalancesByBatch,
+} from './stock-level-dal.ts';
 import { movementsCsv } from './stock-csv.ts';
 import { listLedgerMovements, type LedgerFilters } from './stock-movement-dal.ts';
 
 type Db = Knex | Knex.Transaction;
 
 /**
- * Usable (in-date) and expired packs per place and product, and the par levels, for the whole firm.
- * Read as plain rows and added up here: joined and grouped in SQL, MariaDB drove the join from the
- * batches by the firm's index and grouped in a temporary table (1 s for 200 vans x 100 products).
+ * Usable (in-date) and expired packs per place and product, and the par levels, for the whole firm or
+ * some places, by place and then product. Read as plain rows and added up here: joined and grouped in
+ * SQL, MariaDB drove the join from the batches by the firm's index and grouped in a temporary table
+ * (1 s for 200 vans x 100 products). Each cell is made once and filled in place, keyed by number: made
+ * with string keys and copied at the end, the 20,000 cells of 200 vans x 100 products took 250-500 ms
+ * of the CPU per request (measured with packages/bench/src/measure-reads.ts --profile).
  */
 export async function stockLevels(
   db: Db,
   firmId: number,
   today: string,
-  where: { locationId?: number } = {},
+  where: { locationIds?: number[] } = {},
   /** Packs booked jobs need, keyed by `vanProductKey` (see booked-need-service.ts); none: par levels alone. */
   booked: Map<string, number> = new Map(),
 ): Promise<StockCell[]> {
+  if (where.locationIds?.length === 0) return [];
   const [balanceRows, batchRows, parRows] = await Promise.all([
-    listBalanceRows(db, firmId, where.locationId),
+    listBalanceRows(db, firmId, where.locationIds),
     listBatchExpiries(db, firmId),
-    listParLevelRows(db, firmId, where.locationId),
+    listParLevelRows(db, firmId, where.locationIds),
   ]);
   const expiresOn = new Map(batchRows.map((b) => [b.id, b.expires_on]));
-  const sums = new Map<string, { location_id: number; product_id: number; usable: number; expired: number }>();
+  const byPlace = new Map<number, Map<number, StockCell>>();
+  const cellAt = (locationId: number, productId: number): StockCell => {
+    let place = byPlace.get(locationId);
+    if (!place) byPlace.set(locationId, (place = new Map()));
+    let cell = place.get(productId);
+    if (!cell) {
+      cell = { locationId, productId, usable: 0, expired: 0, par: null, booked: 0, need: null, health: 'no_par' };
+      place.set(productId, cell);
+    }
+    return cell;
+  };
   for (const r of balanceRows) {
     const expiry = expiresOn.get(r.batch_id);
     if (expiry === undefined) continue;
-    const k = `${r.location_id}:${r.product_id}`;
-    const sum = sums.get(k) ?? { location_id: r.location_id, product_id: r.product_id, usable: 0, expired: 0 };
-    if (expiry >= today) sum.usable += r.quantity;
-    else sum.expired += r.quantity;
-    sums.set(k, sum);
+    const cell = cellAt(r.location_id, r.product_id);
+    if (expiry >= today) cell.usable += Number(r.quantity);
+    else cell.expired += Number(r.quantity);
   }
-  // The order GROUP BY gave: by place, then product.
-  const levels = [...sums.values()].sort((x, y) => x.location_id - y.location_id || x.product_id - y.product_id);
-  const key = (l: number, p: number) => `${l}:${p}`;
-  const cells = new Map<string, Omit<StockCell, 'health' | 'need'>>();
-  for (const l of levels)
-    cells.set(key(l.location_id, l.product_id), {
-      locationId: l.location_id,
-      productId: l.product_id,
-      usable: Number(l.usable),
-      expired: Number(l.expired),
-      par: null,
-      booked: 0,
-    });
-  for (const p of parRows) {
-    const c = cells.get(key(p.location_id, p.product_id)) ?? {
-      locationId: p.location_id,
-      productId: p.product_id,
-      usable: 0,
-      expired: 0,
-      par: null,
-      booked: 0,
-    };
-    c.par = { minimum: p.minimum, target: p.target };
-    cells.set(key(p.location_id, p.product_id), c);
-  }
+  for (const p of parRows) cellAt(p.location_id, p.product_id).par = { minimum: p.minimum, target: p.target };
+  const only = where.locationIds && new Set(where.locationIds);
   for (const [k, packs] of booked) {
     const [locationId, productId] = k.split(':').map(Number) as [number, number];
-    if (where.locationId && where.locationId !== locationId) continue;
-    const c = cells.get(k) ?? { locationId, productId, usable: 0, expired: 0, par: null, booked: 0 };
-    c.booked = packs;
-    cells.set(k, c);
+    if (only && !only.has(locationId)) continue;
+    cellAt(locationId, productId).booked = packs;
   }
-  return [...cells.values()].map((c) => ({
-    ...c,
-    need: stockNeedOf(c.par, c.booked),
-    health: stockHealthOf(c.usable, c.par, c.booked),
-  }));
+  const cells: StockCell[] = [];
+  const byNumber = (a: number, b: number) => a - b;
+  for (const locationId of [...byPlace.keys()].sort(byNumber)) {
+    const place = byPlace.get(locationId)!;
+    for (const productId of [...place.keys()].sort(byNumber)) {
+      const cell = place.get(productId)!;
+      cell.need = stockNeedOf(cell.par, cell.booked);
+      cell.health = stockHealthOf(cell.usable, cell.par, cell.booked);
+      cells.push(cell);
+    }
+  }
+  return cells;
 }
 
-export async function stockGrid(deps: AppDeps, actor: Actor): Promise<StockGrid> {
+/**
+ * A page of the stock grid: the places of the page (depots first, then by name) with their cells, every
+ * place's name (the stock forms choose from them), and each product's totals over every place, so a
+ * page of 20 places costs a tenth of the 200-van firm's whole grid (2.4 MB of JSON when unpaged).
+ */
+export async function stockGrid(deps: AppDeps, actor: Actor, query: StockGridQuery): Promise<StockGrid> {
   ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   const today = await firmToday(deps.db, actor.firmId, deps.clock.now());
-  const [products, locations, booked] = await Promise.all([
+  const [products, places, booked, batchTotals, batchRows] = await Promise.all([
     listActiveProductSummaries(deps.db, actor.firmId),
     listActivePlaces(deps.db, actor.firmId),
     firmBookedJobs(deps.db, actor.firmId, today),
+    sumActiveBalancesByBatch(deps.db, actor.firmId),
+    listBatchExpiries(deps.db, actor.firmId),
   ]);
-  const cells = await stockLevels(deps.db, actor.firmId, today, {}, booked.packs);
-  return { today, restockDays: booked.days, products, locations, cells };
+  const pageCount = Math.max(1, Math.ceil(places.length / query.limit));
+  const locations = places.slice((query.page - 1) * query.limit, query.page * query.limit);
+  const cells = await stockLevels(
+    deps.db,
+    actor.firmId,
+    today,
+    { locationIds: locations.map((l) => l.id) },
+    booked.packs,
+  );
+  const expiresOn = new Map(batchRows.map((b) => [b.id, b.expires_on]));
+  const totals = new Map(products.map((p) => [p.id, { productId: p.id, usable: 0, expired: 0, booked: 0 }]));
+  for (const b of batchTotals) {
+    const total = totals.get(b.product_id);
+    const expiry = expiresOn.get(b.batch_id);
+    if (!total || expiry === undefined) continue;
+    if (expiry >= today) total.usable += Number(b.quantity);
+    else total.expired += Number(b.quantity);
+  }
+  const active = new Set(places.map((p) => p.id));
+  for (const [k, packs] of booked.packs) {
+    const [locationId, productId] = k.split(':').map(Number) as [number, number];
+    const total = totals.get(productId);
+    if (total && active.has(locationId)) total.booked += packs;
+  }
+  return {
+    today,
+    restockDays: booked.days,
+    products,
+    locations,
+    places,
+    page: { page: query.page, limit: query.limit, placeCount: places.length, pageCount },
+    cells,
+    totals: [...totals.values()],
+  };
 }
 
 export async function batchesAt(
@@ -158,11 +198,11 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
   if (!van) return { van: null, stock: [], batches: [] };
   const today = await firmToday(deps.db, actor.firmId, deps.clock.now());
   const [booked, batches, products] = await Promise.all([
-    firmBookedJobs(deps.db, actor.firmId, today),
+    firmBookedJobs(deps.db, actor.firmId, today, { vanId: van.id }),
     batchesAt(deps, actor, { locationId: van.id }),
     listProductOrderRefs(deps.db, actor.firmId),
   ]);
-  const levels = await stockLevels(deps.db, actor.firmId, today, { locationId: van.id }, booked.packs);
+  const levels = await stockLevels(deps.db, actor.firmId, today, { locationIds: [van.id] }, booked.packs);
   const byId = new Map(products.map((p) => [p.id, p]));
   return {
     van: { id: van.id, name: van.name, registration: van.registration },

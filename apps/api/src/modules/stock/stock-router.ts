@@ -5,6 +5,7 @@ import {
   parLevelInputSchema,
   parLevelListResponseSchema,
   parLevelResponseSchema,
+  stockGridQuerySchema,
   stockGridSchema,
 } from '@heatfleet/domain';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
@@ -19,11 +20,11 @@ export const stockRoutes: RouteDefinition[] = [
     tag: 'Stock',
     access: 'member',
     tenantData: true,
-    summary: 'Usable packs of every product at every place, against par',
-    request: {},
-    responses: { 200: { description: 'Grid', schema: stockGridSchema } },
-    handle: async ({ res, deps, actor }) => {
-      res.json(await stockGrid(deps, actor));
+    summary: 'Usable packs of every product at a page of places (depots first, then by name), against par',
+    request: { query: stockGridQuerySchema },
+    responses: { 200: { description: 'A page of the grid, with totals over every place', schema: stockGridSchema } },
+    handle: async ({ query, res, deps, actor }) => {
+      res.json(await stockGrid(deps, actor, query));
     },
   }),
   defineRoute({

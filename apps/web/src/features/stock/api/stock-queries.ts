@@ -58,10 +58,15 @@ export const productQueries = {
 
 export const stockQueries = {
   all: () => queryRoots.stock,
-  grid: () =>
+  /**
+   * A page of the grid (places across, 20 a page). The first page keeps the key ['stock', 'grid'] it had
+   * before paging, so a phone's saved copy still answers the stock forms (they take every place from it).
+   */
+  grid: (page = 1) =>
     queryOptions({
-      queryKey: [...stockQueries.all(), 'grid'] as const,
-      queryFn: () => apiClient.get('/api/stock', stockGridSchema),
+      queryKey:
+        page === 1 ? ([...stockQueries.all(), 'grid'] as const) : ([...stockQueries.all(), 'grid', page] as const),
+      queryFn: () => apiClient.get(`/api/stock${page === 1 ? '' : searchOf({ page })}`, stockGridSchema),
     }),
   batches: (where: { locationId?: number; productId?: number }) =>
     queryOptions({

@@ -10,7 +10,7 @@ export function placeLabel(place: StockPlace): string {
 export function useStockChoices() {
   const grid = useQuery(stockQueries.grid());
   const products = useQuery(productQueries.list());
-  const places = grid.data?.locations ?? [];
+  const places = grid.data?.places ?? [];
   return {
     isPending: grid.isPending || products.isPending,
     error: grid.error ?? products.error,

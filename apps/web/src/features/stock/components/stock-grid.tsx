@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { formatPackSize, formatPacks, stockHealthLabels, type StockCell } from '@heatfleet/domain';
+import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
 import { stockQueries } from '@/features/stock/api/stock-queries';
@@ -12,15 +13,55 @@ interface Selected {
   productId: number;
 }
 
-/** Products down, places across: each cell the usable packs, coloured by health against par; a cell opens its batches. */
+/** Previous and next page of places, 48 px targets, shown only when the places run over one page. */
+function PlacePager({
+  page,
+  pageCount,
+  first,
+  last,
+  placeCount,
+  isFetching,
+  onPage,
+}: {
+  page: number;
+  pageCount: number;
+  first: number;
+  last: number;
+  placeCount: number;
+  isFetching: boolean;
+  onPage: (page: number) => void;
+}) {
+  if (pageCount <= 1) return null;
+  return (
+    <nav aria-label="Pages of places" className="flex flex-wrap items-center justify-between gap-2">
+      <Button variant="secondary" className="min-h-12" onClick={() => onPage(page - 1)} disabled={page <= 1}>
+        Previous places
+      </Button>
+      <span className="text-center text-sm text-ink-muted" aria-live="polite" aria-busy={isFetching || undefined}>
+        {isFetching ? 'Loading… ' : null}Places {first}–{last} of {placeCount}
+      </span>
+      <Button variant="secondary" className="min-h-12" onClick={() => onPage(page + 1)} disabled={page >= pageCount}>
+        Next places
+      </Button>
+    </nav>
+  );
+}
+
+/**
+ * Products down, places across, a page of places at a time (the API pages the grid by place, 20 a page):
+ * each cell the usable packs, coloured by health against par; a cell opens its batches. The first column
+ * holds each product's total over every place.
+ */
 export function StockGridView() {
-  const grid = useQuery(stockQueries.grid());
+  const [page, setPage] = useState(1);
+  const grid = useQuery({ ...stockQueries.grid(page), placeholderData: keepPreviousData });
   const [selected, setSelected] = useState<Selected | null>(null);
   const cells = useMemo(() => {
     const map = new Map<string, StockCell>();
     for (const cell of grid.data?.cells ?? []) map.set(`${cell.locationId}:${cell.productId}`, cell);
     return map;
   }, [grid.data]);
+  const totals = useMemo(() => new Map((grid.data?.totals ?? []).map((t) => [t.productId, t])), [grid.data]);
 
   if (grid.isPending) return <PageSpinner label="Loading stock…" />;
   if (grid.isError) return <QueryErrorNotice error={grid.error} onRetry={() => void grid.refetch()} />;
@@ -29,10 +70,23 @@ export function StockGridView() {
 
   const selectedProduct = selected ? products.find((p) => p.id === selected.productId) : undefined;
   const selectedPlace = selected ? locations.find((l) => l.id === selected.locationId) : undefined;
-
+  const shown = grid.data.page;
+  const first = (shown.page - 1) * shown.limit + 1;
   return (
     <div className="space-y-4">
       <HealthLegend />
+      <PlacePager
+        page={shown.page}
+        pageCount={shown.pageCount}
+        first={first}
+        last={first + locations.length - 1}
+        placeCount={shown.placeCount}
+        isFetching={grid.isPlaceholderData}
+        onPage={(next) => {
+          setSelected(null);
+          setPage(next);
+        }}
+      />
       {/* The grid scrolls inside its own box on a phone, so the page itself never runs wider than the screen. */}
       <div
         className="max-w-full overflow-x-auto rounded-lg border border-line"
@@ -49,6 +103,13 @@ export function StockGridView() {
                 className="sticky left-0 z-[1] border-b-2 border-line bg-card px-2 py-2 text-sm font-semibold text-ink-muted"
               >
                 Product
+              </th>
+              <th
+                scope="col"
+                className="border-b-2 border-line px-2 py-2 text-sm font-semibold whitespace-nowrap text-ink-muted"
+              >
+                All places
+                <span className="block text-xs font-normal">usable</span>
               </th>
               {locations.map((place) => (
                 <th
@@ -78,6 +139,15 @@ export function StockGridView() {
                     packs of {formatPackSize(product.packSizeMl)}
                   </span>
                 </th>
+                <td className="px-2 py-1 text-center text-lg font-semibold">
+                  {totals.get(product.id)?.usable ?? 0}
+                  {totals.get(product.id)?.booked ? (
+                    <span className="block text-xs font-normal">{totals.get(product.id)?.booked} booked</span>
+                  ) : null}
+                  {totals.get(product.id)?.expired ? (
+                    <span className="block text-xs font-normal">+{totals.get(product.id)?.expired} expired</span>
+                  ) : null}
+                </td>
                 {locations.map((place) => {
                   const cell = cells.get(`${place.id}:${product.id}`);
                   const health = cell?.health ?? 'no_par';
