@@ -60,6 +60,9 @@ function hrefs(firm: FurnishedFirm, outboxId: string | null, invoiceId: number):
     outbox: paths.outbox.getHref(),
     outboxMessage: outboxId ? paths.outboxMessage.getHref(outboxId) : null,
     invoice: paths.invoice.getHref(invoiceId),
+    invoicePayment: paths.invoicePayment.getHref(invoiceId),
+    quoteLink: null, // public: swept signed out below
+    pay: null,
   } as Record<PageKey, string | null>;
 }
 
@@ -71,6 +74,8 @@ const publicPages = (): string[] => [
   paths.resetPasswordConfirm.getHref(MADE_UP_TOKEN),
   paths.invitation.getHref(MADE_UP_TOKEN),
   paths.unsubscribe.getHref(MADE_UP_TOKEN),
+  paths.quoteLink.getHref(MADE_UP_TOKEN),
+  paths.pay.getHref(MADE_UP_TOKEN),
 ];
 
 /** The page has drawn its data: no spinner left, nothing fetching. */
@@ -132,7 +137,9 @@ test('no serious or critical axe violation on any page, signed out or as any rol
   ];
 
   const found: string[] = [...unswept, ...(await sweep(browser, baseURL!, publicPages()))];
-  for (const role of roles as readonly Role[]) {
+  // The Admin sees the Owner's screens (the rules differ in what may be changed, not in what is shown), so the
+  // Owner's sweep covers them; every page takes about 3 minutes a role on the two shared cores.
+  for (const role of (roles as readonly Role[]).filter((r) => r !== 'admin')) {
     await test.step(`as ${role}`, async () => {
       found.push(...(await sweep(browser, baseURL!, signedIn, firm.people[role])));
     });
