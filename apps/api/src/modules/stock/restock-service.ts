@@ -1,6 +1,8 @@
 import { ForbiddenError } from '@casl/ability';
 import {
   allocateFefo,
+  calendarDateIn,
+  DEFAULT_TIME_ZONE,
   planReorder,
   planRestock,
   type BatchStock,
@@ -14,14 +16,16 @@ import { withTransactionRetry } from '../../db/with-retry.ts';
 import { conflict, notFound } from '../../lib/http-error.ts';
 import { runIdempotent, type IdempotencyKey } from '../../lib/idempotency.ts';
 import { firstDepot, findLocation } from '../locations/location-dal.ts';
+import { findFirm } from '../firms/firm-dal.ts';
 import { firmToday } from '../firms/firm-today.ts';
 import { firmBookedJobs } from './booked-need-service.ts';
 import { findBatch, listProductOrderRefs } from './product-dal.ts';
 import { reorderCsv } from './stock-csv.ts';
-import { balancesAt, sumUsedByProductSince } from './stock-ledger-dal.ts';
+import { balancesAt } from './stock-ledger-dal.ts';
 import { applyMovements } from './stock-ledger.ts';
 import { listActiveVanRefs } from './stock-level-dal.ts';
 import { stockLevels } from './stock-query-service.ts';
+import { packsUsedLast90Days } from './usage-service.ts';
 
 type Db = Knex | Knex.Transaction;
 
@@ -49,13 +53,14 @@ async function depotBatches(db: Db, firmId: number, depotId: number): Promise<Ma
  */
 export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotId?: number): Promise<RestockRun> {
   const depot = await depotOf(db, actor, depotId);
-  const today = await firmToday(db, actor.firmId, deps.clock.now());
-  const [booked, vans, products, batches, used] = await Promise.all([
+  const timeZone = (await findFirm(db, actor.firmId))?.time_zone ?? DEFAULT_TIME_ZONE;
+  const today = calendarDateIn(deps.clock.now(), timeZone);
+  const [booked, vans, products, batches, usedBy] = await Promise.all([
     firmBookedJobs(db, actor.firmId, today),
     listActiveVanRefs(db, actor.firmId),
     listProductOrderRefs(db, actor.firmId),
     depotBatches(db, actor.firmId, depot.id),
-    sumUsedByProductSince(db, actor.firmId, new Date(deps.clock.now().getTime() - 90 * 86_400_000)),
+    packsUsedLast90Days(db, actor.firmId, timeZone, today),
   ]);
   const levels = await stockLevels(db, actor.firmId, today, {}, booked.packs);
   const vanIds = new Set(vans.map((v) => v.id));
@@ -63,7 +68,6 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
     .filter((c) => vanIds.has(c.locationId) && (c.par || c.booked > 0))
     .map((c) => ({ locationId: c.locationId, productId: c.productId, usable: c.usable, par: c.par, booked: c.booked }));
   const lines = planRestock(needs, batches, today);
-  const usedBy = new Map(used.map((u) => [u.product_id, -Number(u.n)]));
   const depotPar = new Map(levels.filter((c) => c.locationId === depot.id && c.par).map((c) => [c.productId, c.par!]));
   const reorder = planReorder(
     products.map((p) => ({

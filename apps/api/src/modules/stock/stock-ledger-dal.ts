@@ -130,12 +130,15 @@ export async function anyReversed(db: Db, firmId: number, movementIds: number[])
   );
 }
 
-/** Packs used per product since an instant (the ledger's 'used' rows are negative; this is their sum). */
-export async function sumUsedByProductSince(db: Db, firmId: number, since: Date) {
-  return (await db('stock_movements')
-    .where({ firm_id: firmId, kind: 'used' })
-    .where('created_at', '>=', since)
-    .groupBy('product_id')
-    .select('product_id')
-    .sum({ n: 'quantity_delta' })) as { product_id: number; n: string }[];
+/**
+ * Packs used per product from an instant, up to another if given (the ledger's 'used' rows are negative;
+ * this is their sum), by the covering index stock_movements_usage_by_month.
+ */
+export async function sumUsedByProductSince(db: Db, firmId: number, since: Date, until?: Date) {
+  const q = db('stock_movements').where({ firm_id: firmId, kind: 'used' }).where('created_at', '>=', since);
+  if (until) q.where('created_at', '<', until);
+  return (await q.groupBy('product_id').select('product_id').sum({ n: 'quantity_delta' })) as {
+    product_id: number;
+    n: string;
+  }[];
 }

@@ -49,8 +49,8 @@ function PlacePager({
 
 /**
  * Products down, places across, a page of places at a time (the API pages the grid by place, 20 a page):
- * each cell the usable packs, coloured by health against par; a cell opens its batches. The first column
- * holds each product's total over every place.
+ * each cell the usable packs, coloured by health against par; a cell opens its batches. Each product's
+ * own cell also gives its usable packs over every place.
  */
 export function StockGridView() {
   const [page, setPage] = useState(1);
@@ -104,13 +104,6 @@ export function StockGridView() {
               >
                 Product
               </th>
-              <th
-                scope="col"
-                className="border-b-2 border-line px-2 py-2 text-sm font-semibold whitespace-nowrap text-ink-muted"
-              >
-                All places
-                <span className="block text-xs font-normal">usable</span>
-              </th>
               {locations.map((place) => (
                 <th
                   key={place.id}
@@ -138,16 +131,11 @@ export function StockGridView() {
                   <span className="block text-xs font-normal text-ink-muted">
                     packs of {formatPackSize(product.packSizeMl)}
                   </span>
+                  {/* Over every place, not only this page's: the API adds them up. */}
+                  <span className="block text-xs font-normal text-ink-muted">
+                    {totals.get(product.id)?.usable ?? 0} usable in all
+                  </span>
                 </th>
-                <td className="px-2 py-1 text-center text-lg font-semibold">
-                  {totals.get(product.id)?.usable ?? 0}
-                  {totals.get(product.id)?.booked ? (
-                    <span className="block text-xs font-normal">{totals.get(product.id)?.booked} booked</span>
-                  ) : null}
-                  {totals.get(product.id)?.expired ? (
-                    <span className="block text-xs font-normal">+{totals.get(product.id)?.expired} expired</span>
-                  ) : null}
-                </td>
                 {locations.map((place) => {
                   const cell = cells.get(`${place.id}:${product.id}`);
                   const health = cell?.health ?? 'no_par';
