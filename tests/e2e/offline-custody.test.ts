@@ -75,7 +75,10 @@ test('with no signal an engineer checks a kit out from its label and back in wit
 
   await custody.getByRole('button', { name: 'Check in' }).click();
   const checkIn = page.getByRole('form', { name: 'Check in' });
-  await checkIn.getByRole('radio', { name: /^Needs attention/ }).check();
+  // A condition per item, "In service" unless changed (issue 14).
+  const conditions = checkIn.getByRole('combobox', { name: /^Condition of / });
+  await expect(conditions).not.toHaveCount(0);
+  for (const condition of await conditions.all()) await condition.selectOption('Needs attention');
   await checkIn.getByLabel('Missing parts (if any)').fill('One hose clip');
   await checkIn
     .getByLabel('Photo (optional)')

@@ -13,7 +13,7 @@ import { isApiError } from '@/lib/api-client';
 import { useSignedInMe } from '@/lib/auth';
 import { formatCalendarDate } from '@/lib/format';
 import { NotFoundPage } from '@/app/routes/not-found-page';
-import { kitItemQueries } from '@/features/kits/api/kit-queries';
+import { kitItemQueries, kitQueries } from '@/features/kits/api/kit-queries';
 import { CustodyPanel } from '@/features/kits/components/custody-panel';
 import { CustodyTimeline } from '@/features/kits/components/custody-timeline';
 import { describeDue, InspectionStateBadge } from '@/features/kits/components/inspection-state';
@@ -28,6 +28,9 @@ export function KitItemPage() {
   const me = useSignedInMe();
   const id = Number(useParams().id);
   const detail = useQuery({ ...kitItemQueries.detail(id), enabled: Number.isInteger(id) && id > 0 });
+  // The item's kit with all its items: checking the whole kit in from this label asks each item's condition.
+  const kitId = detail.data?.item.kit?.id;
+  const kit = useQuery({ ...kitQueries.detail(kitId ?? 0), enabled: kitId !== undefined });
   const fleet = useFleetPlaces();
   const ability = useAbility();
   const [editing, setEditing] = useState(false);
@@ -54,7 +57,8 @@ export function KitItemPage() {
         )}
       </PageHeader>
       <div className="space-y-5">
-        {fleet.isPending ? (
+        {/* Without signal the kit's query pauses: the panel then goes on with this item alone, never waits. */}
+        {fleet.isPending || (kit.isPending && kit.fetchStatus === 'fetching') ? (
           <PageSpinner label="Loading vans…" />
         ) : (
           <CustodyPanel
@@ -63,7 +67,7 @@ export function KitItemPage() {
             location={item.location}
             vans={fleet.vans}
             depots={fleet.depots}
-            items={[item]}
+            items={kit.data?.items ?? [item]}
           />
         )}
         <Card title="Inspection">
