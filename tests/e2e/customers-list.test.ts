@@ -94,7 +94,7 @@ test('the office pages through more customers than one page and finds them by na
     const asked = page.waitForResponse((r) => /\/api\/customers\?.*q=mb37x/i.test(r.url()) && r.status() === 200);
     await search.fill('mb37x');
     await asked;
-    await expect(status).toHaveText('Showing 1–1 of 1 customers matching "mb37x".');
+    await expect(status).toHaveText('Showing 1–1 of 1 customer matching "mb37x".');
     expect(await apiTotal('mb37x')).toBe(1);
     await expect(names).toHaveText(['Oona Ridgeway']);
     await expect(list.getByRole('link', { name: /12 Kiln Lane, Marshby, MB3 7XY/ })).toBeVisible();

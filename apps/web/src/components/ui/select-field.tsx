@@ -20,7 +20,7 @@ export function SelectField({ label, hideLabel = false, options, error, classNam
         id={id}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? errorId : undefined}
-        className={`min-h-11 w-full rounded-md border bg-card px-3 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
+        className={`min-h-12 w-full rounded-md border bg-card px-3 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
         {...rest}
       >
         {options.map((option) => (

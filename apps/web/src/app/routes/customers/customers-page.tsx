@@ -95,7 +95,7 @@ export function CustomersPage() {
                 aria-busy={customers.isPlaceholderData || undefined}
               >
                 {customers.isPlaceholderData ? 'Loading… ' : null}
-                {`Showing ${first}–${last} of ${data.total} customers${q ? ` matching "${q}"` : ''}.`}
+                {`Showing ${first}–${last} of ${data.total} customer${data.total === 1 ? '' : 's'}${q ? ` matching "${q}"` : ''}.`}
               </p>
               <CustomerPageList customers={data.customers} today={calendarDateIn(new Date(), me.activeFirm.timeZone)} />
               {pageCount > 1 ? (

@@ -90,7 +90,7 @@ export function SitePage() {
         <Can I="create" a="Customer">
           <Card
             title="Record an inhibitor check"
-            description="Measure the inhibitor in the system water and compare it with the product's target range. Saving sets the next check a year on."
+            description="Measure the inhibitor in the system water and compare it with the product's target range. A pass sets the next check a year on; a fail without a top-up and re-test, a month on."
           >
             <SiteCheckForm siteId={s.id} inhibitors={inhibitors} timeZone={me.activeFirm.timeZone} />
           </Card>
