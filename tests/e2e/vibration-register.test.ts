@@ -126,4 +126,12 @@ test('the owner sees each engineer’s daily points and who needs health surveil
   await page.getByRole('radio', { name: '4 weeks' }).check();
   await expect(table.getByRole('columnheader')).toHaveCount(5);
   await expect(thisWeek('Ellis Brannock')).toHaveText(/^100\s*1 day, 1 ≥ 100$/);
+
+  // Each day's points, kept per engineer: the day as a UK date and its points.
+  const opener = page.getByText('Points per day for Ellis Brannock');
+  expect((await opener.boundingBox())?.height ?? 0).toBeGreaterThanOrEqual(48); // DEVELOPERS.md: 48 px
+  await opener.click();
+  const ellisDays = page.getByRole('list', { name: 'Points per day, Ellis Brannock' }).getByRole('listitem');
+  await expect(ellisDays).toHaveCount(1);
+  await expect(ellisDays).toHaveText(/^\d{1,2} [A-Z][a-z]{2} \d{4}: 100 points$/);
 });

@@ -35,6 +35,29 @@ function WeekCell({
   );
 }
 
+/** Every day with vibration recorded, newest first, with its points: what the record of exposure keeps per day. */
+function DayPoints({ engineer, action, limit }: { engineer: HavRegisterEngineer; action: number; limit: number }) {
+  const days = engineer.weeks.flatMap((w) => w.days).sort((a, b) => b.day.localeCompare(a.day));
+  if (days.length === 0) return null;
+  return (
+    <details className="mt-1">
+      <summary className="flex min-h-12 cursor-pointer items-center font-semibold text-brand-700">
+        Points per day<span className="sr-only"> for {engineer.name}</span>
+      </summary>
+      <ul aria-label={`Points per day, ${engineer.name}`} className="grid grid-cols-2 gap-x-4 text-sm sm:grid-cols-4">
+        {days.map((d) => (
+          <li
+            key={d.day}
+            className={d.points > limit ? 'text-danger-700' : d.points >= action ? 'font-semibold text-ember-700' : ''}
+          >
+            {formatCalendarDate(d.day)}: {d.points} points
+          </li>
+        ))}
+      </ul>
+    </details>
+  );
+}
+
 /** Each engineer's weeks: the highest day's points, the days recorded and the days over each value. */
 export function HavRegisterView({ register }: { register: HavRegisterResponse }) {
   const { actionPoints: action, limitPoints: limit } = register;
@@ -53,6 +76,7 @@ export function HavRegisterView({ register }: { register: HavRegisterResponse })
               {e.daysRecorded} day{e.daysRecorded === 1 ? '' : 's'} with vibration recorded; highest{' '}
               {e.highestDayPoints} points; {e.daysOverAction} at or over {action}; {e.daysOverLimit} over {limit}.
             </p>
+            <DayPoints engineer={e} action={action} limit={limit} />
           </li>
         ))}
       </ul>
