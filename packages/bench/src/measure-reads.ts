@@ -18,7 +18,8 @@ import {
 } from './bench-stack.ts';
 import { cpuShares, ownFunctionsInclusive, topFunctions } from './cpu-profile.ts';
 import type { GeneratedDatabase } from './generate-large-firm.ts';
-import { round, serialLatency, signIn } from './load.ts';
+import { load, round, serialLatency, signIn } from './load.ts';
+import { sampleRss } from './rss-sampler.ts';
 
 // `node --import tsx packages/bench/src/measure-reads.ts [--firms large,small] [--count 10] [--profile] [--label x]`:
 // each heavy read of the bench's firms sent alone, one at a time (median and max ms of --count requests, with the
@@ -34,11 +35,25 @@ const count = Number(option('count') ?? '10');
 const profile = args.includes('--profile');
 const label = option('label') ?? 'current';
 const only = option('reads')?.split(',');
+// --load N: each read also under 32 connections for N seconds, with the API's peak resident memory during it.
+const loadSeconds = Number(option('load') ?? '0');
+// --server: another checkout's server.ts (a before/after on the same machine, in the same minutes).
+const serverFile = option('server') ?? apiFiles.server;
 const api = `http://127.0.0.1:${benchStack.apiPort}`;
 const life = new Lifecycle();
 life.handleSignals(130);
 
 const say = (line: string) => process.stdout.write(`${line}\n`);
+
+/** Waits until the API answers promptly again (requests queued behind a slow read run on after the load stops). */
+async function drained(): Promise<void> {
+  const deadline = Date.now() + 120_000;
+  while (Date.now() < deadline) {
+    const began = Date.now();
+    if ((await httpAnswers200(`${api}/api/health`)) && Date.now() - began < 200) return;
+    await new Promise((resolve) => setTimeout(resolve, 1_000));
+  }
+}
 
 async function main(): Promise<void> {
   mkdirSync(benchStack.logDir, { recursive: true });
@@ -56,7 +71,7 @@ async function main(): Promise<void> {
   const service = startService({
     name: 'api-reads',
     command: process.execPath,
-    args: [...(profile ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []), '--import', 'tsx', apiFiles.server],
+    args: [...(profile ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []), '--import', 'tsx', serverFile],
     env: { ...process.env, ...benchApiEnv() },
     logFile: join(benchStack.logDir, 'api-reads.log'),
     quiet: true,
@@ -78,7 +93,7 @@ async function main(): Promise<void> {
     const reads: [string, string, typeof owner][] = [
       ['van stock', '/api/me/van/stock', engineer],
       ['stock grid', '/api/stock', owner],
-      ['stock grid page', '/api/stock?limit=25', owner],
+      ['grid 100 places', '/api/stock?limit=100', owner],
       ['restock run', '/api/stock/restock-run', owner],
       ['overview', '/api/overview', owner],
       ['booked short', '/api/stock/booked-jobs-short', owner],
@@ -89,11 +104,26 @@ async function main(): Promise<void> {
       const first = await fetch(`${api}${path}`, { headers });
       const bytes = (await first.arrayBuffer()).byteLength;
       const alone = await serialLatency(`${api}${path}`, headers, count);
-      figures.push({ firm: key, name, path, bytes, ...alone, status: first.status });
+      figures.push({ firm: key, name, path, bytes, ...alone, status: first.status, underLoad: null as unknown });
       say(
         `  ${key.padEnd(7)} ${name.padEnd(16)} ${String(alone.medianMs).padStart(8)} ms median  ${String(alone.maxMs).padStart(8)} ms max  ${(bytes / 1024).toFixed(1).padStart(8)} KiB  ${first.status}`,
       );
     }
+    // Under load after every read alone, so requests still queued behind a slow one never meet a measurement.
+    if (loadSeconds > 0)
+      for (const [name, path, session] of reads) {
+        const figure = figures.find((f) => f.firm === key && f.name === name);
+        if (!figure || figure.status !== 200) continue;
+        const headers = { cookie: session.cookie };
+        const rss = sampleRss(service.pid, 200);
+        const result = await load({ url: `${api}${path}`, connections: 32, seconds: loadSeconds, headers });
+        await drained();
+        const peakRssMiB = rss.stop().maxMiB;
+        figure.underLoad = { ...result, peakRssMiB };
+        say(
+          `  ${key.padEnd(7)} ${name.padEnd(16)} 32 connections: ${result.requestsPerSecond} req/s, p99 ${result.p99Ms} ms, errors ${result.errors}, peak RSS ${peakRssMiB} MiB`,
+        );
+      }
   }
   const rssKiB = Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${service.pid}/status`, 'utf8'))?.[1] ?? 0);
   say(`  API resident memory at the end: ${round(rssKiB / 1024, 1)} MiB`);
