@@ -43,13 +43,17 @@ export async function stockLevels(
   db: Db,
   firmId: number,
   today: string,
-  where: { locationIds?: number[] } = {},
+  /**
+   * `keepEmpty`: a cell also for a product whose lots there all hold 0 packs and which has no par level or
+   * booked job (My van lists it); elsewhere such a cell reads the same as none and is left out.
+   */
+  where: { locationIds?: number[]; keepEmpty?: boolean } = {},
   /** Packs booked jobs need, keyed by `vanProductKey` (see booked-need-service.ts); none: par levels alone. */
   booked: Map<string, number> = new Map(),
 ): Promise<StockCell[]> {
   if (where.locationIds?.length === 0) return [];
   const [balanceRows, batchRows, parRows] = await Promise.all([
-    listBalanceRows(db, firmId, where.locationIds),
+    listBalanceRows(db, firmId, where.locationIds, where.keepEmpty),
     listBatchExpiries(db, firmId),
     listParLevelRows(db, firmId, where.locationIds),
   ]);
@@ -202,7 +206,13 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
     batchesAt(deps, actor, { locationId: van.id }),
     listProductOrderRefs(deps.db, actor.firmId),
   ]);
-  const levels = await stockLevels(deps.db, actor.firmId, today, { locationIds: [van.id] }, booked.packs);
+  const levels = await stockLevels(
+    deps.db,
+    actor.firmId,
+    today,
+    { locationIds: [van.id], keepEmpty: true },
+    booked.packs,
+  );
   const byId = new Map(products.map((p) => [p.id, p]));
   return {
     van: { id: van.id, name: van.name, registration: van.registration },
