@@ -229,6 +229,7 @@ const queries: Record<string, (f: SeededFirm) => Record<string, string>> = {
   'GET /money/export.csv': () => ({ from: '2026-11-01', to: '2026-12-31' }),
   'GET /kit-items': (f) => ({ kitId: String(f.kit.id), locationId: String(f.depotId), kindId: String(f.kindId) }),
   'GET /kit-items/labels': (f) => ({ kitId: String(f.kit.id) }),
+  'GET /stock': () => ({ page: '1', limit: '25' }),
   'GET /stock/batches': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),
   'GET /stock/movements': (f) => ({ locationId: String(f.depotId), productId: String(f.product.id) }),
   'GET /stock/movements.csv': (f) => ({ productId: String(f.product.id) }),
