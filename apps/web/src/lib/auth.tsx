@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { createContext, useContext, type ReactNode } from 'react';
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import { Navigate, useLocation } from 'react-router-dom';
 import { meEnvelopeSchema, type Me, type SessionEnvelope } from '@heatfleet/domain';
@@ -64,11 +64,15 @@ export function changeActiveFirm(client: QueryClient, me: Me): void {
   void client.resetQueries({ predicate: (query) => !isSessionQuery(query) });
 }
 
+// The person <RequireSession> let in. Read from here rather than from the query, so a screen still
+// mounted in the moment between sign-out clearing the query and the redirect never sees nobody.
+const SignedInMeContext = createContext<Me | null>(null);
+
 /** For screens inside <RequireSession>: the signed-in person, always present. */
 export function useSignedInMe(): Me {
-  const { data } = useQuery(sessionQueries.me());
-  if (!data) throw new Error('useSignedInMe is used outside <RequireSession>.');
-  return data;
+  const me = useContext(SignedInMeContext);
+  if (!me) throw new Error('useSignedInMe is used outside <RequireSession>.');
+  return me;
 }
 
 export function RequireSession({ children }: { children: (me: Me) => ReactNode }) {
@@ -76,7 +80,7 @@ export function RequireSession({ children }: { children: (me: Me) => ReactNode }
   const me = useQuery(sessionQueries.me());
   if (me.isPending) return <PageSpinner />;
   // With no signal the last answer (kept on the phone) stands: a failed refresh is not a sign-out.
-  if (me.data) return children(me.data);
+  if (me.data) return <SignedInMeContext.Provider value={me.data}>{children(me.data)}</SignedInMeContext.Provider>;
   if (me.isError) return <QueryErrorNotice error={me.error} onRetry={() => void me.refetch()} />;
   return <Navigate to={paths.signIn.getHref(location.pathname + location.search)} replace />;
 }
