@@ -83,6 +83,13 @@ export function createApp(deps: AppDeps): Express {
         },
       }),
     );
+    // The sign-in page comes pre-rendered (vite.config.ts, prerenderSignIn) so it paints before the scripts load.
+    app.get('/sign-in', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(existsSync(path.join(dist, 'sign-in.html')) ? 'sign-in.html' : 'index.html', { root: dist });
+    });
+    // Enter pressed in that form before its script ran: the browser posted it; nothing is read, the page comes back.
+    app.post('/sign-in', (_req, res) => res.redirect(303, '/sign-in'));
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
       // root + relative name: sendFile refuses absolute paths that pass through a dot-folder (.data/).

@@ -229,6 +229,18 @@ export const router = createBrowserRouter([
   },
 ]);
 
+/** Resolves once the first route's lazy chunk has loaded, so the first render is the page, not the fallback. */
+export function routerReady(): Promise<void> {
+  if (router.state.initialized) return Promise.resolve();
+  return new Promise((resolve) => {
+    const stop = router.subscribe((state) => {
+      if (!state.initialized) return;
+      stop();
+      resolve();
+    });
+  });
+}
+
 export function AppRouter() {
   return <RouterProvider router={router} />;
 }

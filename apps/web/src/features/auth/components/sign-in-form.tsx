@@ -5,6 +5,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { paths } from '@/config/paths';
 import { useSchemaForm } from '@/lib/form';
+import { useHydrated } from '@/lib/use-hydrated';
 import { useSignIn } from '@/features/auth/api/use-sign-in';
 
 const fields = ['email', 'password'] as const;
@@ -12,10 +13,14 @@ const fields = ['email', 'password'] as const;
 export function SignInForm() {
   const signIn = useSignIn();
   const form = useSchemaForm(signInInputSchema, fields);
+  const hydrated = useHydrated();
 
   return (
     <form
       ref={form.formRef}
+      // Never used while the scripts run (the button waits for them); with scripts off the browser's own submit
+      // posts, which the API sends back to the page, rather than putting the password into the address as a GET.
+      method="post"
       noValidate
       className="space-y-4"
       onSubmit={form.handleSubmit((input) => signIn.mutate(input, { onError: form.showError }))}
@@ -38,7 +43,7 @@ export function SignInForm() {
         required
         error={form.fieldErrors.password}
       />
-      <Button type="submit" busy={signIn.isPending} className="w-full">
+      <Button type="submit" busy={signIn.isPending} disabled={!hydrated} className="w-full">
         Sign in
       </Button>
       <p className="text-center">
