@@ -243,14 +243,26 @@ describe('owner overview', () => {
     const van = o.vans.find((v: { id: number }) => v.id === firm.van.id);
     // Cleaner 2 usable (< 3: below minimum; the 3 expired packs do not count); inhibitor 0 against 2: empty.
     // Health per product by the domain's one rule; the van's is its worst product's (packs never added across products).
-    expect(van.stock).toMatchObject({ health: 'empty', belowMinimum: 2, outOfStock: 1, belowTarget: 0 });
+    expect(van.stock).toMatchObject({
+      health: 'empty',
+      belowMinimum: 2,
+      outOfStock: 1,
+      belowTarget: 0,
+      productsNotOk: 2,
+    });
     expect(van.stock.products.map((p: { usable: number; health: string }) => [p.usable, p.health])).toEqual([
       [0, 'empty'],
       [2, 'below_minimum'],
     ]);
     expect(van.nextDue).toMatchObject({ what: 'MOT', on: addDays(today, 10), daysLeft: 10, state: 'due_soon' });
     const spare = o.vans.find((v: { id: number }) => v.id === firm.spareVanId);
-    expect(spare.stock).toMatchObject({ health: 'no_par', belowMinimum: 0, outOfStock: 0, products: [] });
+    expect(spare.stock).toMatchObject({
+      health: 'no_par',
+      belowMinimum: 0,
+      outOfStock: 0,
+      productsNotOk: 0,
+      products: [],
+    });
     expect(spare.nextDue).toMatchObject({ what: 'service', state: 'overdue', daysLeft: -1 });
     expect(o.vansDue).toBe(2);
 

@@ -91,7 +91,7 @@ describe('restock for booked jobs', () => {
     expect(cell).toMatchObject({ usable: 2, booked: 3, health: 'short_for_jobs' });
     const owner = await signIn(t.app, firm.people.owner.email);
     const van = (await owner.get('/api/overview')).body.overview.vans.find((v: { id: number }) => v.id === firm.van.id);
-    expect(van.stock).toMatchObject({ health: 'short_for_jobs', shortForJobs: 1 });
+    expect(van.stock).toMatchObject({ health: 'short_for_jobs', shortForJobs: 1, productsNotOk: 1 });
     expect(van.stock.products).toEqual([
       expect.objectContaining({
         productId: firm.product.id,

@@ -1,8 +1,15 @@
-import { placeHealthOf, stockHealthRank, type OverviewVan, type StockCell } from '@heatfleet/domain';
+import {
+  OVERVIEW_VAN_PRODUCTS_LISTED,
+  placeHealthOf,
+  stockHealthRank,
+  type OverviewVan,
+  type StockCell,
+} from '@heatfleet/domain';
 
 /**
  * Each van's stock health for the overview, product by product, by the same rule as the stock grid
- * and My van (`stockHealthOf`, booked jobs counted): the van's health is its worst product's.
+ * and My van (`stockHealthOf`, booked jobs counted): the van's health is its worst product's. The products
+ * listed are the first few not OK, worst first.
  */
 export function vanStockHealth(
   levels: StockCell[],
@@ -23,6 +30,9 @@ export function vanStockHealth(
   return (vanId) => {
     const cells = (byVan.get(vanId) ?? []).filter((c) => c.health !== 'no_par' && productById.has(c.productId));
     const { health, counts } = placeHealthOf(cells.map((c) => c.health));
+    // Only the worst few products that need something are listed, what the card shows (issue 16: every van's 100
+    // products made the answer 2.3 MB); the counts cover every product with a level.
+    const notOk = cells.filter((c) => c.health !== 'ok');
     return {
       health,
       // An empty line or one short for booked jobs is below what it must hold too; the others pick them out.
@@ -30,7 +40,14 @@ export function vanStockHealth(
       outOfStock: counts.empty,
       shortForJobs: counts.short_for_jobs,
       belowTarget: counts.below_target,
-      products: cells
+      productsNotOk: notOk.length,
+      products: notOk
+        .sort(
+          (a, b) =>
+            stockHealthRank[a.health] - stockHealthRank[b.health] ||
+            nameRank.get(a.productId)! - nameRank.get(b.productId)!,
+        )
+        .slice(0, OVERVIEW_VAN_PRODUCTS_LISTED)
         .map((c) => ({
           productId: c.productId,
           name: productById.get(c.productId)!.name,
@@ -39,12 +56,7 @@ export function vanStockHealth(
           target: c.need?.target ?? null,
           booked: c.booked,
           health: c.health,
-        }))
-        .sort(
-          (a, b) =>
-            stockHealthRank[a.health] - stockHealthRank[b.health] ||
-            nameRank.get(a.productId)! - nameRank.get(b.productId)!,
-        ),
+        })),
     };
   };
 }

@@ -75,9 +75,12 @@ const healthTone = {
   no_par: 'neutral',
 } as const;
 
-/** A van's stock, product by product, by the domain's one health rule (never packs added across products). */
+/**
+ * A van's stock by the domain's one health rule (never packs added across products): the worst few products that
+ * need something, as the answer lists them, and how many more (the van's page, this row's link, has them all).
+ */
 function VanStockHealth({ stock }: { stock: OverviewVan['stock'] }) {
-  const low = stock.products.filter((p) => p.health !== 'ok');
+  const more = stock.productsNotOk - stock.products.length;
   return (
     <span className="block space-y-1">
       <Badge tone={healthTone[stock.health]}>
@@ -87,15 +90,20 @@ function VanStockHealth({ stock }: { stock: OverviewVan['stock'] }) {
             ? 'No levels set'
             : stockHealthLabels[stock.health]}
       </Badge>
-      {low.length ? (
+      {stock.products.length ? (
         <span className="block text-sm text-ink">
-          {low.map((p) => (
+          {stock.products.map((p) => (
             <span key={p.productId} className="block [overflow-wrap:anywhere]">
               {p.name}: {formatPacks(p.usable, p.packSizeMl)}
               {p.target !== null ? ` of ${p.target}` : ''}
               {p.booked > 0 ? `, ${p.booked} booked` : ''} ({stockHealthLabels[p.health].toLowerCase()})
             </span>
           ))}
+          {more > 0 ? (
+            <span className="block text-ink-muted">
+              and {more} more {more === 1 ? 'product' : 'products'} to restock
+            </span>
+          ) : null}
         </span>
       ) : null}
     </span>
