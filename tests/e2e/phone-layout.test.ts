@@ -1,3 +1,4 @@
+import type { Page } from '@playwright/test';
 import { firmWithCrew } from './support/crew-fixtures';
 import { horizontalOverflow, mainNav, signIn } from './support/e2e-helpers';
 import { callApi } from './support/api-session';
@@ -32,9 +33,31 @@ async function prepareFirm(baseURL: string) {
   return crew.owner;
 }
 
+/** Visible buttons, drop-downs and text fields shorter than 48 px, each as its tag and name. */
+async function shortTargets(page: Page): Promise<string[]> {
+  return page.evaluate(() =>
+    Array.from(
+      document.querySelectorAll<HTMLElement>(
+        'button, select, textarea, input:not([type=checkbox]):not([type=radio]):not([type=hidden])',
+      ),
+    )
+      .filter((element) => {
+        const rect = element.getBoundingClientRect();
+        return rect.width > 0 && rect.height > 0 && rect.height < 47.5;
+      })
+      .map(
+        (element) =>
+          `${element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}" ${Math.round(element.getBoundingClientRect().height)} px`,
+      ),
+  );
+}
+
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
-test('at 360 px the Owner can sign in and no screen scrolls sideways', async ({ page, baseURL }, testInfo) => {
+test('at 360 px the Owner can sign in, no screen scrolls sideways and every button and field is 48 px tall', async ({
+  page,
+  baseURL,
+}, testInfo) => {
   const owner = await prepareFirm(baseURL!);
   await page.goto('/sign-in');
   expect((await horizontalOverflow(page)).scrollWidth).toBeLessThanOrEqual(360);
@@ -57,6 +80,8 @@ test('at 360 px the Owner can sign in and no screen scrolls sideways', async ({ 
       await page.screenshot({ path: testInfo.outputPath(`${screen.toLowerCase()}-360.png`), fullPage: true });
       const overflow = await horizontalOverflow(page);
       expect(overflow.scrollWidth, `${screen} overflows: ${overflow.widest ?? ''}`).toBeLessThanOrEqual(360);
+      // DEVELOPERS.md, phone first: every button and field a gloved thumb aims at is at least 48 px tall.
+      expect(await shortTargets(page), `${screen}: controls under 48 px`).toEqual([]);
     });
   }
 });

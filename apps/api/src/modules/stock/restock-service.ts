@@ -55,14 +55,22 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
   const depot = await depotOf(db, actor, depotId);
   const timeZone = (await findFirm(db, actor.firmId))?.time_zone ?? DEFAULT_TIME_ZONE;
   const today = calendarDateIn(deps.clock.now(), timeZone);
-  const [booked, vans, products, batches, usedBy] = await Promise.all([
-    firmBookedJobs(db, actor.firmId, today),
+  const bookedJobs = firmBookedJobs(db, actor.firmId, today);
+  // The levels' reads run beside the booked jobs' and wait for them only to count their packs.
+  const [booked, vans, products, batches, usedBy, levels] = await Promise.all([
+    bookedJobs,
     listActiveVanRefs(db, actor.firmId),
     listProductOrderRefs(db, actor.firmId),
     depotBatches(db, actor.firmId, depot.id),
     packsUsedLast90Days(db, actor.firmId, timeZone, today),
+    stockLevels(
+      db,
+      actor.firmId,
+      today,
+      {},
+      bookedJobs.then((b) => b.packs),
+    ),
   ]);
-  const levels = await stockLevels(db, actor.firmId, today, {}, booked.packs);
   const vanIds = new Set(vans.map((v) => v.id));
   const needs = levels
     .filter((c) => vanIds.has(c.locationId) && (c.par || c.booked > 0))

@@ -25,7 +25,7 @@ function useOutboxIsAvailable(): boolean {
 }
 
 const navLinkClass = ({ isActive }: { isActive: boolean }) =>
-  `inline-flex min-h-11 items-center border-b-4 px-3 font-semibold ${
+  `inline-flex min-h-12 items-center border-b-4 px-3 font-semibold ${
     isActive ? 'border-ember-500 text-white' : 'border-transparent text-brand-100 hover:text-white'
   }`;
 
@@ -67,7 +67,7 @@ function SignOutButton() {
         type="button"
         disabled={signOut.isPending || sending}
         onClick={() => void start()}
-        className="min-h-11 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
+        className="min-h-12 shrink-0 rounded-md border border-brand-600 px-3 font-semibold text-white hover:bg-brand-800 disabled:opacity-60"
       >
         {sending ? 'Sending…' : 'Sign out'}
       </button>
@@ -127,7 +127,7 @@ function SignedInHeader({ me }: { me: Me }) {
         <div className="flex items-center justify-between gap-3 pt-2">
           <Link
             to={paths.home.getHref()}
-            className="inline-flex min-h-11 shrink-0 items-center rounded-md"
+            className="inline-flex min-h-12 shrink-0 items-center rounded-md"
             aria-label="Heatfleet home"
           >
             <Wordmark />
@@ -135,7 +135,7 @@ function SignedInHeader({ me }: { me: Me }) {
           <div className="flex min-w-0 items-center gap-2">
             <Link
               to={paths.account.getHref()}
-              className="inline-flex min-h-11 min-w-0 items-center truncate text-sm text-brand-100 underline-offset-4 hover:text-white hover:underline"
+              className="inline-flex min-h-12 min-w-0 items-center truncate text-sm text-brand-100 underline-offset-4 hover:text-white hover:underline"
               title={`Your account (${me.user.email})`}
             >
               {me.user.name}
@@ -143,7 +143,7 @@ function SignedInHeader({ me }: { me: Me }) {
             <SignOutButton />
           </div>
         </div>
-        <div className="flex min-h-11 items-center py-1">
+        <div className="flex min-h-12 items-center py-1">
           {me.memberships.length > 1 ? (
             <FirmSwitcher me={me} />
           ) : (
@@ -234,14 +234,14 @@ export function OutboxLayout() {
         <div className="mx-auto flex max-w-5xl items-center justify-between gap-3 px-4 py-2">
           <Link
             to={paths.home.getHref()}
-            className="inline-flex min-h-11 items-center rounded-md"
+            className="inline-flex min-h-12 items-center rounded-md"
             aria-label="Heatfleet home"
           >
             <Wordmark />
           </Link>
           <Link
             to={paths.signIn.getHref()}
-            className="inline-flex min-h-11 items-center rounded-md border border-brand-600 px-4 font-semibold text-white hover:bg-brand-800"
+            className="inline-flex min-h-12 items-center rounded-md border border-brand-600 px-4 font-semibold text-white hover:bg-brand-800"
           >
             Sign in
           </Link>

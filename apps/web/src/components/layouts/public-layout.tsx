@@ -16,7 +16,7 @@ export function PublicLayout({ title, intro, children, footer }: PublicLayoutPro
       <header className="bg-brand-900 px-4 py-3">
         <Link
           to={paths.home.getHref()}
-          className="inline-flex min-h-11 items-center rounded-md"
+          className="inline-flex min-h-12 items-center rounded-md"
           aria-label="Heatfleet home"
         >
           <Wordmark />

@@ -93,7 +93,7 @@ export function OfflineStatus({ me }: { me: Me }) {
             aria-expanded={open}
             aria-controls={detailsId}
             onClick={() => setOpen((was) => !was)}
-            className={`min-h-11 ${linkClass} ${attention.length > 0 ? 'text-danger-700' : ''}`}
+            className={`min-h-12 ${linkClass} ${attention.length > 0 ? 'text-danger-700' : ''}`}
           >
             {attention.length > 0
               ? `${changesText(attention.length)} need${attention.length === 1 ? 's' : ''} your attention`
@@ -103,7 +103,7 @@ export function OfflineStatus({ me }: { me: Me }) {
         {updateReady ? (
           <span className="flex items-center gap-2">
             A new version is ready: update when you are ready.
-            <button type="button" onClick={applyUpdate} className={`min-h-11 ${linkClass}`}>
+            <button type="button" onClick={applyUpdate} className={`min-h-12 ${linkClass}`}>
               Update now
             </button>
           </span>
@@ -117,7 +117,7 @@ export function OfflineStatus({ me }: { me: Me }) {
                 localStorage.setItem(STORAGE_NOTED_KEY, 'yes');
                 setStorageNoted(true);
               }}
-              className={`min-h-11 ${linkClass}`}
+              className={`min-h-12 ${linkClass}`}
             >
               OK
             </button>

@@ -26,7 +26,7 @@ export function AttentionList({ writes }: { writes: QueuedWrite[] }) {
               {write.href ? (
                 <Link
                   to={write.href}
-                  className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline"
+                  className="inline-flex min-h-12 items-center font-semibold text-brand-700 underline"
                 >
                   Open
                 </Link>

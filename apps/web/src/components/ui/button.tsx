@@ -3,7 +3,7 @@ import type { ButtonHTMLAttributes } from 'react';
 export type ButtonVariant = 'primary' | 'secondary' | 'danger' | 'quiet';
 
 const base =
-  'inline-flex min-h-11 items-center justify-center gap-2 rounded-md px-4 text-base font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60';
+  'inline-flex min-h-12 items-center justify-center gap-2 rounded-md px-4 text-base font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60';
 
 const variants: Record<ButtonVariant, string> = {
   primary: 'bg-brand-700 text-white hover:bg-brand-800',
@@ -12,7 +12,7 @@ const variants: Record<ButtonVariant, string> = {
   quiet: 'text-brand-700 underline-offset-4 hover:underline',
 };
 
-/** Shared with links that look like buttons, so both keep the 44 px touch target. */
+/** Shared with links that look like buttons, so both keep the 48 px touch target (DEVELOPERS.md, phone first). */
 export function buttonClasses(variant: ButtonVariant = 'primary', extra = ''): string {
   return `${base} ${variants[variant]} ${extra}`.trim();
 }

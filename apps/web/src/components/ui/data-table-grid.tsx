@@ -37,7 +37,7 @@ export function DataTableGrid<TData extends object>({
                     <button
                       type="button"
                       onClick={header.column.getToggleSortingHandler()}
-                      className={`inline-flex min-h-11 items-center gap-1 rounded-md px-1 hover:text-ink ${sorted ? 'text-ink' : ''}`}
+                      className={`inline-flex min-h-12 items-center gap-1 rounded-md px-1 hover:text-ink ${sorted ? 'text-ink' : ''}`}
                     >
                       <table.FlexRender header={header} />
                       <span aria-hidden="true" className="w-3 text-xs">

@@ -26,7 +26,7 @@ export function TextareaField({ label, name, error, hint, className = '', rows =
         rows={rows}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
-        className={`min-h-11 w-full rounded-md border bg-card px-3 py-2 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
+        className={`min-h-12 w-full rounded-md border bg-card px-3 py-2 text-base ${error ? 'border-danger-700' : 'border-line-strong'}`}
         {...rest}
       />
       {error ? (

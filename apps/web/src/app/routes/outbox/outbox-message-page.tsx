@@ -8,7 +8,7 @@ export function OutboxMessagePage() {
     <div className="space-y-4">
       <Link
         to={paths.outbox.getHref()}
-        className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline-offset-4 hover:underline"
+        className="inline-flex min-h-12 items-center font-semibold text-brand-700 underline-offset-4 hover:underline"
       >
         ← All caught e-mails
       </Link>

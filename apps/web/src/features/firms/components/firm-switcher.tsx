@@ -18,7 +18,7 @@ export function FirmSwitcher({ me }: { me: Me }) {
         value={String(me.activeFirm.id)}
         disabled={setActiveFirm.isPending}
         onChange={(event) => setActiveFirm.mutate(Number(event.target.value))}
-        className="min-h-11 w-full min-w-0 max-w-56 truncate rounded-md border border-brand-600 bg-brand-800 px-2 text-base text-white"
+        className="min-h-12 w-full min-w-0 max-w-56 truncate rounded-md border border-brand-600 bg-brand-800 px-2 text-base text-white"
       >
         {me.memberships.map((membership) => (
           <option key={membership.firmId} value={membership.firmId}>

@@ -12,7 +12,7 @@ export function useGallonsToggle() {
   const [withGallons, setWithGallons] = useState(false);
   const id = useId();
   const toggle = (
-    <div className="flex min-h-11 items-center gap-3">
+    <div className="flex min-h-12 items-center gap-3">
       <input
         id={id}
         type="checkbox"

@@ -104,7 +104,7 @@ function ItemKindForm({ kind, onDone }: { kind?: ItemKind; onDone: () => void })
           options={overduePolicies.map((p) => ({ value: p, label: overduePolicyLabels[p] }))}
           error={form.fieldErrors.overduePolicy}
         />
-        <label className="flex min-h-11 items-center gap-3 self-end font-semibold">
+        <label className="flex min-h-12 items-center gap-3 self-end font-semibold">
           <input
             type="checkbox"
             name="electrical"

@@ -38,7 +38,7 @@ export function PhotoField({
           onChange(why ? null : picked);
           if (why) event.target.value = '';
         }}
-        className="min-h-11 w-full rounded-md border border-line-strong bg-card p-2 text-base file:mr-3 file:min-h-9 file:rounded-md file:border-0 file:bg-brand-50 file:px-3 file:font-semibold file:text-brand-800"
+        className="min-h-12 w-full rounded-md border border-line-strong bg-card p-2 text-base file:mr-3 file:min-h-9 file:rounded-md file:border-0 file:bg-brand-50 file:px-3 file:font-semibold file:text-brand-800"
       />
       {file ? <p className="text-sm text-ink-muted">{file.name} will be sent with this.</p> : null}
       {shown ? (

@@ -21,7 +21,7 @@ export function OutboxList() {
     <ul className="divide-y divide-line rounded-xl border border-line bg-card" aria-label="Caught e-mails">
       {messages.data.map((message) => (
         <li key={message.id}>
-          <Link to={paths.outboxMessage.getHref(message.id)} className="block min-h-11 px-4 py-3 hover:bg-brand-50">
+          <Link to={paths.outboxMessage.getHref(message.id)} className="block min-h-12 px-4 py-3 hover:bg-brand-50">
             <span className="block font-semibold text-brand-800 [overflow-wrap:anywhere]">
               {message.subject || '(no subject)'}
             </span>

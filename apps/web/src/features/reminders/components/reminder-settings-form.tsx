@@ -57,7 +57,7 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
         error={form.fieldErrors.scanHour}
         className="sm:max-w-xs"
       />
-      <label className="flex min-h-11 items-center gap-3">
+      <label className="flex min-h-12 items-center gap-3">
         <input
           type="checkbox"
           name="inspectionReminders"
@@ -71,7 +71,7 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
           </span>
         </span>
       </label>
-      <label className="flex min-h-11 items-center gap-3">
+      <label className="flex min-h-12 items-center gap-3">
         <input
           type="checkbox"
           name="vanReminders"
@@ -83,7 +83,7 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
           <span className="block text-sm text-ink-muted">Due within 30 days</span>
         </span>
       </label>
-      <label className="flex min-h-11 items-center gap-3">
+      <label className="flex min-h-12 items-center gap-3">
         <input
           type="checkbox"
           name="stockReminders"
@@ -97,7 +97,7 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
           </span>
         </span>
       </label>
-      <label className="flex min-h-11 items-center gap-3">
+      <label className="flex min-h-12 items-center gap-3">
         <input
           type="checkbox"
           name="annualCheckReminders"
@@ -111,7 +111,7 @@ function SettingsForm({ settings, timeZone }: { settings: ReminderSettingsView; 
           </span>
         </span>
       </label>
-      <label className="flex min-h-11 items-center gap-3">
+      <label className="flex min-h-12 items-center gap-3">
         <input
           type="checkbox"
           name="annualCheckCustomerEmails"

@@ -52,7 +52,7 @@ export function CustomerSitesList({
               <li key={s.id}>
                 <Link
                   to={paths.site.getHref(s.id)}
-                  className="flex min-h-11 flex-wrap items-center justify-between gap-2 rounded-md px-2 hover:bg-brand-50"
+                  className="flex min-h-12 flex-wrap items-center justify-between gap-2 rounded-md px-2 hover:bg-brand-50"
                 >
                   <span className="font-semibold text-brand-700 underline underline-offset-4">
                     {s.address}

@@ -141,8 +141,6 @@ export function SiteCheckForm({
         <SelectField
           label="Inhibitor in the system"
           name="inhibitorProductId"
-          // A 48 px target for a gloved thumb (DEVELOPERS.md, phone first); the shared select is 44 px.
-          className="[&_select]:min-h-12"
           value={productId}
           onChange={(e) => setProductId(e.target.value)}
           options={[

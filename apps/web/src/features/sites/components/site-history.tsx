@@ -12,7 +12,7 @@ export function SiteJobs({ jobs, timeZone }: { jobs: SiteDetail['jobs']; timeZon
         <li key={j.id}>
           <Link
             to={paths.job.getHref(j.id)}
-            className="flex min-h-11 flex-wrap items-center justify-between gap-2 py-3 hover:bg-brand-50"
+            className="flex min-h-12 flex-wrap items-center justify-between gap-2 py-3 hover:bg-brand-50"
           >
             <span>
               <span className="font-semibold text-brand-700 underline underline-offset-4">

@@ -53,8 +53,6 @@ export function TopUpFields({
         <SelectField
           label="From van"
           name="topUp.vanId"
-          // A 48 px target for a gloved thumb (DEVELOPERS.md, phone first); the shared select is 44 px.
-          className="[&_select]:min-h-12"
           defaultValue={mine.length === 1 ? String(mine[0]!.id) : ''}
           key={mine.length}
           options={[

@@ -25,7 +25,7 @@ export function BookedJobsWarning({ engineerMemberId }: { engineerMemberId?: num
           <li key={job.jobId}>
             <Link
               to={paths.job.getHref(job.jobId)}
-              className="inline-flex min-h-11 items-center font-semibold underline underline-offset-4 [overflow-wrap:anywhere]"
+              className="inline-flex min-h-12 items-center font-semibold underline underline-offset-4 [overflow-wrap:anywhere]"
             >
               {formatCalendarDate(job.scheduledOn)}, {job.address} ({job.van.name})
             </Link>

@@ -23,7 +23,7 @@ function DateFilter({ label, value, onChange }: { label: string; value: string; 
         type="date"
         value={value}
         onChange={(event) => onChange(event.target.value)}
-        className="min-h-11 rounded-md border border-line-strong bg-card px-3 text-base"
+        className="min-h-12 rounded-md border border-line-strong bg-card px-3 text-base"
       />
     </label>
   );

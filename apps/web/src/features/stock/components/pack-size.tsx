@@ -10,7 +10,7 @@ export function packSizeText(ml: number, showGallons: boolean): string {
 
 export function GallonsToggle({ checked, onChange }: { checked: boolean; onChange: (checked: boolean) => void }) {
   return (
-    <label className="inline-flex min-h-11 cursor-pointer items-center gap-2 font-semibold">
+    <label className="inline-flex min-h-12 cursor-pointer items-center gap-2 font-semibold">
       <input
         type="checkbox"
         className="size-5 accent-brand-700"

@@ -74,7 +74,7 @@ export function SafetyDataSheetCard({
               ref={input}
               type="file"
               accept="application/pdf,.pdf"
-              className="min-h-11 w-full text-base file:mr-3 file:min-h-11 file:rounded-md file:border file:border-line-strong file:bg-card file:px-3 file:font-semibold"
+              className="min-h-12 w-full text-base file:mr-3 file:min-h-12 file:rounded-md file:border file:border-line-strong file:bg-card file:px-3 file:font-semibold"
               onChange={(event) => setFile(event.target.files?.[0] ?? null)}
             />
           </label>

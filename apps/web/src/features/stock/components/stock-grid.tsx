@@ -150,7 +150,7 @@ export function StockGridView() {
                         type="button"
                         aria-pressed={isSelected}
                         onClick={() => setSelected(isSelected ? null : { locationId: place.id, productId: product.id })}
-                        className={`flex min-h-11 w-full min-w-16 flex-col items-center justify-center rounded-md border px-2 font-semibold ${healthStyles[health].cell} ${isSelected ? 'ring-3 ring-brand-700' : ''}`}
+                        className={`flex min-h-12 w-full min-w-16 flex-col items-center justify-center rounded-md border px-2 font-semibold ${healthStyles[health].cell} ${isSelected ? 'ring-3 ring-brand-700' : ''}`}
                       >
                         <span className="sr-only">
                           {product.name} at {place.name}: ({detail}){' '}

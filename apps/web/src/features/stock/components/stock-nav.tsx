@@ -3,7 +3,7 @@ import { paths } from '@/config/paths';
 import { useAbility } from '@/lib/ability';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
-  `inline-flex min-h-11 items-center rounded-md border px-3 font-semibold ${
+  `inline-flex min-h-12 items-center rounded-md border px-3 font-semibold ${
     isActive
       ? 'border-brand-700 bg-brand-700 text-white'
       : 'border-line-strong bg-card text-brand-800 hover:bg-brand-50'

@@ -65,7 +65,7 @@ export function VanStockSection() {
       )}
       <Link
         to={paths.stockUse.getHref()}
-        className="inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4"
+        className="inline-flex min-h-12 items-center font-semibold text-brand-700 underline underline-offset-4"
       >
         Record stock used off the van
       </Link>

@@ -26,7 +26,7 @@ function PendingInvitation({ invitation, timeZone }: { invitation: Invitation; t
         type="button"
         disabled={withdraw.isPending}
         onClick={() => withdraw.mutate(invitation.id)}
-        className="min-h-11 rounded-md border border-danger-700 px-3 font-semibold text-danger-700 hover:bg-danger-50 disabled:opacity-60"
+        className="min-h-12 rounded-md border border-danger-700 px-3 font-semibold text-danger-700 hover:bg-danger-50 disabled:opacity-60"
       >
         Withdraw<span className="sr-only"> the invitation to {invitation.email}</span>
       </button>
