@@ -136,8 +136,12 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
 
   const [vans, levels, items, batches, jobs, usage, products, reminders, engineers, agitations] = await Promise.all([
     listActiveVans(deps.db, actor.firmId),
-    firmBookedJobs(deps.db, actor.firmId, today).then((booked) =>
-      stockLevels(deps.db, actor.firmId, today, {}, booked.packs),
+    stockLevels(
+      deps.db,
+      actor.firmId,
+      today,
+      {},
+      firmBookedJobs(deps.db, actor.firmId, today).then((booked) => booked.packs),
     ),
     listItemDueInputs(deps.db, actor.firmId),
     listBatchesHeldExpiringBy(deps.db, actor.firmId, addDays(today, EXPIRY_WINDOW_DAYS)),
