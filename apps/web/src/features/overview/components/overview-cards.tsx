@@ -24,7 +24,7 @@ export function LinkCard({
       <div className="mt-3 flex-1">{children}</div>
       <Link
         to={to}
-        className="mt-4 inline-flex min-h-11 items-center font-semibold text-brand-700 underline underline-offset-4"
+        className="mt-4 inline-flex min-h-12 items-center font-semibold text-brand-700 underline underline-offset-4"
       >
         {linkLabel}
       </Link>
@@ -124,7 +124,7 @@ export function VanHealthList({ vans }: { vans: OverviewVan[] }) {
       renderItem={(v) => (
         <Link
           to={paths.van.getHref(v.id)}
-          className="flex min-h-11 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between"
+          className="flex min-h-12 flex-col gap-1 py-3 hover:bg-brand-50 sm:flex-row sm:items-center sm:justify-between"
         >
           <span>
             <span className="font-semibold text-brand-700 underline underline-offset-4">{v.name}</span>
