@@ -288,6 +288,10 @@ describe('restock and reorder', () => {
       [soonId, 1],
       [firm.product.batchId, 2],
     ]);
+    // The lines' van and product are named once each beside them, not on every line.
+    expect(plan.body.vans).toEqual([expect.objectContaining({ id: firm.van.id, registration: firm.van.registration })]);
+    expect(plan.body.products).toEqual([expect.objectContaining({ id: firm.product.id, name: firm.product.name })]);
+    expect(line.van).toBeUndefined();
     // Depot after the run: 11 - 3 = 8, under its minimum of 20: order 30 - 8 = 22.
     expect(plan.body.reorder).toEqual([
       expect.objectContaining({ productId: firm.product.id, usableAfterTransfers: 8, orderQuantity: 22 }),

@@ -105,7 +105,9 @@ export async function computeRestock(db: Db, deps: AppDeps, actor: Actor, depotI
     today,
     restockDays: booked.days,
     depot: { id: depot.id, name: depot.name },
-    lines: lines.map((l) => ({ ...l, van: vanById.get(l.locationId)!, product: ref(l.productId) })),
+    lines,
+    vans: [...new Set(lines.map((l) => l.locationId))].map((id) => vanById.get(id)!),
+    products: [...new Set(lines.map((l) => l.productId))].map(ref),
     reorder: reorderRows,
     reorderTotalPence: reorderRows.reduce((n, r) => n + (r.lineCostPence ?? 0), 0),
   };

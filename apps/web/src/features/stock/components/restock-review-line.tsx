@@ -1,4 +1,4 @@
-import type { RestockRunLine } from '@heatfleet/domain';
+import type { RestockRunLine, RestockRunNamedLine } from '@heatfleet/domain';
 import { NumberField } from '@/components/ui/number-field';
 import { formatCalendarDate } from '@/lib/format';
 import { packsOf } from '@/features/stock/components/stock-health';
@@ -24,7 +24,7 @@ export function RestockReviewLine({
   reviewed,
   onChange,
 }: {
-  line: RestockRunLine;
+  line: RestockRunNamedLine;
   reviewed: Reviewed;
   onChange: (next: Reviewed) => void;
 }) {

@@ -1,6 +1,11 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import type { RestockRun, RestockRunLine } from '@heatfleet/domain';
+import {
+  restockRunNamedLines,
+  type RestockRun,
+  type RestockRunLine,
+  type RestockRunNamedLine,
+} from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -17,10 +22,10 @@ import {
 } from '@/features/stock/components/restock-review-line';
 import { packsText } from '@/features/stock/components/stock-health';
 
-const lineKey = (line: RestockRunLine) => `${line.van.id}:${line.product.id}`;
+const lineKey = (line: RestockRunLine) => `${line.locationId}:${line.productId}`;
 
-function byVan(lines: RestockRunLine[]) {
-  const vans = new Map<number, { van: RestockRunLine['van']; lines: RestockRunLine[] }>();
+function byVan(lines: RestockRunNamedLine[]) {
+  const vans = new Map<number, { van: RestockRunNamedLine['van']; lines: RestockRunNamedLine[] }>();
   for (const line of lines) {
     const entry = vans.get(line.van.id) ?? { van: line.van, lines: [] };
     entry.lines.push(line);
@@ -30,7 +35,7 @@ function byVan(lines: RestockRunLine[]) {
 }
 
 /** The lines the server gets: a line as suggested keeps its lots; a changed one is taken first expiry first. */
-function reviewedTransfers(lines: RestockRunLine[], review: Record<string, Reviewed>) {
+function reviewedTransfers(lines: RestockRunNamedLine[], review: Record<string, Reviewed>) {
   return lines.flatMap((line) => {
     const r = review[lineKey(line)];
     const packs = r ? reviewedPacks(r) : suggestedPacks(line);
@@ -63,7 +68,9 @@ function Review({
   const [review, setReview] = useState<Record<string, Reviewed>>(() =>
     Object.fromEntries(run.lines.map((l) => [lineKey(l), { packs: String(suggestedPacks(l)), dropped: false }])),
   );
-  const { depot, lines, today } = run;
+  const { depot, today } = run;
+  // The answer names each van and product once; the review shows them on every line.
+  const lines = useMemo(() => restockRunNamedLines(run), [run]);
   const vans = byVan(lines);
   const invalid = lines.some((l) => reviewedPacks(review[lineKey(l)]!) === null);
   const transfers = reviewedTransfers(lines, review);
