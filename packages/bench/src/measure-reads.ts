@@ -97,6 +97,8 @@ async function main(): Promise<void> {
       ['restock run', '/api/stock/restock-run', owner],
       ['overview', '/api/overview', owner],
       ['booked short', '/api/stock/booked-jobs-short', owner],
+      ['kits list', '/api/kits', owner],
+      ['kit items page', '/api/kit-items', owner],
     ];
     for (const [name, path, session] of reads) {
       if (only && !only.includes(name)) continue;
