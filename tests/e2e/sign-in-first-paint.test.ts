@@ -19,6 +19,14 @@ test('the sign-in page comes in the HTML, waits for its script only to send, and
     expect(html).toContain('name="password"');
     expect(html).not.toMatch(/<script[^>]+src="\/assets\/index-/);
     expect(html).toMatch(/<script type="module" crossorigin src="\/assets\/sign-in-boot-[0-9a-f]{8}\.js"><\/script>/);
+    // The form posts, never GETs (a password in the address would sit in the history); the post comes back here.
+    expect(html).toMatch(/<form[^>]*method="post"/);
+    const posted = await request.post('/sign-in', {
+      form: { email: 'someone@example.test', password: 'not sent anywhere' },
+      maxRedirects: 0,
+    });
+    expect(posted.status()).toBe(303);
+    expect(posted.headers()['location']).toBe('/sign-in');
   });
 
   await test.step('with scripts off the form shows, and its button waits', async () => {
