@@ -1,8 +1,10 @@
 import { readFileSync } from 'node:fs';
 
-// `node --import tsx packages/bench/src/readme-table.ts bench/results/bench-<date>.json`: the README's before/after
-// table for the large firm's reads, against the first run of round one (2026-12-02 03:12 UTC, README.md).
-const before: Record<string, { rps: number; ratio: string; p99: number; alone: number }> = {
+// `node --import tsx packages/bench/src/readme-table.ts bench/results/bench-<date>.json [bench/results/<before>.json]`:
+// the README's before/after table for the large firm's reads, against an earlier run's JSON if given, else the first
+// run of round one (2026-12-02 03:12 UTC, README.md).
+type Before = Record<string, { rps: number; ratio: string; p99: number; alone: number }>;
+const roundOne: Before = {
   'van stock': { rps: 85.5, ratio: '6.7%', p99: 822, alone: 30.7 },
   'kits list': { rps: 7.7, ratio: '0.6%', p99: 5063, alone: 184.4 },
   'kit items page': { rps: 4.9, ratio: '0.4%', p99: 8741, alone: 330.2 },
@@ -27,6 +29,22 @@ const run = JSON.parse(readFileSync(process.argv[2]!, 'utf8')) as {
   reads: Read[];
   targets: { name: string; target: string; measured: string; met: boolean | null }[];
 };
+const beforeFile = process.argv[3];
+const before: Before = beforeFile
+  ? Object.fromEntries(
+      (JSON.parse(readFileSync(beforeFile, 'utf8')) as { reads: Read[] }).reads
+        .filter((r) => r.firm === 'large' && r.status === 200)
+        .map((r) => [
+          r.name,
+          {
+            rps: r.requestsPerSecond,
+            ratio: `${(r.ratioToBaseline * 100).toFixed(1)}%`,
+            p99: r.p99Ms,
+            alone: r.serialMedianMs,
+          },
+        ]),
+    )
+  : roundOne;
 const rows = [
   '| read (1M movements) | req/s before -> after | of baseline before -> after | p99 ms before -> after | alone ms before -> after |',
   '| --- | --- | --- | --- | --- |',
