@@ -17,7 +17,7 @@ export async function firmWithCrew(
   options: { stores?: boolean; motDueOn?: string } = {},
 ): Promise<Crew> {
   const firm = await signUpFirm(baseURL);
-  // One invitation at a time, as an office sends them: two at once in one firm can deadlock in the API (a 500).
+  // One invitation at a time, as an office sends them (the API retries two at once whole: invitation-service.ts).
   const engineer = await inviteMember(firm, 'engineer', 'Ellis Brannock');
   const stores = options.stores ? await inviteMember(firm, 'stores', 'Wren Tolley') : null;
   // An invented registration; the firm is new, so no other van has it.
