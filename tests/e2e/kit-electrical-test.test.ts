@@ -77,8 +77,10 @@ test('an engineer records a failed electrical test; the pump goes out of service
       .getByRole('radio', { name: /^Passed/ })
       .check();
     await form.getByRole('button', { name: 'Record inspection' }).click();
-    // The API refuses it and the form marks the Result: the live outcome above already says to record a fail.
-    await expect(form.getByRole('group', { name: 'Result' })).toHaveAccessibleDescription('The electrical test failed');
+    // The API refuses it and the form says, at the Result, what to do; the live outcome above names the failed checks.
+    await expect(form.getByRole('group', { name: 'Result' })).toHaveAccessibleDescription(
+      'The electrical test failed: record the inspection as failed.',
+    );
     const detail = await callApi<KitItemDetailResponse>(owner.session, 'get', `/api/kit-items/${pump.id}`);
     expect(detail.inspections).toEqual([]);
     expect(detail.item.condition).toBe('in_service');

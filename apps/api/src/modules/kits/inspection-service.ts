@@ -42,7 +42,7 @@ async function checkElectrical(
   const outcome = electricalTestOutcome(test);
   if (outcome.result === 'fail' && input.result === 'passed')
     throw ruleBroken(`The electrical test failed (${outcome.failures.join(' ')}) Record the inspection as failed.`, [
-      { path: 'result', message: 'The electrical test failed' },
+      { path: 'result', message: 'The electrical test failed: record the inspection as failed.' },
     ]);
   return outcome.result === 'fail' ? 'out_of_service' : null;
 }
