@@ -114,11 +114,12 @@ export interface RequestOptions {
 const sessionChanging = new Set(['/api/me/active-firm', '/api/auth/sign-out', '/api/auth/sign-in']);
 
 /** Notes, for an API read, whether the service worker answered from its cache and when the answer was made. */
-function noteRead(path: string, response: Response): void {
+function noteRead(path: string, response: Response, startedAt: number): void {
   const date = Date.parse(response.headers.get('Date') ?? '');
   noteAnswer(path, {
     fromCache: response.headers.get(FROM_CACHE_HEADER) === '1',
     madeAt: Number.isNaN(date) ? null : date,
+    startedAt,
   });
 }
 
@@ -147,11 +148,11 @@ export function peekEarlyGet(path: string): Promise<unknown> {
   return earlyGets.get(path)?.json ?? Promise.resolve(null);
 }
 
-function takeEarlyGet(path: string): Promise<Response> | undefined {
+function takeEarlyGet(path: string): { at: number; response: Promise<Response> } | undefined {
   const early = earlyGets.get(path);
   if (!early) return undefined;
   earlyGets.delete(path);
-  return Date.now() - early.at < EARLY_GET_MS ? early.response : undefined;
+  return Date.now() - early.at < EARLY_GET_MS ? early : undefined;
 }
 
 async function send(
@@ -173,9 +174,10 @@ async function send(
   if (method === 'GET' && scope && !options.fresh) headers[SCOPE_HEADER] = scopeHeaderValue(scope);
 
   let response: Response;
+  const early = method === 'GET' && !options.fresh ? takeEarlyGet(path) : undefined;
+  const startedAt = early?.at ?? Date.now();
   try {
-    const early = method === 'GET' && !options.fresh ? takeEarlyGet(path) : undefined;
-    response = await (early ??
+    response = await (early?.response ??
       fetch(path, {
         method,
         headers,
@@ -186,7 +188,7 @@ async function send(
     throw new ApiError({ status: 0, code: 'NetworkError', message: UNREACHABLE_MESSAGE });
   }
 
-  if (method === 'GET') noteRead(path, response);
+  if (method === 'GET') noteRead(path, response, startedAt);
   if (!response.ok) throw await toApiError(response);
   if (response.status === 204) return undefined;
   const text = await response.text();

@@ -7,11 +7,21 @@ import { useSyncExternalStore } from 'react';
  * server's terms (a phone a few minutes fast would otherwise have its queued writes refused as "in the future").
  */
 const cachedSince = new Map<string, number>();
+// When each path's latest noted request started: an older request's answer arriving after a newer one's is stale news.
+const latestStart = new Map<string, number>();
+// When the signal last came back; a copy answered to a request made before then was made without signal.
+let reconnectedAt = 0;
+const reconnectListeners = new Set<() => void>();
 let serverOffsetMs: number | null = null;
 let version = 0;
 const listeners = new Set<() => void>();
 
-export function noteAnswer(path: string, answer: { fromCache: boolean; madeAt: number | null }): void {
+export function noteAnswer(
+  path: string,
+  answer: { fromCache: boolean; madeAt: number | null; startedAt: number },
+): void {
+  if (answer.startedAt < (latestStart.get(path) ?? -Infinity)) return;
+  latestStart.set(path, answer.startedAt);
   const before = cachedSince.size;
   if (answer.fromCache) {
     cachedSince.set(path, answer.madeAt ?? Date.now());
@@ -24,6 +34,19 @@ export function noteAnswer(path: string, answer: { fromCache: boolean; madeAt: n
     version += 1;
     for (const listener of listeners) listener();
   }
+  // A read still on its way when the signal came back is answered from the copy after the reconnect's refetches were
+  // decided (TanStack Query joins a fetch in flight rather than starting another), so the page would keep its old data
+  // and its "as of" note: ask for fresh reads.
+  const online = typeof navigator === 'undefined' || navigator.onLine !== false;
+  if (answer.fromCache && answer.startedAt < reconnectedAt && online) {
+    for (const listener of reconnectListeners) listener();
+  }
+}
+
+/** Calls `listener` when a copy made without signal answers after the signal came back (see noteAnswer). */
+export function onCopyAfterReconnect(listener: () => void): () => void {
+  reconnectListeners.add(listener);
+  return () => reconnectListeners.delete(listener);
 }
 
 /** The phone's time in the server's clock (ms), as well as the last fresh answer tells. */
@@ -51,6 +74,7 @@ export function useOldestCachedAnswer(): number | null {
 
 /** When the network comes back every read is fresh again; the next answers say so path by path. */
 export function forgetCachedAnswers(): void {
+  reconnectedAt = Date.now();
   if (cachedSince.size === 0) return;
   cachedSince.clear();
   version += 1;

@@ -2,7 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import type { Me } from '@heatfleet/domain';
 import { API_CACHE } from '@/lib/offline/api-cache-rules';
 import { startServiceWorker } from '@/lib/offline/app-update';
-import { forgetCachedAnswers } from '@/lib/offline/data-age';
+import { forgetCachedAnswers, onCopyAfterReconnect } from '@/lib/offline/data-age';
 import { outboxWrites, reloadOutbox } from '@/lib/offline/outbox';
 import { sendOutbox, setOutboxQueryClient } from '@/lib/offline/outbox-sender';
 import { persistQueryCache, restoreQueryCache } from '@/lib/offline/query-persistence';
@@ -70,6 +70,16 @@ export async function startOffline(client: QueryClient): Promise<void> {
   window.addEventListener('online', () => {
     forgetCachedAnswers();
     void sendOutbox();
+  });
+  // Several late copies after one reconnect ask once.
+  let refreshAsked = false;
+  onCopyAfterReconnect(() => {
+    if (refreshAsked) return;
+    refreshAsked = true;
+    queueMicrotask(() => {
+      refreshAsked = false;
+      void client.invalidateQueries({ refetchType: 'active' });
+    });
   });
   window.addEventListener('offline', () => void sendOutbox());
   document.addEventListener('visibilitychange', () => {
