@@ -63,6 +63,8 @@ interface ReadFigure extends LoadResult {
   serialMedianMs: number;
   serialMaxMs: number;
   status: number;
+  /** The API's peak resident memory while this read was measured (its serial requests and its load). */
+  peakRssMiB?: number;
 }
 
 function launch(name: string, file: string, env: NodeJS.ProcessEnv): Service {
@@ -266,7 +268,11 @@ async function main(): Promise<void> {
     try {
       const probe = await getJson(api, session, path);
       if (probe.status !== 200) return missing(probe.status, `GET ${path} answers ${probe.status}`);
-      reads.push(await measureRead(name, firm, movements, path, session, baseline.requestsPerSecond));
+      rss.windowPeakMiB();
+      const figure = await measureRead(name, firm, movements, path, session, baseline.requestsPerSecond);
+      figure.peakRssMiB = rss.windowPeakMiB();
+      say(`  ${''.padEnd(16)} ${''.padEnd(7)} the API's resident memory at most ${figure.peakRssMiB} MiB`);
+      reads.push(figure);
     } catch (error) {
       missing(0, `GET ${path} failed: ${error instanceof Error ? error.message : String(error)}`);
     }

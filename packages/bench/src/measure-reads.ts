@@ -99,6 +99,8 @@ async function main(): Promise<void> {
       ['booked short', '/api/stock/booked-jobs-short', owner],
       ['kits list', '/api/kits', owner],
       ['kit items page', '/api/kit-items', owner],
+      // The cheapest signed-in list read: what every request pays before its own work (issue 16).
+      ['ledger first', '/api/stock/movements', owner],
     ];
     for (const [name, path, session] of reads) {
       if (only && !only.includes(name)) continue;

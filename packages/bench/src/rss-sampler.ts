@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 /** Samples a process's resident memory (VmRSS from /proc, Linux) every intervalMs until stopped. */
 export function sampleRss(pid: number, intervalMs = 500) {
   let maxKiB = 0;
+  let windowMaxKiB = 0;
   let lastKiB = 0;
   let samples = 0;
   const read = () => {
@@ -12,6 +13,7 @@ export function sampleRss(pid: number, intervalMs = 500) {
         samples += 1;
         lastKiB = kiB;
         maxKiB = Math.max(maxKiB, kiB);
+        windowMaxKiB = Math.max(windowMaxKiB, kiB);
       }
     } catch {
       // the process has gone
@@ -20,11 +22,19 @@ export function sampleRss(pid: number, intervalMs = 500) {
   read();
   const timer = setInterval(read, intervalMs);
   timer.unref();
+  const mib = (kiB: number) => Math.round(kiB / 102.4) / 10;
   return {
+    /** The peak since the last call (or the start), in MiB; the next window starts at the current figure. */
+    windowPeakMiB() {
+      read();
+      const peak = mib(windowMaxKiB);
+      windowMaxKiB = lastKiB;
+      return peak;
+    },
     stop() {
       clearInterval(timer);
       read();
-      return { maxMiB: Math.round(maxKiB / 102.4) / 10, lastMiB: Math.round(lastKiB / 102.4) / 10, samples };
+      return { maxMiB: mib(maxKiB), lastMiB: mib(lastKiB), samples };
     },
   };
 }

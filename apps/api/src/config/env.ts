@@ -48,6 +48,8 @@ const envSchema = z.object({
   // Sign-ups per client address per hour (default 20). The browser tests raise it: they sign up dozens of firms
   // from one loopback address in one run.
   SIGN_UPS_PER_ADDRESS_PER_HOUR: z.coerce.number().int().min(1).max(100_000).optional(),
+  // Whole-firm reads worked on at once in one API process (routes marked `heavy`); the rest queue.
+  HEAVY_READS_AT_ONCE: z.coerce.number().int().min(1).max(64).default(2),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().default(2525),
   SMTP_SECURE: z.stringbool().default(false),

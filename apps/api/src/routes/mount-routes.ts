@@ -1,4 +1,5 @@
 import { Router, type RequestHandler, type Response } from 'express';
+import pLimit from 'p-limit';
 import type { Actor, AppDeps } from '../app-deps.ts';
 import { authenticate } from '../middleware/authenticate.ts';
 import { assertFirmWritable } from '../middleware/firm-read-only.ts';
@@ -10,6 +11,7 @@ import { emptyParamsSchema, emptyQuerySchema, type RouteDefinition } from './rou
  */
 export function mountRoutes(routes: RouteDefinition[], deps: AppDeps): Router {
   const router = Router();
+  const heavyReads = pLimit(deps.env.HEAVY_READS_AT_ONCE);
   // A read-only firm (an unpaid subscription past its grace period) is refused every write before anything else.
   const signedIn =
     (route: RouteDefinition): RequestHandler =>
@@ -28,7 +30,9 @@ export function mountRoutes(routes: RouteDefinition[], deps: AppDeps): Router {
       const query = (route.request.query ?? emptyQuerySchema).parse(req.query);
       const body = route.request.body ? route.request.body.parse(req.body ?? {}) : undefined;
       if (deps.env.NODE_ENV === 'test') checkAnswers(route, res);
-      await route.handle({ params, query, body, req, res, deps, actor });
+      const handle = () => route.handle({ params, query, body, req, res, deps, actor });
+      // A queued read whose caller has gone (a phone that gave up, a closed tab) is not worked on when its turn comes.
+      await (route.heavy ? heavyReads(() => (req.socket.destroyed ? undefined : handle())) : handle());
     });
   }
   return router;

@@ -16,6 +16,12 @@ export interface RouteDefinition {
   tag: string;
   access: 'public' | 'member';
   tenantData: boolean;
+  /**
+   * A read that builds a figure for the whole firm (the overview, the restock run, the stock grid): at most
+   * HEAVY_READS_AT_ONCE of them are worked on at once in this process and the rest wait their turn, so a burst of
+   * them does not hold every one's cells and answer in memory together (README, "Round two": resident memory).
+   */
+  heavy?: boolean;
   devOnly?: boolean;
   request: { params?: ZodType; query?: ZodType; body?: ZodType };
   /** A multipart upload: the file field and the text fields beside it (parsed by the route itself). */

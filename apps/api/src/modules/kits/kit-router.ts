@@ -15,6 +15,7 @@ export const kitRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/kits',
+    heavy: true,
     tag: 'Kits',
     access: 'member',
     tenantData: true,

@@ -6,6 +6,7 @@ export const overviewRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/overview',
+    heavy: true,
     tag: 'Overview',
     access: 'member',
     tenantData: true,

@@ -18,6 +18,7 @@ export const restockRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/stock/restock-run',
+    heavy: true,
     tag: 'Stock',
     access: 'member',
     tenantData: true,
@@ -50,6 +51,7 @@ export const restockRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/stock/reorder-list.csv',
+    heavy: true,
     tag: 'Stock',
     access: 'member',
     tenantData: true,

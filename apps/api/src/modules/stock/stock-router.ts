@@ -17,6 +17,7 @@ export const stockRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/stock',
+    heavy: true,
     tag: 'Stock',
     access: 'member',
     tenantData: true,
