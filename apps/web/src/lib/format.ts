@@ -1,4 +1,4 @@
-import { formatUkCalendarDate, formatUkDate, formatUkDateTime } from '@heatfleet/domain';
+import { formatUkCalendarDate, formatUkDate, formatUkDateTime, formatUkMonth } from '@heatfleet/domain';
 
 // Dates become words in one place, the domain's uk-dates (the API's e-mails and PDFs use the same): UK dates and
 // 24-hour times in the firm's own zone, so a job at 23:30 in London is not filed under tomorrow.
@@ -20,4 +20,9 @@ export function formatDateTime(iso: string, timeZone: string): string {
 /** Calendar days ('YYYY-MM-DD': due dates, expiries) have no zone and show as written. */
 export function formatCalendarDate(date: string): string {
   return /^\d{4}-\d{2}-\d{2}$/.test(date) ? formatUkCalendarDate(date) : date;
+}
+
+/** "Dec 2026" for a month ('YYYY-MM'); "December 2026" long; "Dec 26" on a chart's axis. */
+export function formatMonth(month: string, form: 'short' | 'long' | 'axis' = 'short'): string {
+  return /^\d{4}-\d{2}$/.test(month) ? formatUkMonth(month, form) : month;
 }

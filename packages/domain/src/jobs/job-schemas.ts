@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { calendarDateWithin, dateRanges } from '../lib/calendar-date.ts';
 import { optionalPlainText, plainText, singleLineName } from '../lib/text.ts';
+import { withThousands } from '../lib/thousands.ts';
 import { boilerKinds, fuels, heatExchangerDefaultLitres, type HeatExchangerDefaults } from './heat-exchanger.ts';
 import {
   copperTubes,
@@ -45,7 +46,7 @@ const mm = (label: string, min: number, max: number) =>
     .number({ error: `${label} must be a number of millimetres.` })
     .int({ error: `${label} must be a whole number of millimetres.` })
     .min(min, { error: `${label} must be at least ${min} millimetres.` })
-    .max(max, { error: `${label} must be at most ${max.toLocaleString('en-GB')} millimetres.` })
+    .max(max, { error: `${label} must be at most ${withThousands(max)} millimetres.` })
     .nullable()
     .optional();
 

@@ -6,6 +6,7 @@ import {
   formatUkCalendarDate,
   formatUkDate,
   formatUkDateTime,
+  formatUkMonth,
   formatUkTime,
   zoneLabel,
 } from './uk-dates.ts';
@@ -33,6 +34,13 @@ describe('UK dates in the firm\u2019s zone', () => {
     expect(formatUkCalendarDate('2026-12-03')).toBe('3 Dec 2026');
     expect(formatUkCalendarDate('2027-01-01')).toBe('1 Jan 2027');
     expect(formatUkCalendarDate('2026-03-29')).toBe('29 Mar 2026');
+  });
+
+  it('writes months as the brief writes dates: "Dec 2026", "December 2026", and "Dec 26" on a chart', () => {
+    expect(formatUkMonth('2026-12')).toBe('Dec 2026');
+    expect(formatUkMonth('2027-01', 'long')).toBe('January 2027');
+    expect(formatUkMonth('2026-03', 'axis')).toBe('Mar 26');
+    expect(formatUkMonth('2026-10', 'short')).toBe('Oct 2026');
   });
 
   it('starts the firm\u2019s day at local midnight: 23:00 UTC the evening before in summer, 00:00 UTC in winter', () => {

@@ -33,6 +33,16 @@ export function formatUkCalendarDate(day: CalendarDate): string {
   return format(new Date(y, m - 1, d), 'd MMM yyyy');
 }
 
+/**
+ * "Dec 2026" for a month ('YYYY-MM'), "December 2026" long, "Dec 26" on a chart's axis. Months have no zone, like
+ * calendar days. date-fns rather than `toLocaleDateString`, which builds a new formatter on each call (about 4 ms
+ * each on the owner's first page, 12 months twice: README, "Round two").
+ */
+export function formatUkMonth(month: string, form: 'short' | 'long' | 'axis' = 'short'): string {
+  const [y, m] = month.split('-').map(Number) as [number, number];
+  return format(new Date(y, m - 1, 1), form === 'long' ? 'MMMM yyyy' : form === 'axis' ? 'MMM yy' : 'MMM yyyy');
+}
+
 /** "2026-12-03 14:05:09": sortable, for a CSV cell, in the firm's zone (name the zone in the column's header). */
 export function formatCsvDateTime(at: Instant, timeZone: string): string {
   return format(inZone(at, timeZone), 'yyyy-MM-dd HH:mm:ss');

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { withThousands } from '../lib/thousands.ts';
 
 // Money is whole pence in integers everywhere (columns, schemas, arithmetic); never floating point.
 // A VAT rate is whole basis points (2000 = 20%), so a rate is an integer too.
@@ -62,7 +63,7 @@ export function sumPence(values: readonly number[]): number {
 export function formatPence(pence: number): string {
   assertPence(pence, 'Amount');
   const abs = Math.abs(pence);
-  const pounds = Math.floor(abs / 100).toLocaleString('en-GB');
+  const pounds = withThousands(Math.floor(abs / 100));
   const p = String(abs % 100).padStart(2, '0');
   return `${pence < 0 ? '-' : ''}£${pounds}.${p}`;
 }

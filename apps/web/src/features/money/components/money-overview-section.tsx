@@ -1,11 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { formatPence } from '@heatfleet/domain';
 import { QueryErrorNotice } from '@/components/ui/query-error-notice';
+import { formatMonth } from '@/lib/format';
 import { moneyQueries } from '../api/money-queries';
-
-/** "Nov 2026" for '2026-11'. */
-const monthLabel = (month: string) =>
-  new Date(`${month}-01T00:00:00Z`).toLocaleDateString('en-GB', { month: 'short', year: 'numeric', timeZone: 'UTC' });
 
 /** The owner's money at a glance: owed, aged by invoice date, overdue invoices, and revenue per month (net of VAT). */
 export function MoneyOverviewSection() {
@@ -46,7 +43,7 @@ export function MoneyOverviewSection() {
           {m.revenueByMonth.map((r) => (
             <tr key={r.month}>
               <th scope="row" className="pr-4 text-left font-normal">
-                {monthLabel(r.month)}
+                {formatMonth(r.month)}
               </th>
               <td className="text-right">{formatPence(r.netPence)}</td>
             </tr>

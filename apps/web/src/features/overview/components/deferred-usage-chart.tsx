@@ -1,5 +1,6 @@
 import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import { productKindLabels, type Overview } from '@heatfleet/domain';
+import { formatMonth } from '@/lib/format';
 
 // The chart's library is the heaviest part of the overview: it is fetched and drawn only once its card comes near
 // the screen, after the figures above it, and its box keeps the chart's height meanwhile (no layout shift).
@@ -30,7 +31,7 @@ export function DeferredUsageChart({ months }: { months: Overview['usageByMonth'
     <div ref={box}>
       {near ? (
         <Suspense fallback={<ChartSpace />}>
-          <UsageChart months={months} kindLabels={productKindLabels} />
+          <UsageChart months={months} kindLabels={productKindLabels} monthLabel={(m) => formatMonth(m, 'axis')} />
         </Suspense>
       ) : (
         <ChartSpace />

@@ -4,7 +4,7 @@ import { formatPacks, stockHealthLabels, type Overview, type OverviewVan } from 
 import { Badge } from '@/components/ui/badge';
 import { WindowedList } from '@/components/ui/windowed-list';
 import { paths } from '@/config/paths';
-import { formatCalendarDate, formatDateTime } from '@/lib/format';
+import { formatCalendarDate, formatDateTime, formatMonth } from '@/lib/format';
 
 /** A card whose heading is a link to the list it summarises: the whole heading is the touch target. */
 export function LinkCard({
@@ -206,11 +206,7 @@ export function ExpiringBatchesSummary({ expiring }: { expiring: Overview['expir
 }
 
 export function JobsThisMonthSummary({ jobs }: { jobs: Overview['jobsThisMonth'] }) {
-  const month = new Date(`${jobs.month}-01T00:00:00Z`).toLocaleDateString('en-GB', {
-    month: 'long',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
+  const month = formatMonth(jobs.month, 'long');
   return (
     <>
       <p className="mb-2 text-sm text-ink-muted">{month}</p>

@@ -12,20 +12,20 @@ const kindColours: Record<string, string> = {
   other: 'var(--color-line-strong)',
 };
 
-const monthLabel = (month: string) =>
-  new Date(`${month}-01T00:00:00Z`).toLocaleDateString('en-GB', { month: 'short', year: '2-digit', timeZone: 'UTC' });
-
 /**
  * Chemical used per month, litres, stacked by product kind; a table under it carries the same figures
- * for screen readers. The kinds and their labels come in as props: importing the domain package here
+ * for screen readers. The kinds' labels and the months' words come in as props: importing the domain package here
  * would make the bundler split it into a shared chunk the first page load then has to fetch.
  */
 export function UsageChart({
   months,
   kindLabels,
+  monthLabel,
 }: {
   months: Overview['usageByMonth'];
   kindLabels: Readonly<Record<string, string>>;
+  /** "Dec 26" for '2026-12'. */
+  monthLabel: (month: string) => string;
 }) {
   const kindLabel = (kind: string) => kindLabels[kind] ?? kind;
   const litresOf = (m: Overview['usageByMonth'][number], kind: string) =>
