@@ -364,6 +364,35 @@ describe('restock and reorder', () => {
     ]);
   });
 
+  it('writes a ledger longer than one read (2,000 movements) whole, newest first, each movement once', async () => {
+    const firm = await seedFirm(t.deps.db, 'csvlong');
+    const [stores] = await clients(firm, 1, firm.people.stores.email);
+    // 4,500 counted movements written straight into the ledger: the export reads them 2,000 at a time.
+    const rows = Array.from({ length: 4_500 }, (_, i) => ({
+      firm_id: firm.firmId,
+      group_id: `long-${i}`,
+      kind: 'counted',
+      location_id: firm.depotId,
+      product_id: firm.product.id,
+      batch_id: firm.product.batchId,
+      quantity_delta: 1,
+      reason: `Row ${i}`,
+      by_user_id: firm.people.stores.userId,
+    }));
+    await t.deps.db.batchInsert('stock_movements', rows, 1_000);
+    const ids = (
+      (await t.deps.db('stock_movements').where('firm_id', firm.firmId).orderBy('id', 'desc').select('id')) as {
+        id: number;
+      }[]
+    ).map((r) => String(r.id));
+    expect(ids.length).toBeGreaterThan(4_500);
+    const csv = await stores!.get('/api/stock/movements.csv').expect(200);
+    const parsed = parse(csv.text, { columns: true }) as Record<string, string>[];
+    expect(parsed.map((r) => r.id)).toEqual(ids);
+    expect(parsed.filter((r) => r.reason === 'Row 0')).toHaveLength(1);
+    expect(Object.keys(parsed[0]!)[1]).toBe('when (Europe/London)');
+  });
+
   it('pages the ledger by keyset without gaps or repeats', async () => {
     const firm = await seedFirm(t.deps.db, 'keyset');
     const [stores] = await clients(firm, 1, firm.people.stores.email);

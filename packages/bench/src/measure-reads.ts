@@ -101,6 +101,8 @@ async function main(): Promise<void> {
       ['kit items page', '/api/kit-items', owner],
       // The cheapest signed-in list read: what every request pays before its own work (issue 16).
       ['ledger first', '/api/stock/movements', owner],
+      // The largest answer: the ledger's CSV, up to 100,000 movements.
+      ['ledger csv', '/api/stock/movements.csv', owner],
     ];
     for (const [name, path, session] of reads) {
       if (only && !only.includes(name)) continue;

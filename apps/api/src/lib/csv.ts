@@ -19,9 +19,9 @@ export type CsvCell = string | number | null | undefined;
  * one cell) and neutralised if it holds a formula trigger anywhere a spreadsheet could split it off.
  * Numbers stay numbers, so -3 is still minus three.
  */
-export function toCsv(columns: string[], rows: CsvCell[][]): string {
+export function toCsv(columns: string[], rows: CsvCell[][], options: { header?: boolean } = {}): string {
   return stringify(
     rows.map((row) => row.map((cell) => (typeof cell === 'string' ? neutraliseFormula(cell) : (cell ?? '')))),
-    { header: true, columns, quoted_string: true },
+    { header: options.header ?? true, columns, quoted_string: true },
   );
 }

@@ -1,3 +1,5 @@
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import type { Response } from 'express';
 import { formatCsvDateTime, formatPackSize, penceToPounds, type Movement, type ReorderRow } from '@heatfleet/domain';
 import { toCsv } from '../../lib/csv.ts';
@@ -21,7 +23,8 @@ const movementColumns = (timeZone: string) => [
   `tapped (${timeZone})`,
 ];
 
-export function movementsCsv(rows: Movement[], timeZone: string): string {
+/** The ledger's rows as CSV; `header: false` for a piece after the first (stock-query-service, ledgerCsvPieces). */
+export function movementsCsv(rows: Movement[], timeZone: string, options: { header?: boolean } = {}): string {
   return toCsv(
     movementColumns(timeZone),
     rows.map((m) => [
@@ -38,6 +41,7 @@ export function movementsCsv(rows: Movement[], timeZone: string): string {
       m.byName,
       m.tappedAt ? formatCsvDateTime(m.tappedAt, timeZone) : '',
     ]),
+    options,
   );
 }
 
@@ -92,4 +96,11 @@ export function sendCsv(res: Response, filename: string, csv: string): void {
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
   res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
   res.send(csv);
+}
+
+/** A CSV written piece by piece as it is read, so a long export never sits whole in memory. */
+export async function sendCsvPieces(res: Response, filename: string, pieces: AsyncIterable<string>): Promise<void> {
+  res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+  res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
+  await pipeline(Readable.from(pieces), res);
 }

@@ -16,7 +16,7 @@ import type { Actor, AppDeps } from '../../app-deps.ts';
 import { idempotencyKeyOf } from '../../lib/idempotency.ts';
 import { readTappedAt, tappedAtOf } from '../../middleware/tapped-at.ts';
 import { defineRoute, type RouteDefinition } from '../../routes/route-registry.ts';
-import { sendCsv } from './stock-csv.ts';
+import { sendCsvPieces } from './stock-csv.ts';
 import { recordMovement } from './stock-movement-service.ts';
 import { exportLedgerCsv, ledgerPage } from './stock-query-service.ts';
 import { receiveDelivery } from './receiving-service.ts';
@@ -87,6 +87,7 @@ export const stockMovementRoutes: RouteDefinition[] = [
   defineRoute({
     method: 'get',
     path: '/stock/movements.csv',
+    heavy: true,
     tag: 'Stock',
     access: 'member',
     tenantData: true,
@@ -94,7 +95,7 @@ export const stockMovementRoutes: RouteDefinition[] = [
     request: { query: ledgerExportQuery },
     responses: { 200: { description: 'CSV' } },
     handle: async ({ query, res, deps, actor }) => {
-      sendCsv(res, 'stock-ledger.csv', await exportLedgerCsv(deps, actor, query));
+      await sendCsvPieces(res, 'stock-ledger.csv', await exportLedgerCsv(deps, actor, query));
     },
   }),
   movementRoute(

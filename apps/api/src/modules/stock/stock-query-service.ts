@@ -6,7 +6,6 @@ import {
   type BatchStockRow,
   type LedgerPage,
   type LedgerQuery,
-  type Movement,
   type MyVanStock,
   type StockCell,
   type StockGrid,
@@ -187,19 +186,6 @@ async function firmTimeZone(deps: AppDeps, actor: Actor): Promise<string> {
   return (await findFirm(deps.db, actor.firmId))?.time_zone ?? DEFAULT_TIME_ZONE;
 }
 
-export async function ledgerForExport(
-  deps: AppDeps,
-  actor: Actor,
-  query: LedgerFilters,
-  timeZone?: string,
-): Promise<Movement[]> {
-  ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
-  return listLedgerMovements(deps.db, actor.firmId, query, {
-    limit: LEDGER_CSV_MAX_ROWS,
-    timeZone: timeZone ?? (await firmTimeZone(deps, actor)),
-  });
-}
-
 /** The signed-in engineer's van stock, with product names; no van, nothing to show. */
 export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStock> {
   const van = await findVanOfMember(deps.db, actor.firmId, actor.memberId);
@@ -229,8 +215,33 @@ export async function myVanStock(deps: AppDeps, actor: Actor): Promise<MyVanStoc
   };
 }
 
-/** The ledger with the same filters, as CSV, up to LEDGER_CSV_MAX_ROWS rows. */
-export async function exportLedgerCsv(deps: AppDeps, actor: Actor, query: LedgerFilters): Promise<string> {
+/** Movements read at a time while the ledger's CSV is written. */
+export const LEDGER_CSV_PAGE_ROWS = 2_000;
+
+/**
+ * The ledger with the same filters as CSV, newest first, up to LEDGER_CSV_MAX_ROWS rows, in pieces: the header,
+ * then one keyset page at a time, so an export holds one page in memory (100,000 movements read at once needed
+ * more than 190 MiB of heap; README, "Round two"). The permission and the firm's zone are settled before the first
+ * piece, so a refusal is still a plain 403. Rows written during the export have higher ids and are not in it.
+ */
+export async function exportLedgerCsv(
+  deps: AppDeps,
+  actor: Actor,
+  query: LedgerFilters,
+  pageRows = LEDGER_CSV_PAGE_ROWS,
+): Promise<AsyncIterable<string>> {
+  ForbiddenError.from(actor.ability).throwUnlessCan('read', 'Stock');
   const timeZone = await firmTimeZone(deps, actor);
-  return movementsCsv(await ledgerForExport(deps, actor, query, timeZone), timeZone);
+  return (async function* pieces() {
+    yield movementsCsv([], timeZone);
+    let before: number | undefined;
+    for (let sent = 0; sent < LEDGER_CSV_MAX_ROWS;) {
+      const limit = Math.min(pageRows, LEDGER_CSV_MAX_ROWS - sent);
+      const page = await listLedgerMovements(deps.db, actor.firmId, query, { limit, before, timeZone });
+      if (page.length > 0) yield movementsCsv(page, timeZone, { header: false });
+      sent += page.length;
+      if (page.length < limit) return;
+      before = page[page.length - 1]!.id;
+    }
+  })();
 }
