@@ -26,7 +26,7 @@ import {
   stopBenchMariadb,
   stopBenchRedis,
 } from './bench-stack.ts';
-import { benchTargets } from './bench-targets.ts';
+import { benchTargets, FLOOR_READ } from './bench-targets.ts';
 import { initialBuildSizes, lighthouseScore, type BuildSizes, type LighthouseScore } from './client-build.ts';
 import {
   benchDatabaseIsGenerated,
@@ -287,6 +287,7 @@ async function main(): Promise<void> {
       `\nSigned-in reads, ${firm.name} (${ids.movements.toLocaleString('en-GB')} movements), ${readConnections} connections, ${seconds} s each`,
     );
     const probes: [string, string, Session][] = [
+      [FLOOR_READ, '/api/firm', owner],
       ['van stock', '/api/me/van/stock', engineer],
       ['kits list', '/api/kits', owner],
       ['kit items page', '/api/kit-items', owner],
