@@ -80,7 +80,9 @@ describe('whole-firm reads worked on a few at a time', () => {
       },
     });
     const deps = { env: { NODE_ENV: 'production', HEAVY_READS_AT_ONCE: 1 } } as unknown as AppDeps;
-    const server = express().use(mountRoutes([heavy], deps)).listen(0);
+    const server = express()
+      .use(mountRoutes([heavy], deps))
+      .listen(0);
     const { port } = server.address() as AddressInfo;
     try {
       const first = request(server).get('/heavy');
