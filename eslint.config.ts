@@ -67,6 +67,8 @@ export default tseslint.config(
   {
     ignores: [
       'dist/**',
+      'apps/api/dist/**',
+      'apps/api/dist-test-*/**',
       'dist-slot-*/**',
       'node_modules/**',
       '.data/**',

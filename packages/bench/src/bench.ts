@@ -3,7 +3,8 @@ import { cpus, loadavg, totalmem } from 'node:os';
 import { join, relative } from 'node:path';
 import { createPool, type Pool } from 'mysql2/promise';
 import { addDays, calendarDateIn, DEFAULT_TIME_ZONE } from '@heatfleet/domain';
-import { apiFiles, toolFiles } from '@heatfleet/devstack/src/api-files.ts';
+import { toolFiles } from '@heatfleet/devstack/src/api-files.ts';
+import { apiBundle, buildApiBundle } from '@heatfleet/devstack/src/build-api.ts';
 import { Lifecycle } from '@heatfleet/devstack/src/lifecycle.ts';
 import {
   assertPortsFree,
@@ -71,7 +72,8 @@ function launch(name: string, file: string, env: NodeJS.ProcessEnv): Service {
   const service = startService({
     name,
     command: process.execPath,
-    args: nodeTsArgs(file),
+    // A production bundle (.mjs) runs under plain node, as in production; sources under tsx.
+    args: file.endsWith('.mjs') ? ['--enable-source-maps', file] : nodeTsArgs(file),
     env,
     logFile: join(benchStack.logDir, `${name}.log`),
     quiet: true,
@@ -215,6 +217,8 @@ async function main(): Promise<void> {
     { env: { ...process.env, NODE_ENV: 'production' }, cwd: repoRoot },
   );
   if (buildCode !== 0) throw new Error(`vite build failed (exit ${buildCode}).`);
+  say('Bundling the API for production (npm run build:api)…');
+  await buildApiBundle();
   const sizes: BuildSizes = initialBuildSizes(benchStack.distDir);
   say(
     `  initial JS ${sizes.initialJsGzipKiB} KiB gzipped (${sizes.jsFiles.length} files), CSS ${sizes.initialCssGzipKiB} KiB gzipped`,
@@ -225,7 +229,7 @@ async function main(): Promise<void> {
   const [[{ version }]] = (await pool.query('SELECT VERSION() AS version')) as unknown as [[{ version: string }]];
   const machineInfo = machine(version);
 
-  const apiService = launch('api', apiFiles.server, { ...process.env, ...benchApiEnv() });
+  const apiService = launch('api', apiBundle.server, { ...process.env, ...benchApiEnv() });
   const baselineService = launch('baseline', join(import.meta.dirname, 'baseline-server.ts'), process.env);
   await waitFor(`${api}/api/health`, apiService);
   await waitFor(`${baselineUrl}/firm/1`, baselineService);

@@ -37,7 +37,8 @@ const label = option('label') ?? 'current';
 const only = option('reads')?.split(',');
 // --load N: each read also under 32 connections for N seconds, with the API's peak resident memory during it.
 const loadSeconds = Number(option('load') ?? '0');
-// --server: another checkout's server.ts (a before/after on the same machine, in the same minutes).
+// --server: another checkout's server.ts (a before/after on the same machine, in the same minutes), or a production
+// bundle (`npm run build:api`, a .mjs file), which runs under plain node as in production.
 const serverFile = option('server') ?? apiFiles.server;
 const api = `http://127.0.0.1:${benchStack.apiPort}`;
 const life = new Lifecycle();
@@ -71,7 +72,11 @@ async function main(): Promise<void> {
   const service = startService({
     name: 'api-reads',
     command: process.execPath,
-    args: [...(profile ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []), '--import', 'tsx', serverFile],
+    args: [
+      ...(profile ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []),
+      ...(serverFile.endsWith('.mjs') ? [] : ['--import', 'tsx']),
+      serverFile,
+    ],
     env: { ...process.env, ...benchApiEnv() },
     logFile: join(benchStack.logDir, 'api-reads.log'),
     quiet: true,
