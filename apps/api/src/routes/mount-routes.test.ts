@@ -1,52 +1,48 @@
 import { get } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import express from 'express';
+import express, { type Response } from 'express';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { z } from 'zod';
 import type { AppDeps } from '../app-deps.ts';
 import { mountRoutes } from './mount-routes.ts';
 import { defineRoute } from './route-registry.ts';
 
 // Routes marked `heavy` (whole-firm reads) are worked on at most HEAVY_READS_AT_ONCE at a time; the rest wait their
 // turn and are all answered (README, "Round two": the API's resident memory under a burst of them).
+/** A public GET route for these tests, heavy or not, answering through `answer`. */
+function testRoute(path: string, heavy: boolean, answer: (res: Response) => Promise<void>) {
+  return defineRoute({
+    method: 'get',
+    path,
+    tag: 'Test',
+    access: 'public',
+    tenantData: false,
+    heavy,
+    summary: heavy ? 'a slow whole-firm read' : 'a light read',
+    request: {},
+    responses: { 200: { description: 'ok' } },
+    handle: ({ res }) => answer(res),
+  });
+}
+
+const depsAllowing = (atOnce: number) =>
+  ({ env: { NODE_ENV: 'production', HEAVY_READS_AT_ONCE: atOnce } }) as unknown as AppDeps;
+
 describe('whole-firm reads worked on a few at a time', () => {
   it('eight at once: two are worked on at a time, all eight answered; a light route is not held behind them', async () => {
     let running = 0;
     let mostAtOnce = 0;
-    const heavy = defineRoute({
-      method: 'get',
-      path: '/heavy',
-      tag: 'Test',
-      access: 'public',
-      tenantData: false,
-      heavy: true,
-      summary: 'a slow whole-firm read',
-      request: {},
-      responses: { 200: { description: 'ok', schema: z.object({ n: z.number() }) } },
-      handle: async ({ res }) => {
-        running += 1;
-        mostAtOnce = Math.max(mostAtOnce, running);
-        await new Promise((resolve) => setTimeout(resolve, 40));
-        running -= 1;
-        res.json({ n: mostAtOnce });
-      },
+    const heavy = testRoute('/heavy', true, async (res) => {
+      running += 1;
+      mostAtOnce = Math.max(mostAtOnce, running);
+      await new Promise((resolve) => setTimeout(resolve, 40));
+      running -= 1;
+      res.json({ n: mostAtOnce });
     });
-    const light = defineRoute({
-      method: 'get',
-      path: '/light',
-      tag: 'Test',
-      access: 'public',
-      tenantData: false,
-      summary: 'a light read',
-      request: {},
-      responses: { 200: { description: 'ok' } },
-      handle: async ({ res }) => {
-        res.json({ heavyRunning: running });
-      },
+    const light = testRoute('/light', false, async (res) => {
+      res.json({ heavyRunning: running });
     });
-    const deps = { env: { NODE_ENV: 'production', HEAVY_READS_AT_ONCE: 2 } } as unknown as AppDeps;
-    const app = express().use(mountRoutes([heavy, light], deps));
+    const app = express().use(mountRoutes([heavy, light], depsAllowing(2)));
     const server = app.listen(0);
     try {
       const heavyAnswers = Array.from({ length: 8 }, () => request(server).get('/heavy'));
@@ -63,25 +59,13 @@ describe('whole-firm reads worked on a few at a time', () => {
 
   it('a queued read whose caller has gone is not worked on when its turn comes', async () => {
     let worked = 0;
-    const heavy = defineRoute({
-      method: 'get',
-      path: '/heavy',
-      tag: 'Test',
-      access: 'public',
-      tenantData: false,
-      heavy: true,
-      summary: 'a slow whole-firm read',
-      request: {},
-      responses: { 200: { description: 'ok' } },
-      handle: async ({ res }) => {
-        worked += 1;
-        await new Promise((resolve) => setTimeout(resolve, 150));
-        res.json({ worked });
-      },
+    const heavy = testRoute('/heavy', true, async (res) => {
+      worked += 1;
+      await new Promise((resolve) => setTimeout(resolve, 150));
+      res.json({ worked });
     });
-    const deps = { env: { NODE_ENV: 'production', HEAVY_READS_AT_ONCE: 1 } } as unknown as AppDeps;
     const server = express()
-      .use(mountRoutes([heavy], deps))
+      .use(mountRoutes([heavy], depsAllowing(1)))
       .listen(0);
     const { port } = server.address() as AddressInfo;
     try {
