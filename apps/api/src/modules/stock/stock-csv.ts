@@ -23,7 +23,7 @@ const movementColumns = (timeZone: string) => [
   `tapped (${timeZone})`,
 ];
 
-/** The ledger's rows as CSV; `header: false` for a piece after the first (stock-query-service, ledgerCsvPieces). */
+/** The ledger's rows as CSV; `header: false` for a piece after the first (stock-query-service, exportLedgerCsv). */
 export function movementsCsv(rows: Movement[], timeZone: string, options: { header?: boolean } = {}): string {
   return toCsv(
     movementColumns(timeZone),
