@@ -8,8 +8,9 @@ cd "$(dirname "${BASH_SOURCE[0]}")/../../.."
 with_browser=0
 for arg in "$@"; do
   case "$arg" in
-    --test) with_browser=1 ;;
-    *) echo "prepare.sh: unknown option $arg (only --test)" >&2; exit 2 ;;
+    # The browser tests and the bench's Lighthouse step drive Debian's Chromium.
+    --test | --browser) with_browser=1 ;;
+    *) echo "prepare.sh: unknown option $arg (only --test or --browser)" >&2; exit 2 ;;
   esac
 done
 
