@@ -2,11 +2,12 @@ import { mainNav } from './support/e2e-helpers';
 import { expect, test } from './support/fixture-test';
 import { signUpFirm } from './support/firm-fixtures';
 
-// Issue 16: the sign-in page paints from its HTML and stylesheet before the app's script has loaded (it is
-// rendered at build time, packages/devstack/src/prerender-sign-in.ts), and the script, once it runs, takes that
-// markup over without redrawing it: what was typed meanwhile stays.
+// Issue 16: the sign-in page paints from its HTML and stylesheet alone (it is rendered at build time,
+// packages/devstack/src/prerender-sign-in.ts); the app's script is fetched only when someone uses the page (or is
+// already signed in), and once it runs it takes that markup over without redrawing it: what was typed stays, and a
+// tap on Sign in made before it ran is sent after.
 
-test('the sign-in page comes in the HTML, waits for its script only to send, and keeps what was typed before it ran', async ({
+test('the sign-in page comes in the HTML, loads the app when used, and sends what was typed before it ran', async ({
   page,
   browser,
   baseURL,
@@ -39,30 +40,44 @@ test('the sign-in page comes in the HTML, waits for its script only to send, and
     await noScript.close();
   });
 
-  await test.step('typed before the script ran, kept after it took over; no hydration error', async () => {
+  await test.step('the app is fetched only once the page is used; a tap on Sign in before it ran is sent after', async () => {
     const firm = await signUpFirm(baseURL!);
     const errors: string[] = [];
     page.on('console', (message) => {
       if (message.type() === 'error') errors.push(message.text());
     });
     page.on('pageerror', (error) => errors.push(error.message));
-    // The app's script is held back until the e-mail has been typed into the pre-rendered field.
+    const entryRequests: string[] = [];
+    page.on('request', (r) => {
+      if (/\/assets\/index-[^/]+\.js$/.test(r.url())) entryRequests.push(r.url());
+    });
+    // The app's script is held back until the form has been filled in and sent.
     let release: () => void = () => undefined;
     const held = new Promise<void>((resolve) => (release = resolve));
     await page.route(/\/assets\/index-[^/]+\.js$/, async (route) => {
       await held;
       await route.continue();
     });
-    await page.goto('/sign-in', { waitUntil: 'commit' });
+    // The page asks whether someone is signed in (nobody is here), and then waits to be used.
+    const askedWhoIsSignedIn = page.waitForResponse((r) => new URL(r.url()).pathname === '/api/me');
+    await page.goto('/sign-in');
+    expect((await askedWhoIsSignedIn).status()).toBe(401);
+    await page.waitForTimeout(1000);
+    expect(entryRequests).toEqual([]);
     const email = page.getByLabel('E-mail', { exact: true });
     await email.fill(firm.owner.email);
-    await expect(page.getByRole('button', { name: 'Sign in' })).toBeDisabled();
-    release();
-    await expect(page.getByRole('button', { name: 'Sign in' })).toBeEnabled();
-    await expect(email).toHaveValue(firm.owner.email);
+    await expect.poll(() => entryRequests.length).toBe(1);
     await page.getByLabel('Password', { exact: true }).fill(firm.owner.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(email).toHaveValue(firm.owner.email);
+    release();
     await expect(mainNav(page)).toBeVisible();
     expect(errors.filter((text) => /hydrat|#418|#423|#425/i.test(text))).toEqual([]);
+  });
+
+  await test.step('someone already signed in who opens the sign-in page is taken on without touching it', async () => {
+    await page.goto('/sign-in');
+    await expect(mainNav(page)).toBeVisible();
+    await expect(page).toHaveURL(/\/$/);
   });
 });

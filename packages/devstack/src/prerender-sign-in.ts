@@ -37,18 +37,52 @@ if (!index.includes(root)) throw new Error('index.html has no empty #root to fil
 const entryTag = /<script type="module" crossorigin src="(\/assets\/index-[^"]+\.js)"><\/script>/.exec(index);
 if (!entryTag) throw new Error("index.html has no entry script tag in Vite's form.");
 
-// The app's script starts after the page has painted, not beside the HTML: on a slow link its 140 KiB would
-// otherwise share the line with the stylesheet the first paint waits for. It hydrates the page when it runs.
-const boot = `// Starts the app once the pre-rendered sign-in page has painted (packages/devstack/src/prerender-sign-in.ts).
+// The page is plain HTML until someone uses it: the app's script (140 KiB, most of a second of a slow phone's CPU
+// to start) is fetched and run at the first touch, key or focus on the page, or at once when /api/me says the
+// person is already signed in (the app then takes them on). The button, disabled in the HTML for a browser without
+// scripts, is enabled here; a submit before the app has taken the page over is held and sent once it has (the
+// form announces it with the 'heatfleet:sign-in-ready' event, apps/web/src/features/auth/components/sign-in-form.tsx).
+const boot = `// Starts the app when the pre-rendered sign-in page is first used (packages/devstack/src/prerender-sign-in.ts).
 let started = false;
+let ready = false;
+let held = false;
 const start = () => {
   if (started) return;
   started = true;
   import('${entryTag[1]}');
 };
-// After the second frame: the first has been painted by then. A tab in the background runs no frames.
-requestAnimationFrame(() => requestAnimationFrame(start));
-setTimeout(start, 1000);
+for (const type of ['pointerdown', 'touchstart', 'keydown', 'focusin', 'input']) {
+  document.addEventListener(type, start, { capture: true, passive: true, once: true });
+}
+const form = () => document.querySelector('#root form');
+const button = form()?.querySelector('button[type="submit"]');
+if (button) button.disabled = false;
+document.addEventListener(
+  'submit',
+  (event) => {
+    if (ready) return;
+    event.preventDefault();
+    event.stopImmediatePropagation();
+    held = true;
+    start();
+  },
+  true,
+);
+window.addEventListener(
+  'heatfleet:sign-in-ready',
+  () => {
+    ready = true;
+    if (held) form()?.requestSubmit();
+  },
+  { once: true },
+);
+// The service worker as the app registers it (apps/web/src/lib/offline/app-update.ts), so the app can be installed
+// from this page and opens without signal later; the app's own registration finds this one.
+window.addEventListener('load', () => navigator.serviceWorker?.register('/service-worker.js', { scope: '/' }).catch(() => undefined));
+fetch('/api/me', { credentials: 'same-origin', headers: { accept: 'application/json' } }).then(
+  (answer) => answer.ok && start(),
+  () => undefined,
+);
 `;
 const bootFile = `assets/sign-in-boot-${createHash('sha256').update(boot).digest('hex').slice(0, 8)}.js`;
 writeFileSync(join(outDir, bootFile), boot);

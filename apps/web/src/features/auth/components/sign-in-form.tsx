@@ -1,3 +1,4 @@
+import { useEffect } from 'react';
 import { Link } from 'react-router-dom';
 import { signInInputSchema } from '@heatfleet/domain';
 import { Alert } from '@/components/ui/alert';
@@ -14,12 +15,18 @@ export function SignInForm() {
   const signIn = useSignIn();
   const form = useSchemaForm(signInInputSchema, fields);
   const hydrated = useHydrated();
+  // The pre-rendered page's boot script holds a submit made before the app took the page over, and sends it on this
+  // (packages/devstack/src/prerender-sign-in.ts).
+  useEffect(() => {
+    window.dispatchEvent(new Event('heatfleet:sign-in-ready'));
+  }, []);
 
   return (
     <form
       ref={form.formRef}
-      // Never used while the scripts run (the button waits for them); with scripts off the browser's own submit
-      // posts, which the API sends back to the page, rather than putting the password into the address as a GET.
+      // Never used while the scripts run (before the app takes the page over, its boot script holds a submit); with
+      // scripts off the button stays disabled, and the browser's own submit would post, which the API sends back to
+      // the page, rather than putting the password into the address as a GET.
       method="post"
       noValidate
       className="space-y-4"
