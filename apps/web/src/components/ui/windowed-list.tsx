@@ -24,9 +24,11 @@ export function WindowedList<T>({
   useLayoutEffect(() => {
     const list = listRef.current;
     if (!list) return;
-    // The list's distance from the top of the page moves when anything above it changes size.
+    // The list's distance from the top of the page moves when anything above it changes size. Measured only when the
+    // observer reports, after the browser's own layout: measured here, straight after React has put the page in,
+    // it forced a layout of the whole page and a second render before the first paint (a 4x slowed profile of the
+    // large firm's overview: 174 ms of 1.3 s). Until then the rows are placed from the list's top as they are after.
     const measure = () => setScrollMargin(Math.round(list.getBoundingClientRect().top + window.scrollY));
-    measure();
     const observer = new ResizeObserver(measure);
     observer.observe(document.body);
     return () => observer.disconnect();
