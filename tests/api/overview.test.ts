@@ -63,6 +63,8 @@ async function seedKnownFirm(): Promise<{ firm: SeededFirm; today: string; inhib
     { firm_id: f, location_id: firm.van.id, batch_id: expiredBatch, product_id: firm.product.id, quantity: 3 },
     { firm_id: f, location_id: firm.depotId, batch_id: soonBatch, product_id: inhibitorId, quantity: 4 },
     { firm_id: f, location_id: firm.depotId, batch_id: laterBatch, product_id: inhibitorId, quantity: 6 },
+    // Used up on the spare van: a place holding none of a lot is not one of its places.
+    { firm_id: f, location_id: firm.spareVanId, batch_id: expiredBatch, product_id: firm.product.id, quantity: 0 },
   ]);
 
   // Vans: the van's MOT in 10 days (due soon), the spare van's service yesterday (overdue).
@@ -290,6 +292,12 @@ describe('owner overview', () => {
     ).toEqual([
       [`EXP${firm.firmId}`, true, 3],
       [`SOON${firm.firmId}`, false, 4],
+    ]);
+    const placeName = async (id: number) =>
+      ((await t.deps.db('locations').where({ firm_id: firm.firmId, id }).first('name')) as { name: string }).name;
+    expect(o.expiringBatches.batches.map((b: { places: unknown }) => b.places)).toEqual([
+      [{ name: await placeName(firm.van.id), quantity: 3 }],
+      [{ name: await placeName(firm.depotId), quantity: 4 }],
     ]);
 
     expect(o.jobsThisMonth).toEqual({ month: today.slice(0, 7), planned: 1, completed: 1 });

@@ -15,7 +15,7 @@ import {
 } from '@heatfleet/domain';
 import type { Actor, AppDeps } from '../../app-deps.ts';
 import { findFirm } from '../firms/firm-dal.ts';
-import { listBatchesHeldExpiringBy } from '../reminders/reminder-stock-dal.ts';
+import { listBatchTotalsExpiringBy, listPlacesHoldingBatches } from '../reminders/reminder-stock-dal.ts';
 import { firmBookedJobs } from '../stock/booked-need-service.ts';
 import { stockLevels } from '../stock/stock-query-service.ts';
 import { vanStockHealth } from './overview-stock.ts';
@@ -98,6 +98,17 @@ export function startOfDayIn(day: CalendarDate, timeZone: string): Date {
   return new Date(t);
 }
 
+/** Every lot held somewhere that is out of date within the window, and the places of the first few shown. */
+async function expiringBatches(deps: AppDeps, firmId: number, today: CalendarDate) {
+  const all = await listBatchTotalsExpiringBy(deps.db, firmId, addDays(today, EXPIRY_WINDOW_DAYS));
+  const placesOf = await listPlacesHoldingBatches(
+    deps.db,
+    firmId,
+    all.slice(0, FIRST_FEW).map((b) => b.batchId),
+  );
+  return { all, placesOf };
+}
+
 function nextDueOf(
   van: { mot_due_on: string | null; service_due_on: string | null },
   today: CalendarDate,
@@ -144,7 +155,7 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
       firmBookedJobs(deps.db, actor.firmId, today).then((booked) => booked.packs),
     ),
     listItemDueInputs(deps.db, actor.firmId),
-    listBatchesHeldExpiringBy(deps.db, actor.firmId, addDays(today, EXPIRY_WINDOW_DAYS)),
+    expiringBatches(deps, actor.firmId, today),
     countJobsScheduled(deps.db, actor.firmId, monthStart, addMonths(monthStart, 1)),
     usageByMonth(deps, actor.firmId, timeZone, monthStarts),
     listProductsForUsage(deps.db, actor.firmId),
@@ -231,11 +242,11 @@ export async function getOverview(deps: AppDeps, actor: Actor): Promise<Overview
     },
     expiringBatches: {
       withinDays: EXPIRY_WINDOW_DAYS,
-      count: batches.length,
-      packs: batches.reduce((n, b) => n + b.places.reduce((m, p) => m + p.quantity, 0), 0),
-      batches: batches
+      count: batches.all.length,
+      packs: batches.all.reduce((n, b) => n + b.packs, 0),
+      batches: batches.all
         .slice(0, FIRST_FEW)
-        .map((b) => ({ ...b, expired: b.expiresOn < today, packs: b.places.reduce((m, p) => m + p.quantity, 0) })),
+        .map((b) => ({ ...b, expired: b.expiresOn < today, places: batches.placesOf.get(b.batchId) ?? [] })),
     },
     jobsThisMonth: { month: today.slice(0, 7), ...jobs },
     usageByMonth: months,

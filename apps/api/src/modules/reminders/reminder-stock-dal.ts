@@ -128,3 +128,77 @@ export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay:
   }
   return [...byBatch.values()];
 }
+
+export interface BatchHeldTotal {
+  batchId: number;
+  lotNumber: string;
+  expiresOn: CalendarDate;
+  productName: string;
+  /** Packs over every place holding it. */
+  packs: number;
+}
+
+/**
+ * The same lots as listBatchesHeldExpiringBy, in the same order, with their packs added up in SQL rather than a row
+ * per place: the overview shows every lot's count but the places of only the first few. On the bench's 100k firm
+ * the lots near expiry are held in 8,537 places (26 ms read place by place).
+ */
+export async function listBatchTotalsExpiringBy(
+  db: Db,
+  firmId: number,
+  lastDay: CalendarDate,
+): Promise<BatchHeldTotal[]> {
+  const rows = (await db
+    .from(db.raw('?? as ?? force index (??)', ['stock_balances', 's', 'stock_balances_firm_batch_quantity']))
+    .join('product_batches as b', (j) => j.on('b.id', '=', 's.batch_id').andOn('b.firm_id', '=', 's.firm_id'))
+    .join('products as p', (j) => j.on('p.id', '=', 'b.product_id').andOn('p.firm_id', '=', 'b.firm_id'))
+    .where('s.firm_id', firmId)
+    .where('s.quantity', '>', 0)
+    .where('b.expires_on', '<=', lastDay)
+    .where('p.active', true)
+    .groupBy('b.id', 'b.lot_number', 'b.expires_on', 'p.name')
+    .select('b.id as batch_id', 'b.lot_number', 'b.expires_on', 'p.name as product_name')
+    .sum({ packs: 's.quantity' })
+    .orderBy([{ column: 'b.expires_on' }, { column: 'p.name' }, { column: 'b.lot_number' }])) as {
+    batch_id: number;
+    lot_number: string;
+    expires_on: string;
+    product_name: string;
+    packs: number | string;
+  }[];
+  return rows.map((r) => ({
+    batchId: r.batch_id,
+    lotNumber: r.lot_number,
+    expiresOn: r.expires_on,
+    productName: r.product_name,
+    packs: Number(r.packs),
+  }));
+}
+
+/** The places holding packs of some lots, largest first (as listBatchesHeldExpiringBy lists them), by lot. */
+export async function listPlacesHoldingBatches(
+  db: Db,
+  firmId: number,
+  batchIds: number[],
+): Promise<Map<number, { name: string; quantity: number }[]>> {
+  const byBatch = new Map<number, { name: string; quantity: number }[]>();
+  if (batchIds.length === 0) return byBatch;
+  const rows = (await db
+    .from(db.raw('?? as ?? force index (??)', ['stock_balances', 's', 'stock_balances_firm_batch_quantity']))
+    .join('locations as l', (j) => j.on('l.id', '=', 's.location_id').andOn('l.firm_id', '=', 's.firm_id'))
+    .where('s.firm_id', firmId)
+    .whereIn('s.batch_id', batchIds)
+    .where('s.quantity', '>', 0)
+    .select('s.batch_id', 'l.name', 's.quantity')
+    .orderBy([{ column: 's.quantity', order: 'desc' }, { column: 'l.name' }])) as {
+    batch_id: number;
+    name: string;
+    quantity: number;
+  }[];
+  for (const r of rows) {
+    const places = byBatch.get(r.batch_id);
+    if (places) places.push({ name: r.name, quantity: r.quantity });
+    else byBatch.set(r.batch_id, [{ name: r.name, quantity: r.quantity }]);
+  }
+  return byBatch;
+}
