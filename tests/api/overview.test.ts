@@ -362,6 +362,37 @@ describe('owner overview', () => {
     expect(month(`${year}-06`)?.totalLitres ?? 0).toBe(0);
   });
 
+  it('counts every lot near expiry and its packs, and names the places of the first ten, most packs first', async () => {
+    const firm = await seedFirm(t.deps.db, 'overview-lots');
+    const db = t.deps.db;
+    const f = firm.firmId;
+    const today = calendarDateIn(t.clock.now(), 'Europe/London');
+    // Twelve lots out of date on days 1 to 12 from today, each 2 packs on the van and i packs at the depot.
+    for (let i = 1; i <= 12; i += 1) {
+      const [batchId] = (await db('product_batches').insert({
+        firm_id: f,
+        product_id: firm.product.id,
+        lot_number: `L${String(i).padStart(2, '0')}-${f}`,
+        expires_on: addDays(today, i),
+      })) as number[];
+      await db('stock_balances').insert([
+        { firm_id: f, location_id: firm.van.id, batch_id: batchId, product_id: firm.product.id, quantity: 2 },
+        { firm_id: f, location_id: firm.depotId, batch_id: batchId, product_id: firm.product.id, quantity: i },
+      ]);
+    }
+    const owner = await signIn(t.app, firm.people.owner.email);
+    const o = (await owner.get('/api/overview').expect(200)).body.overview;
+    const lots = o.expiringBatches.batches as { lotNumber: string; packs: number; places: { quantity: number }[] }[];
+    // Counted by hand: 12 lots; 12 x 2 on the van plus 1 + 2 + ... + 12 = 78 at the depot.
+    expect(o.expiringBatches).toMatchObject({ count: 12, packs: 24 + 78 });
+    expect(lots.map((l) => l.lotNumber)).toEqual(
+      Array.from({ length: 10 }, (_, n) => `L${String(n + 1).padStart(2, '0')}-${f}`),
+    );
+    expect(lots.map((l) => l.packs)).toEqual(Array.from({ length: 10 }, (_, n) => n + 1 + 2));
+    expect(lots[0]!.places.map((p) => p.quantity)).toEqual([2, 1]);
+    expect(lots[9]!.places.map((p) => p.quantity)).toEqual([10, 2]);
+  });
+
   it('an engineer sees the overview with their own vibration points only, and no reminders', async () => {
     const { firm } = await seedKnownFirm();
     const engineer = await signIn(t.app, firm.people.engineer.email);
