@@ -78,18 +78,23 @@ export interface BatchHeld {
 }
 
 /**
- * Batches of active products with stock somewhere that expire on or before `lastDay` (already expired included).
- * The index with the packs in it is named: left to choose, MariaDB took the foreign key's and read every place's
- * row of each lot, used up or not (migrations/20261204183000_index-held-lots-by-batch.ts).
+ * The firm's balance rows (as `s`) that hold packs, read by lot. The index with the packs in it is named: left to
+ * choose, MariaDB took the foreign key's and read every place's row of each lot, used up or not
+ * (migrations/20261204183000_index-held-lots-by-batch.ts).
  */
-export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay: CalendarDate): Promise<BatchHeld[]> {
-  const rows = (await db
+function heldBalances(db: Db, firmId: number) {
+  return db
     .from(db.raw('?? as ?? force index (??)', ['stock_balances', 's', 'stock_balances_firm_batch_quantity']))
+    .where('s.firm_id', firmId)
+    .where('s.quantity', '>', 0);
+}
+
+/** Batches of active products with stock somewhere that expire on or before `lastDay` (already expired included). */
+export async function listBatchesHeldExpiringBy(db: Db, firmId: number, lastDay: CalendarDate): Promise<BatchHeld[]> {
+  const rows = (await heldBalances(db, firmId)
     .join('product_batches as b', (j) => j.on('b.id', '=', 's.batch_id').andOn('b.firm_id', '=', 's.firm_id'))
     .join('products as p', (j) => j.on('p.id', '=', 's.product_id').andOn('p.firm_id', '=', 's.firm_id'))
     .join('locations as l', (j) => j.on('l.id', '=', 's.location_id').andOn('l.firm_id', '=', 's.firm_id'))
-    .where('s.firm_id', firmId)
-    .where('s.quantity', '>', 0)
     .where('b.expires_on', '<=', lastDay)
     .where('p.active', true)
     .select(
@@ -148,12 +153,9 @@ export async function listBatchTotalsExpiringBy(
   firmId: number,
   lastDay: CalendarDate,
 ): Promise<BatchHeldTotal[]> {
-  const rows = (await db
-    .from(db.raw('?? as ?? force index (??)', ['stock_balances', 's', 'stock_balances_firm_batch_quantity']))
+  const rows = (await heldBalances(db, firmId)
     .join('product_batches as b', (j) => j.on('b.id', '=', 's.batch_id').andOn('b.firm_id', '=', 's.firm_id'))
     .join('products as p', (j) => j.on('p.id', '=', 'b.product_id').andOn('p.firm_id', '=', 'b.firm_id'))
-    .where('s.firm_id', firmId)
-    .where('s.quantity', '>', 0)
     .where('b.expires_on', '<=', lastDay)
     .where('p.active', true)
     .groupBy('b.id', 'b.lot_number', 'b.expires_on', 'p.name')
@@ -183,12 +185,9 @@ export async function listPlacesHoldingBatches(
 ): Promise<Map<number, { name: string; quantity: number }[]>> {
   const byBatch = new Map<number, { name: string; quantity: number }[]>();
   if (batchIds.length === 0) return byBatch;
-  const rows = (await db
-    .from(db.raw('?? as ?? force index (??)', ['stock_balances', 's', 'stock_balances_firm_batch_quantity']))
+  const rows = (await heldBalances(db, firmId)
     .join('locations as l', (j) => j.on('l.id', '=', 's.location_id').andOn('l.firm_id', '=', 's.firm_id'))
-    .where('s.firm_id', firmId)
     .whereIn('s.batch_id', batchIds)
-    .where('s.quantity', '>', 0)
     .select('s.batch_id', 'l.name', 's.quantity')
     .orderBy([{ column: 's.quantity', order: 'desc' }, { column: 'l.name' }])) as {
     batch_id: number;
